@@ -1,0 +1,60 @@
+import { goldAlloyDensity } from "./alloy";
+import type { WeighMethod } from "./types";
+import { waterDensity } from "./water";
+
+/** OIML D 28: conventional weighing in air at 1.2 kg/m³ against reference weights of 8000 kg/m³. */
+export const AIR_DENSITY = 0.0012;
+export const REFERENCE_WEIGHT_DENSITY = 8.0;
+
+/** One point of the input space: every uncertain quantity fixed to a value. */
+export type ModelPoint = {
+  air: number; // mean air reading, g
+  water: number; // mean water reading as the method gives it, g
+  tempC: number;
+  host: number; // host rock density, g/cm³
+  fineness: number; // ‰
+};
+
+export type ModelSettings = { method: WeighMethod; goldDensity?: number; airCorrection: boolean };
+
+export type ModelResult = {
+  density: number;
+  volume: number;
+  mass: number;
+  alloyDensity: number;
+  alloy: number;
+  fine: number;
+};
+
+/** Mass of water pushed aside: the hanging loss of weight, or the buoyancy reading itself. */
+export function displacedGrams(method: WeighMethod, air: number, water: number): number {
+  return method === "hanging" ? air - water : water;
+}
+
+/**
+ * The two-component mixture (the classical hydrostatic rule for a compound of two
+ * substances whose volumes add): m_g = m·ρg·(ρs − ρh) / (ρs·(ρg − ρh)), clamped to
+ * [0, m] so that a reading outside the two densities gives "none" or "all of it".
+ */
+export function evaluateModel(p: ModelPoint, s: ModelSettings): ModelResult {
+  const rhoW = waterDensity(p.tempC);
+  const displaced = displacedGrams(s.method, p.air, p.water);
+  let density: number;
+  let mass: number;
+  if (s.airCorrection) {
+    // Density-kit form with air buoyancy: ρs = A·(ρw − ρa)/(A − B) + ρa; true mass from the
+    // conventional value (OIML D 28): m = A·(1 − ρa/ρref)/(1 − ρa/ρs).
+    density = displaced > 0 ? (p.air * (rhoW - AIR_DENSITY)) / displaced + AIR_DENSITY : Infinity;
+    mass = (p.air * (1 - AIR_DENSITY / REFERENCE_WEIGHT_DENSITY)) / (1 - AIR_DENSITY / density);
+  } else {
+    density = displaced > 0 ? (p.air * rhoW) / displaced : Infinity;
+    mass = p.air;
+  }
+  const alloyDensity = s.goldDensity ?? goldAlloyDensity(p.fineness);
+  let alloy: number;
+  if (density <= p.host) alloy = 0;
+  else if (density >= alloyDensity) alloy = mass;
+  else alloy = (mass * alloyDensity * (density - p.host)) / (density * (alloyDensity - p.host));
+  const fine = (alloy * p.fineness) / 1000;
+  return { density, volume: mass / density, mass, alloyDensity, alloy, fine };
+}

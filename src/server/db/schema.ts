@@ -1,0 +1,237 @@
+import { sql } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
+import { index, integer, primaryKey, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
+
+// Time stamps are milliseconds since the epoch, set by the server. Syncable tables carry
+// `seq`, the value of the change sequence at their last write: pull cursors compare it,
+// never a clock. Member records use client-made UUID v7 ids.
+
+const now = sql`(unixepoch('subsec') * 1000)`;
+const createdAt = () => integer("created_at", { mode: "number" }).notNull().default(now);
+const seq = () => integer("seq").notNull().default(0);
+
+export const members = sqliteTable("members", {
+  id: text("id").primaryKey().$defaultFn(() => uuidv7()),
+  email: text("email").notNull().unique(),
+  name: text("name"),
+  emailVerified: integer("email_verified", { mode: "timestamp_ms" }),
+  image: text("image"),
+  role: text("role", { enum: ["member", "officer"] }).notNull().default("member"),
+  passwordHash: text("password_hash"),
+  active: integer("active", { mode: "boolean" }).notNull().default(true),
+  /** Bumped to end every session of the member at once (deactivation, role change). */
+  sessionVersion: integer("session_version").notNull().default(0),
+  /** What officers see of this member's find positions. */
+  locationSharing: text("location_sharing", { enum: ["exact", "claim"] }).notNull().default("exact"),
+  createdAt: createdAt(),
+});
+
+// Auth.js adapter tables: the e-mail link provider keeps its one-time tokens here.
+export const accounts = sqliteTable(
+  "accounts",
+  {
+    userId: text("user_id").notNull().references(() => members.id, { onDelete: "cascade" }),
+    type: text("type").notNull(),
+    provider: text("provider").notNull(),
+    providerAccountId: text("provider_account_id").notNull(),
+    refresh_token: text("refresh_token"),
+    access_token: text("access_token"),
+    expires_at: integer("expires_at"),
+    token_type: text("token_type"),
+    scope: text("scope"),
+    id_token: text("id_token"),
+    session_state: text("session_state"),
+  },
+  (t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })],
+);
+
+export const authSessions = sqliteTable("auth_sessions", {
+  sessionToken: text("session_token").primaryKey(),
+  userId: text("user_id").notNull().references(() => members.id, { onDelete: "cascade" }),
+  expires: integer("expires", { mode: "timestamp_ms" }).notNull(),
+});
+
+export const verificationTokens = sqliteTable(
+  "verification_tokens",
+  {
+    identifier: text("identifier").notNull(),
+    token: text("token").notNull(),
+    expires: integer("expires", { mode: "timestamp_ms" }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.identifier, t.token] })],
+);
+
+export const invitations = sqliteTable("invitations", {
+  id: text("id").primaryKey(),
+  email: text("email").notNull(),
+  role: text("role", { enum: ["member", "officer"] }).notNull().default("member"),
+  tokenHash: text("token_hash").notNull().unique(),
+  invitedBy: text("invited_by").references(() => members.id),
+  expiresAt: integer("expires_at").notNull(),
+  acceptedAt: integer("accepted_at"),
+  revokedAt: integer("revoked_at"),
+  createdAt: createdAt(),
+});
+
+export const claims = sqliteTable("claims", {
+  id: text("id").primaryKey(),
+  name: text("name").notNull(),
+  kind: text("kind", { enum: ["placer", "lode"] }).notNull(),
+  agencyRef: text("agency_ref"),
+  /** GeoJSON Polygon or MultiPolygon, WGS 84 longitude/latitude. */
+  boundary: text("boundary", { mode: "json" }).$type<GeoJsonPolygon>(),
+  rules: text("rules").notNull().default(""),
+  active: integer("active", { mode: "boolean" }).notNull().default(true),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  seq: seq(),
+}, (t) => [index("claims_seq").on(t.seq)]);
+
+export type GeoJsonPolygon =
+  | { type: "Polygon"; coordinates: number[][][] }
+  | { type: "MultiPolygon"; coordinates: number[][][][] };
+
+const OUTING_METHODS = ["detecting", "panning", "sluicing", "drywashing", "other"] as const;
+const FIND_KINDS = ["nugget", "specimen", "flakes", "fines", "crystalline"] as const;
+
+export const outings = sqliteTable("outings", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  claimId: text("claim_id").references(() => claims.id),
+  startedAt: integer("started_at").notNull(),
+  endedAt: integer("ended_at"),
+  companions: text("companions").notNull().default(""),
+  method: text("method", { enum: OUTING_METHODS }).notNull(),
+  hours: real("hours"),
+  conditions: text("conditions").notNull().default(""),
+  notes: text("notes").notNull().default(""),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [index("outings_member_seq").on(t.memberId, t.seq), index("outings_seq").on(t.seq)]);
+
+export const finds = sqliteTable("finds", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  outingId: text("outing_id").references(() => outings.id),
+  claimId: text("claim_id").references(() => claims.id),
+  kind: text("kind", { enum: FIND_KINDS }).notNull(),
+  weightGrams: real("weight_grams"),
+  depthCm: real("depth_cm"),
+  method: text("method", { enum: OUTING_METHODS }).notNull(),
+  notes: text("notes").notNull().default(""),
+  lat: real("lat"),
+  lon: real("lon"),
+  accuracyM: real("accuracy_m"),
+  foundAt: integer("found_at").notNull(),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [
+  index("finds_member_seq").on(t.memberId, t.seq),
+  index("finds_seq").on(t.seq),
+  index("finds_claim_found").on(t.claimId, t.foundAt),
+  index("finds_found").on(t.foundAt),
+]);
+
+export const photos = sqliteTable("photos", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  findId: text("find_id").notNull().references(() => finds.id),
+  sha256: text("sha256").notNull(),
+  contentType: text("content_type").notNull(),
+  bytes: integer("bytes").notNull(),
+  width: integer("width"),
+  height: integer("height"),
+  storageKey: text("storage_key"),
+  takenAt: integer("taken_at"),
+  uploadedAt: integer("uploaded_at"),
+  createdAt: createdAt(),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [index("photos_find").on(t.findId), index("photos_member_seq").on(t.memberId, t.seq)]);
+
+export const weighIns = sqliteTable("weigh_ins", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  findId: text("find_id").notNull().references(() => finds.id),
+  /** The SpecimenInput as the member entered it. */
+  input: text("input", { mode: "json" }).notNull().$type<Record<string, unknown>>(),
+  /** The estimate as the device computed it, and as the server recomputed it. */
+  deviceEstimate: text("device_estimate", { mode: "json" }).$type<Record<string, unknown>>(),
+  serverEstimate: text("server_estimate", { mode: "json" }).$type<Record<string, unknown>>(),
+  engineVersion: text("engine_version"),
+  fineGoldGrams: real("fine_gold_grams"),
+  goldAlloyGrams: real("gold_alloy_grams"),
+  /** True when the device's figures differ from the server's recomputation. */
+  mismatch: integer("mismatch", { mode: "boolean" }).notNull().default(false),
+  weighedAt: integer("weighed_at").notNull(),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [index("weigh_ins_find").on(t.findId, t.weighedAt), index("weigh_ins_member_seq").on(t.memberId, t.seq)]);
+
+export const reviews = sqliteTable("reviews", {
+  id: text("id").primaryKey(),
+  findId: text("find_id").notNull().references(() => finds.id),
+  officerId: text("officer_id").notNull().references(() => members.id),
+  action: text("action", { enum: ["verify", "query", "note"] }).notNull(),
+  note: text("note").notNull().default(""),
+  createdAt: createdAt(),
+  seq: seq(),
+}, (t) => [index("reviews_find").on(t.findId, t.createdAt), index("reviews_seq").on(t.seq)]);
+
+export const referencePrices = sqliteTable("reference_prices", {
+  id: text("id").primaryKey(),
+  /** ISO date (YYYY-MM-DD) from which this price is in force. */
+  effectiveOn: text("effective_on").notNull(),
+  pricePerTroyOunce: real("price_per_troy_ounce").notNull(),
+  currency: text("currency").notNull(),
+  recordedBy: text("recorded_by").references(() => members.id),
+  createdAt: createdAt(),
+  seq: seq(),
+}, (t) => [index("reference_prices_effective").on(t.effectiveOn)]);
+
+export const syncClients = sqliteTable("sync_clients", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  lastMutationId: integer("last_mutation_id").notNull().default(0),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+});
+
+/** Named counters; "change" is the server sequence that orders every syncable write. */
+export const sequences = sqliteTable("sequences", {
+  name: text("name").primaryKey(),
+  value: integer("value").notNull().default(0),
+});
+
+/** Earlier versions of a record replaced by a later arrival (two devices of one member). */
+export const recordHistory = sqliteTable("record_history", {
+  id: integer("id").primaryKey({ autoIncrement: true }),
+  entity: text("entity").notNull(),
+  entityId: text("entity_id").notNull(),
+  memberId: text("member_id").notNull(),
+  version: text("version", { mode: "json" }).notNull().$type<Record<string, unknown>>(),
+  replacedAt: integer("replaced_at").notNull().default(now),
+}, (t) => [index("record_history_entity").on(t.entity, t.entityId)]);
+
+export const auditLog = sqliteTable("audit_log", {
+  id: integer("id").primaryKey({ autoIncrement: true }),
+  at: integer("at").notNull().default(now),
+  actorId: text("actor_id"),
+  action: text("action").notNull(),
+  entity: text("entity").notNull(),
+  entityId: text("entity_id"),
+  before: text("before", { mode: "json" }).$type<unknown>(),
+  after: text("after", { mode: "json" }).$type<unknown>(),
+}, (t) => [index("audit_log_entity").on(t.entity, t.entityId)]);
+
+export type Member = typeof members.$inferSelect;
+export type Claim = typeof claims.$inferSelect;
+export type Find = typeof finds.$inferSelect;
+export type Outing = typeof outings.$inferSelect;
+export type WeighIn = typeof weighIns.$inferSelect;

@@ -1,0 +1,73 @@
+import "server-only";
+import { NextResponse } from "next/server";
+import { z } from "zod";
+import { AppError, type FieldErrors } from "./errors";
+import { logger } from "./log";
+
+export function fieldErrorsOf(error: z.ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.map(String).join(".") || "_";
+    (fields[key] ??= []).push(issue.message);
+  }
+  return fields;
+}
+
+export function badRequest(subject: string, error: z.ZodError): AppError {
+  const fields = fieldErrorsOf(error);
+  const named = Object.keys(fields).filter((k) => k !== "_");
+  const message = named.length > 0 ? `Check ${named.join(", ")}: ${fields[named[0]][0]}` : (fields._?.[0] ?? "The request is not valid.");
+  return new AppError(`bad_request:${subject}`, message, fields);
+}
+
+export const MAX_JSON_BYTES = 1_000_000;
+
+/** Reads a JSON body (refusing other content types and oversize bodies) and parses it with zod. */
+export async function parseJsonBody<T extends z.ZodType>(req: Request, schema: T, subject: string, maxBytes = MAX_JSON_BYTES): Promise<z.infer<T>> {
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.toLowerCase().startsWith("application/json")) {
+    throw new AppError(`unsupported:${subject}`, "Send the body as application/json.");
+  }
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw new AppError(`too_large:${subject}`, `The body is over ${maxBytes} bytes.`);
+  const text = await req.text();
+  if (text.length > maxBytes) throw new AppError(`too_large:${subject}`, `The body is over ${maxBytes} bytes.`);
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    throw new AppError(`bad_request:${subject}`, "The body is not valid JSON.", { _: ["not valid JSON"] });
+  }
+  const parsed = schema.safeParse(raw);
+  if (!parsed.success) throw badRequest(subject, parsed.error);
+  return parsed.data;
+}
+
+export function parseSearchParams<T extends z.ZodType>(req: Request, schema: T, subject: string): z.infer<T> {
+  const params = Object.fromEntries(new URL(req.url).searchParams);
+  const parsed = schema.safeParse(params);
+  if (!parsed.success) throw badRequest(subject, parsed.error);
+  return parsed.data;
+}
+
+type Handler<C> = (req: Request, ctx: C) => Promise<Response> | Response;
+
+/** Every route handler goes through here: AppErrors become their status, anything else a logged 500. */
+export function route<C = unknown>(handler: Handler<C>): Handler<C> {
+  return async (req, ctx) => {
+    try {
+      return await handler(req, ctx);
+    } catch (error) {
+      if (error instanceof AppError) {
+        if (error.status >= 401) logger.warn({ code: error.code, method: req.method, path: new URL(req.url).pathname }, "refused");
+        return NextResponse.json(error.toJSON(), { status: error.status, headers: { "Cache-Control": "no-store" } });
+      }
+      logger.error({ err: error instanceof Error ? { name: error.name, message: error.message, stack: error.stack } : String(error), path: new URL(req.url).pathname }, "handler failed");
+      return NextResponse.json({ error: { code: "server_error", message: "Something went wrong on the server. Nothing you sent was lost; try again." } }, { status: 500 });
+    }
+  };
+}
+
+export function json(data: unknown, init?: ResponseInit): Response {
+  return NextResponse.json(data, { ...init, headers: { "Cache-Control": "no-store", ...init?.headers } });
+}
