@@ -117,7 +117,9 @@ const specimenArb = fc.record({
   tempC: fc.double({ min: 5, max: 35, noNaN: true }),
 });
 
-function inputFor(s: fc.RecordValue<typeof specimenArb> extends infer T ? T : never, method: "hanging" | "buoyancy" = "hanging"): SpecimenInput {
+type Specimen = Parameters<typeof composeSpecimen>[0] & { tempC: number };
+
+function inputFor(s: Specimen, method: "hanging" | "buoyancy" = "hanging"): SpecimenInput {
   const w = composeSpecimen(s);
   return {
     method,

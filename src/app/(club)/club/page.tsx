@@ -1,0 +1,91 @@
+import type { Metadata } from "next";
+import { formatGrams } from "@/components/figures";
+import { ROLE_LABELS } from "@/lib/roles";
+import { currentSeason } from "@/lib/season";
+import { requirePageActor } from "@/server/auth/current";
+import { listMembers } from "@/server/queries/members";
+import { clubSeasonByClaim } from "@/server/queries/tally";
+
+export const metadata: Metadata = { title: "Club console" };
+
+export default async function ClubConsolePage() {
+  await requirePageActor("viewLedger", "/club");
+  const season = currentSeason();
+  const byClaim = clubSeasonByClaim(season);
+  const roll = listMembers();
+  const total = byClaim.reduce((t, c) => ({ finds: t.finds + c.finds, weight: t.weight + c.weightGrams, fine: t.fine + c.fineGoldGrams }), { finds: 0, weight: 0, fine: 0 });
+
+  return (
+    <div className="flex flex-col gap-6">
+      <h1 className="text-2xl font-bold">Club console · {season} season</h1>
+
+      <section aria-labelledby="claims-title" className="sheet overflow-x-auto">
+        <h2 id="claims-title" className="heading-bar mb-3 text-lg">
+          Production by claim
+        </h2>
+        <table className="w-full text-left">
+          <thead>
+            <tr className="border-b-2 border-rule">
+              <th className="py-2 pr-3">Claim</th>
+              <th className="py-2 pr-3">Kind</th>
+              <th className="py-2 pr-3 text-right">Finds</th>
+              <th className="py-2 pr-3 text-right">Members</th>
+              <th className="py-2 pr-3 text-right">Recorded weight</th>
+              <th className="py-2 text-right">Fine gold (est.)</th>
+            </tr>
+          </thead>
+          <tbody>
+            {byClaim.map((c) => (
+              <tr key={c.claimId ?? "none"} className="border-b border-rule">
+                <td className="py-2 pr-3 font-bold">{c.claimName ?? "Off-claim"}</td>
+                <td className="py-2 pr-3 capitalize">{c.kind ?? "—"}</td>
+                <td className="figure py-2 pr-3 text-right">{c.finds}</td>
+                <td className="figure py-2 pr-3 text-right">{c.members}</td>
+                <td className="figure py-2 pr-3 text-right">{formatGrams(c.weightGrams)}</td>
+                <td className="figure py-2 text-right">{c.weighedFinds > 0 ? formatGrams(c.fineGoldGrams) : "not weighed"}</td>
+              </tr>
+            ))}
+          </tbody>
+          <tfoot>
+            <tr className="font-bold">
+              <td className="py-2 pr-3" colSpan={2}>
+                Club total
+              </td>
+              <td className="figure py-2 pr-3 text-right" data-testid="club-total-finds">{total.finds}</td>
+              <td />
+              <td className="figure py-2 pr-3 text-right">{formatGrams(total.weight)}</td>
+              <td className="figure py-2 text-right">{formatGrams(total.fine)}</td>
+            </tr>
+          </tfoot>
+        </table>
+        <p className="mt-3 text-sm text-ink-soft">Fine gold comes from members&apos; specimen weigh-ins: an estimate, not an assay.</p>
+      </section>
+
+      <section aria-labelledby="roll-title" className="sheet overflow-x-auto">
+        <h2 id="roll-title" className="heading-bar mb-3 text-lg">
+          Club roll
+        </h2>
+        <table className="w-full text-left">
+          <thead>
+            <tr className="border-b-2 border-rule">
+              <th className="py-2 pr-3">Name</th>
+              <th className="py-2 pr-3">E-mail</th>
+              <th className="py-2 pr-3">Role</th>
+              <th className="py-2">Status</th>
+            </tr>
+          </thead>
+          <tbody>
+            {roll.map((m) => (
+              <tr key={m.id} className="border-b border-rule">
+                <td className="py-2 pr-3 font-bold">{m.name ?? "—"}</td>
+                <td className="py-2 pr-3">{m.email}</td>
+                <td className="py-2 pr-3">{ROLE_LABELS[m.role]}</td>
+                <td className="py-2">{m.active ? "Active" : "Deactivated"}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+    </div>
+  );
+}

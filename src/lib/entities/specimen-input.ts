@@ -1,0 +1,26 @@
+import { z } from "zod";
+
+const reading = z.number({ error: "Enter a number in grams." }).finite().positive("Must be more than zero.").max(100_000, "At most 100 kg.");
+const readings = z.array(reading).min(1, "Enter at least one reading.").max(20, "At most 20 readings.");
+const pair = (min: number, max: number) =>
+  z.tuple([z.number().min(min).max(max), z.number().min(min).max(max)]).refine(([lo, hi]) => lo <= hi, "Give the low value first.");
+
+/** What a weigh-in records: the engine's SpecimenInput, checked at every edge. */
+export const specimenInputSchema = z
+  .object({
+    method: z.enum(["hanging", "buoyancy"], { error: "Choose hanging or buoyancy." }),
+    airGrams: readings,
+    waterGrams: readings,
+    scaleResolutionGrams: z.number().positive("Must be more than zero.").max(10).optional(),
+    waterTempC: z.number().min(0, "At least 0 °C.").max(40, "At most 40 °C.").optional(),
+    waterTempToleranceC: z.number().min(0).max(20).optional(),
+    hostDensity: z.number().gt(1, "Above 1 g/cm³.").lt(10, "Below 10 g/cm³.").optional(),
+    hostDensityRange: pair(1, 10).optional(),
+    finenessPermille: z.number().gt(0, "Above 0 ‰.").max(1000, "At most 1000 ‰.").optional(),
+    finenessRangePermille: pair(0, 1000).optional(),
+    goldDensity: z.number().gt(1).max(19.32, "At most 19.32 g/cm³ (pure gold).").optional(),
+    airBuoyancyCorrection: z.boolean().optional(),
+  })
+  .strict();
+
+export type SpecimenInputData = z.infer<typeof specimenInputSchema>;

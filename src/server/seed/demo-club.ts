@@ -1,0 +1,150 @@
+import "server-only";
+import { count, eq } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
+import { estimateSpecimen, goldAlloyDensity, waterDensity, type SpecimenInput } from "@/lib/estimate";
+import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
+import { seededRandom } from "@/lib/estimate/uncertainty";
+import type { Db } from "../db";
+import * as t from "../db/schema";
+import { nextSeq } from "../db/sequence";
+import { DEMO_CLAIMS, DEMO_PASSWORDS, DEMO_PEOPLE } from "./people";
+
+const DAY = 86_400_000;
+const METRES_PER_DEG_LAT = 111_320;
+
+/** A rectangle turned about its centre, as a closed GeoJSON ring (longitude, latitude). */
+export function claimPolygon(c: { lat: number; lon: number; halfW: number; halfH: number; turn: number }): t.GeoJsonPolygon {
+  const mPerDegLon = METRES_PER_DEG_LAT * Math.cos((c.lat * Math.PI) / 180);
+  const corners = [[-1, -1], [1, -1], [1, 1], [-1, 1], [-1, -1]].map(([sx, sy]) => {
+    const x = sx * c.halfW;
+    const y = sy * c.halfH;
+    const xr = x * Math.cos(c.turn) - y * Math.sin(c.turn);
+    const yr = x * Math.sin(c.turn) + y * Math.cos(c.turn);
+    return [round6(c.lon + xr / mPerDegLon), round6(c.lat + yr / METRES_PER_DEG_LAT)];
+  });
+  return { type: "Polygon", coordinates: [corners] };
+}
+
+const round6 = (v: number) => Math.round(v * 1e6) / 1e6;
+const round2 = (v: number) => Math.round(v * 100) / 100;
+
+export type SeedResult = { seeded: boolean; members: number; finds: number; weighIns: number };
+
+/**
+ * Fills an empty database with the invented demo club. Deterministic (one seeded stream),
+ * in one transaction; a database that already holds the club is left exactly as it is.
+ */
+export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; member: string }; now?: number }): SeedResult {
+  const already = db.select({ n: count() }).from(t.members).where(eq(t.members.email, DEMO_PEOPLE[0].email)).get();
+  if (already && already.n > 0) return { seeded: false, members: 0, finds: 0, weighIns: 0 };
+
+  const rand = seededRandom(20260401);
+  const now = opts.now ?? Date.now();
+  const seasonStart = now - 200 * DAY;
+  const idAt = (ms: number) => uuidv7({ msecs: Math.floor(ms), random: Uint8Array.from({ length: 16 }, () => Math.floor(rand() * 256)) });
+  const pick = <T,>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
+  let finds = 0;
+  let weighIns = 0;
+
+  db.transaction((tx) => {
+    const memberIds = DEMO_PEOPLE.map((p) => {
+      const id = idAt(seasonStart - 30 * DAY);
+      tx.insert(t.members).values({ id, email: p.email, name: p.name, role: p.role, passwordHash: opts.passwordHashes[p.role], active: true }).run();
+      return { id, role: p.role };
+    });
+    const officers = memberIds.filter((m) => m.role === "officer");
+
+    const claimRows = DEMO_CLAIMS.map((c) => {
+      const id = idAt(seasonStart - 20 * DAY);
+      tx.insert(t.claims).values({ id, name: c.name, kind: c.kind, agencyRef: c.agencyRef, rules: c.rules, boundary: claimPolygon(c), active: true, seq: nextSeq(tx) }).run();
+      return { id, ...c };
+    });
+
+    [
+      { daysAgo: 200, price: 2380 },
+      { daysAgo: 120, price: 2455 },
+      { daysAgo: 45, price: 2512 },
+    ].forEach((p) => {
+      const on = new Date(now - p.daysAgo * DAY).toISOString().slice(0, 10);
+      tx.insert(t.referencePrices).values({ id: idAt(now - p.daysAgo * DAY), effectiveOn: on, pricePerTroyOunce: p.price, currency: "USD", recordedBy: officers[0].id, seq: nextSeq(tx) }).run();
+    });
+
+    for (const member of memberIds) {
+      const outingCount = 6 + Math.floor(rand() * 5);
+      for (let o = 0; o < outingCount; o++) {
+        const claim = pick(claimRows);
+        const start = seasonStart + Math.floor(rand() * 190) * DAY + (6 + rand() * 3) * 3_600_000;
+        const hours = round2(3 + rand() * 6);
+        const method = claim.kind === "lode" ? "detecting" : pick(["detecting", "panning", "sluicing", "drywashing"] as const);
+        const outingId = idAt(start);
+        tx.insert(t.outings).values({
+          id: outingId, memberId: member.id, claimId: claim.id, startedAt: start, endedAt: start + hours * 3_600_000, hours, method,
+          companions: rand() < 0.4 ? "went with a club partner" : "", conditions: pick(["clear, hot", "overcast, breezy", "clear, cool morning", "thunderheads to the west by noon"]),
+          notes: "", seq: nextSeq(tx),
+        }).run();
+        const findCount = Math.floor(rand() * 4);
+        for (let f = 0; f < findCount; f++) {
+          const foundAt = start + rand() * hours * 3_600_000;
+          const kind = claim.kind === "lode" ? "specimen" : method === "detecting" ? pick(["nugget", "nugget", "specimen"] as const) : pick(["flakes", "fines", "nugget"] as const);
+          const mPerDegLon = METRES_PER_DEG_LAT * Math.cos((claim.lat * Math.PI) / 180);
+          const dx = (rand() - 0.5) * claim.halfW;
+          const dy = (rand() - 0.5) * claim.halfH;
+          const findId = idAt(foundAt);
+          const weight = kind === "specimen" ? round2(20 + rand() * 180) : kind === "nugget" ? round2(0.3 + rand() * rand() * 12) : round2(0.05 + rand() * 1.5);
+          tx.insert(t.finds).values({
+            id: findId, memberId: member.id, outingId, claimId: claim.id, kind, weightGrams: weight, method,
+            depthCm: method === "detecting" ? Math.round(5 + rand() * 35) : null, notes: "",
+            lat: round6(claim.lat + (dx * Math.sin(claim.turn) + dy * Math.cos(claim.turn)) / METRES_PER_DEG_LAT),
+            lon: round6(claim.lon + (dx * Math.cos(claim.turn) - dy * Math.sin(claim.turn)) / mPerDegLon),
+            accuracyM: round2(3 + rand() * 12), foundAt, seq: nextSeq(tx),
+          }).run();
+          finds++;
+          if (kind === "specimen") {
+            const input = specimenReadings(weight, rand);
+            const estimate = estimateSpecimen(input);
+            tx.insert(t.weighIns).values({
+              id: idAt(foundAt + DAY / 3), memberId: member.id, findId, input, deviceEstimate: estimate, serverEstimate: estimate,
+              engineVersion: estimate.engineVersion, fineGoldGrams: estimate.fineGoldGrams, goldAlloyGrams: estimate.goldAlloyGrams,
+              weighedAt: foundAt + DAY / 3, seq: nextSeq(tx),
+            }).run();
+            weighIns++;
+            if (rand() < 0.35) {
+              const action = rand() < 0.7 ? "verify" : "query";
+              tx.insert(t.reviews).values({
+                id: idAt(foundAt + 2 * DAY), findId, officerId: pick(officers).id, action,
+                note: action === "query" ? "Readings look close together: please weigh again with the line tared under water." : "",
+                seq: nextSeq(tx),
+              }).run();
+            }
+          }
+        }
+      }
+    }
+  });
+  return { seeded: true, members: DEMO_PEOPLE.length, finds, weighIns };
+}
+
+/** Readings a 0.01 g pocket scale would give for a quartz specimen holding a little gold. */
+function specimenReadings(totalGrams: number, rand: () => number): SpecimenInput {
+  const host = HOST_PRESETS[0];
+  const natural = FINENESS_PRESETS[0];
+  const fineness = 780 + Math.floor(rand() * 140);
+  const hostDensity = 2.63 + rand() * 0.04;
+  const gold = totalGrams * (0.01 + rand() * rand() * 0.3);
+  const volume = gold / goldAlloyDensity(fineness) + (totalGrams - gold) / hostDensity;
+  const waterTempC = Math.round(14 + rand() * 12);
+  const displaced = volume * waterDensity(waterTempC);
+  return {
+    method: "hanging",
+    airGrams: [round2(totalGrams), round2(totalGrams + (rand() < 0.5 ? 0 : 0.01))],
+    waterGrams: [round2(totalGrams - displaced)],
+    scaleResolutionGrams: 0.01,
+    waterTempC,
+    hostDensity: host.density,
+    hostDensityRange: host.range,
+    finenessPermille: natural.fineness,
+    finenessRangePermille: natural.range,
+  };
+}
+
+export { DEMO_PASSWORDS };
