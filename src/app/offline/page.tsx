@@ -12,6 +12,8 @@ export default function OfflinePage() {
         <h1 className="text-2xl font-bold">No signal</h1>
         <p>This page has not been opened on this device while online, so it is not stored here yet.</p>
         <p>Everything you have already saved is safe on the device and will go to the club at the next camp sync.</p>
+        {/* A full navigation on purpose: the service worker answers it from its cache. */}
+        {/* eslint-disable-next-line @next/next/no-html-link-for-pages */}
         <a href="/" className="btn btn-primary">
           Back to today
         </a>

@@ -1,0 +1,97 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { LAPTOP, launchBrowser, PHONE, shotPath } from "./support/browser";
+import { DEMO, SignInPage, waitForMail } from "./support/pages";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("signing in through the real form", () => {
+  it("takes a member to their home for today, without the club console", async () => {
+    const context = await browser.newContext(PHONE);
+    const page = await context.newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await page.screenshot({ path: shotPath("sign-in-phone"), fullPage: true });
+    await signIn.signIn(DEMO.member.email, DEMO.member.password);
+    await page.waitForURL(`${baseUrl}/`);
+    await page.getByRole("heading", { name: `Good day, ${DEMO.member.firstName}` }).waitFor();
+    expect(await page.getByRole("link", { name: "Club console" }).count()).toBe(0);
+    await page.screenshot({ path: shotPath("member-home-phone"), fullPage: true });
+    // The console itself refuses a member, whatever the UI shows.
+    await page.goto(`${baseUrl}/club`);
+    await page.waitForURL((url) => url.pathname === "/");
+    await context.close();
+  });
+
+  it("shows an officer the club console entry, and the console opens", async () => {
+    const context = await browser.newContext(LAPTOP);
+    const page = await context.newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await page.getByRole("link", { name: "Open the club console" }).waitFor();
+    await page.screenshot({ path: shotPath("officer-home-laptop"), fullPage: true });
+    await page.getByRole("link", { name: "Open the club console" }).click();
+    await page.getByRole("heading", { name: /Club console/ }).waitFor();
+    expect(Number(await page.getByTestId("club-total-finds").textContent())).toBeGreaterThan(0);
+    await page.screenshot({ path: shotPath("club-console-laptop"), fullPage: true });
+    await context.close();
+  });
+
+  it("signs out, and the home page then asks to sign in again", async () => {
+    const context = await browser.newContext(PHONE);
+    const page = await context.newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.member.email, DEMO.member.password);
+    await page.getByRole("heading", { name: /Good day/ }).waitFor();
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.getByText("You are signed out.").waitFor();
+    await page.goto(`${baseUrl}/`);
+    await page.waitForURL((url) => url.pathname === "/sign-in");
+    await context.close();
+  });
+
+  it("says clearly when the password is wrong", async () => {
+    const context = await browser.newContext(PHONE);
+    const page = await context.newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.member.email, "not-the-password");
+    // Next's route announcer is an alert too: look for ours by its words.
+    const alert = page.getByRole("alert").filter({ hasText: /do not match an active member/ });
+    await alert.waitFor();
+    expect(await page.getByLabel("Password").getAttribute("aria-invalid")).toBe("true");
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
+    await context.close();
+  });
+
+  it("signs in by an e-mail link that reaches the mail catcher, once", async () => {
+    const context = await browser.newContext(PHONE);
+    const page = await context.newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.askForLink(DEMO.officer.email);
+    await page.getByText(/a sign-in link is on its way/).waitFor();
+    const mail = await waitForMail(inject("mailDir"), DEMO.officer.email);
+    expect(mail.subject).toMatch(/sign-in link/);
+    const link = mail.text.match(/https?:\/\/\S+/)![0];
+    await page.goto(link);
+    await page.getByRole("heading", { name: `Good day, ${DEMO.officer.firstName}` }).waitFor();
+    // The same link a second time no longer signs anyone in.
+    const fresh = await browser.newContext(PHONE);
+    const again = await fresh.newPage();
+    await again.goto(link);
+    await again.waitForURL((url) => url.pathname === "/sign-in");
+    await fresh.close();
+    await context.close();
+  });
+});

@@ -1,0 +1,95 @@
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { GET as getMembers } from "@/app/api/club/members/route";
+import { GET as getMe } from "@/app/api/me/route";
+import { members } from "@/server/db/schema";
+import { hashPassword } from "@/server/auth/password";
+import { seedDemoClub } from "@/server/seed/demo-club";
+import { databaseChecksum, freshDatabase, MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
+
+const noCtx = {} as never;
+
+describe("database", () => {
+  it("applies every migration to an empty file, with WAL, foreign keys and a busy timeout", () => {
+    const { db } = freshDatabase();
+    const tables = db.$client.prepare("select name from sqlite_master where type = 'table'").all().map((r) => (r as { name: string }).name);
+    for (const t of ["members", "invitations", "claims", "outings", "finds", "photos", "weigh_ins", "reviews", "reference_prices", "sync_clients", "sequences", "audit_log", "record_history"]) {
+      expect(tables).toContain(t);
+    }
+    expect(db.$client.pragma("journal_mode", { simple: true })).toBe("wal");
+    expect(db.$client.pragma("foreign_keys", { simple: true })).toBe(1);
+    expect(db.$client.pragma("busy_timeout", { simple: true })).toBe(5000);
+  });
+
+  it("seeds the demo club once: a second seed changes nothing", async () => {
+    const { db } = await seededDatabase();
+    const before = databaseChecksum(db);
+    expect(db.select().from(members).all()).toHaveLength(8);
+    const again = seedDemoClub(db, { passwordHashes: { officer: await hashPassword("x"), member: await hashPassword("y") } });
+    expect(again.seeded).toBe(false);
+    expect(databaseChecksum(db)).toBe(before);
+  });
+
+  it("gives the demo club 2 officers, 6 members, 4 claims with closed polygon boundaries, and weigh-ins", async () => {
+    const { db } = await seededDatabase();
+    const roles = db.$client.prepare("select role, count(*) as n from members group by role order by role").all();
+    expect(roles).toEqual([{ role: "member", n: 6 }, { role: "officer", n: 2 }]);
+    const claims = db.$client.prepare("select boundary from claims").all() as { boundary: string }[];
+    expect(claims).toHaveLength(4);
+    for (const c of claims) {
+      const ring = JSON.parse(c.boundary).coordinates[0];
+      expect(ring.length).toBeGreaterThanOrEqual(4);
+      expect(ring[0]).toEqual(ring[ring.length - 1]);
+    }
+    const counts = db.$client.prepare("select (select count(*) from outings) o, (select count(*) from finds) f, (select count(*) from weigh_ins) w").get() as { o: number; f: number; w: number };
+    expect(counts.o).toBeGreaterThan(40);
+    expect(counts.f).toBeGreaterThan(40);
+    expect(counts.w).toBeGreaterThan(5);
+  });
+});
+
+describe("route handlers check the session and the role themselves", () => {
+  let officerCookie: string;
+  let memberCookie: string;
+  beforeAll(async () => {
+    const { db } = await seededDatabase();
+    officerCookie = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
+    memberCookie = await sessionCookie(memberByEmail(db, MEMBER_EMAIL));
+  });
+
+  it("club roll: anonymous 401, member 403, officer 200 without any password hash", async () => {
+    expect((await getMembers(req("/api/club/members"), noCtx)).status).toBe(401);
+    const asMember = await getMembers(req("/api/club/members", { cookie: memberCookie }), noCtx);
+    expect(asMember.status).toBe(403);
+    expect(await asMember.json()).toMatchObject({ error: { code: "forbidden:club" } });
+    const asOfficer = await getMembers(req("/api/club/members", { cookie: officerCookie }), noCtx);
+    expect(asOfficer.status).toBe(200);
+    const text = await asOfficer.text();
+    expect(JSON.parse(text).members).toHaveLength(8);
+    expect(text).not.toMatch(/password|\$2[aby]\$/i);
+  });
+
+  it("me: answers with the member and the capabilities of the role, never the hash", async () => {
+    const res = await getMe(req("/api/me", { cookie: memberCookie }), noCtx);
+    expect(res.status).toBe(200);
+    const text = await res.text();
+    expect(JSON.parse(text)).toMatchObject({ member: { email: MEMBER_EMAIL, role: "member" }, capabilities: { viewLedger: false, logFinds: true } });
+    expect(text).not.toMatch(/password|\$2[aby]\$/i);
+  });
+
+  it("a forged or foreign cookie is anonymous", async () => {
+    const forged = memberCookie.slice(0, -6) + "AAAAAA";
+    expect((await getMe(req("/api/me", { cookie: forged }), noCtx)).status).toBe(401);
+  });
+
+  it("deactivation and a role change end the old session on the next request", async () => {
+    const { db } = await seededDatabase();
+    const member = memberByEmail(db, MEMBER_EMAIL);
+    const cookie = await sessionCookie(member, member.sv);
+    expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);
+    db.update(members).set({ active: false }).where(eq(members.id, member.id)).run();
+    expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
+    db.update(members).set({ active: true, sessionVersion: member.sv + 1 }).where(eq(members.id, member.id)).run();
+    expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
+  });
+});
