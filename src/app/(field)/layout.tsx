@@ -6,7 +6,7 @@ export default async function FieldLayout({ children }: { children: React.ReactN
   return (
     <>
       <SiteHeader actor={actor} />
-      <main className="mx-auto max-w-3xl px-3 py-4">{children}</main>
+      <main className="mx-auto max-w-5xl px-3 py-4">{children}</main>
     </>
   );
 }

@@ -1,0 +1,256 @@
+"use client";
+import { useEffect, useMemo, useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import { estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
+import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
+import { formatMass, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
+import { EstimatePanel } from "./estimate-panel";
+import { DEFAULT_WEIGH_FORM, ENGINE_FIELD_TO_FORM, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
+import { ReadingsField } from "./readings-field";
+
+type Props = {
+  initial?: Partial<WeighFormValues>;
+  /** Where the flow is part of a find, the finished weigh-in is handed here. */
+  onSave?: (input: SpecimenInput, estimate: SpecimenEstimate) => void | Promise<void>;
+};
+
+type Outcome = { input: SpecimenInput; estimate?: SpecimenEstimate; errors: Partial<Record<WeighField, string>> };
+
+const PRACTICE = [
+  "Dry the specimen before the reading in air.",
+  "Wet the line, then tare with it already under water.",
+  "Hang the specimen free of the walls and the bottom.",
+  "Brush off air bubbles clinging to it.",
+  "Measure the water's temperature.",
+];
+
+function compute(values: WeighFormValues): Outcome {
+  const { input, errors, complete } = toSpecimenInput(values);
+  if (!complete) return { input, errors };
+  try {
+    return { input, errors, estimate: estimateSpecimen(input) };
+  } catch (error) {
+    if (error instanceof EstimateInputError) return { input, errors: { ...errors, [ENGINE_FIELD_TO_FORM[error.field] ?? "water"]: error.message } };
+    throw error;
+  }
+}
+
+/** The weigh-in: readings in, the estimate out, recomputed as each number is typed. */
+export function WeighInFlow({ initial, onSave }: Props) {
+  const { register, control, setValue } = useForm<WeighFormValues>({ defaultValues: { ...DEFAULT_WEIGH_FORM, ...initial } });
+  const values = useWatch({ control }) as WeighFormValues;
+  const outcome = useMemo(() => compute(values), [values]);
+  const [resultUnit, setResultUnit] = useState<MassUnit>("g");
+  const [saving, setSaving] = useState(false);
+
+  // Lets anyone compare this device's arithmetic with the server's (and the tests do).
+  useEffect(() => {
+    (globalThis as { lodebookEngine?: unknown }).lodebookEngine = { estimateSpecimen };
+  }, []);
+
+  const hanging = values.method === "hanging";
+  const unit = values.readingUnit;
+  const e = outcome.errors;
+
+  return (
+    <div className="grid gap-4 lg:grid-cols-[1fr_minmax(320px,420px)]">
+      <form className="flex flex-col gap-5" onSubmit={(ev) => ev.preventDefault()} noValidate aria-label="Weigh-in">
+        <fieldset className="sheet flex flex-col gap-2">
+          <legend className="sr-only">How is it weighed?</legend>
+          <p className="field-label">How is it weighed?</p>
+          <div className="grid gap-2 sm:grid-cols-2">
+            {(
+              [
+                ["hanging", "Hung from the scale", "The scale carries the line; the reading with the specimen under water is its weight in water."],
+                ["buoyancy", "Vessel on the scale", "The water vessel sits on the tared scale and the specimen hangs into it from a stand; the reading is the water it pushes aside."],
+              ] as const
+            ).map(([value, title, text]) => (
+              <label key={value} className={`flex cursor-pointer gap-3 rounded-md border-2 p-3 ${values.method === value ? "border-ochre" : "border-rule"}`}>
+                <input type="radio" value={value} className="mt-1 h-5 w-5 accent-[var(--ochre)]" {...register("method")} />
+                <span>
+                  <span className="block font-bold">{title}</span>
+                  <span className="block text-sm text-ink-soft">{text}</span>
+                </span>
+              </label>
+            ))}
+          </div>
+        </fieldset>
+
+        <details className="sheet" open>
+          <summary className="cursor-pointer font-bold">Good practice before you read the scale</summary>
+          <ul className="mt-2 list-disc pl-5 text-sm">
+            {PRACTICE.map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        </details>
+
+        <div className="sheet flex flex-col gap-4">
+          <div className="flex flex-wrap gap-3">
+            <label className="flex flex-col">
+              <span className="field-label">Scale reads in</span>
+              <select className="field-input w-auto" {...register("readingUnit")}>
+                {MASS_UNITS.map((u) => (
+                  <option key={u} value={u}>
+                    {MASS_UNIT_LABELS[u]}
+                  </option>
+                ))}
+              </select>
+            </label>
+            <label className="flex flex-col">
+              <span className="field-label">Scale step</span>
+              <input inputMode="decimal" className="field-input figure w-28" aria-invalid={!!e.resolution} {...register("resolution")} />
+            </label>
+          </div>
+          {e.resolution && <p className="field-error">{e.resolution}</p>}
+          <ReadingsField name="air" label="Dry, in air" hint="The specimen alone on the scale." unit={unit} error={e.air} control={control} register={register} />
+          <ReadingsField
+            name="water"
+            label={hanging ? "Hung under water" : "Vessel reading with it hung inside"}
+            hint={hanging ? "Tare with the wet line under water first, then hang the specimen from it." : "Tare the vessel with the line already in the water, then lower the specimen in."}
+            unit={unit}
+            error={e.water}
+            control={control}
+            register={register}
+          />
+        </div>
+
+        <div className="sheet flex flex-col gap-3">
+          <div className="flex flex-wrap items-end gap-3">
+            <label className="flex flex-col">
+              <span className="field-label">Water temperature</span>
+              <input inputMode="decimal" className="field-input figure w-28" aria-invalid={!!e.temp} {...register("temp")} />
+            </label>
+            <label className="flex flex-col">
+              <span className="sr-only">Temperature unit</span>
+              <select className="field-input w-auto" {...register("tempUnit")}>
+                <option value="C">°C</option>
+                <option value="F">°F</option>
+              </select>
+            </label>
+            <label className="flex flex-col">
+              <span className="field-label">give or take</span>
+              <input inputMode="decimal" className="field-input figure w-24" {...register("tempTolerance")} />
+            </label>
+          </div>
+          {(e.temp || e.tempTolerance) && <p className="field-error">{e.temp ?? e.tempTolerance}</p>}
+        </div>
+
+        <div className="sheet flex flex-col gap-3">
+          <label className="flex flex-col">
+            <span className="field-label">Host rock</span>
+            <select className="field-input" aria-invalid={!!e.hostDensity} {...register("hostPreset")}>
+              {HOST_PRESETS.map((p) => (
+                <option key={p.id} value={p.id}>
+                  {p.label} — {p.density} ({p.range[0]}–{p.range[1]}) g/cm³
+                </option>
+              ))}
+              <option value="custom">My own density…</option>
+            </select>
+          </label>
+          {values.hostPreset === "custom" && (
+            <div className="grid grid-cols-3 gap-2">
+              <label className="flex flex-col text-sm">
+                <span className="font-bold">Density g/cm³</span>
+                <input inputMode="decimal" className="field-input figure" {...register("hostDensity")} />
+              </label>
+              <label className="flex flex-col text-sm">
+                <span className="font-bold">Lowest</span>
+                <input inputMode="decimal" className="field-input figure" {...register("hostLow")} />
+              </label>
+              <label className="flex flex-col text-sm">
+                <span className="font-bold">Highest</span>
+                <input inputMode="decimal" className="field-input figure" {...register("hostHigh")} />
+              </label>
+            </div>
+          )}
+          {e.hostDensity && <p className="field-error">{e.hostDensity}</p>}
+
+          <label className="flex flex-col">
+            <span className="field-label">Gold fineness</span>
+            <select className="field-input" aria-invalid={!!e.fineness} {...register("finenessPreset")}>
+              {FINENESS_PRESETS.map((p) => (
+                <option key={p.id} value={p.id}>
+                  {p.label} — {p.fineness} ‰ ({p.range[0]}–{p.range[1]})
+                </option>
+              ))}
+              <option value="assayed">Assayed value…</option>
+              <option value="custom">My own range…</option>
+            </select>
+          </label>
+          {(values.finenessPreset === "assayed" || values.finenessPreset === "custom") && (
+            <div className="grid grid-cols-3 gap-2">
+              <label className="flex flex-col text-sm">
+                <span className="font-bold">Fineness ‰</span>
+                <input inputMode="decimal" className="field-input figure" {...register("fineness")} />
+              </label>
+              {values.finenessPreset === "custom" && (
+                <>
+                  <label className="flex flex-col text-sm">
+                    <span className="font-bold">Lowest</span>
+                    <input inputMode="decimal" className="field-input figure" {...register("finenessLow")} />
+                  </label>
+                  <label className="flex flex-col text-sm">
+                    <span className="font-bold">Highest</span>
+                    <input inputMode="decimal" className="field-input figure" {...register("finenessHigh")} />
+                  </label>
+                </>
+              )}
+            </div>
+          )}
+          {e.fineness && <p className="field-error">{e.fineness}</p>}
+          <label className="flex min-h-touch items-center gap-2 text-sm">
+            <input type="checkbox" className="h-5 w-5" {...register("airBuoyancy")} />
+            Correct for the air&apos;s buoyancy (OIML D 28; moves the result by under 1 %)
+          </label>
+        </div>
+      </form>
+
+      {outcome.estimate && (
+        <a
+          href="#estimate-title"
+          className="sheet figure sticky bottom-2 z-10 flex items-baseline justify-between gap-2 font-bold no-underline shadow-lg lg:hidden"
+          aria-label="Jump to the estimate"
+        >
+          <span>Fine gold ≈ {formatMass(outcome.estimate.fineGoldGrams, resultUnit)}</span>
+          <span className="text-sm text-ink-soft">
+            {formatMass(outcome.estimate.range.fineGoldGrams[0], resultUnit)} – {formatMass(outcome.estimate.range.fineGoldGrams[1], resultUnit)}
+          </span>
+        </a>
+      )}
+      <div id="estimate" className="flex flex-col gap-3 lg:sticky lg:top-4 lg:self-start">
+        {outcome.estimate ? (
+          <EstimatePanel estimate={outcome.estimate} input={outcome.input} unit={resultUnit} onUnitChange={setResultUnit} />
+        ) : (
+          <section className="sheet" aria-live="polite" data-testid="estimate-waiting">
+            <h2 className="heading-bar mb-2 text-lg">Estimate</h2>
+            <p>Enter the reading in air and the reading in water; the estimate appears as you type.</p>
+          </section>
+        )}
+        {onSave && outcome.estimate && (
+          <button
+            type="button"
+            className="btn btn-primary"
+            disabled={saving}
+            onClick={async () => {
+              setSaving(true);
+              try {
+                await onSave(outcome.input, outcome.estimate!);
+              } finally {
+                setSaving(false);
+              }
+            }}
+          >
+            {saving ? "Saving…" : "Save this weigh-in to the find"}
+          </button>
+        )}
+        <button type="button" className="btn" onClick={() => {
+            setValue("air", [{ value: "" }]);
+            setValue("water", [{ value: "" }]);
+          }}>
+          Clear the readings
+        </button>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,74 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { estimateSpecimen } from "@/lib/estimate";
+import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
+import { IDENTITY_VECTORS } from "@/lib/estimate/vectors";
+import { launchBrowser, PHONE, shotPath } from "./support/browser";
+import { WeighPage } from "./support/weigh-page";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the weigh-in flow in Chromium", () => {
+  it("gives the expected estimate and range for a known specimen, without an account", async () => {
+    const page = await (await browser.newContext(PHONE)).newPage();
+    const weigh = new WeighPage(page, baseUrl);
+    await weigh.open();
+    await weigh.method("Hung from the scale");
+    await weigh.readings(["100.00"], ["62.72"]);
+    await page.getByTestId("fine-gold").waitFor();
+    // Hand calculation (see estimate.test.ts): 1.2188 g of alloy from 100.00 g / 62.72 g at 20 °C.
+    expect(await weigh.text("alloy-gold")).toBe("1.219 g");
+    expect(await weigh.text("specimen-density")).toBe("2.678 g/cm³");
+    // The range shown is the engine's, for the presets the page starts with.
+    const quartz = HOST_PRESETS[0];
+    const natural = FINENESS_PRESETS[0];
+    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.72], hostDensity: quartz.density, hostDensityRange: quartz.range, finenessPermille: natural.fineness, finenessRangePermille: natural.range, waterTempC: 20, waterTempToleranceC: 2, scaleResolutionGrams: 0.01 });
+    expect(await weigh.text("fine-gold")).toBe(`${e.fineGoldGrams.toFixed(3)} g`);
+    expect(await weigh.text("fine-range")).toContain(`range ${e.range.fineGoldGrams[0].toFixed(3)} g – ${e.range.fineGoldGrams[1].toFixed(3)} g`);
+    await page.getByLabel("Price per troy ounce").fill("2400");
+    expect(await weigh.text("melt-value")).toMatch(/^\d+\.\d\d USD \(range/);
+    await page.screenshot({ path: shotPath("weigh-known-phone"), fullPage: true });
+    await page.context().close();
+  });
+
+  it("warns when the specimen is no denser than its host, and names a bad field", async () => {
+    const page = await (await browser.newContext(PHONE)).newPage();
+    const weigh = new WeighPage(page, baseUrl);
+    await weigh.open();
+    await weigh.readings(["100.00"], ["61.00"]);
+    await page.getByTestId("warnings").waitFor();
+    expect(await weigh.warnings()).toContain("no_gold_detectable");
+    expect(await weigh.text("fine-gold")).toBe("0.000 g");
+    await page.screenshot({ path: shotPath("weigh-doubtful-phone"), fullPage: true });
+    // A water reading above the air reading is refused by name, and nothing is estimated.
+    await page.getByRole("group", { name: "Hung under water" }).getByRole("textbox").first().fill("120");
+    await page.getByText(/in-water reading must be lower/).waitFor();
+    expect(await page.getByTestId("estimate-waiting").count()).toBe(1);
+    await page.context().close();
+  });
+
+  it("computes bit-identical numbers in the browser bundle and through POST /api/estimate", async () => {
+    const page = await (await browser.newContext()).newPage();
+    await new WeighPage(page, baseUrl).open();
+    await page.waitForFunction(() => "lodebookEngine" in globalThis);
+    const inBrowser: string[] = await page.evaluate(
+      (vectors) => vectors.map((v) => JSON.stringify((globalThis as unknown as { lodebookEngine: { estimateSpecimen: (i: unknown) => unknown } }).lodebookEngine.estimateSpecimen(v))),
+      IDENTITY_VECTORS,
+    );
+    for (let i = 0; i < IDENTITY_VECTORS.length; i++) {
+      const res = await fetch(`${baseUrl}/api/estimate`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(IDENTITY_VECTORS[i]) });
+      expect(res.status).toBe(200);
+      const server = (await res.json()).estimate;
+      // Shortest round-trip decimal forms are equal exactly when the doubles are equal.
+      expect(inBrowser[i]).toBe(JSON.stringify(server));
+    }
+    await page.context().close();
+  });
+});
