@@ -1,0 +1,96 @@
+import Dexie, { type EntityTable } from "dexie";
+import type { ClaimView } from "@/lib/entities/claim";
+import type { Find } from "@/lib/entities/find";
+import type { Outing } from "@/lib/entities/outing";
+import type { Photo } from "@/lib/entities/photo";
+import type { WeighIn } from "@/lib/entities/weigh-in";
+import type { MutationName } from "@/lib/sync/mutations";
+
+/** Device time of the last local write: for display only, never for ordering. */
+type Local = { updatedAt: number };
+
+export type LocalOuting = Outing & Local;
+export type LocalFind = Find & Local;
+export type LocalWeighIn = WeighIn & Local;
+/** A photo with its shrunk JPEG and a thumbnail; `uploaded` is 1 once the server holds the bytes. */
+export type LocalPhoto = Photo & Local & { blob: Blob; thumb: Blob; uploaded: 0 | 1 };
+export type LocalReview = { id: string; findId: string; action: "verify" | "query" | "note"; note: string; officerName: string | null; createdAt: number };
+
+/** One change waiting for camp sync. The auto-increment key is the mutation id. */
+export type OutboxEntry = {
+  id?: number;
+  name: MutationName;
+  args: unknown;
+  entityId: string;
+  createdAt: number;
+  state: "pending" | "rejected";
+  reason?: string;
+};
+
+export type Setting = { key: string; value: unknown };
+export type Meta = { key: string; value: unknown };
+
+export class LodebookDb extends Dexie {
+  outings!: EntityTable<LocalOuting, "id">;
+  finds!: EntityTable<LocalFind, "id">;
+  photos!: EntityTable<LocalPhoto, "id">;
+  weighIns!: EntityTable<LocalWeighIn, "id">;
+  claims!: EntityTable<ClaimView, "id">;
+  reviews!: EntityTable<LocalReview, "id">;
+  settings!: EntityTable<Setting, "key">;
+  outbox!: EntityTable<OutboxEntry, "id">;
+  meta!: EntityTable<Meta, "key">;
+
+  constructor(name: string) {
+    super(name);
+    // Version 1: the logbook's first tables.
+    this.version(1).stores({
+      outings: "id, startedAt",
+      finds: "id, foundAt, outingId, kind",
+      photos: "id, findId",
+      weighIns: "id, findId",
+      claims: "id",
+      settings: "key",
+      outbox: "++id",
+    });
+    // Version 2: indexes that let sync find its work without scanning tables (outbox state,
+    // photos still to upload), finds by claim, officers' reviews, and sync bookkeeping.
+    this.version(2)
+      .stores({
+        finds: "id, foundAt, outingId, kind, claimId",
+        photos: "id, findId, uploaded",
+        outbox: "++id, state, entityId",
+        reviews: "id, findId",
+        meta: "key",
+      })
+      .upgrade(async (tx) => {
+        await tx.table("photos").toCollection().modify((p: Partial<LocalPhoto>) => {
+          p.uploaded ??= 0;
+        });
+        await tx.table("outbox").toCollection().modify((e: Partial<OutboxEntry>) => {
+          e.state ??= "pending";
+        });
+      });
+  }
+}
+
+export const DB_VERSION = 2;
+
+/** Each member has their own database on a device: a second member never sees the first's. */
+export const databaseNameFor = (memberId: string) => `lodebook-member-${memberId}`;
+
+const open = new Map<string, LodebookDb>();
+
+export function memberDb(memberId: string): LodebookDb {
+  let db = open.get(memberId);
+  if (!db) {
+    db = new LodebookDb(databaseNameFor(memberId));
+    open.set(memberId, db);
+  }
+  return db;
+}
+
+export function closeMemberDbs(): void {
+  for (const db of open.values()) db.close();
+  open.clear();
+}

@@ -1,0 +1,125 @@
+import Dexie from "dexie";
+import { afterEach, describe, expect, it, vi } from "vitest";
+import { makeJpeg } from "../../tests/support/jpeg";
+import { closeMemberDbs, databaseNameFor, LodebookDb, memberDb } from "./db";
+import { LocalValidationError, newId, saveFind, startOuting } from "./logbook";
+import { readPhotoMeta } from "./photos";
+import { readSettings, saveSettings } from "./settings";
+
+const find = (over: Partial<Parameters<typeof saveFind>[1]> = {}) => ({
+  id: newId(),
+  outingId: null,
+  claimId: null,
+  kind: "nugget" as const,
+  weightGrams: 1.23,
+  depthCm: null,
+  method: "detecting" as const,
+  notes: "",
+  lat: 41.8,
+  lon: -117.62,
+  accuracyM: 5,
+  locationSource: "device" as const,
+  foundAt: Date.UTC(2026, 5, 1),
+  ...over,
+});
+
+let counter = 0;
+const freshDb = () => memberDb(`m-${Date.now()}-${counter++}`);
+
+afterEach(() => {
+  closeMemberDbs();
+  vi.restoreAllMocks();
+});
+
+describe("device database", () => {
+  it("writes a record and its outbox entry together", async () => {
+    const db = freshDb();
+    const f = await saveFind(db, find());
+    expect(await db.finds.get(f.id)).toMatchObject({ weightGrams: 1.23 });
+    const outbox = await db.outbox.toArray();
+    expect(outbox).toHaveLength(1);
+    expect(outbox[0]).toMatchObject({ name: "find.put", entityId: f.id, state: "pending" });
+  });
+
+  it("leaves neither the record nor the outbox entry when the outbox write fails", async () => {
+    const db = freshDb();
+    vi.spyOn(db.outbox, "add").mockImplementation(() => Promise.reject(new Error("disk trouble")) as never);
+    const f = find();
+    await expect(saveFind(db, f)).rejects.toThrow("disk trouble");
+    expect(await db.finds.get(f.id)).toBeUndefined();
+    expect(await db.outbox.count()).toBe(0);
+  });
+
+  it("refuses an invalid record on the device, naming the field, and writes nothing", async () => {
+    const db = freshDb();
+    const err = await saveFind(db, find({ weightGrams: -2 })).catch((e) => e);
+    expect(err).toBeInstanceOf(LocalValidationError);
+    expect(Object.keys((err as LocalValidationError).fields)).toContain("weightGrams");
+    expect(await db.finds.count()).toBe(0);
+    expect(await db.outbox.count()).toBe(0);
+  });
+
+  it("gives every queued change a larger mutation id than the one before", async () => {
+    const db = freshDb();
+    await startOuting(db, { claimId: null, method: "panning" });
+    await saveFind(db, find());
+    await saveFind(db, find());
+    const ids = (await db.outbox.toArray()).map((e) => e.id!);
+    expect(ids).toEqual([...ids].sort((a, b) => a - b));
+    expect(new Set(ids).size).toBe(3);
+  });
+
+  it("keeps each member's records in a database of their own", async () => {
+    const a = memberDb("member-a");
+    const b = memberDb("member-b");
+    await saveFind(a, find());
+    expect(await a.finds.count()).toBe(1);
+    expect(await b.finds.count()).toBe(0);
+    expect(a.name).toBe(databaseNameFor("member-a"));
+    expect(a.name).not.toBe(b.name);
+  });
+
+  it("upgrades a version 1 database to version 2 and keeps its data", async () => {
+    const name = databaseNameFor(`upgrade-${Date.now()}`);
+    const v1 = new Dexie(name);
+    v1.version(1).stores({ outings: "id, startedAt", finds: "id, foundAt, outingId, kind", photos: "id, findId", weighIns: "id, findId", claims: "id", settings: "key", outbox: "++id" });
+    const f = find();
+    await v1.table("finds").add({ ...f, updatedAt: 1 });
+    await v1.table("photos").add({ id: "p1", findId: f.id });
+    await v1.table("outbox").add({ name: "find.put", args: f, entityId: f.id, createdAt: 1 });
+    v1.close();
+
+    const v2 = new LodebookDb(name);
+    await v2.open();
+    expect(v2.verno).toBe(2);
+    expect(await v2.finds.get(f.id)).toMatchObject({ weightGrams: 1.23 });
+    expect(await v2.photos.where("uploaded").equals(0).count()).toBe(1);
+    expect(await v2.outbox.where("state").equals("pending").count()).toBe(1);
+    v2.close();
+  });
+
+  it("keeps settings on the device and queues only the location sharing for the server", async () => {
+    const db = freshDb();
+    await saveSettings(db, { massUnit: "dwt" });
+    expect(await db.outbox.count()).toBe(0);
+    await saveSettings(db, { locationSharing: "claim" });
+    expect((await readSettings(db)).massUnit).toBe("dwt");
+    expect(await db.outbox.toArray()).toMatchObject([{ name: "settings.put", args: { locationSharing: "claim" } }]);
+  });
+});
+
+describe("photo EXIF", () => {
+  it("reads GPS position and capture time from a JPEG made here", async () => {
+    const takenAt = new Date(2026, 6, 14, 9, 30, 15);
+    const bytes = makeJpeg({ width: 64, height: 48, lat: 41.80123, lon: -117.61987, takenAt });
+    const meta = await readPhotoMeta(new Blob([new Uint8Array(bytes)]));
+    expect(meta.lat).toBeCloseTo(41.80123, 5);
+    expect(meta.lon).toBeCloseTo(-117.61987, 5);
+    expect(meta.takenAt).toBe(takenAt.getTime());
+  });
+
+  it("reports no position for a JPEG without EXIF, and survives junk", async () => {
+    expect(await readPhotoMeta(new Blob([new Uint8Array(makeJpeg({ width: 16, height: 16 }))]))).toEqual({ takenAt: null, lat: null, lon: null });
+    expect(await readPhotoMeta(new Blob(["<html>not a photo</html>"]))).toEqual({ takenAt: null, lat: null, lon: null });
+  });
+});

@@ -1,0 +1,124 @@
+import { v7 as uuidv7 } from "uuid";
+import { z } from "zod";
+import { findSchema, type Find } from "@/lib/entities/find";
+import { outingSchema, type Outing } from "@/lib/entities/outing";
+import { weighInSchema, type WeighIn } from "@/lib/entities/weigh-in";
+import { MUTATION_ARGS, type MutationArgs, type MutationName } from "@/lib/sync/mutations";
+import type { LodebookDb, OutboxEntry } from "./db";
+
+/** A change refused on the device itself, with the field at fault. */
+export class LocalValidationError extends Error {
+  constructor(readonly fields: Record<string, string[]>) {
+    super(Object.values(fields)[0]?.[0] ?? "Check the form.");
+    this.name = "LocalValidationError";
+  }
+}
+
+function check<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
+  const parsed = schema.safeParse(value);
+  if (!parsed.success) {
+    const fields: Record<string, string[]> = {};
+    for (const issue of parsed.error.issues) (fields[issue.path.join(".") || "_"] ??= []).push(issue.message);
+    throw new LocalValidationError(fields);
+  }
+  return parsed.data;
+}
+
+/** Queues a change for camp sync. Call only inside a transaction that also writes the record. */
+export function enqueue<N extends MutationName>(db: LodebookDb, name: N, args: MutationArgs<N>, entityId: string) {
+  const entry: OutboxEntry = { name, args: check(MUTATION_ARGS[name], args), entityId, createdAt: Date.now(), state: "pending" };
+  return db.outbox.add(entry);
+}
+
+export const newId = () => uuidv7();
+
+// Each write below puts the record and its outbox entry in one transaction: both or neither.
+
+export async function saveOuting(db: LodebookDb, outing: Outing): Promise<Outing> {
+  const value = check(outingSchema, outing);
+  await db.transaction("rw", db.outings, db.outbox, async () => {
+    await db.outings.put({ ...value, updatedAt: Date.now() });
+    await enqueue(db, "outing.put", value, value.id);
+  });
+  return value;
+}
+
+export async function startOuting(db: LodebookDb, fields: Pick<Outing, "claimId" | "method"> & Partial<Outing>): Promise<Outing> {
+  return saveOuting(db, { id: newId(), startedAt: Date.now(), endedAt: null, companions: "", hours: null, conditions: "", notes: "", ...fields });
+}
+
+export async function endOuting(db: LodebookDb, outing: Outing, at = Date.now()): Promise<Outing> {
+  const hours = outing.hours ?? Math.round(((at - outing.startedAt) / 3_600_000) * 10) / 10;
+  return saveOuting(db, { ...outing, endedAt: Math.max(at, outing.startedAt), hours });
+}
+
+export async function deleteOuting(db: LodebookDb, id: string): Promise<void> {
+  await db.transaction("rw", db.outings, db.finds, db.outbox, async () => {
+    // Finds stay: they lose their outing, not their record.
+    const orphans = await db.finds.where("outingId").equals(id).toArray();
+    for (const f of orphans) {
+      const updated = { ...stripLocal(f), outingId: null };
+      await db.finds.put({ ...updated, updatedAt: Date.now() });
+      await enqueue(db, "find.put", updated, f.id);
+    }
+    await db.outings.delete(id);
+    await enqueue(db, "outing.delete", { id }, id);
+  });
+}
+
+export async function saveFind(db: LodebookDb, find: Find): Promise<Find> {
+  const value = check(findSchema, find);
+  await db.transaction("rw", db.finds, db.outbox, async () => {
+    await db.finds.put({ ...value, updatedAt: Date.now() });
+    await enqueue(db, "find.put", value, value.id);
+  });
+  return value;
+}
+
+export async function deleteFind(db: LodebookDb, id: string): Promise<void> {
+  await db.transaction("rw", [db.finds, db.photos, db.weighIns, db.outbox], async () => {
+    for (const p of await db.photos.where("findId").equals(id).toArray()) {
+      await db.photos.delete(p.id);
+      await enqueue(db, "photo.delete", { id: p.id }, p.id);
+    }
+    for (const w of await db.weighIns.where("findId").equals(id).toArray()) {
+      await db.weighIns.delete(w.id);
+      await enqueue(db, "weighIn.delete", { id: w.id }, w.id);
+    }
+    await db.finds.delete(id);
+    await enqueue(db, "find.delete", { id }, id);
+  });
+}
+
+export async function saveWeighIn(db: LodebookDb, weighIn: WeighIn): Promise<WeighIn> {
+  const value = check(weighInSchema, weighIn);
+  await db.transaction("rw", db.weighIns, db.outbox, async () => {
+    await db.weighIns.put({ ...value, updatedAt: Date.now() });
+    await enqueue(db, "weighIn.put", value, value.id);
+  });
+  return value;
+}
+
+export async function deleteWeighIn(db: LodebookDb, id: string): Promise<void> {
+  await db.transaction("rw", db.weighIns, db.outbox, async () => {
+    await db.weighIns.delete(id);
+    await enqueue(db, "weighIn.delete", { id }, id);
+  });
+}
+
+export async function deletePhoto(db: LodebookDb, id: string): Promise<void> {
+  await db.transaction("rw", db.photos, db.outbox, async () => {
+    await db.photos.delete(id);
+    await enqueue(db, "photo.delete", { id }, id);
+  });
+}
+
+/** The record as it syncs: without the device-only fields. */
+export function stripLocal<T extends { updatedAt: number }>(record: T): Omit<T, "updatedAt"> {
+  const { updatedAt: _updatedAt, ...rest } = record;
+  return rest;
+}
+
+export function pendingCount(db: LodebookDb): Promise<number> {
+  return db.outbox.where("state").equals("pending").count();
+}

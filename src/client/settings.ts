@@ -1,0 +1,41 @@
+import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
+import type { MassUnit } from "@/lib/estimate/units";
+import type { LodebookDb } from "./db";
+import { enqueue } from "./logbook";
+
+/** The member's choices on this device. Location sharing also goes to the club's server. */
+export type MemberSettings = {
+  massUnit: MassUnit;
+  tempUnit: "C" | "F";
+  scaleResolution: string;
+  hostPreset: string;
+  finenessPreset: string;
+  locationSharing: "exact" | "claim";
+  tileUrl: string;
+};
+
+export const DEFAULT_SETTINGS: MemberSettings = {
+  massUnit: "g",
+  tempUnit: "C",
+  scaleResolution: "0.01",
+  hostPreset: HOST_PRESETS[0].id,
+  finenessPreset: FINENESS_PRESETS[0].id,
+  locationSharing: "exact",
+  tileUrl: "",
+};
+
+export async function readSettings(db: LodebookDb): Promise<MemberSettings> {
+  const rows = await db.settings.toArray();
+  const stored = Object.fromEntries(rows.map((r) => [r.key, r.value]));
+  return { ...DEFAULT_SETTINGS, ...stored } as MemberSettings;
+}
+
+export async function saveSettings(db: LodebookDb, changes: Partial<MemberSettings>): Promise<void> {
+  await db.transaction("rw", db.settings, db.outbox, async () => {
+    const before = (await db.settings.get("locationSharing"))?.value ?? DEFAULT_SETTINGS.locationSharing;
+    await db.settings.bulkPut(Object.entries(changes).map(([key, value]) => ({ key, value })));
+    if (changes.locationSharing && changes.locationSharing !== before) {
+      await enqueue(db, "settings.put", { locationSharing: changes.locationSharing }, "settings");
+    }
+  });
+}

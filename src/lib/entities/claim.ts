@@ -1,0 +1,23 @@
+import { z } from "zod";
+
+const position = z.tuple([z.number().min(-180).max(180), z.number().min(-90).max(90)]);
+const ring = z.array(position).min(4, "A ring needs at least four positions (the first repeated last).");
+
+export const polygonSchema = z.union([
+  z.object({ type: z.literal("Polygon"), coordinates: z.array(ring).min(1) }),
+  z.object({ type: z.literal("MultiPolygon"), coordinates: z.array(z.array(ring).min(1)).min(1) }),
+]);
+
+/** A claim as members' devices keep it (read-only on the device). */
+export const claimViewSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  kind: z.enum(["placer", "lode"]),
+  agencyRef: z.string().nullable(),
+  boundary: polygonSchema.nullable(),
+  rules: z.string(),
+  active: z.boolean(),
+});
+
+export type ClaimView = z.infer<typeof claimViewSchema>;
+export type Polygon = z.infer<typeof polygonSchema>;

@@ -1,0 +1,31 @@
+import booleanPointInPolygon from "@turf/boolean-point-in-polygon";
+import type { Polygon } from "./entities/claim";
+
+/** Degrees, minutes and seconds with the hemisphere, e.g. 41° 48′ 0.0″ N. */
+export function toDms(value: number, axis: "lat" | "lon"): string {
+  const hemisphere = axis === "lat" ? (value >= 0 ? "N" : "S") : value >= 0 ? "E" : "W";
+  const abs = Math.abs(value);
+  let degrees = Math.floor(abs);
+  let minutes = Math.floor((abs - degrees) * 60);
+  let seconds = Math.round(((abs - degrees) * 60 - minutes) * 60 * 10) / 10;
+  if (seconds >= 60) {
+    seconds = 0;
+    minutes += 1;
+  }
+  if (minutes >= 60) {
+    minutes = 0;
+    degrees += 1;
+  }
+  return `${degrees}° ${minutes}′ ${seconds.toFixed(1)}″ ${hemisphere}`;
+}
+
+export function formatDecimal(lat: number, lon: number): string {
+  return `${lat.toFixed(6)}, ${lon.toFixed(6)}`;
+}
+
+type ClaimShape = { id: string; name: string; boundary: Polygon | null; active?: boolean };
+
+/** The claim whose boundary holds the point, if any (boundaries are the club's drawing, not a survey). */
+export function claimAt<T extends ClaimShape>(lat: number, lon: number, claims: T[]): T | undefined {
+  return claims.find((c) => c.boundary && c.active !== false && booleanPointInPolygon([lon, lat], c.boundary));
+}

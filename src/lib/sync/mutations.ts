@@ -1,0 +1,29 @@
+import { z } from "zod";
+import { idSchema } from "../entities/common";
+import { findSchema } from "../entities/find";
+import { outingSchema } from "../entities/outing";
+import { photoSchema } from "../entities/photo";
+import { weighInSchema } from "../entities/weigh-in";
+
+/** Member settings the club's server needs to know (the rest stay on the device). */
+export const memberSettingsSchema = z.object({ locationSharing: z.enum(["exact", "claim"]) }).strict();
+
+/**
+ * Every change a device can send, by name, with the schema of its arguments. Puts carry the
+ * whole record (the server's order of arrival decides between two devices); deletes an id.
+ */
+export const MUTATION_ARGS = {
+  "outing.put": outingSchema,
+  "outing.delete": z.object({ id: idSchema }).strict(),
+  "find.put": findSchema,
+  "find.delete": z.object({ id: idSchema }).strict(),
+  "photo.put": photoSchema,
+  "photo.delete": z.object({ id: idSchema }).strict(),
+  "weighIn.put": weighInSchema,
+  "weighIn.delete": z.object({ id: idSchema }).strict(),
+  "settings.put": memberSettingsSchema,
+} as const;
+
+export type MutationName = keyof typeof MUTATION_ARGS;
+export const MUTATION_NAMES = Object.keys(MUTATION_ARGS) as MutationName[];
+export type MutationArgs<N extends MutationName> = z.infer<(typeof MUTATION_ARGS)[N]>;
