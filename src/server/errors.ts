@@ -1,7 +1,7 @@
 import "server-only";
 
 // One error type, one status table. Codes read "<kind>:<subject>", e.g. "forbidden:club".
-export type ErrorKind = "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "rate_limited" | "too_large" | "unsupported";
+export type ErrorKind = "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "rate_limited" | "too_large" | "unsupported" | "gone" | "unavailable";
 
 const STATUS: Record<ErrorKind, number> = {
   bad_request: 400,
@@ -11,7 +11,9 @@ const STATUS: Record<ErrorKind, number> = {
   conflict: 409,
   too_large: 413,
   unsupported: 415,
+  gone: 410,
   rate_limited: 429,
+  unavailable: 503,
 };
 
 export type FieldErrors = Record<string, string[]>;

@@ -1,6 +1,11 @@
 import { z } from "zod";
 
-const position = z.tuple([z.number().min(-180).max(180), z.number().min(-90).max(90)]);
+/** [longitude, latitude] (an optional altitude is allowed and ignored), WGS 84. */
+const position = z
+  .array(z.number())
+  .min(2, "A position needs longitude and latitude.")
+  .max(3)
+  .refine(([lon, lat]) => Math.abs(lon) <= 180 && Math.abs(lat) <= 90, "Longitude must be within ±180 and latitude within ±90.");
 const ring = z.array(position).min(4, "A ring needs at least four positions (the first repeated last).");
 
 export const polygonSchema = z.union([

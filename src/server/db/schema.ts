@@ -124,6 +124,7 @@ export const finds = sqliteTable("finds", {
   lat: real("lat"),
   lon: real("lon"),
   accuracyM: real("accuracy_m"),
+  locationSource: text("location_source", { enum: ["device", "photo", "map", "typed"] }),
   foundAt: integer("found_at").notNull(),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
@@ -147,6 +148,9 @@ export const photos = sqliteTable("photos", {
   height: integer("height"),
   storageKey: text("storage_key"),
   takenAt: integer("taken_at"),
+  /** Position from the photo's EXIF, kept in the record; served bytes never carry it. */
+  lat: real("lat"),
+  lon: real("lon"),
   uploadedAt: integer("uploaded_at"),
   createdAt: createdAt(),
   deletedAt: integer("deleted_at"),
@@ -198,6 +202,7 @@ export const referencePrices = sqliteTable("reference_prices", {
 export const syncClients = sqliteTable("sync_clients", {
   id: text("id").primaryKey(),
   memberId: text("member_id").notNull().references(() => members.id),
+  /** The mutation id of the last change applied from this client (0: none yet). */
   lastMutationId: integer("last_mutation_id").notNull().default(0),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),

@@ -1,0 +1,17 @@
+import { MAX_PUSH_BYTES, PROTOCOL_VERSION, pushRequestSchema } from "@/lib/sync/protocol";
+import { requireActor } from "@/server/auth/actor";
+import { AppError } from "@/server/errors";
+import { json, parseJsonBody, route } from "@/server/http";
+import { requireSameOrigin } from "@/server/origin";
+import { applyPush } from "@/server/sync/push";
+
+/** Camp sync, device → server: a batch of changes applied exactly once. */
+export const POST = route(async (req) => {
+  requireSameOrigin(req);
+  const push = await parseJsonBody(req, pushRequestSchema, "push", MAX_PUSH_BYTES);
+  if (push.protocolVersion !== PROTOCOL_VERSION) {
+    throw new AppError("gone:protocol", "This copy of Lodebook is out of date. Reload to update it; your changes stay on the device.");
+  }
+  const actor = await requireActor(req, "logFinds", "push");
+  return json(applyPush(actor, push));
+});

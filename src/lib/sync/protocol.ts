@@ -1,0 +1,58 @@
+import { z } from "zod";
+import { MUTATION_NAMES } from "./mutations";
+
+/** Bumped when a change to push or pull would confuse an older client. */
+export const PROTOCOL_VERSION = 1;
+export const MAX_PUSH_MUTATIONS = 500;
+export const MAX_PUSH_BYTES = 2_000_000;
+export const DEFAULT_PULL_LIMIT = 500;
+
+export const mutationSchema = z
+  .object({
+    id: z.number().int().positive("Mutation ids start at 1."),
+    name: z.enum(MUTATION_NAMES as [string, ...string[]], { error: "Unknown change." }),
+    args: z.unknown(),
+  })
+  .strict();
+
+export const pushRequestSchema = z
+  .object({
+    protocolVersion: z.number().int(),
+    clientId: z.uuid({ error: "The client id must be a UUID." }),
+    mutations: z
+      .array(mutationSchema)
+      .min(1, "Send at least one change.")
+      .max(MAX_PUSH_MUTATIONS, `At most ${MAX_PUSH_MUTATIONS} changes in one push.`)
+      .refine((list) => list.every((m, i) => i === 0 || m.id > list[i - 1].id), "Mutation ids must increase."),
+  })
+  .strict();
+
+export type PushRequest = z.infer<typeof pushRequestSchema>;
+
+export type MutationResult = { id: number; status: "applied" | "skipped" | "rejected"; reason?: string; field?: string; message?: string };
+export type PushResponse = { lastMutationId: number; results: MutationResult[] };
+
+export const pullQuerySchema = z
+  .object({
+    protocolVersion: z.coerce.number().int(),
+    clientId: z.uuid({ error: "The client id must be a UUID." }),
+    cursor: z.coerce.number().int().min(0).default(0),
+    limit: z.coerce.number().int().min(1).max(2000).default(DEFAULT_PULL_LIMIT),
+  })
+  .strict();
+
+export type PullEntity = "claim" | "outing" | "find" | "photo" | "weighIn" | "review" | "price" | "settings";
+
+/** One change in a pull page: a record as it stands now, or a tombstone. */
+export type PullChange = { seq: number; entity: PullEntity; op: "put"; value: Record<string, unknown> } | { seq: number; entity: PullEntity; op: "del"; id: string };
+
+export type PullResponse = {
+  changes: PullChange[];
+  /** Store this only after the page is applied; the next pull starts after it. */
+  cursor: number;
+  more: boolean;
+  /** The last mutation id of this client the server has applied, read in the same transaction. */
+  lastMutationId: number;
+  /** True when the device's cursor is beyond what this server has (a restore from backup): start again from 0. */
+  reset: boolean;
+};

@@ -1,0 +1,257 @@
+import { v7 as uuidv7 } from "uuid";
+import { beforeEach, describe, expect, it, vi } from "vitest";
+import type { Db } from "@/server/db";
+import { databaseChecksum, MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, seededDatabase, sessionCookie } from "../support/test-db";
+import { applyChanges, newFind, newOuting, newWeighIn, pull, pullAll, push } from "../support/sync-client";
+
+let db: Db;
+let member: string;
+let other: string;
+let officer: string;
+let memberId: string;
+
+beforeEach(async () => {
+  ({ db } = await seededDatabase());
+  const m = memberByEmail(db, MEMBER_EMAIL);
+  memberId = m.id;
+  member = await sessionCookie(m);
+  other = await sessionCookie(memberByEmail(db, OTHER_MEMBER_EMAIL));
+  officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
+});
+
+const count = (sql: string, ...args: unknown[]) => (db.$client.prepare(sql).get(...args) as { n: number }).n;
+
+/** Every sync test ends here: a device that pulls everything holds what the server holds. */
+async function expectConverged(cookie: string, clientId: string, ownerId: string) {
+  const { changes } = await pullAll(cookie, clientId);
+  const device = applyChanges(changes);
+  const serverFinds = db.$client.prepare("select id, weight_grams as w from finds where member_id = ? and deleted_at is null order by id").all(ownerId) as { id: string; w: number }[];
+  const deviceFinds = [...(device.get("find")?.values() ?? [])].map((f) => ({ id: f.id as string, w: f.weightGrams as number })).sort((a, b) => a.id.localeCompare(b.id));
+  expect(deviceFinds).toEqual(serverFinds);
+  const serverOutings = count("select count(*) n from outings where member_id = ? and deleted_at is null", ownerId);
+  expect(device.get("outing")?.size ?? 0).toBe(serverOutings);
+}
+
+describe("push applies each change exactly once (RELIABILITY 1, 2, 4, 14)", () => {
+  it("1: the same batch sent five times, in turn and at once, is applied once", async () => {
+    const client = uuidv7();
+    const o = newOuting();
+    const f = newFind({ outingId: o.id });
+    const batch = [
+      { id: 1, name: "outing.put", args: o },
+      { id: 2, name: "find.put", args: f },
+      { id: 3, name: "weighIn.put", args: newWeighIn(f.id) },
+    ];
+    const first = await push(member, client, batch);
+    expect(first.status).toBe(200);
+    expect(first.body.results.map((r) => r.status)).toEqual(["applied", "applied", "applied"]);
+    const after = databaseChecksum(db);
+    await push(member, client, batch);
+    const parallel = await Promise.all([1, 2, 3].map(() => push(member, client, batch)));
+    for (const p of parallel) expect(p.body.results.every((r) => r.status === "skipped")).toBe(true);
+    expect(databaseChecksum(db)).toBe(after);
+    expect(count("select count(*) n from finds where id = ?", f.id)).toBe(1);
+    await expectConverged(member, client, memberId);
+  });
+
+  it("2: a resend after a lost answer changes nothing, and the pull reports the id as applied", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    await push(member, client, [{ id: 1, name: "find.put", args: f }]); // the answer is "lost"
+    const before = databaseChecksum(db);
+    const resend = await push(member, client, [{ id: 1, name: "find.put", args: f }]);
+    expect(resend.body).toMatchObject({ lastMutationId: 1, results: [{ id: 1, status: "skipped" }] });
+    expect(databaseChecksum(db)).toBe(before);
+    expect((await pull(member, client)).body.lastMutationId).toBe(1);
+  });
+
+  it("4: a gap is refused with the id to resend from; ids already seen are skipped", async () => {
+    const client = uuidv7();
+    await push(member, client, [{ id: 1, name: "find.put", args: newFind() }]);
+    const gap = await push(member, client, [{ id: 3, name: "find.put", args: newFind() }]);
+    expect(gap.status).toBe(409);
+    expect(gap.body.error?.code).toBe("conflict:mutation_gap");
+    expect(gap.body.error?.fields?.expected).toEqual(["2"]);
+    const mixed = await push(member, client, [
+      { id: 1, name: "find.put", args: newFind() },
+      { id: 2, name: "find.put", args: newFind() },
+    ]);
+    expect(mixed.body.results.map((r) => r.status)).toEqual(["skipped", "applied"]);
+  });
+
+  it("14: many writes in one millisecond get distinct, increasing cursor values; a paged pull skips none", async () => {
+    const client = uuidv7();
+    const finds = Array.from({ length: 60 }, () => newFind());
+    vi.spyOn(Date, "now").mockReturnValue(Date.UTC(2026, 6, 2));
+    await push(member, client, finds.map((f, i) => ({ id: i + 1, name: "find.put", args: f })));
+    vi.restoreAllMocks();
+    const seqs = db.$client.prepare("select seq from finds where member_id = ? order by seq").all(memberId).map((r) => (r as { seq: number }).seq);
+    expect(new Set(seqs).size).toBe(seqs.length);
+    const { changes } = await pullAll(member, client, 0, 7);
+    const got = new Set(changes.filter((c) => c.entity === "find").map((c) => (c.op === "put" ? c.value.id : c.id)));
+    for (const f of finds) expect(got.has(f.id)).toBe(true);
+  });
+});
+
+describe("bad changes and temporary trouble (RELIABILITY 5, 6)", () => {
+  it("5: a permanently invalid change is rejected with its reason, the id advances, the rest applies", async () => {
+    const client = uuidv7();
+    const good = newFind();
+    const res = await push(member, client, [
+      { id: 1, name: "find.put", args: { ...newFind(), weightGrams: -1 } },
+      { id: 2, name: "find.put", args: good },
+    ]);
+    expect(res.body.lastMutationId).toBe(2);
+    expect(res.body.results[0]).toMatchObject({ status: "rejected", reason: "invalid", field: "weightGrams" });
+    expect(res.body.results[1].status).toBe("applied");
+    expect(count("select count(*) n from finds where id = ?", good.id)).toBe(1);
+  });
+
+  it("6: a busy database stops the batch without advancing; the retry succeeds", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    const { getDb } = await import("@/server/db");
+    const real = getDb().transaction.bind(getDb());
+    const spy = vi.spyOn(getDb(), "transaction").mockImplementationOnce(() => {
+      throw Object.assign(new Error("database is locked"), { code: "SQLITE_BUSY" });
+    });
+    const busy = await push(member, client, [{ id: 1, name: "find.put", args: f }]);
+    expect(busy.status).toBe(503);
+    expect(count("select count(*) n from finds where id = ?", f.id)).toBe(0);
+    spy.mockImplementation(real as never);
+    const retry = await push(member, client, [{ id: 1, name: "find.put", args: f }]);
+    expect(retry.body.results[0].status).toBe("applied");
+    vi.restoreAllMocks();
+  });
+});
+
+describe("conflicts between one member's devices (RELIABILITY 10, 11, 15)", () => {
+  it("10: the later arrival wins, the earlier version is kept in history, both devices converge", async () => {
+    const phone = uuidv7();
+    const tablet = uuidv7();
+    const f = newFind({ weightGrams: 10 });
+    await push(member, phone, [{ id: 1, name: "find.put", args: f }]);
+    await push(member, tablet, [{ id: 1, name: "find.put", args: { ...f, weightGrams: 12 } }]);
+    await push(member, phone, [{ id: 2, name: "find.put", args: { ...f, weightGrams: 11 } }]);
+    expect(count("select count(*) n from record_history where entity_id = ?", f.id)).toBe(2);
+    expect((db.$client.prepare("select weight_grams w from finds where id = ?").get(f.id) as { w: number }).w).toBe(11);
+    await expectConverged(member, phone, memberId);
+    await expectConverged(member, tablet, memberId);
+  });
+
+  it("11: an edit of a record deleted on another device is refused, and kept in history", async () => {
+    const a = uuidv7();
+    const b = uuidv7();
+    const f = newFind();
+    await push(member, a, [{ id: 1, name: "find.put", args: f }]);
+    await push(member, a, [{ id: 2, name: "find.delete", args: { id: f.id } }]);
+    const late = await push(member, b, [{ id: 1, name: "find.put", args: { ...f, notes: "edited offline" } }]);
+    expect(late.body.results[0]).toMatchObject({ status: "rejected", reason: "deleted" });
+    const kept = db.$client.prepare("select version from record_history where entity_id = ?").all(f.id) as { version: string }[];
+    expect(kept.some((k) => JSON.parse(k.version).notes === "edited offline")).toBe(true);
+    const { changes } = await pullAll(member, b);
+    expect(applyChanges(changes).get("find")?.has(f.id) ?? false).toBe(false);
+  });
+
+  it("15: a device clock a year off changes neither order nor results", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    vi.spyOn(Date, "now").mockReturnValue(Date.UTC(2027, 6, 1));
+    await push(member, client, [{ id: 1, name: "find.put", args: { ...f, foundAt: Date.UTC(2025, 0, 1) } }]);
+    vi.restoreAllMocks();
+    await push(member, client, [{ id: 2, name: "find.put", args: { ...f, weightGrams: 50 } }]);
+    expect((db.$client.prepare("select weight_grams w from finds where id = ?").get(f.id) as { w: number }).w).toBe(50);
+  });
+});
+
+describe("pull (RELIABILITY 13, 16)", () => {
+  it("13: a pull cut mid-page resumes from the stored cursor with no gap", async () => {
+    const client = uuidv7();
+    await push(member, client, Array.from({ length: 25 }, (_, i) => ({ id: i + 1, name: "find.put", args: newFind() })));
+    const first = await pull(member, client, 0, 10);
+    // The second page's answer is "lost": the device asks again from the cursor it stored.
+    await pull(member, client, first.body.cursor, 10);
+    const rest = await pullAll(member, client, first.body.cursor, 10);
+    const all = [...first.body.changes, ...rest.changes];
+    expect(new Set(all.map((c) => c.seq)).size).toBe(all.length);
+    await expectConverged(member, client, memberId);
+  });
+
+  it("16: a cursor beyond the server's (restored from an older backup) asks the device to reset", async () => {
+    const res = await pull(member, uuidv7(), 10_000_000);
+    expect(res.body.reset).toBe(true);
+  });
+
+  it("returns the claims, prices, own records and reviews of own finds, and deletions as tombstones", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    await push(member, client, [
+      { id: 1, name: "find.put", args: f },
+      { id: 2, name: "find.delete", args: { id: f.id } },
+    ]);
+    const { changes } = await pullAll(member, client);
+    const entities = new Set(changes.map((c) => c.entity));
+    for (const e of ["claim", "price", "find", "outing"]) expect(entities).toContain(e);
+    expect(changes).toContainEqual(expect.objectContaining({ entity: "find", op: "del", id: f.id }));
+  });
+});
+
+describe("ownership (RELIABILITY 23, 24, 26)", () => {
+  it("23: changing another member's record, or owner and server fields, is refused and changes nothing", async () => {
+    const client = uuidv7();
+    const theirs = db.$client.prepare("select id from finds where member_id != ? limit 1").get(memberId) as { id: string };
+    const before = databaseChecksum(db);
+    const res = await push(member, client, [
+      { id: 1, name: "find.put", args: { ...newFind(), id: theirs.id } },
+      { id: 2, name: "find.put", args: { ...newFind(), memberId: "someone" } },
+      { id: 3, name: "find.put", args: { ...newFind(), seq: 99 } },
+      { id: 4, name: "find.delete", args: { id: theirs.id } },
+    ]);
+    expect(res.body.results.map((r) => r.status)).toEqual(["rejected", "rejected", "rejected", "rejected"]);
+    expect(res.body.results[0].reason).toBe("not_owner");
+    // Only the client's own bookkeeping moved.
+    const strip = (s: string) => s.split("\n").filter((l) => !l.startsWith("sync_clients:")).join("\n");
+    expect(strip(databaseChecksum(db))).toBe(strip(before));
+  });
+
+  it("24: a member's pull never holds another member's records; an officer may pull the club", async () => {
+    const { changes } = await pullAll(member, uuidv7());
+    for (const c of changes) if (c.op === "put" && "memberId" in c.value) expect(c.value.memberId).toBe(memberId);
+    expect((await pull(member, uuidv7(), 0, 10, "club")).status).toBe(403);
+    const club = await pull(officer, uuidv7(), 0, 2000, "club");
+    const owners = new Set(club.body.changes.filter((c) => c.entity === "find" && c.op === "put").map((c) => (c as { value: { memberId: string } }).value.memberId));
+    expect(owners.size).toBeGreaterThan(3);
+  });
+
+  it("26: a push naming another member's client id is refused, and that client is unchanged", async () => {
+    const client = uuidv7();
+    await push(member, client, [{ id: 1, name: "find.put", args: newFind() }]);
+    const res = await push(other, client, [{ id: 2, name: "find.put", args: newFind() }]);
+    expect(res.status).toBe(403);
+    expect((db.$client.prepare("select last_mutation_id l from sync_clients where id = ?").get(client) as { l: number }).l).toBe(1);
+  });
+
+  it("refuses an anonymous push and an old protocol", async () => {
+    expect((await push("", uuidv7(), [{ id: 1, name: "find.put", args: newFind() }])).status).toBe(401);
+    expect((await push(member, uuidv7(), [{ id: 1, name: "find.put", args: newFind() }], { protocolVersion: 0 })).status).toBe(410);
+  });
+});
+
+describe("weigh-ins", () => {
+  it("are recomputed on the server with the engine; a device that disagrees is recorded", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    const honest = newWeighIn(f.id);
+    const odd = { ...newWeighIn(f.id), deviceEstimate: { ...honest.deviceEstimate, fineGoldGrams: 99 } };
+    await push(member, client, [
+      { id: 1, name: "find.put", args: f },
+      { id: 2, name: "weighIn.put", args: honest },
+      { id: 3, name: "weighIn.put", args: odd },
+    ]);
+    const rows = db.$client.prepare("select id, mismatch, engine_version v, fine_gold_grams g from weigh_ins where find_id = ?").all(f.id) as { id: string; mismatch: number; v: string; g: number }[];
+    const byId = Object.fromEntries(rows.map((r) => [r.id, r]));
+    expect(byId[honest.id]).toMatchObject({ mismatch: 0, v: honest.deviceEstimate.engineVersion, g: honest.deviceEstimate.fineGoldGrams });
+    expect(byId[odd.id].mismatch).toBe(1);
+    expect(byId[odd.id].g).toBe(honest.deviceEstimate.fineGoldGrams);
+  });
+});
