@@ -219,7 +219,7 @@ describe("ownership (RELIABILITY 23, 24, 26)", () => {
     for (const c of changes) if (c.op === "put" && "memberId" in c.value) expect(c.value.memberId).toBe(memberId);
     expect((await pull(member, uuidv7(), 0, 10, "club")).status).toBe(403);
     const club = await pull(officer, uuidv7(), 0, 2000, "club");
-    const owners = new Set(club.body.changes.filter((c) => c.entity === "find" && c.op === "put").map((c) => (c as { value: { memberId: string } }).value.memberId));
+    const owners = new Set(club.body.changes.filter((c) => c.entity === "find" && c.op === "put").map((c) => (c as unknown as { value: { memberId: string } }).value.memberId));
     expect(owners.size).toBeGreaterThan(3);
   });
 
