@@ -4,6 +4,11 @@ import nextTs from "eslint-config-next/typescript";
 const config = [
   ...nextVitals,
   ...nextTs,
-  { ignores: [".next/**", "public/sw.js", "public/swe-worker*", "data/**", "drizzle/**", "next-env.d.ts", "test-results/**"] },
+  {
+    rules: {
+      "@typescript-eslint/no-unused-vars": ["warn", { argsIgnorePattern: "^_", varsIgnorePattern: "^_", destructuredArrayIgnorePattern: "^_" }],
+    },
+  },
+  { ignores: [".next/**", "public/sw.js", "public/swe-worker*", "public/maplibre-gl-worker.mjs", "data/**", "drizzle/**", "next-env.d.ts", "test-results/**"] },
 ];
 export default config;

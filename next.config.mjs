@@ -1,11 +1,20 @@
 import withSerwistInit from "@serwist/next";
+import fs from "node:fs";
+
+// MapLibre runs its tile work in a Web Worker loaded by URL: serve the package's own worker
+// file from public/ (git-ignored, copied here on every build and start).
+const mapWorker = "node_modules/maplibre-gl/dist/maplibre-gl-worker.mjs";
+if (fs.existsSync(mapWorker)) fs.copyFileSync(mapWorker, "public/maplibre-gl-worker.mjs");
+
+const revision = process.env.LODEBOOK_BUILD_ID ?? String(Date.now());
 
 const withSerwist = withSerwistInit({
   swSrc: "sw/sw.ts",
   swDest: "public/sw.js",
   // The worker is only useful against a production build; in `next dev` it would cache stale chunks.
   disable: process.env.NODE_ENV === "development",
-  additionalPrecacheEntries: [{ url: "/offline", revision: process.env.LODEBOOK_BUILD_ID ?? "1" }],
+  // Every member screen opens with no signal after one visit: precache their shells.
+  additionalPrecacheEntries: ["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/weigh", "/offline"].map((url) => ({ url, revision })),
 });
 
 /** @type {import('next').NextConfig} */

@@ -12,4 +12,6 @@ export function proxy(request: NextRequest) {
   return NextResponse.redirect(url);
 }
 
-export const config = { matcher: ["/", "/club/:path*"] };
+// Member screens are offline shells that find their member on the device; only the
+// server-rendered officers' console is redirected here.
+export const config = { matcher: ["/club/:path*"] };

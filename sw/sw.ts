@@ -18,15 +18,35 @@ const apiNeverCached: RuntimeCaching = {
   handler: new NetworkOnly(),
 };
 
+// The officers' console is rendered per request with club data: never keep a copy on a device.
+const consoleNeverCached: RuntimeCaching = {
+  matcher: ({ url, sameOrigin }) => sameOrigin && (url.pathname === "/club" || url.pathname.startsWith("/club/")),
+  handler: new NetworkOnly(),
+};
+
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
   skipWaiting: false,
   clientsClaim: true,
   navigationPreload: true,
-  runtimeCaching: [apiNeverCached, ...defaultCache],
+  runtimeCaching: [apiNeverCached, consoleNeverCached, ...defaultCache],
   fallbacks: {
     entries: [{ url: "/offline", matcher: ({ request }) => request.destination === "document" }],
   },
 });
 
 serwist.addEventListeners();
+
+// "New version ready": the page asks the waiting worker to take over when the member agrees.
+self.addEventListener("message", (event) => {
+  if (event.data?.type === "SKIP_WAITING") void self.skipWaiting();
+});
+
+// Background Sync: wake an open tab to run camp sync (it holds the session and the data).
+self.addEventListener("sync", (event) => {
+  const e = event as ExtendableEvent & { tag?: string };
+  if (e.tag !== "lodebook-sync") return;
+  e.waitUntil(
+    self.clients.matchAll({ type: "window" }).then((clients) => clients.forEach((c) => c.postMessage({ type: "lodebook-sync" }))),
+  );
+});

@@ -16,16 +16,23 @@ export type LocalWeighIn = WeighIn & Local;
 export type LocalPhoto = Photo & Local & { blob: Blob; thumb: Blob; uploaded: 0 | 1 };
 export type LocalReview = { id: string; findId: string; action: "verify" | "query" | "note"; note: string; officerName: string | null; createdAt: number };
 
-/** One change waiting for camp sync. The auto-increment key is the mutation id. */
+/**
+ * One change waiting for camp sync, in the order made (the auto-increment key). Its mutation
+ * id for the server is given, and stored, just before it is first sent.
+ */
 export type OutboxEntry = {
   id?: number;
+  mutationId?: number;
   name: MutationName;
   args: unknown;
   entityId: string;
   createdAt: number;
   state: "pending" | "rejected";
   reason?: string;
+  field?: string;
 };
+
+export type LocalPrice = { id: string; effectiveOn: string; pricePerTroyOunce: number; currency: string };
 
 export type Setting = { key: string; value: unknown };
 export type Meta = { key: string; value: unknown };
@@ -37,6 +44,7 @@ export class LodebookDb extends Dexie {
   weighIns!: EntityTable<LocalWeighIn, "id">;
   claims!: EntityTable<ClaimView, "id">;
   reviews!: EntityTable<LocalReview, "id">;
+  prices!: EntityTable<LocalPrice, "id">;
   settings!: EntityTable<Setting, "key">;
   outbox!: EntityTable<OutboxEntry, "id">;
   meta!: EntityTable<Meta, "key">;
@@ -54,13 +62,15 @@ export class LodebookDb extends Dexie {
       outbox: "++id",
     });
     // Version 2: indexes that let sync find its work without scanning tables (outbox state,
-    // photos still to upload), finds by claim, officers' reviews, and sync bookkeeping.
+    // photos still to upload), finds by claim, officers' reviews, reference prices, and sync
+    // bookkeeping (client id, cursor, mutation counter).
     this.version(2)
       .stores({
         finds: "id, foundAt, outingId, kind, claimId",
         photos: "id, findId, uploaded",
         outbox: "++id, state, entityId",
         reviews: "id, findId",
+        prices: "id, effectiveOn",
         meta: "key",
       })
       .upgrade(async (tx) => {

@@ -25,8 +25,10 @@ function check<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
 }
 
 /** Queues a change for camp sync. Call only inside a transaction that also writes the record. */
-export function enqueue<N extends MutationName>(db: LodebookDb, name: N, args: MutationArgs<N>, entityId: string) {
+export async function enqueue<N extends MutationName>(db: LodebookDb, name: N, args: MutationArgs<N>, entityId: string) {
   const entry: OutboxEntry = { name, args: check(MUTATION_ARGS[name], args), entityId, createdAt: Date.now(), state: "pending" };
+  // A newer change to the same record supersedes one the server refused earlier.
+  await db.outbox.where("entityId").equals(entityId).filter((e) => e.state === "rejected").delete();
   return db.outbox.add(entry);
 }
 
@@ -121,4 +123,9 @@ export function stripLocal<T extends { updatedAt: number }>(record: T): Omit<T, 
 
 export function pendingCount(db: LodebookDb): Promise<number> {
   return db.outbox.where("state").equals("pending").count();
+}
+
+/** The member lets go of a change the server refused; the record stays as it is on the device. */
+export async function discardRefusedChange(db: LodebookDb, outboxId: number): Promise<void> {
+  await db.outbox.where("id").equals(outboxId).filter((e) => e.state === "rejected").delete();
 }

@@ -5,7 +5,9 @@ import { signOutNow } from "@/server/actions/session";
 export function SignOutButton() {
   const [, action, pending] = useActionState(signOutNow, {});
   return (
-    <form action={action}>
+    // The device forgets who was signed in; that member's own database and outbox stay, to be
+    // sent when they sign in again.
+    <form action={action} onSubmit={() => localStorage.removeItem("lodebook-member")}>
       <button type="submit" className="btn" disabled={pending}>
         Sign out
       </button>

@@ -1,28 +1,50 @@
 import Link from "next/link";
-import { can, ROLE_LABELS } from "@/lib/roles";
-import type { Actor } from "@/server/auth/actor";
+import { can, ROLE_LABELS, type Role } from "@/lib/roles";
 import { SignOutButton } from "./sign-out-button";
 import { ThemeToggle } from "./theme-toggle";
 import { Wordmark } from "./wordmark";
 
 const linkClass = "inline-flex min-h-touch items-center rounded-md px-3 font-bold no-underline hover:underline";
 
-export function SiteHeader({ actor }: { actor: Actor | null }) {
+/** Who is signed in, as much as the header needs: works for server pages and the offline shell. */
+export type HeaderPerson = { name: string | null; email: string; role: Role };
+
+export function SiteHeader({ actor }: { actor: HeaderPerson | null }) {
   return (
     <header className="no-print border-b-2 border-rule bg-sheet">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-x-2 gap-y-1 px-3 py-2">
         <Link href="/" className="no-underline" aria-label="Lodebook home">
           <Wordmark compact />
         </Link>
-        <nav aria-label="Main" className="order-last flex w-full flex-wrap items-center gap-1 md:order-none md:w-auto">
+        <nav aria-label="Main" className="order-last hidden w-full flex-wrap items-center gap-1 md:order-none md:flex md:w-auto">
           {actor && (
             <Link href="/" className={linkClass}>
               Today
             </Link>
           )}
-          <Link href="/weigh" className={linkClass}>
-            Weigh a specimen
-          </Link>
+          {actor ? (
+            <>
+              <Link href="/finds" className={linkClass}>
+                Finds
+              </Link>
+              <Link href="/outings" className={linkClass}>
+                Outings
+              </Link>
+              <Link href="/map" className={linkClass}>
+                Map
+              </Link>
+              <Link href="/sync" className={linkClass}>
+                Camp sync
+              </Link>
+              <Link href="/settings" className={linkClass}>
+                Settings
+              </Link>
+            </>
+          ) : (
+            <Link href="/weigh" className={linkClass}>
+              Weigh a specimen
+            </Link>
+          )}
           {can(actor?.role, "viewLedger") && (
             <Link href="/club" className={linkClass}>
               Club console

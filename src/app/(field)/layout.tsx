@@ -1,12 +1,7 @@
-import { SiteHeader } from "@/components/site-header";
-import { currentActor } from "@/server/auth/current";
+import { FieldShell } from "@/components/field/field-shell";
 
-export default async function FieldLayout({ children }: { children: React.ReactNode }) {
-  const actor = await currentActor();
-  return (
-    <>
-      <SiteHeader actor={actor} />
-      <main className="mx-auto max-w-5xl px-3 py-4">{children}</main>
-    </>
-  );
+// Member screens are static shells: they open from the service worker's cache with no
+// signal and read everything from this device's database.
+export default function FieldLayout({ children }: { children: React.ReactNode }) {
+  return <FieldShell>{children}</FieldShell>;
 }

@@ -19,6 +19,8 @@ export const pushRequestSchema = z
   .object({
     protocolVersion: z.number().int(),
     clientId: z.uuid({ error: "The client id must be a UUID." }),
+    /** The member the device holds these changes for: a check, never the identity (that is the session's). */
+    asMember: z.string().max(64).optional(),
     mutations: z
       .array(mutationSchema)
       .min(1, "Send at least one change.")

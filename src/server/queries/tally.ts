@@ -10,25 +10,6 @@ const latestFine = sql.raw(
 
 export type Tally = { finds: number; weightGrams: number; fineGoldGrams: number; weighedFinds: number };
 
-export function memberSeasonTally(memberId: string, year: number): Tally {
-  const { start, end } = seasonBounds(year);
-  const row = getDb().get<{ finds: number; weight: number | null; fine: number | null; weighed: number }>(sql`
-    select count(*) as finds, sum(f.weight_grams) as weight, sum(${latestFine}) as fine, count(${latestFine}) as weighed
-    from finds f
-    where f.member_id = ${memberId} and f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}`);
-  return { finds: row.finds, weightGrams: row.weight ?? 0, fineGoldGrams: row.fine ?? 0, weighedFinds: row.weighed };
-}
-
-export type RecentFind = { id: string; kind: string; weightGrams: number | null; foundAt: number; claimName: string | null; fineGoldGrams: number | null };
-
-export function recentFindsOf(memberId: string, limit = 6): RecentFind[] {
-  return getDb().all<RecentFind>(sql`
-    select f.id, f.kind, f.weight_grams as weightGrams, f.found_at as foundAt, c.name as claimName, ${latestFine} as fineGoldGrams
-    from finds f left join claims c on c.id = f.claim_id
-    where f.member_id = ${memberId} and f.deleted_at is null
-    order by f.found_at desc limit ${limit}`);
-}
-
 export type ClaimTally = Tally & { claimId: string | null; claimName: string | null; kind: string | null; members: number };
 
 /** The club's season per claim (officers only: callers check the capability). */

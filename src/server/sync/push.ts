@@ -24,6 +24,10 @@ export function isTemporaryDbError(error: unknown): boolean {
  * id is stored in the same transaction as the writes (exactly once).
  */
 export function applyPush(actor: Actor, push: PushRequest): PushResponse {
+  if (push.asMember !== undefined && push.asMember !== actor.id) {
+    // Another member signed in on this device: the first member's changes never go under this identity.
+    throw new AppError("conflict:member", "These changes belong to another member. Sign in as that member to send them.");
+  }
   const db = getDb();
   try {
     return db.transaction((tx) => {

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { formatGrams } from "@/components/figures";
+import { formatGrams } from "@/lib/format";
 import { ROLE_LABELS } from "@/lib/roles";
 import { currentSeason } from "@/lib/season";
 import { requirePageActor } from "@/server/auth/current";

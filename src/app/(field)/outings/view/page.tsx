@@ -1,0 +1,14 @@
+import type { Metadata } from "next";
+import { Suspense } from "react";
+import { Skeleton } from "@/components/field/skeleton";
+import { OutingDetailScreen } from "@/components/field/screens/outings";
+
+export const metadata: Metadata = { title: "Outing" };
+
+export default function Page() {
+  return (
+    <Suspense fallback={<Skeleton />}>
+      <OutingDetailScreen />
+    </Suspense>
+  );
+}

@@ -1,0 +1,82 @@
+"use client";
+import { useRouter } from "next/navigation";
+import { createContext, useContext, useEffect, useState } from "react";
+import type { Role } from "@/lib/roles";
+import { memberDb, type LodebookDb } from "./db";
+import { startSync } from "./sync/scheduler";
+
+export type DeviceMember = { id: string; name: string | null; email: string; role: Role };
+
+const STORAGE_KEY = "lodebook-member";
+
+export function rememberedMember(): DeviceMember | null {
+  try {
+    return JSON.parse(localStorage.getItem(STORAGE_KEY) ?? "null") as DeviceMember | null;
+  } catch {
+    return null;
+  }
+}
+
+export function forgetMember(): void {
+  localStorage.removeItem(STORAGE_KEY);
+}
+
+type State = { status: "loading" } | { status: "signed-out" } | { status: "ready"; member: DeviceMember; db: LodebookDb; sessionLive: boolean };
+
+const MemberContext = createContext<State>({ status: "loading" });
+
+/**
+ * Who is using this device, known without signal: the member the last signed-in visit
+ * remembered, confirmed with the server when it answers. Each member has their own database.
+ */
+export function MemberProvider({ children }: { children: React.ReactNode }) {
+  const [state, setState] = useState<State>({ status: "loading" });
+
+  useEffect(() => {
+    let cancelled = false;
+    const use = (member: DeviceMember, sessionLive: boolean) => !cancelled && setState({ status: "ready", member, db: memberDb(member.id), sessionLive });
+    const remembered = rememberedMember();
+    if (remembered) use(remembered, false);
+    fetch("/api/me", { cache: "no-store", credentials: "same-origin" })
+      .then(async (res) => {
+        if (res.ok) {
+          const { member } = (await res.json()) as { member: DeviceMember };
+          localStorage.setItem(STORAGE_KEY, JSON.stringify(member));
+          use(member, true);
+        } else if (res.status === 401 && !remembered && !cancelled) {
+          setState({ status: "signed-out" });
+        }
+      })
+      .catch(() => {
+        if (!remembered && !cancelled) setState({ status: "signed-out" });
+      });
+    return () => {
+      cancelled = true;
+    };
+  }, []);
+
+  const ready = state.status === "ready" ? state : undefined;
+  useEffect(() => {
+    if (!ready) return;
+    const sync = startSync(ready.db, ready.member.id);
+    return () => sync.stop();
+  }, [ready?.db, ready?.member.id]); // eslint-disable-line react-hooks/exhaustive-deps
+
+  const router = useRouter();
+  useEffect(() => {
+    if (state.status === "signed-out") router.replace(`/sign-in?from=${encodeURIComponent(window.location.pathname)}`);
+  }, [state.status, router]);
+
+  return <MemberContext.Provider value={state}>{children}</MemberContext.Provider>;
+}
+
+export function useMemberState(): State {
+  return useContext(MemberContext);
+}
+
+/** For screens inside the member shell, once the member is known. */
+export function useMember(): { member: DeviceMember; db: LodebookDb } {
+  const state = useContext(MemberContext);
+  if (state.status !== "ready") throw new Error("useMember outside a ready member shell");
+  return state;
+}

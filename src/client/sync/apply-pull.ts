@@ -1,0 +1,63 @@
+import type { PullChange } from "@/lib/sync/protocol";
+import type { LodebookDb } from "../db";
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- records arrive as JSON; the keys are picked from the shared schemas
+const pick = (value: Record<string, unknown>, keys: readonly string[]): any => Object.fromEntries(keys.map((k) => [k, value[k] ?? null]));
+
+const OUTING_KEYS = ["id", "claimId", "startedAt", "endedAt", "companions", "method", "hours", "conditions", "notes"] as const;
+const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const;
+const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const;
+const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt"] as const;
+const CLAIM_KEYS = ["id", "name", "kind", "agencyRef", "boundary", "rules", "active"] as const;
+
+/**
+ * Applies one pull page and stores its cursor in the same transaction. A record with a change
+ * still waiting on this device is left as the device has it: that change goes up next.
+ */
+export async function applyPullPage(db: LodebookDb, changes: PullChange[], cursor: number, lastMutationId: number): Promise<void> {
+  await db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
+    const pendingIds = new Set((await db.outbox.where("state").equals("pending").toArray()).map((e) => e.entityId));
+    for (const c of changes) {
+      const id = c.op === "put" ? (c.value.id as string) : c.id;
+      if (pendingIds.has(id)) continue;
+      if (c.op === "del") {
+        const table = { outing: db.outings, find: db.finds, photo: db.photos, weighIn: db.weighIns, claim: db.claims, review: db.reviews, price: db.prices, settings: undefined }[c.entity];
+        await table?.delete(id);
+        continue;
+      }
+      const v = c.value;
+      const updatedAt = typeof v.updatedAt === "number" ? v.updatedAt : Date.now();
+      switch (c.entity) {
+        case "outing":
+          await db.outings.put({ ...pick(v, OUTING_KEYS), updatedAt });
+          break;
+        case "find":
+          await db.finds.put({ ...pick(v, FIND_KEYS), updatedAt });
+          break;
+        case "photo": {
+          // Bytes of a photo taken on another device are fetched when shown, not here.
+          const local = await db.photos.get(id);
+          await db.photos.put({ ...pick(v, PHOTO_KEYS), updatedAt, blob: local?.blob ?? new Blob(), thumb: local?.thumb ?? new Blob(), uploaded: 1 });
+          break;
+        }
+        case "weighIn":
+          await db.weighIns.put({ ...pick(v, WEIGH_IN_KEYS), updatedAt });
+          break;
+        case "claim":
+          await db.claims.put(pick(v, CLAIM_KEYS) as never);
+          break;
+        case "review":
+          await db.reviews.put({ id, findId: v.findId as string, action: v.action as "verify", note: (v.note as string) ?? "", officerName: (v.officerName as string) ?? null, createdAt: v.createdAt as number });
+          break;
+        case "price":
+          await db.prices.put({ id, effectiveOn: v.effectiveOn as string, pricePerTroyOunce: v.pricePerTroyOunce as number, currency: v.currency as string });
+          break;
+      }
+    }
+    // Changes the server applied whose answer never arrived: they are done.
+    if (lastMutationId > 0) {
+      await db.outbox.filter((e) => e.state === "pending" && e.mutationId !== undefined && e.mutationId <= lastMutationId).delete();
+    }
+    await db.meta.put({ key: "cursor", value: cursor });
+  });
+}

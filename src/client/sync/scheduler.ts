@@ -1,0 +1,91 @@
+import type { LodebookDb } from "../db";
+import { backoffMs, syncOnce, syncStatus } from "./engine";
+
+const PERIOD_MS = 5 * 60_000;
+
+type Running = { stop: () => void; request: () => void };
+let current: Running | undefined;
+
+/**
+ * Runs camp sync for one member on this device: at start, when the browser comes online or
+ * the app comes back into view, every few minutes, from "sync now", and when the service
+ * worker's Background Sync fires. Only one tab leads (Web Locks); failures back off.
+ */
+export function startSync(db: LodebookDb, memberId: string): Running {
+  current?.stop();
+  let stopped = false;
+  let attempt = 0;
+  let retryTimer: ReturnType<typeof setTimeout> | undefined;
+  let again = false;
+  let running = false;
+
+  const run = async () => {
+    if (stopped) return;
+    if (running) {
+      again = true;
+      return;
+    }
+    running = true;
+    try {
+      const work = async () => {
+        const outcome = await syncOnce(db, memberId, (s) => syncStatus.set(s));
+        syncStatus.set(outcome);
+        clearTimeout(retryTimer);
+        if (outcome.kind === "error" || outcome.kind === "offline") {
+          const wait = Math.max(backoffMs(attempt++), outcome.kind === "error" ? outcome.retryAt - Date.now() : 0);
+          if (outcome.kind === "error") retryTimer = setTimeout(run, wait);
+        } else attempt = 0;
+      };
+      if (typeof navigator !== "undefined" && navigator.locks) {
+        await navigator.locks.request(`lodebook-sync-${memberId}`, { ifAvailable: true }, async (lock) => {
+          if (lock) await work(); // another tab holds it: that tab is syncing for everyone
+        });
+      } else await work();
+    } catch (error) {
+      syncStatus.set({ kind: "error", message: error instanceof Error ? error.message : String(error), retryAt: Date.now() + backoffMs(attempt), waiting: 0 });
+      retryTimer = setTimeout(run, backoffMs(attempt++));
+    } finally {
+      running = false;
+      if (again && !stopped) {
+        again = false;
+        void run();
+      }
+    }
+  };
+
+  const onVisible = () => document.visibilityState === "visible" && void run();
+  const onMessage = (e: MessageEvent) => e.data?.type === "lodebook-sync" && void run();
+  window.addEventListener("online", run);
+  document.addEventListener("visibilitychange", onVisible);
+  navigator.serviceWorker?.addEventListener("message", onMessage);
+  const timer = setInterval(() => navigator.onLine && void run(), PERIOD_MS);
+  void run();
+
+  current = {
+    request: () => void run(),
+    stop: () => {
+      stopped = true;
+      clearInterval(timer);
+      clearTimeout(retryTimer);
+      window.removeEventListener("online", run);
+      document.removeEventListener("visibilitychange", onVisible);
+      navigator.serviceWorker?.removeEventListener("message", onMessage);
+    },
+  };
+  return current;
+}
+
+/** Ask for a sync now (after a save, or the "sync now" button). Offline, Background Sync takes it. */
+export function requestSync(): void {
+  if (navigator.onLine) current?.request();
+  else void registerBackgroundSync();
+}
+
+async function registerBackgroundSync() {
+  try {
+    const reg = (await navigator.serviceWorker?.ready) as (ServiceWorkerRegistration & { sync?: { register: (tag: string) => Promise<void> } }) | undefined;
+    await reg?.sync?.register("lodebook-sync");
+  } catch {
+    // Not every browser has Background Sync; the online event covers it.
+  }
+}

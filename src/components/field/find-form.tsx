@@ -1,0 +1,161 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useForm } from "react-hook-form";
+import { z } from "zod";
+import type { LocalFind } from "@/client/db";
+import type { MemberSettings } from "@/client/settings";
+import { FieldError } from "@/components/field-error";
+import { parseNumber } from "@/components/weigh/form-model";
+import type { ClaimView } from "@/lib/entities/claim";
+import { METHOD_LABELS, methodSchema, OUTING_METHODS } from "@/lib/entities/common";
+import { FIND_KINDS, KIND_LABELS, type Find } from "@/lib/entities/find";
+import { convertMass, toGrams } from "@/lib/estimate/units";
+import { toLocalInput } from "@/lib/format";
+
+const optionalNumber = (message: string, ok: (n: number) => boolean) =>
+  z.string().refine((v) => {
+    const n = parseNumber(v);
+    return n === undefined || (!Number.isNaN(n) && ok(n));
+  }, message);
+
+export const findFormSchema = z
+  .object({
+    kind: z.enum(FIND_KINDS, { error: "Choose what you found." }),
+    weight: optionalNumber("The weight must be a number above zero, or empty.", (n) => n > 0),
+    depthCm: optionalNumber("The depth must be a number of centimetres, or empty.", (n) => n >= 0 && n <= 10_000),
+    method: methodSchema,
+    claimId: z.string(),
+    notes: z.string().max(4000, "At most 4000 characters."),
+    foundAt: z.string().min(1, "When was it found?"),
+    lat: optionalNumber("Latitude is a number between −90 and 90.", (n) => Math.abs(n) <= 90),
+    lon: optionalNumber("Longitude is a number between −180 and 180.", (n) => Math.abs(n) <= 180),
+  })
+  .refine((v) => (v.lat.trim() === "") === (v.lon.trim() === ""), { message: "Give both latitude and longitude, or neither.", path: ["lat"] });
+
+type FormValues = z.infer<typeof findFormSchema>;
+
+type Props = { find: LocalFind; claims: ClaimView[]; settings: MemberSettings; onSave: (find: Find) => Promise<void> };
+
+/** Everything about a find, editable; the shared find schema checks it again on save. */
+export function FindForm({ find, claims, settings, onSave }: Props) {
+  const unit = settings.massUnit;
+  const { register, handleSubmit, formState, setError } = useForm<FormValues>({
+    resolver: zodResolver(findFormSchema),
+    values: {
+      kind: find.kind,
+      weight: find.weightGrams == null ? "" : String(Number(convertMass(find.weightGrams, unit).toFixed(4))),
+      depthCm: find.depthCm == null ? "" : String(find.depthCm),
+      method: find.method,
+      claimId: find.claimId ?? "",
+      notes: find.notes,
+      foundAt: toLocalInput(find.foundAt),
+      lat: find.lat == null ? "" : String(find.lat),
+      lon: find.lon == null ? "" : String(find.lon),
+    },
+  });
+  const e = formState.errors;
+
+  const submit = handleSubmit(async (v) => {
+    const lat = parseNumber(v.lat) ?? null;
+    const lon = parseNumber(v.lon) ?? null;
+    const moved = lat !== find.lat || lon !== find.lon;
+    const weight = parseNumber(v.weight);
+    try {
+      await onSave({
+        id: find.id,
+        outingId: find.outingId,
+        claimId: v.claimId || null,
+        kind: v.kind,
+        weightGrams: weight === undefined ? null : toGrams(weight, unit),
+        depthCm: parseNumber(v.depthCm) ?? null,
+        method: v.method,
+        notes: v.notes,
+        lat,
+        lon,
+        accuracyM: moved ? null : find.accuracyM,
+        locationSource: lat === null ? null : moved ? "typed" : find.locationSource,
+        foundAt: new Date(v.foundAt).getTime(),
+      });
+    } catch (error) {
+      const fields = (error as { fields?: Record<string, string[]> }).fields;
+      if (!fields) throw error;
+      for (const [k, msgs] of Object.entries(fields)) setError((k === "weightGrams" ? "weight" : k) as keyof FormValues, { message: msgs[0] });
+    }
+  });
+
+  return (
+    <form onSubmit={submit} className="sheet flex flex-col gap-4" noValidate aria-label="Find details">
+      <div className="grid grid-cols-2 gap-3">
+        <label className="flex flex-col">
+          <span className="field-label">Kind</span>
+          <select className="field-input" {...register("kind")}>
+            {FIND_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {KIND_LABELS[k]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Weight ({unit})</span>
+          <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.weight} {...register("weight")} />
+          <FieldError messages={e.weight?.message ? [e.weight.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Depth (cm)</span>
+          <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.depthCm} {...register("depthCm")} />
+          <FieldError messages={e.depthCm?.message ? [e.depthCm.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Method</span>
+          <select className="field-input" {...register("method")}>
+            {OUTING_METHODS.map((m) => (
+              <option key={m} value={m}>
+                {METHOD_LABELS[m]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">Claim</span>
+          <select className="field-input" {...register("claimId")}>
+            <option value="">Off the club&apos;s claims</option>
+            {claims.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">Found</span>
+          <input type="datetime-local" className="field-input" aria-invalid={!!e.foundAt} {...register("foundAt")} />
+          <FieldError messages={e.foundAt?.message ? [e.foundAt.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Latitude</span>
+          <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.lat} {...register("lat")} />
+          <FieldError messages={e.lat?.message ? [e.lat.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Longitude</span>
+          <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.lon} {...register("lon")} />
+          <FieldError messages={e.lon?.message ? [e.lon.message] : undefined} />
+        </label>
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">Notes</span>
+          <textarea rows={3} className="field-input" {...register("notes")} />
+          <FieldError messages={e.notes?.message ? [e.notes.message] : undefined} />
+        </label>
+      </div>
+      <button type="submit" className="btn btn-primary" disabled={formState.isSubmitting}>
+        Save changes
+      </button>
+      {formState.isSubmitSuccessful && !Object.keys(e).length && (
+        <p role="status" className="font-bold text-moss">
+          Saved on this device.
+        </p>
+      )}
+    </form>
+  );
+}

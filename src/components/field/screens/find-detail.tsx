@@ -1,0 +1,170 @@
+"use client";
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useClaims, useDevicePosition, useHashParams, useSettings } from "@/client/hooks";
+import { deleteFind, deleteWeighIn, newId, saveFind, saveWeighIn, stripLocal } from "@/client/logbook";
+import { useMember } from "@/client/member";
+import { requestSync } from "@/client/sync/scheduler";
+import { WeighInFlow } from "@/components/weigh/weigh-in-flow";
+import { KIND_LABELS } from "@/lib/entities/find";
+import { formatGrams, formatWhen } from "@/lib/format";
+import { claimAt } from "@/lib/geo";
+import { FindForm } from "../find-form";
+import { LocationLine } from "../location-line";
+import { PhotosBlock } from "../photos-block";
+import { Skeleton } from "../skeleton";
+
+const REVIEW_LABEL = { verify: "Verified", query: "Queried", note: "Note" } as const;
+
+export function FindDetailScreen() {
+  const hash = useHashParams();
+  const id = hash.get("id") ?? "";
+  const justSaved = hash.get("saved") === "1";
+  const { db } = useMember();
+  const router = useRouter();
+  const find = useLiveQuery(async () => (await db.finds.get(id)) ?? null, [db, id]);
+  const claims = useClaims(db) ?? [];
+  const settings = useSettings(db);
+  const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);
+  const reviews = useLiveQuery(() => db.reviews.where("findId").equals(id).sortBy("createdAt"), [db, id]);
+  const { state: position, locate } = useDevicePosition(false);
+  const [weighing, setWeighing] = useState(false);
+
+  if (find === undefined) return <Skeleton />;
+  if (find === null)
+    return (
+      <section className="sheet">
+        <h1 className="text-xl font-bold">This find is not on this device</h1>
+        <Link href="/finds" className="btn mt-2">
+          Back to finds
+        </Link>
+      </section>
+    );
+
+  const save = async (next: Parameters<typeof saveFind>[1]) => {
+    await saveFind(db, next);
+    requestSync();
+  };
+  const useHere = async () => {
+    if (position.kind !== "found") return locate();
+    const p = position.position;
+    await save({ ...stripLocal(find), lat: p.lat, lon: p.lon, accuracyM: p.accuracyM, locationSource: "device", claimId: claimAt(p.lat, p.lon, claims)?.id ?? find.claimId });
+  };
+
+  return (
+    <div className="flex flex-col gap-4">
+      <header className="flex flex-wrap items-baseline justify-between gap-2">
+        <h1 className="text-2xl font-bold">
+          {KIND_LABELS[find.kind]}
+          {find.weightGrams != null && <span className="figure"> · {formatGrams(find.weightGrams, settings.massUnit)}</span>}
+        </h1>
+        <span className="text-ink-soft">{formatWhen(find.foundAt)}</span>
+      </header>
+      {justSaved && (
+        <p role="status" className="sheet font-bold text-moss">
+          Find saved on this device. It goes to the club at the next camp sync.
+        </p>
+      )}
+
+      {(reviews?.length ?? 0) > 0 && (
+        <section className="sheet flex flex-col gap-2" aria-labelledby="reviews-title" data-testid="reviews">
+          <h2 id="reviews-title" className="heading-bar self-start text-lg">
+            From the club&apos;s officers
+          </h2>
+          {reviews!.map((r) => (
+            <p key={r.id} data-action={r.action}>
+              <strong className={r.action === "query" ? "text-rust" : r.action === "verify" ? "text-moss" : ""}>{REVIEW_LABEL[r.action]}</strong>
+              {r.officerName ? ` by ${r.officerName}` : ""} · {formatWhen(r.createdAt)}
+              {r.note && <span className="block">{r.note}</span>}
+            </p>
+          ))}
+        </section>
+      )}
+
+      <section className="sheet flex flex-col gap-2" aria-labelledby="where-title">
+        <h2 id="where-title" className="heading-bar self-start text-lg">
+          Where
+        </h2>
+        <LocationLine lat={find.lat} lon={find.lon} accuracyM={find.accuracyM} source={find.locationSource} claims={claims} />
+        <div className="flex flex-wrap gap-2">
+          <button type="button" className="btn" onClick={useHere}>
+            {position.kind === "found" ? "Use this position now" : position.kind === "finding" ? "Finding…" : "Use my position"}
+          </button>
+          <Link className="btn" href={`/map#pick=${find.id}`}>
+            Pick on the map
+          </Link>
+        </div>
+        {position.kind === "found" && (
+          <p className="text-sm">
+            Device says {position.position.lat.toFixed(6)}, {position.position.lon.toFixed(6)} (± {Math.round(position.position.accuracyM)} m).
+          </p>
+        )}
+        {position.kind === "failed" && <p className="text-sm text-rust">{position.message}</p>}
+      </section>
+
+      <PhotosBlock db={db} findId={find.id} />
+
+      <section className="sheet flex flex-col gap-3" aria-labelledby="weighins-title">
+        <h2 id="weighins-title" className="heading-bar self-start text-lg">
+          Weigh-ins
+        </h2>
+        {(weighIns ?? []).length === 0 && <p className="text-ink-soft">Not weighed yet.</p>}
+        <ul className="flex flex-col gap-2" data-testid="weigh-ins">
+          {(weighIns ?? []).map((w) => (
+            <li key={w.id} className="flex flex-wrap items-baseline justify-between gap-2 border-b border-rule pb-2">
+              <span>
+                {formatWhen(w.weighedAt)} · {w.input.method} · {w.input.waterTempC ?? 20} °C
+              </span>
+              <span className="figure font-bold">
+                ≈ {formatGrams(w.deviceEstimate.fineGoldGrams, settings.massUnit)} fine ({formatGrams(w.deviceEstimate.range.fineGoldGrams[0], settings.massUnit)} –{" "}
+                {formatGrams(w.deviceEstimate.range.fineGoldGrams[1], settings.massUnit)})
+              </span>
+              <button
+                type="button"
+                className="btn px-2 text-sm"
+                onClick={async () => {
+                  await deleteWeighIn(db, w.id);
+                  requestSync();
+                }}
+              >
+                Remove
+              </button>
+            </li>
+          ))}
+        </ul>
+        {weighing ? (
+          <WeighInFlow
+            initial={{ resolution: settings.scaleResolution, hostPreset: settings.hostPreset, finenessPreset: settings.finenessPreset, tempUnit: settings.tempUnit, readingUnit: "g" }}
+            onSave={async (input, estimate) => {
+              await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now() });
+              setWeighing(false);
+              requestSync();
+            }}
+          />
+        ) : (
+          <button type="button" className="btn btn-primary self-start" onClick={() => setWeighing(true)}>
+            Weigh this specimen
+          </button>
+        )}
+        <p className="text-sm text-ink-soft">Estimates are not assays.</p>
+      </section>
+
+      <FindForm find={find} claims={claims} settings={settings} onSave={save} />
+
+      <button
+        type="button"
+        className="btn self-start border-rust text-rust"
+        onClick={async () => {
+          if (!window.confirm("Delete this find, its photos and weigh-ins from your logbook?")) return;
+          await deleteFind(db, find.id);
+          requestSync();
+          router.push("/finds");
+        }}
+      >
+        Delete this find
+      </button>
+    </div>
+  );
+}

@@ -1,0 +1,108 @@
+"use client";
+import { useVirtualizer } from "@tanstack/react-virtual";
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { useMemo, useRef, useState } from "react";
+import { useClaims, useSettings } from "@/client/hooks";
+import { useMember } from "@/client/member";
+import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/find";
+import { formatDay, formatGrams } from "@/lib/format";
+import { Skeleton } from "../skeleton";
+
+const ROW_HEIGHT = 76;
+
+/** The member's own finds: search, filter, and a list that stays quick with thousands. */
+export function FindsListScreen() {
+  const { db } = useMember();
+  const loaded = useClaims(db);
+  const claims = useMemo(() => loaded ?? [], [loaded]);
+  const settings = useSettings(db);
+  const all = useLiveQuery(() => db.finds.orderBy("foundAt").reverse().toArray(), [db]);
+  const [text, setText] = useState("");
+  const [kind, setKind] = useState("");
+  const [claim, setClaim] = useState("");
+  const claimName = useMemo(() => new Map(claims.map((c) => [c.id, c.name])), [claims]);
+
+  const shown = useMemo(() => {
+    const q = text.trim().toLowerCase();
+    return (all ?? []).filter(
+      (f) =>
+        (!kind || f.kind === kind) &&
+        (!claim || (claim === "none" ? f.claimId === null : f.claimId === claim)) &&
+        (!q || `${f.notes} ${f.kind} ${claimName.get(f.claimId ?? "") ?? ""}`.toLowerCase().includes(q)),
+    );
+  }, [all, text, kind, claim, claimName]);
+
+  const parent = useRef<HTMLDivElement>(null);
+  // eslint-disable-next-line react-hooks/incompatible-library -- TanStack Virtual returns functions React Compiler cannot memoise; this screen does not need it to
+  const rows = useVirtualizer({ count: shown.length, getScrollElement: () => parent.current, estimateSize: () => ROW_HEIGHT, overscan: 8 });
+
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex items-center justify-between">
+        <h1 className="text-2xl font-bold">Your finds</h1>
+        <Link href="/finds/new" className="btn btn-primary">
+          Log a find
+        </Link>
+      </div>
+      <div className="grid grid-cols-1 gap-2 sm:grid-cols-3" role="search">
+        <label className="flex flex-col">
+          <span className="field-label">Search</span>
+          <input type="search" className="field-input" value={text} onChange={(e) => setText(e.target.value)} placeholder="notes, claim, kind" />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Kind</span>
+          <select className="field-input" value={kind} onChange={(e) => setKind(e.target.value)}>
+            <option value="">All kinds</option>
+            {FIND_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {KIND_LABELS[k]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Claim</span>
+          <select className="field-input" value={claim} onChange={(e) => setClaim(e.target.value)}>
+            <option value="">All claims</option>
+            {claims.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
+            <option value="none">Off the club&apos;s claims</option>
+          </select>
+        </label>
+      </div>
+      {all === undefined ? (
+        <Skeleton />
+      ) : (
+        <>
+          <p className="text-sm text-ink-soft" data-testid="finds-count">
+            {shown.length} of {all.length} finds
+          </p>
+          <div ref={parent} className="max-h-[70dvh] overflow-auto" data-testid="finds-list">
+            <ul style={{ height: rows.getTotalSize(), position: "relative" }}>
+              {rows.getVirtualItems().map((row) => {
+                const f = shown[row.index];
+                return (
+                  <li key={f.id} style={{ position: "absolute", top: 0, left: 0, right: 0, height: ROW_HEIGHT - 8, transform: `translateY(${row.start}px)` }}>
+                    <Link href={`/finds/view#id=${f.id}`} className="sheet flex h-full items-center justify-between gap-2 no-underline">
+                      <span>
+                        <span className="font-bold">{KIND_LABELS[f.kind]}</span>
+                        <span className="block text-sm text-ink-soft">
+                          {claimName.get(f.claimId ?? "") ?? "off-claim"} · {formatDay(f.foundAt)}
+                        </span>
+                      </span>
+                      <span className="figure font-bold">{f.weightGrams != null ? formatGrams(f.weightGrams, settings.massUnit) : "—"}</span>
+                    </Link>
+                  </li>
+                );
+              })}
+            </ul>
+          </div>
+        </>
+      )}
+    </div>
+  );
+}

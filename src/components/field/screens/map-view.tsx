@@ -1,0 +1,116 @@
+"use client";
+import "maplibre-gl/dist/maplibre-gl.css";
+import type { FeatureCollection } from "geojson";
+import { LngLatBounds, Map as MapLibre, Marker, setWorkerUrl, type StyleSpecification } from "maplibre-gl";
+import { useEffect, useRef } from "react";
+import type { LocalFind } from "@/client/db";
+import type { ClaimView } from "@/lib/entities/claim";
+
+type Props = {
+  claims: ClaimView[];
+  finds: LocalFind[];
+  me: { lat: number; lon: number } | null;
+  tileUrl: string;
+  onPick?: (lat: number, lon: number) => void;
+  onOpenFind?: (id: string) => void;
+};
+
+const GRID_STEP = 0.005; // degrees: about 550 m of latitude
+
+function gridLines(bounds: LngLatBounds): FeatureCollection {
+  const features: FeatureCollection["features"] = [];
+  const [w, s, e, n] = [bounds.getWest(), bounds.getSouth(), bounds.getEast(), bounds.getNorth()];
+  for (let lon = Math.floor(w / GRID_STEP) * GRID_STEP; lon <= e; lon += GRID_STEP)
+    features.push({ type: "Feature", properties: {}, geometry: { type: "LineString", coordinates: [[lon, s], [lon, n]] } });
+  for (let lat = Math.floor(s / GRID_STEP) * GRID_STEP; lat <= n; lat += GRID_STEP)
+    features.push({ type: "Feature", properties: {}, geometry: { type: "LineString", coordinates: [[w, lat], [e, lat]] } });
+  return { type: "FeatureCollection", features };
+}
+
+function ringCentre(claim: ClaimView): [number, number] | null {
+  const ring = claim.boundary?.type === "Polygon" ? claim.boundary.coordinates[0] : claim.boundary?.coordinates[0]?.[0];
+  if (!ring?.length) return null;
+  const pts = ring.slice(0, -1);
+  return [pts.reduce((a, p) => a + p[0], 0) / pts.length, pts.reduce((a, p) => a + p[1], 0) / pts.length];
+}
+
+const css = (name: string) => getComputedStyle(document.documentElement).getPropertyValue(name).trim() || "#888";
+
+/** MapLibre with an inline style: needs no tile server, no glyphs, no network. */
+export default function MapView({ claims, finds, me, tileUrl, onPick, onOpenFind }: Props) {
+  const box = useRef<HTMLDivElement>(null);
+  const mapRef = useRef<MapLibre | null>(null);
+  const handlers = useRef({ onPick, onOpenFind });
+  useEffect(() => {
+    handlers.current = { onPick, onOpenFind };
+  }, [onPick, onOpenFind]);
+
+  useEffect(() => {
+    if (!box.current) return;
+    setWorkerUrl("/maplibre-gl-worker.mjs");
+    const bounds = new LngLatBounds();
+    claims.forEach((c) => (c.boundary?.type === "Polygon" ? c.boundary.coordinates[0] : c.boundary?.coordinates.flat(1)[0] ?? []).forEach((p) => bounds.extend([p[0], p[1]])));
+    finds.forEach((f) => f.lat !== null && f.lon !== null && bounds.extend([f.lon, f.lat]));
+    if (me) bounds.extend([me.lon, me.lat]);
+    if (bounds.isEmpty()) bounds.extend([0, 0]);
+    const padded = new LngLatBounds([bounds.getWest() - 0.01, bounds.getSouth() - 0.01], [bounds.getEast() + 0.01, bounds.getNorth() + 0.01]);
+
+    const style: StyleSpecification = {
+      version: 8,
+      sources: {
+        ...(tileUrl ? { tiles: { type: "raster", tiles: [tileUrl], tileSize: 256 } } : {}),
+        grid: { type: "geojson", data: gridLines(padded) },
+        claims: {
+          type: "geojson",
+          data: { type: "FeatureCollection", features: claims.filter((c) => c.boundary).map((c) => ({ type: "Feature", properties: { id: c.id, name: c.name }, geometry: c.boundary! })) },
+        },
+        finds: {
+          type: "geojson",
+          cluster: true,
+          clusterRadius: 40,
+          data: {
+            type: "FeatureCollection",
+            features: finds.filter((f) => f.lat !== null && f.lon !== null).map((f) => ({ type: "Feature", properties: { id: f.id, kind: f.kind }, geometry: { type: "Point", coordinates: [f.lon!, f.lat!] } })),
+          },
+        },
+        me: { type: "geojson", data: { type: "FeatureCollection", features: me ? [{ type: "Feature", properties: {}, geometry: { type: "Point", coordinates: [me.lon, me.lat] } }] : [] } },
+      },
+      layers: [
+        { id: "paper", type: "background", paint: { "background-color": css("--paper") } },
+        ...(tileUrl ? [{ id: "tiles", type: "raster" as const, source: "tiles" }] : []),
+        { id: "grid", type: "line", source: "grid", paint: { "line-color": css("--rule"), "line-width": 1 } },
+        { id: "claims-fill", type: "fill", source: "claims", paint: { "fill-color": css("--ochre"), "fill-opacity": 0.15 } },
+        { id: "claims-line", type: "line", source: "claims", paint: { "line-color": css("--ochre"), "line-width": 3 } },
+        { id: "clusters", type: "circle", source: "finds", filter: ["has", "point_count"], paint: { "circle-color": css("--ink"), "circle-opacity": 0.75, "circle-radius": ["step", ["get", "point_count"], 12, 10, 16, 50, 22] } },
+        { id: "finds", type: "circle", source: "finds", filter: ["!", ["has", "point_count"]], paint: { "circle-color": "#e0aa22", "circle-radius": 7, "circle-stroke-color": css("--ink"), "circle-stroke-width": 2 } },
+        { id: "me", type: "circle", source: "me", paint: { "circle-color": "#2f6fd6", "circle-radius": 8, "circle-stroke-color": "#fff", "circle-stroke-width": 3 } },
+      ],
+    };
+
+    const map = new MapLibre({ container: box.current, style, bounds: padded, attributionControl: false });
+    mapRef.current = map;
+    const markers = claims.flatMap((c) => {
+      const centre = ringCentre(c);
+      if (!centre) return [];
+      const el = document.createElement("div");
+      el.className = "rounded bg-sheet px-1 text-xs font-bold text-ink shadow";
+      el.textContent = c.name;
+      return [new Marker({ element: el }).setLngLat(centre).addTo(map)];
+    });
+    map.on("click", (e) => {
+      const hit = map.queryRenderedFeatures(e.point, { layers: ["finds"] })[0];
+      if (hit && handlers.current.onOpenFind) return handlers.current.onOpenFind(String(hit.properties.id));
+      const cluster = map.queryRenderedFeatures(e.point, { layers: ["clusters"] })[0];
+      if (cluster) return map.easeTo({ center: e.lngLat, zoom: map.getZoom() + 2 });
+      handlers.current.onPick?.(e.lngLat.lat, e.lngLat.lng);
+    });
+    map.on("load", () => box.current?.setAttribute("data-map-ready", "true"));
+    return () => {
+      markers.forEach((m) => m.remove());
+      map.remove();
+      mapRef.current = null;
+    };
+  }, [claims, finds, me, tileUrl]);
+
+  return <div ref={box} className="h-[65dvh] w-full overflow-hidden rounded-md border-2 border-rule" data-testid="map" role="application" aria-label="Map of the club's claims and your finds" />;
+}

@@ -1,0 +1,212 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useForm } from "react-hook-form";
+import { z } from "zod";
+import { useClaims, useHashParams } from "@/client/hooks";
+import { deleteOuting, endOuting, saveOuting, stripLocal } from "@/client/logbook";
+import { useMember } from "@/client/member";
+import { requestSync } from "@/client/sync/scheduler";
+import { FieldError } from "@/components/field-error";
+import { parseNumber } from "@/components/weigh/form-model";
+import { METHOD_LABELS, methodSchema, OUTING_METHODS } from "@/lib/entities/common";
+import { KIND_LABELS } from "@/lib/entities/find";
+import { formatDay, formatWhen, toLocalInput } from "@/lib/format";
+import { Skeleton } from "../skeleton";
+
+export function OutingsScreen() {
+  const { db } = useMember();
+  const claims = useClaims(db) ?? [];
+  const outings = useLiveQuery(() => db.outings.orderBy("startedAt").reverse().toArray(), [db]);
+  const counts = useLiveQuery(async () => {
+    const m = new Map<string, number>();
+    await db.finds.each((f) => f.outingId && m.set(f.outingId, (m.get(f.outingId) ?? 0) + 1));
+    return m;
+  }, [db]);
+  const claimName = (id: string | null) => claims.find((c) => c.id === id)?.name ?? "off-claim";
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex items-center justify-between gap-2">
+        <h1 className="text-2xl font-bold">Outings</h1>
+        <Link href="/" className="btn">
+          Start one from Today
+        </Link>
+      </div>
+      {outings === undefined ? (
+        <Skeleton />
+      ) : outings.length === 0 ? (
+        <p className="text-ink-soft">No outings yet.</p>
+      ) : (
+        <ul className="flex flex-col gap-2">
+          {outings.map((o) => (
+            <li key={o.id}>
+              <Link href={`/outings/view#id=${o.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
+                <span>
+                  <span className="font-bold">{formatDay(o.startedAt)}</span> · {METHOD_LABELS[o.method]} on {claimName(o.claimId)}
+                  {o.endedAt === null && <span className="ml-2 font-bold text-moss">under way</span>}
+                </span>
+                <span className="text-sm">{counts?.get(o.id) ?? 0} finds</span>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
+
+const outingFormSchema = z.object({
+  claimId: z.string(),
+  method: methodSchema,
+  startedAt: z.string().min(1, "When did it start?"),
+  endedAt: z.string(),
+  hours: z.string().refine((v) => {
+    const n = parseNumber(v);
+    return n === undefined || (!Number.isNaN(n) && n >= 0 && n <= 240);
+  }, "Hours: a number from 0 to 240, or empty."),
+  companions: z.string().max(300, "At most 300 characters."),
+  conditions: z.string().max(300, "At most 300 characters."),
+  notes: z.string().max(4000, "At most 4000 characters."),
+});
+type OutingForm = z.infer<typeof outingFormSchema>;
+
+export function OutingDetailScreen() {
+  const id = useHashParams().get("id") ?? "";
+  const { db } = useMember();
+  const router = useRouter();
+  const claims = useClaims(db) ?? [];
+  const outing = useLiveQuery(async () => (await db.outings.get(id)) ?? null, [db, id]);
+  const finds = useLiveQuery(() => db.finds.where("outingId").equals(id).toArray(), [db, id]);
+  const { register, handleSubmit, formState, setError } = useForm<OutingForm>({
+    resolver: zodResolver(outingFormSchema),
+    values: outing
+      ? {
+          claimId: outing.claimId ?? "",
+          method: outing.method,
+          startedAt: toLocalInput(outing.startedAt),
+          endedAt: outing.endedAt ? toLocalInput(outing.endedAt) : "",
+          hours: outing.hours == null ? "" : String(outing.hours),
+          companions: outing.companions,
+          conditions: outing.conditions,
+          notes: outing.notes,
+        }
+      : undefined,
+  });
+  if (outing === undefined) return <Skeleton />;
+  if (outing === null) return <p className="sheet">This outing is not on this device.</p>;
+  const e = formState.errors;
+
+  const submit = handleSubmit(async (v) => {
+    try {
+      await saveOuting(db, {
+        id: outing.id,
+        claimId: v.claimId || null,
+        method: v.method,
+        startedAt: new Date(v.startedAt).getTime(),
+        endedAt: v.endedAt ? new Date(v.endedAt).getTime() : null,
+        hours: parseNumber(v.hours) ?? null,
+        companions: v.companions,
+        conditions: v.conditions,
+        notes: v.notes,
+      });
+      requestSync();
+    } catch (error) {
+      const fields = (error as { fields?: Record<string, string[]> }).fields;
+      if (!fields) throw error;
+      for (const [k, msgs] of Object.entries(fields)) setError(k as keyof OutingForm, { message: msgs[0] });
+    }
+  });
+
+  return (
+    <div className="flex flex-col gap-4">
+      <h1 className="text-2xl font-bold">Outing of {formatWhen(outing.startedAt)}</h1>
+      {outing.endedAt === null && (
+        <button
+          type="button"
+          className="btn btn-primary self-start"
+          onClick={async () => {
+            await endOuting(db, stripLocal(outing));
+            requestSync();
+          }}
+        >
+          End the outing now
+        </button>
+      )}
+      <form onSubmit={submit} className="sheet grid grid-cols-2 gap-3" noValidate aria-label="Outing details">
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">Claim</span>
+          <select className="field-input" {...register("claimId")}>
+            <option value="">Off the club&apos;s claims</option>
+            {claims.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Method</span>
+          <select className="field-input" {...register("method")}>
+            {OUTING_METHODS.map((m) => (
+              <option key={m} value={m}>
+                {METHOD_LABELS[m]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Hours</span>
+          <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.hours} {...register("hours")} />
+          <FieldError messages={e.hours?.message ? [e.hours.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Started</span>
+          <input type="datetime-local" className="field-input" {...register("startedAt")} />
+          <FieldError messages={e.startedAt?.message ? [e.startedAt.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Ended</span>
+          <input type="datetime-local" className="field-input" aria-invalid={!!e.endedAt} {...register("endedAt")} />
+          <FieldError messages={e.endedAt?.message ? [e.endedAt.message] : undefined} />
+        </label>
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">With</span>
+          <input className="field-input" {...register("companions")} />
+        </label>
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">Conditions</span>
+          <input className="field-input" {...register("conditions")} placeholder="weather, ground, water" />
+        </label>
+        <label className="col-span-2 flex flex-col">
+          <span className="field-label">Notes</span>
+          <textarea rows={3} className="field-input" {...register("notes")} />
+        </label>
+        <button type="submit" className="btn btn-primary col-span-2">
+          Save the outing
+        </button>
+      </form>
+      <section className="flex flex-col gap-2">
+        <h2 className="heading-bar self-start text-lg">Finds on this outing</h2>
+        {(finds ?? []).map((f) => (
+          <Link key={f.id} className="sheet no-underline" href={`/finds/view#id=${f.id}`}>
+            {KIND_LABELS[f.kind]} · {formatWhen(f.foundAt)}
+          </Link>
+        ))}
+      </section>
+      <button
+        type="button"
+        className="btn self-start border-rust text-rust"
+        onClick={async () => {
+          if (!window.confirm("Delete this outing? Its finds stay in your logbook.")) return;
+          await deleteOuting(db, outing.id);
+          requestSync();
+          router.push("/outings");
+        }}
+      >
+        Delete this outing
+      </button>
+    </div>
+  );
+}

@@ -1,0 +1,120 @@
+"use client";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useClaims, useCurrentOuting, useDevicePosition, useSettings } from "@/client/hooks";
+import { LocalValidationError, newId, saveFind } from "@/client/logbook";
+import { useMember } from "@/client/member";
+import { requestSync } from "@/client/sync/scheduler";
+import { FieldError } from "@/components/field-error";
+import { FIND_KINDS, KIND_LABELS, type FindKind } from "@/lib/entities/find";
+import { toGrams } from "@/lib/estimate/units";
+import { claimAt } from "@/lib/geo";
+import { parseNumber } from "@/components/weigh/form-model";
+import { LocationLine } from "../location-line";
+
+/** Log a find in seconds, one-handed: tap the kind, type the weight, tap save. */
+export function QuickFindScreen() {
+  const { db } = useMember();
+  const router = useRouter();
+  const claims = useClaims(db) ?? [];
+  const outing = useCurrentOuting(db);
+  const settings = useSettings(db);
+  const { state: position, locate } = useDevicePosition(true);
+  const [kind, setKind] = useState<FindKind | null>(null);
+  const [weight, setWeight] = useState("");
+  const [errors, setErrors] = useState<Record<string, string[]>>({});
+  const [saving, setSaving] = useState(false);
+  const unit = settings.massUnit;
+  const here = position.kind === "found" ? position.position : null;
+
+  async function save() {
+    const fields: Record<string, string[]> = {};
+    if (!kind) fields.kind = ["Choose what you found."];
+    const w = parseNumber(weight);
+    if (w !== undefined && (Number.isNaN(w) || w <= 0)) fields.weightGrams = ["Type the weight as a number, like 1.25 — or leave it empty."];
+    if (Object.keys(fields).length) return setErrors(fields);
+    setSaving(true);
+    try {
+      const claim = here ? claimAt(here.lat, here.lon, claims) : undefined;
+      const find = await saveFind(db, {
+        id: newId(),
+        outingId: outing?.id ?? null,
+        claimId: claim?.id ?? outing?.claimId ?? null,
+        kind: kind!,
+        weightGrams: w === undefined ? null : toGrams(w, unit),
+        depthCm: null,
+        method: outing?.method ?? "detecting",
+        notes: "",
+        lat: here?.lat ?? null,
+        lon: here?.lon ?? null,
+        accuracyM: here?.accuracyM ?? null,
+        locationSource: here ? "device" : null,
+        foundAt: Date.now(),
+      });
+      requestSync();
+      router.push(`/finds/view#id=${find.id}&saved=1`);
+    } catch (error) {
+      if (error instanceof LocalValidationError) setErrors(error.fields);
+      else throw error;
+      setSaving(false);
+    }
+  }
+
+  return (
+    <form
+      className="flex flex-col gap-5"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void save();
+      }}
+      noValidate
+    >
+      <h1 className="text-2xl font-bold">Log a find</h1>
+      <fieldset>
+        <legend className="field-label">What did you find?</legend>
+        <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+          {FIND_KINDS.map((k) => (
+            <button
+              key={k}
+              type="button"
+              aria-pressed={kind === k}
+              onClick={() => setKind(k)}
+              className={`btn min-h-[56px] text-lg ${kind === k ? "btn-primary" : ""}`}
+            >
+              {KIND_LABELS[k]}
+            </button>
+          ))}
+        </div>
+        <FieldError messages={errors.kind} />
+      </fieldset>
+
+      <div>
+        <label htmlFor="weight" className="field-label">
+          Weight ({unit}) — optional
+        </label>
+        <input id="weight" inputMode="decimal" autoComplete="off" className="field-input figure text-xl" value={weight} onChange={(e) => setWeight(e.target.value)} aria-invalid={!!errors.weightGrams} />
+        <FieldError messages={errors.weightGrams} />
+      </div>
+
+      <section className="sheet flex flex-col gap-2" aria-label="Where">
+        <p className="field-label">Where</p>
+        {position.kind === "finding" && <p role="status">Finding your position…</p>}
+        {position.kind === "failed" && (
+          <p role="status" className="text-rust">
+            {position.message}
+          </p>
+        )}
+        {here && <LocationLine lat={here.lat} lon={here.lon} accuracyM={here.accuracyM} source="device" claims={claims} />}
+        <button type="button" className="btn self-start" onClick={locate}>
+          {here ? "Update my position" : "Try my position again"}
+        </button>
+        <p className="text-sm text-ink-soft">You can also set the spot later, from a photo or on the map.</p>
+      </section>
+
+      <button type="submit" className="btn btn-primary min-h-[60px] text-xl" disabled={saving}>
+        {saving ? "Saving…" : "Save the find"}
+      </button>
+      {outing && <p className="text-sm text-ink-soft">It goes with today&apos;s outing.</p>}
+    </form>
+  );
+}

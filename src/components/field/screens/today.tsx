@@ -1,0 +1,163 @@
+"use client";
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { useClaims, useCurrentOuting, useSettings } from "@/client/hooks";
+import { endOuting, startOuting, stripLocal } from "@/client/logbook";
+import { useMember } from "@/client/member";
+import { requestSync } from "@/client/sync/scheduler";
+import { Caution } from "@/components/caution";
+import { SyncStatusView } from "@/components/sync/sync-status";
+import { KIND_LABELS } from "@/lib/entities/find";
+import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/common";
+import { formatDay, formatGrams, formatWhen } from "@/lib/format";
+import { can } from "@/lib/roles";
+import { currentSeason, seasonBounds } from "@/lib/season";
+import { Skeleton } from "../skeleton";
+
+export function TodayScreen() {
+  const { member, db } = useMember();
+  const settings = useSettings(db);
+  const outing = useCurrentOuting(db);
+  const claims = useClaims(db);
+  const season = currentSeason();
+  const { start, end } = seasonBounds(season);
+  const finds = useLiveQuery(() => db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"), [db, start, end]);
+  const first = (member.name ?? member.email).split(" ")[0];
+  const claimName = (id: string | null) => claims?.find((c) => c.id === id)?.name ?? "no claim";
+
+  return (
+    <div className="flex flex-col gap-5">
+      <h1 className="text-2xl font-bold">Good day, {first}</h1>
+
+      <Link href="/finds/new" className="btn btn-primary min-h-[64px] text-xl" data-testid="log-find">
+        Log a find
+      </Link>
+
+      <section className="sheet flex flex-col gap-3" aria-labelledby="outing-title">
+        <h2 id="outing-title" className="heading-bar self-start text-lg">
+          Today&apos;s outing
+        </h2>
+        {outing === undefined ? (
+          <Skeleton lines={1} />
+        ) : outing ? (
+          <>
+            <p>
+              <strong>{METHOD_LABELS[outing.method]}</strong> on <strong>{claimName(outing.claimId)}</strong> since {formatWhen(outing.startedAt)}
+            </p>
+            <div className="flex flex-wrap gap-2">
+              <Link className="btn" href={`/outings/view#id=${outing.id}`}>
+                Notes and details
+              </Link>
+              <button
+                type="button"
+                className="btn"
+                onClick={async () => {
+                  await endOuting(db, stripLocal(outing));
+                  requestSync();
+                }}
+              >
+                End the outing
+              </button>
+            </div>
+          </>
+        ) : (
+          <form
+            className="flex flex-col gap-3"
+            onSubmit={async (e) => {
+              e.preventDefault();
+              const data = new FormData(e.currentTarget);
+              await startOuting(db, { claimId: (data.get("claimId") as string) || null, method: data.get("method") as (typeof OUTING_METHODS)[number] });
+              requestSync();
+            }}
+          >
+            <div className="grid grid-cols-2 gap-2">
+              <label className="flex flex-col">
+                <span className="field-label">Claim</span>
+                <select name="claimId" className="field-input">
+                  {(claims ?? []).filter((c) => c.active).map((c) => (
+                    <option key={c.id} value={c.id}>
+                      {c.name}
+                    </option>
+                  ))}
+                  <option value="">Off the club&apos;s claims</option>
+                </select>
+              </label>
+              <label className="flex flex-col">
+                <span className="field-label">Method</span>
+                <select name="method" className="field-input" defaultValue="detecting">
+                  {OUTING_METHODS.map((m) => (
+                    <option key={m} value={m}>
+                      {METHOD_LABELS[m]}
+                    </option>
+                  ))}
+                </select>
+              </label>
+            </div>
+            <button type="submit" className="btn">
+              Start an outing
+            </button>
+          </form>
+        )}
+      </section>
+
+      <SyncStatusView db={db} compact />
+
+      <section className="sheet" aria-labelledby="season-title">
+        <h2 id="season-title" className="heading-bar mb-3 text-lg">
+          Your {season} season
+        </h2>
+        <dl className="grid grid-cols-2 gap-3 text-center">
+          <div>
+            <dt className="text-sm text-ink-soft">Finds</dt>
+            <dd className="figure text-2xl font-bold" data-testid="tally-finds">
+              {finds?.length ?? "…"}
+            </dd>
+          </div>
+          <div>
+            <dt className="text-sm text-ink-soft">Recorded weight</dt>
+            <dd className="figure text-2xl font-bold">{formatGrams((finds ?? []).reduce((n, f) => n + (f.weightGrams ?? 0), 0), settings.massUnit)}</dd>
+          </div>
+        </dl>
+      </section>
+
+      <section aria-labelledby="recent-title" className="flex flex-col gap-2">
+        <h2 id="recent-title" className="heading-bar self-start text-lg">
+          Recent finds
+        </h2>
+        {finds === undefined ? (
+          <Skeleton lines={2} />
+        ) : finds.length === 0 ? (
+          <p className="text-ink-soft">No finds this season yet. Your first one will show here.</p>
+        ) : (
+          <ul className="flex flex-col gap-2">
+            {finds.slice(0, 5).map((f) => (
+              <li key={f.id}>
+                <Link href={`/finds/view#id=${f.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
+                  <span>
+                    <span className="font-bold">{KIND_LABELS[f.kind]}</span>
+                    <span className="text-ink-soft">
+                      {" "}
+                      · {claimName(f.claimId)} · {formatDay(f.foundAt)}
+                    </span>
+                  </span>
+                  <span className="figure font-bold">{f.weightGrams != null ? formatGrams(f.weightGrams, settings.massUnit) : "—"}</span>
+                </Link>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+
+      {can(member.role, "viewLedger") && (
+        <Link href="/club" className="btn">
+          Open the club console
+        </Link>
+      )}
+
+      <Caution title="Before you head out">
+        Tell someone where you are going and when you will be back. Stay out of old mine workings, watch dry washes for flash floods,
+        and carry water. Claim rules differ by place and land agency: your club officer and the local authority have the last word.
+      </Caution>
+    </div>
+  );
+}

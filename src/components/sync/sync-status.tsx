@@ -1,0 +1,112 @@
+"use client";
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { useSyncExternalStore } from "react";
+import type { LodebookDb } from "@/client/db";
+import { syncStatus } from "@/client/sync/engine";
+import { requestSync } from "@/client/sync/scheduler";
+import type { SyncStatus } from "@/client/sync/status";
+
+function useOnline() {
+  return useSyncExternalStore(
+    (fn) => {
+      window.addEventListener("online", fn);
+      window.addEventListener("offline", fn);
+      return () => {
+        window.removeEventListener("online", fn);
+        window.removeEventListener("offline", fn);
+      };
+    },
+    () => navigator.onLine,
+    () => true,
+  );
+}
+
+const since = (ms: number) => {
+  const min = Math.round((Date.now() - ms) / 60_000);
+  return min < 1 ? "just now" : min < 60 ? `${min} min ago` : `${Math.round(min / 60)} h ago`;
+};
+
+/** The one place that says what camp sync is doing, from the one status union. */
+export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compact?: boolean }) {
+  const status: SyncStatus = useSyncExternalStore(syncStatus.subscribe, syncStatus.get, syncStatus.get);
+  const online = useOnline();
+  const waiting = useLiveQuery(() => db.outbox.where("state").equals("pending").count(), [db], 0);
+  const rejected = useLiveQuery(() => db.outbox.where("state").equals("rejected").count(), [db], 0);
+  const photos = useLiveQuery(() => db.photos.where("uploaded").equals(0).count(), [db], 0);
+
+  let line: string;
+  let tone = "text-ink";
+  let progress: number | null = null;
+  switch (status.kind) {
+    case "syncing": {
+      const phase = status.phase === "sending" ? "Sending changes" : status.phase === "photos" ? "Uploading photos" : "Receiving from the club";
+      line = status.phase === "photos" ? `${phase}: ${Math.round(status.bytesDone / 1024)} of ${Math.round(status.bytesTotal / 1024)} kB` : `${phase}: ${status.done} of ${Math.max(status.total, status.done)}`;
+      progress = status.phase === "photos" ? (status.bytesTotal ? status.bytesDone / status.bytesTotal : 0) : status.total ? status.done / status.total : 0;
+      break;
+    }
+    case "done":
+      line = `Synced ${since(status.at)}: ${status.sent} sent, ${status.received} received.`;
+      tone = "text-moss";
+      break;
+    case "needs-sign-in":
+      line = status.reason === "other-member" ? "Someone else is signed in here. Sign in as yourself to send your changes." : "Your session has ended. Sign in again to send your changes; they are safe here.";
+      tone = "text-rust";
+      break;
+    case "outdated":
+      line = "This copy of Lodebook is out of date. Reload to update; your changes are safe here.";
+      tone = "text-rust";
+      break;
+    case "error":
+      line = `Sync stopped: ${status.message} Trying again soon.`;
+      tone = "text-rust";
+      break;
+    default:
+      line = online ? "Ready to sync." : "No signal: everything is kept on this device until camp sync.";
+  }
+  if (!online && status.kind !== "syncing") line = "No signal: everything is kept on this device until camp sync.";
+
+  return (
+    <section aria-label="Camp sync" className={`sheet flex flex-col gap-2 ${compact ? "py-2" : ""}`} data-testid="sync-status" data-kind={online ? status.kind : "offline"}>
+      <p className={`font-bold ${tone}`} role="status">
+        {line}
+      </p>
+      {progress !== null && (
+        <progress className="h-3 w-full accent-[var(--ochre)]" value={progress} max={1} aria-label="Sync progress">
+          {Math.round(progress * 100)} %
+        </progress>
+      )}
+      <p className="text-sm" data-testid="sync-waiting">
+        Waiting to send: <strong>{waiting}</strong> change{waiting === 1 ? "" : "s"}
+        {photos > 0 && (
+          <>
+            , <strong>{photos}</strong> photo{photos === 1 ? "" : "s"}
+          </>
+        )}
+        {rejected > 0 && (
+          <>
+            {" "}
+            · <Link href="/sync" className="font-bold text-rust underline">{rejected} refused by the server</Link>
+          </>
+        )}
+      </p>
+      {!compact && (
+        <div className="flex flex-wrap gap-2">
+          <button type="button" className="btn btn-primary" onClick={() => requestSync()} disabled={!online || status.kind === "syncing"}>
+            Sync now
+          </button>
+          {status.kind === "needs-sign-in" && (
+            <a className="btn" href="/sign-in?from=/sync">
+              Sign in again
+            </a>
+          )}
+          {status.kind === "outdated" && (
+            <button type="button" className="btn" onClick={() => window.location.reload()}>
+              Reload
+            </button>
+          )}
+        </div>
+      )}
+    </section>
+  );
+}

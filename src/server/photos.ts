@@ -1,0 +1,84 @@
+import "server-only";
+import crypto from "node:crypto";
+import { and, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { MAX_PHOTO_BYTES, MAX_PHOTO_EDGE } from "@/lib/entities/photo";
+import { can } from "@/lib/roles";
+import type { Actor } from "./auth/actor";
+import { getDb } from "./db";
+import { photos } from "./db/schema";
+import { AppError } from "./errors";
+import { inspectJpeg, stripJpegMetadata } from "./jpeg";
+import { photoStorage } from "./storage";
+
+/** Photo bytes one member may keep on the club's server. */
+export const MEMBER_PHOTO_QUOTA_BYTES = 500 * 1024 * 1024;
+
+function photoFor(actor: Actor, id: string, forWrite: boolean) {
+  const row = getDb()
+    .select({ id: photos.id, memberId: photos.memberId, sha256: photos.sha256, bytes: photos.bytes, storageKey: photos.storageKey, deletedAt: photos.deletedAt })
+    .from(photos)
+    .where(eq(photos.id, id))
+    .get();
+  const allowed = row && !row.deletedAt && (row.memberId === actor.id || (!forWrite && can(actor.role, "viewLedger")));
+  // 404 for what the caller may not know exists.
+  if (!row || !allowed) throw new AppError("not_found:photo", "No such photo.");
+  return row;
+}
+
+async function readLimited(req: Request, max: number): Promise<Buffer> {
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > max) throw new AppError("too_large:photo", `A photo may be at most ${Math.round(max / 1024 / 1024)} MB after shrinking.`);
+  if (!req.body) return Buffer.alloc(0);
+  const chunks: Buffer[] = [];
+  let size = 0;
+  const reader = req.body.getReader();
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > max) {
+      await reader.cancel();
+      throw new AppError("too_large:photo", `A photo may be at most ${Math.round(max / 1024 / 1024)} MB after shrinking.`);
+    }
+    chunks.push(Buffer.from(value));
+  }
+  return Buffer.concat(chunks);
+}
+
+/**
+ * Stores a photo's bytes after its record: idempotent by id and SHA-256, checked to be a real
+ * JPEG within the size and pixel limits, kept under a server-made name.
+ */
+export async function receivePhoto(actor: Actor, id: string, req: Request): Promise<{ stored: boolean; sha256: string }> {
+  const row = photoFor(actor, id, true);
+  const bytes = await readLimited(req, MAX_PHOTO_BYTES);
+  const sha256 = crypto.createHash("sha256").update(bytes).digest("hex");
+  if (sha256 !== row.sha256) {
+    throw new AppError("bad_request:photo", "The bytes do not match the photo's SHA-256: the upload was cut or changed. Send it again.", { sha256: ["mismatch"] });
+  }
+  if (row.storageKey) return { stored: false, sha256 }; // already here: nothing to do
+  const size = inspectJpeg(bytes);
+  if (!size) throw new AppError("unsupported:photo", "That file is not a JPEG photo.", { contentType: ["not a JPEG"] });
+  if (size.width > MAX_PHOTO_EDGE || size.height > MAX_PHOTO_EDGE) {
+    throw new AppError("too_large:photo", `Photos may be at most ${MAX_PHOTO_EDGE} pixels on a side.`, { width: [String(size.width)], height: [String(size.height)] });
+  }
+  const used = getDb()
+    .select({ total: sql<number>`coalesce(sum(${photos.bytes}), 0)` })
+    .from(photos)
+    .where(and(eq(photos.memberId, actor.id), isNotNull(photos.storageKey), isNull(photos.deletedAt)))
+    .get()!.total;
+  if (used + bytes.length > MEMBER_PHOTO_QUOTA_BYTES) throw new AppError("too_large:quota", "Your photo space on the club's server is full. Ask an officer.");
+  const key = `p/${id}`;
+  await photoStorage().put(key, bytes, "image/jpeg");
+  getDb().update(photos).set({ storageKey: key, uploadedAt: Date.now(), width: size.width, height: size.height }).where(eq(photos.id, id)).run();
+  return { stored: true, sha256 };
+}
+
+/** The photo as served: owner or officer only, with no EXIF. */
+export async function servePhoto(actor: Actor, id: string): Promise<Buffer> {
+  const row = photoFor(actor, id, false);
+  if (!row.storageKey) throw new AppError("not_found:photo", "This photo has not reached the server yet.");
+  const bytes = await photoStorage().get(row.storageKey);
+  if (!bytes) throw new AppError("not_found:photo", "This photo has not reached the server yet.");
+  return stripJpegMetadata(bytes);
+}
