@@ -13,8 +13,13 @@ const withSerwist = withSerwistInit({
   swDest: "public/sw.js",
   // The worker is only useful against a production build; in `next dev` it would cache stale chunks.
   disable: process.env.NODE_ENV === "development",
+  // Camp sync reacts to "online" itself; a reload then would interrupt a member mid-entry.
+  reloadOnOnline: false,
   // Every member screen opens with no signal after one visit: precache their shells.
-  additionalPrecacheEntries: ["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/weigh", "/offline"].map((url) => ({ url, revision })),
+  additionalPrecacheEntries: [
+    ...["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/weigh", "/offline", "/manifest.webmanifest"].map((url) => ({ url, revision })),
+    ...["/maplibre-gl-worker.mjs", "/icons/icon-192.png", "/icons/icon-512.png"].map((url) => ({ url, revision })),
+  ],
 });
 
 /** @type {import('next').NextConfig} */

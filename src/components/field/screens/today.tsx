@@ -62,6 +62,7 @@ export function TodayScreen() {
           </>
         ) : (
           <form
+            key={claims?.length ?? 0}
             className="flex flex-col gap-3"
             onSubmit={async (e) => {
               e.preventDefault();

@@ -1,0 +1,118 @@
+import fs from "node:fs";
+import { afterAll, describe, expect, inject, it } from "vitest";
+import { DEMO_CLAIMS } from "@/server/seed/people";
+import { makeJpeg } from "../support/jpeg";
+import { launchPersistent, PHONE, shotPath } from "./support/browser";
+import { axeViolations, firstPage, signInToField, tab, waitForSyncDone } from "./support/field";
+
+const baseUrl = inject("baseUrl");
+const larkspur = DEMO_CLAIMS.find((c) => c.name === "Larkspur Bench")!;
+const farAway = { latitude: 41.9, longitude: -117.45, accuracy: 6 };
+const dirs: string[] = [];
+afterAll(() => dirs.forEach((d) => fs.rmSync(d, { recursive: true, force: true })));
+
+describe("the field logbook with no signal", () => {
+  it("logs an outing, finds, a photo with GPS and a weigh-in offline, and keeps them across reloads and restarts", async () => {
+    const first = await launchPersistent(undefined, { ...PHONE, permissions: [] });
+    dirs.push(first.userDataDir);
+    let context = first.context;
+    let page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await waitForSyncDone(page);
+    await tab(page, "Map");
+    await page.getByTestId("map-legend").waitFor();
+    const larkspurId = await page.locator(`[data-claim="${larkspur.name}"] span`).getAttribute("data-testid");
+    const larkspurBefore = Number(await page.getByTestId(larkspurId!).textContent());
+
+    // No signal from here on.
+    await context.setOffline(true);
+    await page.goto(`${baseUrl}/`);
+    await page.getByRole("heading", { name: /Good day/ }).waitFor();
+    expect(await page.getByTestId("sync-status").getAttribute("data-kind")).toBe("offline");
+
+    await page.getByLabel("Claim").selectOption({ label: larkspur.name });
+    await page.getByRole("button", { name: "Start an outing" }).click();
+    await page.getByText(/on Larkspur Bench since/).waitFor();
+    await page.screenshot({ path: shotPath("logbook-today-offline-phone"), fullPage: true });
+
+    // Quick log: three taps and the weight. No position permission: it saves without one.
+    await page.getByTestId("log-find").click();
+    await page.getByRole("button", { name: "Nugget", exact: true }).click();
+    await page.getByLabel(/Weight \(g\)/).fill("2.47");
+    await page.screenshot({ path: shotPath("logbook-quick-find-phone"), fullPage: true });
+    await page.getByRole("button", { name: "Save the find" }).click();
+    await page.getByText("Find saved on this device.").waitFor();
+
+    // A photo whose EXIF puts it inside Larkspur Bench fills in the position.
+    await page.getByTestId("photo-input").setInputFiles({ name: "nugget.jpg", mimeType: "image/jpeg", buffer: makeJpeg({ width: 2400, height: 1800, lat: larkspur.lat + 0.0002, lon: larkspur.lon - 0.0003, takenAt: new Date() }) });
+    await page.getByText("The find's position was taken from the photo.").waitFor();
+    await page.getByTestId("claim-match").filter({ hasText: larkspur.name }).waitFor();
+    expect(await page.locator("img[alt='Photo of the find']").count()).toBe(1);
+
+    // Weigh it.
+    await page.getByRole("button", { name: "Weigh this specimen" }).click();
+    await page.locator("#air-0").fill("20.00");
+    await page.locator("#water-0").fill("12.50");
+    await page.getByTestId("fine-gold").waitFor();
+    await page.getByRole("button", { name: "Save this weigh-in to the find" }).click();
+    await page.getByTestId("weigh-ins").locator("li").first().waitFor();
+    await page.screenshot({ path: shotPath("logbook-find-detail-phone"), fullPage: true });
+
+    // A second find, with the device's position, outside every claim: the warning shows.
+    await context.grantPermissions(["geolocation"]);
+    await context.setGeolocation(farAway);
+    await tab(page, "Today");
+    await page.getByTestId("log-find").click();
+    await page.getByRole("button", { name: "Flakes", exact: true }).click();
+    await page.getByTestId("outside-claims").waitFor();
+    await page.getByRole("button", { name: "Save the find" }).click();
+    await page.getByText("Find saved on this device.").waitFor();
+    await page.getByTestId("outside-claims").waitFor();
+
+    // The map, offline: the new nugget counts inside its claim, the flakes outside.
+    await tab(page, "Map");
+    await page.locator("[data-testid=map][data-map-ready]").waitFor({ timeout: 30_000 });
+    expect(Number(await page.getByTestId(larkspurId!).textContent())).toBe(larkspurBefore + 1);
+    expect(Number(await page.getByTestId("outside-count").textContent())).toBeGreaterThanOrEqual(1);
+    await page.screenshot({ path: shotPath("logbook-map-offline-phone"), fullPage: true });
+
+    // Reload: all still there.
+    await page.goto(`${baseUrl}/finds`);
+    const countText = () => page.getByTestId("finds-count").textContent();
+    await page.getByTestId("finds-count").waitFor();
+    const total = (await countText())!.match(/of (\d+)/)![1];
+    await page.getByRole("searchbox").fill("flakes");
+    await page.getByTestId("finds-count").filter({ hasText: /^[1-9]\d* of/ }).waitFor();
+
+    // Restart the browser, still offline: the finds, the photo and the outbox survive.
+    await context.close();
+    context = (await launchPersistent(first.userDataDir, { ...PHONE })).context;
+    await context.setOffline(true);
+    page = await firstPage(context);
+    await page.goto(`${baseUrl}/finds`);
+    await page.getByTestId("finds-count").filter({ hasText: `of ${total} finds` }).waitFor();
+    await tab(page, "Sync");
+    await page.getByTestId("sync-waiting").filter({ hasText: /Waiting to send: [1-9]/ }).waitFor();
+    const waiting = await page.getByTestId("sync-waiting").textContent();
+    expect(Number(waiting!.match(/Waiting to send: (\d+)/)![1])).toBeGreaterThanOrEqual(6);
+    expect(waiting).toMatch(/1 photo/);
+    await context.close();
+  });
+
+  it("has no serious or critical accessibility violations on the member screens (axe-core)", async () => {
+    const { context, userDataDir } = await launchPersistent(undefined, { ...PHONE });
+    dirs.push(userDataDir);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await waitForSyncDone(page);
+    const found: Record<string, string[]> = {};
+    for (const path of ["/", "/finds", "/finds/new", "/outings", "/map", "/sync", "/settings", "/weigh"]) {
+      await page.goto(`${baseUrl}${path}`);
+      await page.locator("main h1").first().waitFor();
+      const v = await axeViolations(page);
+      if (v.length) found[path] = v;
+    }
+    expect(found).toEqual({});
+    await context.close();
+  });
+});
