@@ -12,6 +12,7 @@ declare module "vitest" {
     baseUrl: string;
     mailDir: string;
     databaseUrl: string;
+    photoDir: string;
   }
 }
 
@@ -55,6 +56,7 @@ export default async function setup(project: TestProject) {
   project.provide("baseUrl", app.url);
   project.provide("mailDir", env.LODEBOOK_MAIL_DIR!);
   project.provide("databaseUrl", env.DATABASE_URL!);
+  project.provide("photoDir", env.LODEBOOK_PHOTO_DIR!);
 
   return async () => {
     await app.stop();

@@ -1,5 +1,6 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import type { LocalFind } from "@/client/db";
@@ -54,8 +55,11 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
     },
   });
   const e = formState.errors;
+  // Not formState.isSubmitSuccessful: saving changes the record, and new values reset the form.
+  const [saved, setSaved] = useState(false);
 
   const submit = handleSubmit(async (v) => {
+    setSaved(false);
     const lat = parseNumber(v.lat) ?? null;
     const lon = parseNumber(v.lon) ?? null;
     const moved = lat !== find.lat || lon !== find.lon;
@@ -76,6 +80,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
         locationSource: lat === null ? null : moved ? "typed" : find.locationSource,
         foundAt: new Date(v.foundAt).getTime(),
       });
+      setSaved(true);
     } catch (error) {
       const fields = (error as { fields?: Record<string, string[]> }).fields;
       if (!fields) throw error;
@@ -151,7 +156,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
       <button type="submit" className="btn btn-primary" disabled={formState.isSubmitting}>
         Save changes
       </button>
-      {formState.isSubmitSuccessful && !Object.keys(e).length && (
+      {saved && (
         <p role="status" className="font-bold text-moss">
           Saved on this device.
         </p>

@@ -36,3 +36,27 @@ export async function axeViolations(page: Page) {
 export async function firstPage(context: BrowserContext) {
   return context.pages()[0] ?? (await context.newPage());
 }
+
+export type DeviceFind = { id: string; notes: string; weightGrams: number | null; kind: string };
+
+/** What a device's own database holds (read straight from IndexedDB, not through the UI). */
+export async function deviceRecords(page: Page): Promise<{ memberId: string; finds: DeviceFind[]; photos: { id: string; sha256: string; uploaded: number }[]; outbox: number }> {
+  return page.evaluate(async () => {
+    const member = JSON.parse(localStorage.getItem("lodebook-member") ?? "null") as { id: string };
+    const db = await new Promise<IDBDatabase>((resolve, reject) => {
+      const r = indexedDB.open(`lodebook-member-${member.id}`);
+      r.onsuccess = () => resolve(r.result);
+      r.onerror = () => reject(r.error);
+    });
+    const all = <T,>(store: string) =>
+      new Promise<T[]>((resolve) => {
+        const q = db.transaction(store).objectStore(store).getAll();
+        q.onsuccess = () => resolve(q.result as T[]);
+      });
+    const finds = (await all<DeviceFind>("finds")).map((f) => ({ id: f.id, notes: f.notes, weightGrams: f.weightGrams, kind: f.kind }));
+    const photos = (await all<{ id: string; sha256: string; uploaded: number }>("photos")).map((p) => ({ id: p.id, sha256: p.sha256, uploaded: p.uploaded }));
+    const outbox = (await all("outbox")).length;
+    db.close();
+    return { memberId: member.id, finds, photos, outbox };
+  });
+}
