@@ -7,3 +7,10 @@ export function signInLinkMessage(url: string) {
     html: `<p>Open this link to sign in to Lodebook. It works once, for 30 minutes.</p><p><a href="${url}">Sign in to Lodebook</a></p><p>If you did not ask for it, ignore this message: nobody can sign in without the link.</p>`,
   };
 }
+
+export function invitationMessage(url: string, inviter: string, days: number) {
+  return {
+    subject: "You are invited to your club's Lodebook",
+    text: `${inviter} invites you to keep your prospecting log in Lodebook, with your club.\n\nOpen this link to choose your password. It works once, for ${days} days:\n\n${url}\n\nIf you were not expecting this, ignore it.`,
+  };
+}

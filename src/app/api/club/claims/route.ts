@@ -1,0 +1,17 @@
+import { claimInputSchema } from "@/lib/club/schemas";
+import { requireActor } from "@/server/auth/actor";
+import { listClaims, saveClaim } from "@/server/club/claims";
+import { json, parseJsonBody, route } from "@/server/http";
+import { requireSameOrigin } from "@/server/origin";
+
+export const GET = route(async (req) => {
+  await requireActor(req, "manageClaims", "club");
+  return json({ claims: listClaims() });
+});
+
+export const POST = route(async (req) => {
+  requireSameOrigin(req);
+  const input = await parseJsonBody(req, claimInputSchema, "claim");
+  const actor = await requireActor(req, "manageClaims", "club");
+  return json(saveClaim(actor, null, input), { status: 201 });
+});

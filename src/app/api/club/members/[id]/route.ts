@@ -1,0 +1,19 @@
+import { z } from "zod";
+import { memberChangeSchema } from "@/lib/club/schemas";
+import { requireActor } from "@/server/auth/actor";
+import { changeMember } from "@/server/club/members";
+import { AppError } from "@/server/errors";
+import { json, parseJsonBody, route } from "@/server/http";
+import { requireSameOrigin } from "@/server/origin";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+/** Change a member's role or deactivate them (records kept; sessions end at once). */
+export const PATCH = route<Ctx>(async (req, ctx) => {
+  requireSameOrigin(req);
+  const change = await parseJsonBody(req, memberChangeSchema, "member");
+  const actor = await requireActor(req, "manageMembers", "club");
+  const id = z.uuid().safeParse((await ctx.params).id);
+  if (!id.success) throw new AppError("not_found:member", "No such member.");
+  return json(changeMember(actor, id.data, change));
+});

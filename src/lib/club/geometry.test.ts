@@ -1,0 +1,29 @@
+import { describe, expect, it } from "vitest";
+import { boundaryFromCorners, readBoundary } from "./geometry";
+
+const square = [[0, 0], [1, 0], [1, 1], [0, 1], [0, 0]];
+
+describe("claim boundaries", () => {
+  it("accepts a closed polygon, bare, as a Feature or in a FeatureCollection of one", () => {
+    expect(readBoundary({ type: "Polygon", coordinates: [square] }).ok).toBe(true);
+    expect(readBoundary({ type: "Feature", properties: {}, geometry: { type: "Polygon", coordinates: [square] } }).ok).toBe(true);
+    expect(readBoundary({ type: "FeatureCollection", features: [{ type: "Feature", geometry: { type: "Polygon", coordinates: [square] } }] }).ok).toBe(true);
+  });
+  it("refuses an unclosed ring", () => {
+    const r = readBoundary({ type: "Polygon", coordinates: [[[0, 0], [1, 0], [1, 1], [0, 1]]] });
+    expect(r).toEqual({ ok: false, message: expect.stringMatching(/not closed/) });
+  });
+  it("refuses a self-intersecting ring (a bow tie)", () => {
+    const r = readBoundary({ type: "Polygon", coordinates: [[[0, 0], [1, 1], [1, 0], [0, 1], [0, 0]]] });
+    expect(r).toEqual({ ok: false, message: expect.stringMatching(/crosses itself/) });
+  });
+  it("refuses junk and positions out of range", () => {
+    expect(readBoundary({ type: "Point", coordinates: [0, 0] }).ok).toBe(false);
+    expect(readBoundary({ type: "Polygon", coordinates: [[[0, 0], [200, 0], [1, 1], [0, 0]]] }).ok).toBe(false);
+  });
+  it("builds a closed ring from typed corners (latitude first)", () => {
+    const r = boundaryFromCorners("41.80, -117.62\n41.80 -117.61\n41.81, -117.61\n41.81, -117.62");
+    expect(r.ok && r.polygon.coordinates[0]).toEqual([[-117.62, 41.8], [-117.61, 41.8], [-117.61, 41.81], [-117.62, 41.81], [-117.62, 41.8]]);
+    expect(boundaryFromCorners("41.8, x").ok).toBe(false);
+  });
+});

@@ -1,0 +1,54 @@
+import kinks from "@turf/kinks";
+import { polygonSchema, type Polygon } from "../entities/claim";
+
+export type GeometryResult = { ok: true; polygon: Polygon } | { ok: false; message: string };
+
+const same = (a: number[], b: number[]) => a[0] === b[0] && a[1] === b[1];
+
+function checkRings(rings: number[][][], where: string): string | null {
+  for (const [i, ring] of rings.entries()) {
+    const label = `${where}ring ${i + 1}`;
+    if (ring.length < 4) return `${label} has ${ring.length} positions; a closed ring needs at least 4 (the first repeated last).`;
+    if (!same(ring[0], ring[ring.length - 1])) return `${label} is not closed: its last position must repeat its first.`;
+    for (const p of ring) if (Math.abs(p[0]) > 180 || Math.abs(p[1]) > 90) return `${label} has a position out of range (longitude ±180, latitude ±90; GeoJSON puts longitude first).`;
+  }
+  return null;
+}
+
+/**
+ * A claim boundary from GeoJSON: a Polygon or MultiPolygon, bare or in a Feature or a
+ * FeatureCollection of one. Refuses unclosed or too-short rings and self-intersections.
+ */
+export function readBoundary(input: unknown): GeometryResult {
+  let g = input as { type?: string; geometry?: unknown; features?: { geometry?: unknown }[] } | null;
+  if (g?.type === "FeatureCollection") {
+    if (!Array.isArray(g.features) || g.features.length !== 1) return { ok: false, message: "The file must hold exactly one claim outline (one feature)." };
+    g = g.features[0]?.geometry as typeof g;
+  } else if (g?.type === "Feature") g = g.geometry as typeof g;
+  const parsed = polygonSchema.safeParse(g);
+  if (!parsed.success) return { ok: false, message: "That is not a GeoJSON Polygon or MultiPolygon with [longitude, latitude] positions." };
+  const polygon = parsed.data;
+  const polys = polygon.type === "Polygon" ? [polygon.coordinates] : polygon.coordinates;
+  for (const [i, rings] of polys.entries()) {
+    const problem = checkRings(rings, polys.length > 1 ? `Part ${i + 1}, ` : "");
+    if (problem) return { ok: false, message: problem.charAt(0).toUpperCase() + problem.slice(1) };
+    const crossings = kinks({ type: "Polygon", coordinates: rings }).features.length;
+    if (crossings > 0) return { ok: false, message: `The outline crosses itself (${crossings} crossing${crossings > 1 ? "s" : ""}). Check the order of the corners.` };
+  }
+  return { ok: true, polygon };
+}
+
+/** Corners typed one per line as "latitude, longitude" (decimal degrees), closed automatically. */
+export function boundaryFromCorners(text: string): GeometryResult {
+  const corners: number[][] = [];
+  for (const [i, raw] of text.split(/\r?\n/).entries()) {
+    const line = raw.trim();
+    if (!line) continue;
+    const parts = line.split(/[\s,;]+/).map(Number);
+    if (parts.length !== 2 || parts.some((n) => !Number.isFinite(n))) return { ok: false, message: `Line ${i + 1}: write "latitude, longitude", e.g. 41.8012, -117.6203.` };
+    corners.push([parts[1], parts[0]]);
+  }
+  if (corners.length < 3) return { ok: false, message: "Give at least three corners." };
+  if (!same(corners[0], corners[corners.length - 1])) corners.push([...corners[0]]);
+  return readBoundary({ type: "Polygon", coordinates: [corners] });
+}

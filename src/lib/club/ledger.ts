@@ -1,0 +1,55 @@
+import { z } from "zod";
+import { FIND_KINDS } from "../entities/find";
+
+export const REVIEW_STATES = ["new", "verified", "queried"] as const;
+export const LEDGER_SORTS = ["foundAt", "weight", "fine", "member", "claim", "kind"] as const;
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.");
+const optionalId = z.string().uuid("Not a valid id.").optional().or(z.literal("").transform(() => undefined));
+
+/** The club ledger's filters, sort and page, as a query string carries them. */
+export const ledgerQuerySchema = z
+  .object({
+    claimId: optionalId,
+    memberId: optionalId,
+    season: z.coerce.number().int().min(2000).max(2100).optional(),
+    from: isoDate.optional(),
+    to: isoDate.optional(),
+    kind: z.enum(FIND_KINDS).optional().or(z.literal("").transform(() => undefined)),
+    state: z.enum(REVIEW_STATES).optional().or(z.literal("").transform(() => undefined)),
+    sort: z.enum(LEDGER_SORTS).default("foundAt"),
+    dir: z.enum(["asc", "desc"]).default("desc"),
+    page: z.coerce.number().int().min(1).max(100_000).default(1),
+    pageSize: z.coerce.number().int().min(1).max(200).default(50),
+    price: z.enum(["find-date", "today"]).default("find-date"),
+  })
+  .strict()
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "The start date must not be after the end date.", path: ["from"] });
+
+export type LedgerQuery = z.infer<typeof ledgerQuerySchema>;
+
+export type LedgerRow = {
+  id: string;
+  memberId: string;
+  memberName: string | null;
+  claimId: string | null;
+  claimName: string | null;
+  foundAt: number;
+  kind: string;
+  method: string;
+  weightGrams: number | null;
+  alloyGrams: number | null;
+  fineGrams: number | null;
+  fineLow: number | null;
+  fineHigh: number | null;
+  price: number | null;
+  currency: string | null;
+  value: number | null;
+  state: (typeof REVIEW_STATES)[number];
+};
+
+export type LedgerSummary = { finds: number; weightGrams: number; fineGrams: number; value: number; currency: string | null };
+export type LedgerPage = { rows: LedgerRow[]; total: number; summary: LedgerSummary; page: number; pageSize: number };
+
+/** Columns of the CSV export, in order. */
+export const LEDGER_CSV_COLUMNS = ["id", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "price", "currency", "value", "state"] as const;

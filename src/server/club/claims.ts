@@ -1,0 +1,55 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
+import type { z } from "zod";
+import { boundaryFromCorners, readBoundary } from "@/lib/club/geometry";
+import type { claimInputSchema } from "@/lib/club/schemas";
+import type { Actor } from "../auth/actor";
+import { audit } from "../audit";
+import { getDb } from "../db";
+import * as t from "../db/schema";
+import { nextSeq } from "../db/sequence";
+import { AppError } from "../errors";
+
+type ClaimInput = z.infer<typeof claimInputSchema>;
+
+export function listClaims() {
+  return getDb()
+    .select({ id: t.claims.id, name: t.claims.name, kind: t.claims.kind, agencyRef: t.claims.agencyRef, boundary: t.claims.boundary, rules: t.claims.rules, active: t.claims.active, updatedAt: t.claims.updatedAt })
+    .from(t.claims)
+    .orderBy(asc(t.claims.name))
+    .all();
+}
+
+function boundaryOf(input: ClaimInput): t.GeoJsonPolygon | null | undefined {
+  if (input.corners && input.corners.trim()) {
+    const r = boundaryFromCorners(input.corners);
+    if (!r.ok) throw new AppError("bad_request:claim", r.message, { corners: [r.message] });
+    return r.polygon;
+  }
+  if (input.boundary === undefined) return undefined;
+  if (input.boundary === null) return null;
+  const r = readBoundary(input.boundary);
+  if (!r.ok) throw new AppError("bad_request:claim", r.message, { boundary: [r.message] });
+  return r.polygon;
+}
+
+/** Creates or edits a claim; devices receive it at their next sync. Audited with before and after. */
+export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
+  const boundary = boundaryOf(input);
+  const db = getDb();
+  return db.transaction((tx) => {
+    const values = { name: input.name, kind: input.kind, agencyRef: input.agencyRef, rules: input.rules, active: input.active, ...(boundary !== undefined ? { boundary } : {}) };
+    if (id) {
+      const before = tx.select().from(t.claims).where(eq(t.claims.id, id)).get();
+      if (!before) throw new AppError("not_found:claim", "No such claim.");
+      tx.update(t.claims).set({ ...values, updatedAt: Date.now(), seq: nextSeq(tx) }).where(eq(t.claims.id, id)).run();
+      audit(tx, { actorId: actor.id, action: "claim.update", entity: "claim", entityId: id, before, after: values });
+      return { id };
+    }
+    const newId = uuidv7();
+    tx.insert(t.claims).values({ id: newId, ...values, boundary: boundary ?? null, seq: nextSeq(tx) }).run();
+    audit(tx, { actorId: actor.id, action: "claim.create", entity: "claim", entityId: newId, after: values });
+    return { id: newId };
+  });
+}

@@ -1,0 +1,18 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import { seasonBounds } from "@/lib/season";
+import { getDb } from "../db";
+
+export type MonthlyProduction = { month: string; claimId: string | null; claimName: string | null; finds: number; weightGrams: number; fineGrams: number };
+
+/** Production per month and claim for a season: recorded weight and estimated fine gold. */
+export function productionByMonth(season: number): MonthlyProduction[] {
+  const { start, end } = seasonBounds(season);
+  return getDb().all<MonthlyProduction>(sql`
+    select strftime('%Y-%m', f.found_at / 1000, 'unixepoch') as month, f.claim_id as claimId, c.name as claimName,
+           count(*) as finds, coalesce(sum(f.weight_grams), 0) as weightGrams,
+           coalesce(sum((select w.fine_gold_grams from weigh_ins w where w.find_id = f.id and w.deleted_at is null order by w.weighed_at desc limit 1)), 0) as fineGrams
+    from finds f left join claims c on c.id = f.claim_id
+    where f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}
+    group by month, f.claim_id order by month, claimName`);
+}

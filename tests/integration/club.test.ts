@@ -1,0 +1,200 @@
+import Papa from "papaparse";
+import { beforeAll, describe, expect, it } from "vitest";
+import { GET as getClaims, POST as postClaim } from "@/app/api/club/claims/route";
+import { PUT as putClaim } from "@/app/api/club/claims/[id]/route";
+import { GET as getFind } from "@/app/api/club/finds/[id]/route";
+import { POST as postReview } from "@/app/api/club/finds/[id]/reviews/route";
+import { POST as postInvitation, GET as getInvitations } from "@/app/api/club/invitations/route";
+import { DELETE as deleteInvitation, POST as resendInvitation } from "@/app/api/club/invitations/[id]/route";
+import { GET as getLedger } from "@/app/api/club/ledger/route";
+import { GET as getCsv } from "@/app/api/club/ledger/csv/route";
+import { PATCH as patchMember } from "@/app/api/club/members/[id]/route";
+import { GET as getMembers } from "@/app/api/club/members/route";
+import { GET as getPrices, POST as postPrice } from "@/app/api/club/prices/route";
+import { GET as getProduction } from "@/app/api/club/production/route";
+import { LEDGER_CSV_COLUMNS } from "@/lib/club/ledger";
+import { TROY_OUNCE_GRAMS } from "@/lib/estimate/units";
+import type { Db } from "@/server/db";
+import { startMailCatcher } from "../../scripts/lib/mail-catcher";
+import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+
+let db: Db;
+let officer: string;
+let member: string;
+const ctx = (id: string) => ({ params: Promise.resolve({ id }) });
+const none = {} as never;
+const jsonInit = (method: string, body: unknown, cookie: string) => ({ method, cookie, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+
+beforeAll(async () => {
+  ({ db } = await seededDatabase());
+  officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
+  member = await sessionCookie(memberByEmail(db, MEMBER_EMAIL));
+});
+
+const sql = <T,>(q: string, ...args: unknown[]) => db.$client.prepare(q).get(...args) as T;
+
+describe("the club ledger", () => {
+  const ledger = async (qs: string) => {
+    const res = await getLedger(req(`/api/club/ledger?${qs}`, { cookie: officer }), none);
+    expect(res.status).toBe(200);
+    return res.json();
+  };
+
+  it("totals equal a plain SQL sum over the same rows, for several filters", async () => {
+    const claim = sql<{ id: string }>("select id from claims where kind = 'lode'");
+    const someone = sql<{ id: string }>("select member_id id from finds group by member_id order by count(*) desc limit 1");
+    const cases: [string, string, unknown[]][] = [
+      ["", "1=1", []],
+      [`claimId=${claim.id}`, "f.claim_id = ?", [claim.id]],
+      [`memberId=${someone.id}&kind=specimen`, "f.member_id = ? and f.kind = 'specimen'", [someone.id]],
+      [`claimId=${claim.id}&season=2026`, "f.claim_id = ? and f.found_at >= ? and f.found_at < ?", [claim.id, Date.UTC(2026, 0, 1), Date.UTC(2027, 0, 1)]],
+    ];
+    for (const [qs, where, args] of cases) {
+      const body = await ledger(`${qs}&pageSize=5`);
+      const plain = sql<{ n: number; w: number | null; fine: number | null }>(
+        `select count(*) n, sum(f.weight_grams) w,
+                sum((select w.fine_gold_grams from weigh_ins w where w.find_id = f.id and w.deleted_at is null order by w.weighed_at desc limit 1)) fine
+         from finds f where f.deleted_at is null and ${where}`,
+        ...args,
+      );
+      expect(body.summary.finds).toBe(plain.n);
+      expect(body.summary.weightGrams).toBeCloseTo(plain.w ?? 0, 9);
+      expect(body.summary.fineGrams).toBeCloseTo(plain.fine ?? 0, 9);
+      expect(body.rows.length).toBe(Math.min(5, plain.n));
+    }
+  });
+
+  it("values fine gold at the price in force on the find's day, or today's", async () => {
+    const byDate = await ledger("kind=specimen&pageSize=200");
+    const today = await ledger("kind=specimen&pageSize=200&price=today");
+    const latest = sql<{ p: number }>("select price_per_troy_ounce p from reference_prices order by effective_on desc limit 1").p;
+    expect(today.summary.value).toBeCloseTo((today.summary.fineGrams / TROY_OUNCE_GRAMS) * latest, 6);
+    expect(byDate.summary.value).not.toBeCloseTo(today.summary.value, 2);
+  });
+
+  it("refuses bad filters with the field named", async () => {
+    const res = await getLedger(req("/api/club/ledger?season=abc&sort=colour", { cookie: officer }), none);
+    expect(res.status).toBe(400);
+    expect(Object.keys((await res.json()).error.fields)).toEqual(expect.arrayContaining(["season", "sort"]));
+  });
+
+  it("exports CSV that parses back to the same rows", async () => {
+    const claim = sql<{ id: string }>("select id from claims where kind = 'lode'");
+    const res = await getCsv(req(`/api/club/ledger/csv?claimId=${claim.id}`, { cookie: officer }), none);
+    expect(res.headers.get("content-type")).toMatch(/text\/csv/);
+    const parsed = Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true });
+    expect(parsed.meta.fields).toEqual([...LEDGER_CSV_COLUMNS]);
+    const page = await ledger(`claimId=${claim.id}&pageSize=200&sort=foundAt&dir=asc`);
+    expect(parsed.data.map((r) => r.id)).toEqual(page.rows.map((r: { id: string }) => r.id));
+    expect(parsed.data.map((r) => (r.weightGrams === "" ? null : Number(r.weightGrams)))).toEqual(page.rows.map((r: { weightGrams: number | null }) => r.weightGrams));
+  });
+});
+
+describe("reviews", () => {
+  it("verify and query go on the record, the state follows the latest, the audit log keeps them", async () => {
+    const find = sql<{ id: string }>("select id from finds where id not in (select find_id from reviews) limit 1");
+    expect((await postReview(req("/x", jsonInit("POST", { action: "query", note: "" }, officer)), ctx(find.id))).status).toBe(400);
+    expect((await postReview(req("/x", jsonInit("POST", { action: "query", note: "Weigh it again, please." }, officer)), ctx(find.id))).status).toBe(201);
+    expect((await postReview(req("/x", jsonInit("POST", { action: "verify" }, officer)), ctx(find.id))).status).toBe(201);
+    const detail = await (await getFind(req("/x", { cookie: officer }), ctx(find.id))).json();
+    expect(detail.reviews.map((r: { action: string }) => r.action)).toEqual(["query", "verify"]);
+    expect(sql<{ n: number }>("select count(*) n from audit_log where entity_id = ? and action like 'review.%'", find.id).n).toBe(2);
+  });
+});
+
+describe("claims", () => {
+  it("creates from typed corners, refuses self-intersecting and unclosed GeoJSON, and audits edits", async () => {
+    const created = await postClaim(req("/x", jsonInit("POST", { name: "Test Flat", kind: "placer", corners: "41.70, -117.70\n41.70, -117.69\n41.71, -117.69\n41.71, -117.70" }, officer)), none);
+    expect(created.status).toBe(201);
+    const { id } = await created.json();
+    const bowTie = await putClaim(req("/x", jsonInit("PUT", { name: "Test Flat", kind: "placer", boundary: { type: "Polygon", coordinates: [[[0, 0], [1, 1], [1, 0], [0, 1], [0, 0]]] } }, officer)), ctx(id));
+    expect(bowTie.status).toBe(400);
+    expect((await bowTie.json()).error.fields.boundary[0]).toMatch(/crosses itself/);
+    const open = await putClaim(req("/x", jsonInit("PUT", { name: "Test Flat", kind: "placer", boundary: { type: "Polygon", coordinates: [[[0, 0], [1, 0], [1, 1], [0, 1]]] } }, officer)), ctx(id));
+    expect((await open.json()).error.fields.boundary[0]).toMatch(/not closed/);
+    const renamed = await putClaim(req("/x", jsonInit("PUT", { name: "Test Flat North", kind: "placer" }, officer)), ctx(id));
+    expect(renamed.status).toBe(200);
+    const log = sql<{ before: string; after: string }>("select before, after from audit_log where entity_id = ? and action = 'claim.update'", id);
+    expect(JSON.parse(log.before).name).toBe("Test Flat");
+    expect(JSON.parse(log.after).name).toBe("Test Flat North");
+    expect(JSON.parse(sql<{ boundary: string }>("select boundary from claims where id = ?", id).boundary).coordinates[0]).toHaveLength(5);
+  });
+});
+
+describe("members and invitations", () => {
+  it("an invitation e-mail reaches the mail stand-in and its link works once", async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-mail-"));
+    const port = 20000 + Math.floor(Math.random() * 20000);
+    process.env.SMTP_PORT = String(port);
+    const catcher = await startMailCatcher({ port, dir });
+    try {
+      const res = await postInvitation(req("http://localhost:3000/api/club/invitations", jsonInit("POST", { email: "newcomer@quillmarsh.example", role: "member" }, officer)), none);
+      expect(res.status).toBe(201);
+      const mails = fs.readdirSync(dir).map((f) => JSON.parse(fs.readFileSync(path.join(dir, f), "utf8")));
+      expect(mails).toHaveLength(1);
+      expect(mails[0].to).toEqual(["newcomer@quillmarsh.example"]);
+      const token = mails[0].text.match(/\/join#token=([\w-]+)/)[1];
+      const { acceptInvitation } = await import("@/server/club/members");
+      await acceptInvitation(token, "New Comer", "a-long-password-1");
+      expect(sql<{ role: string; active: number }>("select role, active from members where email = 'newcomer@quillmarsh.example'")).toEqual({ role: "member", active: 1 });
+      await expect(acceptInvitation(token, "Someone Else", "another-password-2")).rejects.toThrow(/used, withdrawn or has run out/);
+      // Resend and revoke on a second invitation.
+      const second = await (await postInvitation(req("http://localhost:3000/x", jsonInit("POST", { email: "later@quillmarsh.example" }, officer)), none)).json();
+      expect((await resendInvitation(req("http://localhost:3000/x", jsonInit("POST", { action: "resend" }, officer)), ctx(second.id))).status).toBe(200);
+      const open = (await (await getInvitations(req("/x", { cookie: officer }), none)).json()).invitations.filter((i: { email: string; revokedAt: number | null; acceptedAt: number | null }) => i.email === "later@quillmarsh.example" && !i.revokedAt);
+      expect(open).toHaveLength(1);
+      expect((await deleteInvitation(req("/x", { method: "DELETE", cookie: officer }), ctx(open[0].id))).status).toBe(200);
+    } finally {
+      await catcher.close();
+    }
+  });
+
+  it("a role change or deactivation ends the member's sessions; the last officer stays", async () => {
+    const target = memberByEmail(db, "ruth@quillmarsh.example");
+    const res = await patchMember(req("/x", jsonInit("PATCH", { active: false }, officer)), ctx(target.id));
+    expect(res.status).toBe(200);
+    expect(sql<{ sv: number; active: number }>("select session_version sv, active from members where id = ?", target.id)).toEqual({ sv: target.sv + 1, active: 0 });
+    expect(sql<{ n: number }>("select count(*) n from finds where member_id = ?", target.id).n).toBeGreaterThan(0);
+    const me = memberByEmail(db, OFFICER_EMAIL);
+    const other = memberByEmail(db, "dale@quillmarsh.example");
+    expect((await patchMember(req("/x", jsonInit("PATCH", { role: "member" }, officer)), ctx(other.id))).status).toBe(200);
+    const last = await patchMember(req("/x", jsonInit("PATCH", { role: "member" }, officer)), ctx(me.id));
+    expect(last.status).toBe(409);
+  });
+
+  it("records reference prices and keeps the history", async () => {
+    const before = (await (await getPrices(req("/x", { cookie: officer }), none)).json()).prices.length;
+    expect((await postPrice(req("/x", jsonInit("POST", { effectiveOn: "2026-11-30", pricePerTroyOunce: 2601.5, currency: "USD" }, officer)), none)).status).toBe(201);
+    expect((await postPrice(req("/x", jsonInit("POST", { effectiveOn: "30/11/2026", pricePerTroyOunce: -1, currency: "usd" }, officer)), none)).status).toBe(400);
+    expect((await (await getPrices(req("/x", { cookie: officer }), none)).json()).prices.length).toBe(before + 1);
+  });
+});
+
+describe("every club handler refuses a member (403) and anonymous (401)", () => {
+  const id = "0190a5f0-0000-7000-8000-000000000000";
+  const calls: [string, (cookie: string) => Promise<Response>][] = [
+    ["GET ledger", (c) => getLedger(req("/api/club/ledger", { cookie: c }), none)],
+    ["GET ledger csv", (c) => getCsv(req("/api/club/ledger/csv", { cookie: c }), none)],
+    ["GET members", (c) => getMembers(req("/x", { cookie: c }), none)],
+    ["PATCH member", (c) => patchMember(req("/x", jsonInit("PATCH", { active: false }, c)), ctx(id))],
+    ["GET find", (c) => getFind(req("/x", { cookie: c }), ctx(id))],
+    ["POST review", (c) => postReview(req("/x", jsonInit("POST", { action: "verify" }, c)), ctx(id))],
+    ["GET claims", (c) => getClaims(req("/x", { cookie: c }), none)],
+    ["POST claim", (c) => postClaim(req("/x", jsonInit("POST", { name: "x", kind: "lode" }, c)), none)],
+    ["PUT claim", (c) => putClaim(req("/x", jsonInit("PUT", { name: "x", kind: "lode" }, c)), ctx(id))],
+    ["GET prices", (c) => getPrices(req("/x", { cookie: c }), none)],
+    ["POST price", (c) => postPrice(req("/x", jsonInit("POST", { effectiveOn: "2026-01-01", pricePerTroyOunce: 1, currency: "USD" }, c)), none)],
+    ["GET invitations", (c) => getInvitations(req("/x", { cookie: c }), none)],
+    ["POST invitation", (c) => postInvitation(req("/x", jsonInit("POST", { email: "a@b.example" }, c)), none)],
+    ["POST resend", (c) => resendInvitation(req("/x", jsonInit("POST", { action: "resend" }, c)), ctx(id))],
+    ["DELETE invitation", (c) => deleteInvitation(req("/x", { method: "DELETE", cookie: c }), ctx(id))],
+    ["GET production", (c) => getProduction(req("/x?season=2026", { cookie: c }), none)],
+  ];
+  it.each(calls)("%s", async (_name, call) => {
+    expect((await call(member)).status).toBe(403);
+    expect((await call("")).status).toBe(401);
+  });
+});
