@@ -175,7 +175,7 @@ describe("members and invitations", () => {
 
 describe("every club handler refuses a member (403) and anonymous (401)", () => {
   const id = "0190a5f0-0000-7000-8000-000000000000";
-  const calls: [string, (cookie: string) => Promise<Response>][] = [
+  const calls: [string, (cookie: string) => Response | Promise<Response>][] = [
     ["GET ledger", (c) => getLedger(req("/api/club/ledger", { cookie: c }), none)],
     ["GET ledger csv", (c) => getCsv(req("/api/club/ledger/csv", { cookie: c }), none)],
     ["GET members", (c) => getMembers(req("/x", { cookie: c }), none)],
