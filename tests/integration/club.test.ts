@@ -198,3 +198,16 @@ describe("every club handler refuses a member (403) and anonymous (401)", () => 
     expect((await call("")).status).toBe(401);
   });
 });
+
+describe("the weekly digest", () => {
+  it("lists new finds by claim and the open queries", async () => {
+    const { buildDigest, digestText } = await import("@/server/club/digest");
+    const d = buildDigest(Date.now() + 1000, 3650);
+    expect(d.newFinds.reduce((n, f) => n + f.finds, 0)).toBe(sql<{ n: number }>("select count(*) n from finds where deleted_at is null").n);
+    const open = sql<{ n: number }>(
+      "select count(*) n from finds f where (select r.action from reviews r where r.find_id = f.id and r.action in ('verify','query') order by r.created_at desc, r.seq desc limit 1) = 'query'",
+    ).n;
+    expect(d.openQueries).toHaveLength(open);
+    expect(digestText(d)).toMatch(/not assays/);
+  });
+});

@@ -85,3 +85,10 @@ export function ledgerRows(q: LedgerQuery, max = 200_000): LedgerRow[] {
   const stateFilter = q.state ? sql` where state = ${q.state}` : sql``;
   return getDb().all<LedgerRow>(sql`select * from (${selection(q)})${stateFilter} order by foundAt, id limit ${max}`);
 }
+
+/** Seasons that have finds, newest first, for the filters. */
+export function ledgerSeasons(): number[] {
+  return getDb()
+    .all<{ y: string }>(sql`select distinct strftime('%Y', found_at / 1000, 'unixepoch') as y from finds where deleted_at is null order by y desc`)
+    .map((r) => Number(r.y));
+}

@@ -1,9 +1,9 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import { seasonBounds } from "@/lib/season";
+import type { MonthlyProduction } from "@/lib/club/production";
 import { getDb } from "../db";
 
-export type MonthlyProduction = { month: string; claimId: string | null; claimName: string | null; finds: number; weightGrams: number; fineGrams: number };
 
 /** Production per month and claim for a season: recorded weight and estimated fine gold. */
 export function productionByMonth(season: number): MonthlyProduction[] {

@@ -6,7 +6,7 @@ import { SignInForms } from "./sign-in-forms";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-type Props = { searchParams: Promise<{ from?: string; signedOut?: string; error?: string }> };
+type Props = { searchParams: Promise<{ from?: string; signedOut?: string; error?: string; joined?: string }> };
 
 export default async function SignInPage({ searchParams }: Props) {
   const params = await searchParams;
@@ -21,6 +21,11 @@ export default async function SignInPage({ searchParams }: Props) {
         {params.signedOut && (
           <p role="status" className="font-bold text-moss">
             You are signed out.
+          </p>
+        )}
+        {params.joined && (
+          <p role="status" className="font-bold text-moss">
+            Welcome to the club. Sign in with your e-mail and new password.
           </p>
         )}
         {params.error && (

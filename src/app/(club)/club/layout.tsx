@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { QueryProvider } from "@/components/club/query-provider";
 import { SiteHeader } from "@/components/site-header";
 import { requirePageActor } from "@/server/auth/current";
 import { caughtMailDir } from "@/server/mail/caught";
@@ -9,17 +10,27 @@ export default async function ClubLayout({ children }: { children: React.ReactNo
     <>
       <SiteHeader actor={actor} />
       <div className="mx-auto flex max-w-6xl flex-col gap-4 px-4 py-4 lg:flex-row">
-        <nav aria-label="Club console" className="no-print flex gap-1 lg:w-48 lg:flex-col">
-          <Link href="/club" className="btn justify-start">
-            Season at a glance
-          </Link>
+        <nav aria-label="Club console" className="no-print flex flex-wrap gap-1 lg:w-52 lg:flex-col">
+          {[
+            ["/club", "Season at a glance"],
+            ["/club/ledger", "Club ledger"],
+            ["/club/claims", "Claims"],
+            ["/club/members", "Members"],
+            ["/club/prices", "Reference price"],
+          ].map(([href, label]) => (
+            <Link key={href} href={href} className="btn justify-start">
+              {label}
+            </Link>
+          ))}
           {caughtMailDir() && (
             <Link href="/club/mail" className="btn justify-start">
               Caught mail (demo)
             </Link>
           )}
         </nav>
-        <main className="min-w-0 flex-1">{children}</main>
+        <main className="min-w-0 flex-1">
+          <QueryProvider>{children}</QueryProvider>
+        </main>
       </div>
     </>
   );

@@ -1,9 +1,13 @@
 import type { Metadata } from "next";
+import { ClaimsMap } from "@/components/club/claims-map";
+import { ProductionChart } from "@/components/club/production-chart";
 import { formatGrams } from "@/lib/format";
 import { ROLE_LABELS } from "@/lib/roles";
 import { currentSeason } from "@/lib/season";
 import { requirePageActor } from "@/server/auth/current";
 import { listMembers } from "@/server/queries/members";
+import { listClaims } from "@/server/club/claims";
+import { productionByMonth } from "@/server/club/production";
 import { clubSeasonByClaim } from "@/server/queries/tally";
 
 export const metadata: Metadata = { title: "Club console" };
@@ -13,6 +17,13 @@ export default async function ClubConsolePage() {
   const season = currentSeason();
   const byClaim = clubSeasonByClaim(season);
   const roll = listMembers();
+  const claims = listClaims();
+  const labels = Object.fromEntries(
+    claims.map((c) => {
+      const t = byClaim.find((b) => b.claimId === c.id);
+      return [c.id, `${c.name}: ${t ? formatGrams(t.weightGrams) : "0 g"}`];
+    }),
+  );
   const total = byClaim.reduce((t, c) => ({ finds: t.finds + c.finds, weight: t.weight + c.weightGrams, fine: t.fine + c.fineGoldGrams }), { finds: 0, weight: 0, fine: 0 });
 
   return (
@@ -60,6 +71,21 @@ export default async function ClubConsolePage() {
         </table>
         <p className="mt-3 text-sm text-ink-soft">Fine gold comes from members&apos; specimen weigh-ins: an estimate, not an assay.</p>
       </section>
+
+      <div className="grid gap-4 xl:grid-cols-2">
+        <section aria-labelledby="chart-title" className="sheet">
+          <h2 id="chart-title" className="heading-bar mb-3 text-lg">
+            Production per month
+          </h2>
+          <ProductionChart months={productionByMonth(season)} />
+        </section>
+        <section aria-labelledby="map-title" className="sheet">
+          <h2 id="map-title" className="heading-bar mb-3 text-lg">
+            Claims and their season
+          </h2>
+          <ClaimsMap claims={claims} labels={labels} />
+        </section>
+      </div>
 
       <section aria-labelledby="roll-title" className="sheet overflow-x-auto">
         <h2 id="roll-title" className="heading-bar mb-3 text-lg">

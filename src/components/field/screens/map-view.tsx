@@ -8,7 +8,9 @@ import type { ClaimView } from "@/lib/entities/claim";
 
 type Props = {
   claims: ClaimView[];
-  finds: LocalFind[];
+  finds: Pick<LocalFind, "id" | "lat" | "lon" | "kind">[];
+  /** Text on each claim (by id); its name when absent. */
+  labels?: Record<string, string>;
   me: { lat: number; lon: number } | null;
   tileUrl: string;
   onPick?: (lat: number, lon: number) => void;
@@ -37,7 +39,7 @@ function ringCentre(claim: ClaimView): [number, number] | null {
 const css = (name: string) => getComputedStyle(document.documentElement).getPropertyValue(name).trim() || "#888";
 
 /** MapLibre with an inline style: needs no tile server, no glyphs, no network. */
-export default function MapView({ claims, finds, me, tileUrl, onPick, onOpenFind }: Props) {
+export default function MapView({ claims, finds, me, tileUrl, labels, onPick, onOpenFind }: Props) {
   const box = useRef<HTMLDivElement>(null);
   const mapRef = useRef<MapLibre | null>(null);
   const handlers = useRef({ onPick, onOpenFind });
@@ -94,7 +96,7 @@ export default function MapView({ claims, finds, me, tileUrl, onPick, onOpenFind
       if (!centre) return [];
       const el = document.createElement("div");
       el.className = "rounded bg-sheet px-1 text-xs font-bold text-ink shadow";
-      el.textContent = c.name;
+      el.textContent = labels?.[c.id] ?? c.name;
       return [new Marker({ element: el }).setLngLat(centre).addTo(map)];
     });
     map.on("click", (e) => {
@@ -110,7 +112,7 @@ export default function MapView({ claims, finds, me, tileUrl, onPick, onOpenFind
       map.remove();
       mapRef.current = null;
     };
-  }, [claims, finds, me, tileUrl]);
+  }, [claims, finds, me, tileUrl, labels]);
 
   return <div ref={box} className="h-[65dvh] w-full overflow-hidden rounded-md border-2 border-rule" data-testid="map" role="application" aria-label="Map of the club's claims and your finds" />;
 }

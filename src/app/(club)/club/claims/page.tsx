@@ -1,0 +1,30 @@
+import type { Metadata } from "next";
+import { ClaimEditor } from "@/components/club/claim-editor";
+import { ClaimsMap } from "@/components/club/claims-map";
+import { requirePageActor } from "@/server/auth/current";
+import { listClaims } from "@/server/club/claims";
+
+export const metadata: Metadata = { title: "Claims" };
+
+export default async function ClaimsPage() {
+  await requirePageActor("manageClaims", "/club/claims");
+  const claims = listClaims();
+  return (
+    <div className="flex flex-col gap-4">
+      <h1 className="text-2xl font-bold">Claims</h1>
+      <ClaimsMap claims={claims} labels={Object.fromEntries(claims.map((c) => [c.id, c.name]))} />
+      {claims.map((c) => (
+        <details key={c.id} className="sheet">
+          <summary className="cursor-pointer font-bold">
+            {c.name} · {c.kind} {c.agencyRef ? `· ${c.agencyRef}` : ""} {c.active ? "" : "· inactive"}
+          </summary>
+          <div className="mt-3">
+            <ClaimEditor claim={{ ...c, boundary: c.boundary ?? null }} />
+          </div>
+        </details>
+      ))}
+      <h2 className="heading-bar self-start text-lg">Add a claim</h2>
+      <ClaimEditor />
+    </div>
+  );
+}

@@ -1,0 +1,130 @@
+"use client";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
+import { KIND_LABELS } from "@/lib/entities/find";
+import type { SpecimenEstimate, SpecimenInput } from "@/lib/estimate/types";
+import { formatGrams, formatWhen } from "@/lib/format";
+import { formatDecimal, toDms } from "@/lib/geo";
+import { api, ApiError } from "./api";
+
+type FindDetail = {
+  find: { id: string; memberName: string | null; claimName: string | null; kind: keyof typeof KIND_LABELS; weightGrams: number | null; depthCm: number | null; method: string; notes: string; lat: number | null; lon: number | null; accuracyM: number | null; foundAt: number; positionShared: boolean };
+  photos: { id: string }[];
+  weighIns: { id: string; weighedAt: number; input: SpecimenInput; deviceEstimate: SpecimenEstimate; serverEstimate: SpecimenEstimate; engineVersion: string; mismatch: boolean }[];
+  reviews: { id: string; action: "verify" | "query" | "note"; note: string; createdAt: number; officerName: string | null }[];
+};
+
+const ACTION = { verify: "Verified", query: "Queried", note: "Note" } as const;
+
+/** A find opened from the ledger: everything about it, and the officer's verify / query / note. */
+export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) {
+  const client = useQueryClient();
+  const { data, error, isPending } = useQuery({ queryKey: ["find", id], queryFn: () => api<FindDetail>(`/api/club/finds/${id}`) });
+  const [note, setNote] = useState("");
+  const review = useMutation({
+    mutationFn: (action: "verify" | "query" | "note") => api(`/api/club/finds/${id}/reviews`, { method: "POST", body: { action, note } }),
+    onSuccess: () => {
+      setNote("");
+      void client.invalidateQueries({ queryKey: ["find", id] });
+      void client.invalidateQueries({ queryKey: ["ledger"] });
+    },
+  });
+
+  return (
+    <aside aria-label="Find" className="sheet flex flex-col gap-3" data-testid="find-panel">
+      <div className="flex items-center justify-between">
+        <h2 className="text-xl font-bold">{data ? `${KIND_LABELS[data.find.kind]} · ${data.find.memberName ?? ""}` : "Find"}</h2>
+        <button type="button" className="btn" onClick={onClose}>
+          Close
+        </button>
+      </div>
+      {isPending && <p role="status">Loading…</p>}
+      {error && <p className="field-error">{(error as Error).message}</p>}
+      {data && (
+        <>
+          <dl className="grid grid-cols-2 gap-2 text-sm">
+            <dt className="text-ink-soft">Found</dt>
+            <dd>{formatWhen(data.find.foundAt)}</dd>
+            <dt className="text-ink-soft">Claim</dt>
+            <dd>{data.find.claimName ?? "off the club's claims"}</dd>
+            <dt className="text-ink-soft">Weight</dt>
+            <dd className="figure">{data.find.weightGrams != null ? formatGrams(data.find.weightGrams) : "—"}</dd>
+            <dt className="text-ink-soft">Method, depth</dt>
+            <dd>
+              {data.find.method}
+              {data.find.depthCm != null ? `, ${data.find.depthCm} cm` : ""}
+            </dd>
+            <dt className="text-ink-soft">Position</dt>
+            <dd className="figure">
+              {data.find.lat !== null && data.find.lon !== null ? (
+                <>
+                  {formatDecimal(data.find.lat, data.find.lon)}
+                  <br />
+                  {toDms(data.find.lat, "lat")} {toDms(data.find.lon, "lon")}
+                </>
+              ) : data.find.positionShared ? (
+                "not recorded"
+              ) : (
+                "the member shares the claim only"
+              )}
+            </dd>
+          </dl>
+          {data.find.notes && <p className="text-sm">“{data.find.notes}”</p>}
+          {data.photos.length > 0 && (
+            <div className="flex flex-wrap gap-2">
+              {data.photos.map((p) => (
+                // eslint-disable-next-line @next/next/no-img-element -- served by our photo handler, EXIF stripped
+                <img key={p.id} src={`/api/photos/${p.id}`} alt="Photo of the find" className="h-28 w-28 rounded-md border border-rule object-cover" />
+              ))}
+            </div>
+          )}
+          <section>
+            <h3 className="font-bold">Weigh-ins</h3>
+            {data.weighIns.length === 0 && <p className="text-sm text-ink-soft">None.</p>}
+            {data.weighIns.map((w) => (
+              <div key={w.id} className="border-b border-rule py-2 text-sm">
+                <p>
+                  {formatWhen(w.weighedAt)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {w.input.waterTempC ?? 20} °C · host{" "}
+                  {w.input.hostDensity ?? 2.65} · fineness {w.input.finenessPermille ?? 1000} ‰
+                </p>
+                <p className="figure font-bold">
+                  Server: {formatGrams(w.serverEstimate.fineGoldGrams)} fine ({formatGrams(w.serverEstimate.range.fineGoldGrams[0])} – {formatGrams(w.serverEstimate.range.fineGoldGrams[1])}), engine {w.engineVersion}
+                </p>
+                {w.mismatch && <p className="font-bold text-rust">The member&apos;s device computed {formatGrams(w.deviceEstimate.fineGoldGrams)}: check its app version.</p>}
+              </div>
+            ))}
+          </section>
+          <section>
+            <h3 className="font-bold">Reviews</h3>
+            <ul className="text-sm" data-testid="review-history">
+              {data.reviews.map((r) => (
+                <li key={r.id}>
+                  <strong>{ACTION[r.action]}</strong> by {r.officerName} · {formatWhen(r.createdAt)} {r.note && `— ${r.note}`}
+                </li>
+              ))}
+            </ul>
+          </section>
+          <div className="flex flex-col gap-2">
+            <label className="flex flex-col">
+              <span className="field-label">Note to the member</span>
+              <textarea rows={2} className="field-input" value={note} onChange={(e) => setNote(e.target.value)} />
+            </label>
+            {review.error && <p className="field-error">{review.error instanceof ApiError ? (review.error.fields.note?.[0] ?? review.error.message) : String(review.error)}</p>}
+            <div className="flex flex-wrap gap-2">
+              <button type="button" className="btn btn-primary" disabled={review.isPending} onClick={() => review.mutate("verify")}>
+                Verify
+              </button>
+              <button type="button" className="btn" disabled={review.isPending} onClick={() => review.mutate("query")}>
+                Query
+              </button>
+              <button type="button" className="btn" disabled={review.isPending} onClick={() => review.mutate("note")}>
+                Add a note
+              </button>
+            </div>
+          </div>
+          <p className="text-xs text-ink-soft">Figures are estimates from hydrostatic weighing, not assays.</p>
+        </>
+      )}
+    </aside>
+  );
+}

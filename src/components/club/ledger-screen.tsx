@@ -1,0 +1,208 @@
+"use client";
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useMemo, useState } from "react";
+import { REVIEW_STATES, type LedgerPage, type LedgerRow } from "@/lib/club/ledger";
+import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/find";
+import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
+import { formatDay, formatGrams } from "@/lib/format";
+import { api } from "./api";
+import { FindPanel } from "./find-panel";
+
+type Option = { id: string; name: string | null };
+const col = createColumnHelper<LedgerRow>();
+const grams = (g: number | null) => (g == null ? "—" : formatGrams(g));
+const money = (v: number | null, c: string | null) => (v == null ? "—" : `${v.toFixed(2)} ${c ?? ""}`);
+const STATE_LABEL = { new: "New", verified: "Verified", queried: "Queried" } as const;
+
+const SORT_IDS: Record<string, string> = { foundAt: "foundAt", memberName: "member", claimName: "claim", kind: "kind", weightGrams: "weight", fineGrams: "fine" };
+
+/** The officers' club ledger: filtered and paged on the server, totals for everything selected. */
+export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; members: Option[]; seasons: number[] }) {
+  const params = useSearchParams();
+  const router = useRouter();
+  const pathname = usePathname();
+  const [openId, setOpenId] = useState<string | null>(null);
+  const query = params.toString();
+  const { data, error, isFetching } = useQuery({ queryKey: ["ledger", query], queryFn: () => api<LedgerPage>(`/api/club/ledger?${query}`), placeholderData: keepPreviousData });
+
+  const set = (changes: Record<string, string | undefined>) => {
+    const next = new URLSearchParams(params);
+    for (const [k, v] of Object.entries(changes)) {
+      if (v) next.set(k, v);
+      else next.delete(k);
+    }
+    if (!("page" in changes)) next.delete("page");
+    router.replace(`${pathname}?${next}`, { scroll: false });
+  };
+
+  const sorting: SortingState = [{ id: Object.entries(SORT_IDS).find(([, v]) => v === (params.get("sort") ?? "foundAt"))?.[0] ?? "foundAt", desc: (params.get("dir") ?? "desc") === "desc" }];
+  const columns = useMemo(
+    () => [
+      col.accessor("foundAt", { header: "Found", cell: (c) => formatDay(c.getValue()) }),
+      col.accessor("memberName", { header: "Member" }),
+      col.accessor("claimName", { header: "Claim", cell: (c) => c.getValue() ?? "off-claim" }),
+      col.accessor("kind", { header: "Kind", cell: (c) => KIND_LABELS[c.getValue() as keyof typeof KIND_LABELS] }),
+      col.accessor("method", { header: "Method", enableSorting: false }),
+      col.accessor("weightGrams", { header: "Weight", cell: (c) => grams(c.getValue()) }),
+      col.accessor("fineGrams", {
+        header: "Fine gold (est.)",
+        cell: (c) => (c.getValue() == null ? "—" : `${grams(c.getValue())} (${grams(c.row.original.fineLow)}–${grams(c.row.original.fineHigh)})`),
+      }),
+      col.accessor("value", { header: "Value", enableSorting: false, cell: (c) => money(c.getValue(), c.row.original.currency) }),
+      col.accessor("state", { header: "Review", enableSorting: false, cell: (c) => <span data-state={c.getValue()}>{STATE_LABEL[c.getValue()]}</span> }),
+    ],
+    [],
+  );
+  const table = useReactTable({
+    data: data?.rows ?? [],
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    manualSorting: true,
+    manualPagination: true,
+    state: { sorting },
+    onSortingChange: (updater) => {
+      const next = typeof updater === "function" ? updater(sorting) : updater;
+      const first = next[0];
+      set({ sort: first ? SORT_IDS[first.id] : undefined, dir: first ? (first.desc ? "desc" : "asc") : undefined });
+    },
+  });
+
+  const page = data?.page ?? 1;
+  const pages = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
+  const s = data?.summary;
+  const select = (name: string, label: string, options: [string, string][], all: string) => (
+    <label className="flex flex-col text-sm">
+      <span className="font-bold">{label}</span>
+      <select className="field-input" value={params.get(name) ?? ""} onChange={(e) => set({ [name]: e.target.value || undefined })}>
+        <option value="">{all}</option>
+        {options.map(([v, l]) => (
+          <option key={v} value={v}>
+            {l}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end justify-between gap-2">
+        <h1 className="text-2xl font-bold">Club ledger</h1>
+        <div className="flex gap-2">
+          <a className="btn" href={`/api/club/ledger/csv?${query}`} download>
+            Export CSV
+          </a>
+          <a className="btn" href={`/club/report?${query}`}>
+            Printable report
+          </a>
+        </div>
+      </div>
+      <form className="sheet grid grid-cols-2 gap-2 md:grid-cols-4 xl:grid-cols-8" aria-label="Ledger filters" onSubmit={(e) => e.preventDefault()}>
+        {select("claimId", "Claim", claims.map((c) => [c.id, c.name ?? ""]), "All claims")}
+        {select("memberId", "Member", members.map((m) => [m.id, m.name ?? ""]), "All members")}
+        {select("season", "Season", seasons.map((y) => [String(y), String(y)]), "Any season")}
+        <label className="flex flex-col text-sm">
+          <span className="font-bold">From</span>
+          <input type="date" className="field-input" value={params.get("from") ?? ""} onChange={(e) => set({ from: e.target.value || undefined })} />
+        </label>
+        <label className="flex flex-col text-sm">
+          <span className="font-bold">To</span>
+          <input type="date" className="field-input" value={params.get("to") ?? ""} onChange={(e) => set({ to: e.target.value || undefined })} />
+        </label>
+        {select("kind", "Kind", FIND_KINDS.map((k) => [k, KIND_LABELS[k]]), "All kinds")}
+        {select("state", "Review", REVIEW_STATES.map((k) => [k, STATE_LABEL[k]]), "Any state")}
+        {select("price", "Value at", [["today", "today's price"]], "the find's date")}
+      </form>
+      {error && <p className="field-error">{(error as Error).message}</p>}
+
+      {s && (
+        <section aria-label="Totals" className="sheet grid grid-cols-2 gap-3 md:grid-cols-5" data-testid="ledger-totals">
+          <div>
+            <p className="text-sm text-ink-soft">Finds</p>
+            <p className="figure text-xl font-bold" data-testid="total-finds">
+              {s.finds}
+            </p>
+          </div>
+          <div>
+            <p className="text-sm text-ink-soft">Recorded weight</p>
+            <p className="figure text-xl font-bold">{formatGrams(s.weightGrams)}</p>
+            <p className="figure text-sm">
+              {gramsToTroyOunces(s.weightGrams).toFixed(3)} ozt · {gramsToPennyweights(s.weightGrams).toFixed(2)} dwt
+            </p>
+          </div>
+          <div>
+            <p className="text-sm text-ink-soft">Fine gold (est.)</p>
+            <p className="figure text-xl font-bold">{formatGrams(s.fineGrams)}</p>
+            <p className="figure text-sm">{gramsToTroyOunces(s.fineGrams).toFixed(3)} ozt</p>
+          </div>
+          <div>
+            <p className="text-sm text-ink-soft">Value</p>
+            <p className="figure text-xl font-bold">{money(s.value, s.currency)}</p>
+          </div>
+          <p className="col-span-2 self-center text-xs text-ink-soft md:col-span-1">Estimates from weigh-ins, not assays.</p>
+        </section>
+      )}
+
+      <div className={`grid gap-4 ${openId ? "xl:grid-cols-[1fr_420px]" : ""}`}>
+        <div className="sheet overflow-x-auto" aria-busy={isFetching}>
+          <table className="w-full text-left text-sm" data-testid="ledger-table">
+            <thead>
+              {table.getHeaderGroups().map((hg) => (
+                <tr key={hg.id} className="border-b-2 border-rule">
+                  {hg.headers.map((h) => (
+                    <th key={h.id} className="py-2 pr-3" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}>
+                      {h.column.getCanSort() ? (
+                        <button type="button" className="font-bold underline-offset-2 hover:underline" onClick={h.column.getToggleSortingHandler()}>
+                          {flexRender(h.column.columnDef.header, h.getContext())}
+                          {h.column.getIsSorted() === "desc" ? " ↓" : h.column.getIsSorted() === "asc" ? " ↑" : ""}
+                        </button>
+                      ) : (
+                        flexRender(h.column.columnDef.header, h.getContext())
+                      )}
+                    </th>
+                  ))}
+                </tr>
+              ))}
+            </thead>
+            <tbody>
+              {table.getRowModel().rows.map((row) => (
+                <tr
+                  key={row.id}
+                  className={`cursor-pointer border-b border-rule hover:bg-paper ${openId === row.original.id ? "bg-paper" : ""}`}
+                  onClick={() => setOpenId(row.original.id)}
+                  data-find={row.original.id}
+                >
+                  {row.getVisibleCells().map((cell, i) => (
+                    <td key={cell.id} className="figure py-2 pr-3">
+                      {i === 0 ? (
+                        <button type="button" className="underline" onClick={() => setOpenId(row.original.id)}>
+                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                        </button>
+                      ) : (
+                        flexRender(cell.column.columnDef.cell, cell.getContext())
+                      )}
+                    </td>
+                  ))}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <div className="mt-3 flex items-center gap-2">
+            <button type="button" className="btn" disabled={page <= 1} onClick={() => set({ page: String(page - 1) })}>
+              Previous
+            </button>
+            <span className="text-sm">
+              Page {page} of {pages}
+            </span>
+            <button type="button" className="btn" disabled={page >= pages} onClick={() => set({ page: String(page + 1) })}>
+              Next
+            </button>
+          </div>
+        </div>
+        {openId && <FindPanel id={openId} onClose={() => setOpenId(null)} />}
+      </div>
+    </div>
+  );
+}

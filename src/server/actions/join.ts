@@ -1,0 +1,26 @@
+"use server";
+import { redirect } from "next/navigation";
+import { z } from "zod";
+import { defineAction } from "../action";
+import { acceptInvitation } from "../club/members";
+import { AppError } from "../errors";
+
+const joinForm = z
+  .object({
+    token: z.string().min(20, "This link is incomplete.").max(100),
+    name: z.string().trim().min(1, "Tell the club your name.").max(120),
+    password: z.string().min(10, "Use at least 10 characters.").max(200),
+    confirm: z.string(),
+  })
+  .refine((f) => f.password === f.confirm, { message: "The two passwords differ.", path: ["confirm"] });
+
+/** Accepting an invitation: public (the link is the key), and it works once. */
+export const joinClub = defineAction({ public: true }, joinForm, async (input) => {
+  try {
+    await acceptInvitation(input.token, input.name, input.password);
+  } catch (error) {
+    if (error instanceof AppError) return { ok: false, message: error.message };
+    throw error;
+  }
+  redirect("/sign-in?joined=1");
+});

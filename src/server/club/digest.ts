@@ -1,0 +1,46 @@
+import "server-only";
+import { and, eq, sql } from "drizzle-orm";
+import { formatGrams } from "@/lib/format";
+import { getDb } from "../db";
+import { members } from "../db/schema";
+import { sendMail } from "../mail";
+
+const DAY = 86_400_000;
+
+export type Digest = { since: number; newFinds: { claimName: string | null; finds: number; weightGrams: number }[]; openQueries: { memberName: string | null; kind: string; foundAt: number; note: string }[] };
+
+/** What officers should know about the past week: new finds by claim, and queries still open. */
+export function buildDigest(now = Date.now(), days = 7): Digest {
+  const db = getDb();
+  const since = now - days * DAY;
+  const newFinds = db.all<Digest["newFinds"][number]>(sql`
+    select c.name as claimName, count(*) as finds, coalesce(sum(f.weight_grams), 0) as weightGrams
+    from finds f left join claims c on c.id = f.claim_id
+    where f.deleted_at is null and f.created_at >= ${since} group by f.claim_id order by c.name`);
+  const openQueries = db.all<Digest["openQueries"][number]>(sql`
+    select m.name as memberName, f.kind, f.found_at as foundAt, r.note
+    from reviews r join finds f on f.id = r.find_id join members m on m.id = f.member_id
+    where f.deleted_at is null and r.action = 'query'
+      and r.id = (select r2.id from reviews r2 where r2.find_id = f.id and r2.action in ('verify','query') order by r2.created_at desc, r2.seq desc limit 1)
+    order by r.created_at`);
+  return { since, newFinds, openQueries };
+}
+
+export function digestText(d: Digest): string {
+  const lines = [`Lodebook — the club's week since ${new Date(d.since).toISOString().slice(0, 10)}`, "", "New finds by claim:"];
+  if (d.newFinds.length === 0) lines.push("  none");
+  for (const f of d.newFinds) lines.push(`  ${f.claimName ?? "off-claim"}: ${f.finds} finds, ${formatGrams(f.weightGrams)} recorded`);
+  lines.push("", "Queries still open:");
+  if (d.openQueries.length === 0) lines.push("  none");
+  for (const q of d.openQueries) lines.push(`  ${q.memberName ?? "?"} — ${q.kind} of ${new Date(q.foundAt).toISOString().slice(0, 10)}: ${q.note}`);
+  lines.push("", "Figures are estimates, not assays.");
+  return lines.join("\n");
+}
+
+/** Sends the digest to every active officer; returns how many were sent. */
+export async function sendDigest(now = Date.now()): Promise<number> {
+  const officers = getDb().select({ email: members.email }).from(members).where(and(eq(members.role, "officer"), eq(members.active, true))).all();
+  const text = digestText(buildDigest(now));
+  for (const o of officers) await sendMail({ to: o.email, subject: "Lodebook: the club's week", text });
+  return officers.length;
+}
