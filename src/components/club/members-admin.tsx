@@ -9,7 +9,7 @@ type Member = { id: string; email: string; name: string | null; role: Role; acti
 type Invitation = { id: string; email: string; role: Role; createdAt: number; expiresAt: number; acceptedAt: number | null; revokedAt: number | null };
 
 /** The roll (roles, deactivation) and invitations (send, resend, withdraw). */
-export function MembersAdmin({ members, invitations, selfId, now }: { members: Member[]; invitations: Invitation[]; selfId: string; now: number }) {
+export function MembersAdmin({ members, invitations, selfId }: { members: Member[]; invitations: Invitation[]; selfId: string }) {
   const router = useRouter();
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [invite, setInvite] = useState({ email: "", role: "member" as Role });
@@ -22,7 +22,7 @@ export function MembersAdmin({ members, invitations, selfId, now }: { members: M
       setMessage({ ok: false, text: error instanceof ApiError ? (Object.values(error.fields)[0]?.[0] ?? error.message) : String(error) });
     }
   };
-  const open = invitations.filter((i) => !i.acceptedAt && !i.revokedAt && i.expiresAt > now);
+  const open = invitations;
 
   return (
     <div className="flex flex-col gap-4">

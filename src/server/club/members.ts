@@ -16,6 +16,12 @@ import { invitationMessage } from "../mail/messages";
 const INVITATION_DAYS = 14;
 const hashToken = (token: string) => crypto.createHash("sha256").update(token).digest("hex");
 
+/** Invitations not yet accepted, withdrawn or run out. */
+export function listOpenInvitations() {
+  const now = Date.now();
+  return listInvitations().filter((i) => !i.acceptedAt && !i.revokedAt && i.expiresAt > now);
+}
+
 export function listInvitations() {
   return getDb()
     .select({ id: t.invitations.id, email: t.invitations.email, role: t.invitations.role, createdAt: t.invitations.createdAt, expiresAt: t.invitations.expiresAt, acceptedAt: t.invitations.acceptedAt, revokedAt: t.invitations.revokedAt })

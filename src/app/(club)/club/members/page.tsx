@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { MembersAdmin } from "@/components/club/members-admin";
 import { requirePageActor } from "@/server/auth/current";
-import { listInvitations } from "@/server/club/members";
+import { listOpenInvitations } from "@/server/club/members";
 import { listMembers } from "@/server/queries/members";
 
 export const metadata: Metadata = { title: "Members" };
@@ -11,7 +11,7 @@ export default async function MembersPage() {
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Members</h1>
-      <MembersAdmin members={listMembers()} invitations={listInvitations()} selfId={actor.id} now={Date.now()} />
+      <MembersAdmin members={listMembers()} invitations={listOpenInvitations()} selfId={actor.id} />
     </div>
   );
 }
