@@ -2,7 +2,7 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { REVIEW_STATES, type LedgerPage, type LedgerRow } from "@/lib/club/ledger";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/find";
 import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
@@ -27,13 +27,22 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
   const query = params.toString();
   const { data, error, isFetching } = useQuery({ queryKey: ["ledger", query], queryFn: () => api<LedgerPage>(`/api/club/ledger?${query}`), placeholderData: keepPreviousData });
 
+  // The filters as last asked for: several quick changes all count, even before the address
+  // bar catches up; back and forward reset it.
+  const latest = useRef<string | null>(null);
+  useEffect(() => {
+    const reset = () => (latest.current = null);
+    window.addEventListener("popstate", reset);
+    return () => window.removeEventListener("popstate", reset);
+  }, []);
   const set = (changes: Record<string, string | undefined>) => {
-    const next = new URLSearchParams(params);
+    const next = new URLSearchParams(latest.current ?? window.location.search);
     for (const [k, v] of Object.entries(changes)) {
       if (v) next.set(k, v);
       else next.delete(k);
     }
     if (!("page" in changes)) next.delete("page");
+    latest.current = next.toString();
     router.replace(`${pathname}?${next}`, { scroll: false });
   };
 

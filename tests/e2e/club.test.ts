@@ -1,0 +1,79 @@
+import Database from "better-sqlite3";
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { LAPTOP, launchBrowser, PHONE, shotPath } from "./support/browser";
+import { signInToField, waitForSyncDone } from "./support/field";
+import { DEMO, SignInPage } from "./support/pages";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the club console", () => {
+  it("filters the ledger to a claim and season, verifies one find and queries another; the member's device shows both after sync", async () => {
+    const db = new Database(inject("databaseUrl"), { readonly: true });
+    const ines = db.prepare("select id from members where email = ?").get(DEMO.member.email) as { id: string };
+    const target = db
+      .prepare("select f.claim_id claimId, c.name claimName, strftime('%Y', f.found_at / 1000, 'unixepoch') season, count(*) n from finds f join claims c on c.id = f.claim_id where f.member_id = ? and f.deleted_at is null group by f.claim_id, season order by n desc limit 1")
+      .get(ines.id) as { claimId: string; claimName: string; season: string; n: number };
+    db.close();
+    expect(target.n).toBeGreaterThanOrEqual(2);
+
+    const page = await (await browser.newContext(LAPTOP)).newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await page.getByRole("heading", { name: /Good day/ }).waitFor();
+    await page.goto(`${baseUrl}/club/ledger`);
+    const filters = page.getByRole("form", { name: "Ledger filters" });
+    await filters.getByLabel("Claim").selectOption({ label: target.claimName });
+    await filters.getByLabel("Season").selectOption(target.season);
+    await filters.getByLabel("Member").selectOption({ label: "Ines Varga" });
+    await expect.poll(() => new URL(page.url()).search, { timeout: 15_000 }).toMatch(new RegExp(`(?=.*claimId=${target.claimId})(?=.*season=${target.season})(?=.*memberId=${ines.id})`));
+    await page.getByTestId("total-finds").filter({ hasText: String(target.n) }).waitFor();
+    const rows = page.getByTestId("ledger-table").locator("tbody tr");
+    await expect.poll(() => rows.count(), { timeout: 15_000 }).toBe(target.n);
+    const [verified, queried] = [await rows.nth(0).getAttribute("data-find"), await rows.nth(1).getAttribute("data-find")];
+
+    await rows.nth(0).click();
+    const panel = page.getByTestId("find-panel");
+    await panel.getByRole("button", { name: "Verify" }).click();
+    await panel.getByTestId("review-history").getByText("Verified").waitFor();
+    await page.screenshot({ path: shotPath("club-ledger-laptop"), fullPage: true });
+
+    await rows.nth(1).click();
+    await panel.getByTestId("review-history").locator("li").first().waitFor({ state: "detached" }).catch(() => undefined);
+    await panel.getByRole("button", { name: "Query" }).click();
+    await panel.getByText("Say what the member should look at.").waitFor();
+    await panel.getByLabel("Note to the member").fill("Please weigh it again with the line tared under water.");
+    await panel.getByRole("button", { name: "Query" }).click();
+    await panel.getByTestId("review-history").getByText("Queried").waitFor();
+    await page.getByRole("combobox", { name: "Review" }).selectOption("queried");
+    await page.getByTestId("total-finds").filter({ hasText: /^1$/ }).waitFor();
+
+    // The printable report renders, and prints to PDF.
+    await page.goto(`${baseUrl}/club/report?claimId=${target.claimId}&season=${target.season}`);
+    await page.getByTestId("report").getByText("Estimates are not assays.").waitFor();
+    await page.emulateMedia({ media: "print" });
+    await page.screenshot({ path: shotPath("club-report-print-laptop"), fullPage: true });
+    const pdf = await page.pdf({ path: "test-results/club-report.pdf", format: "A4" });
+    expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    await page.context().close();
+
+    // The member's device gets both reviews at its next sync.
+    const phone = await (await browser.newContext(PHONE)).newPage();
+    await signInToField(phone, baseUrl);
+    await waitForSyncDone(phone);
+    await phone.goto(`${baseUrl}/finds/view#id=${verified}`);
+    await phone.getByTestId("reviews").locator('[data-action="verify"]').waitFor();
+    await phone.goto(`${baseUrl}/finds/view#id=${queried}`);
+    await phone.getByTestId("reviews").getByText("Please weigh it again with the line tared under water.").waitFor();
+    await phone.screenshot({ path: shotPath("member-sees-query-phone"), fullPage: true });
+    await phone.context().close();
+  });
+});
