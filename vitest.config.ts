@@ -15,5 +15,7 @@ export default defineConfig({
     setupFiles: ["tests/support/setup.ts"],
     testTimeout: 30000,
     pool: "forks",
+    // next-auth imports "next/server" without an extension; let Vite resolve it.
+    server: { deps: { inline: ["next-auth", "@auth/core"] } },
   },
 });

@@ -10,6 +10,7 @@ export const CAPABILITY_NAMES = [
   "manageMembers",
   "managePrices",
   "readCaughtMail",
+  "downloadBackup",
 ] as const;
 export type Capability = (typeof CAPABILITY_NAMES)[number];
 
@@ -22,6 +23,7 @@ export const CAPABILITIES: Record<Role, Record<Capability, boolean>> = {
     manageMembers: false,
     managePrices: false,
     readCaughtMail: false,
+    downloadBackup: false,
   },
   officer: {
     logFinds: true,
@@ -31,6 +33,7 @@ export const CAPABILITIES: Record<Role, Record<Capability, boolean>> = {
     manageMembers: true,
     managePrices: true,
     readCaughtMail: true,
+    downloadBackup: true,
   },
 };
 

@@ -60,7 +60,8 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
     } catch (error) {
       if (error instanceof AppError) {
         if (error.status >= 401) logger.warn({ code: error.code, method: req.method, path: new URL(req.url).pathname }, "refused");
-        return NextResponse.json(error.toJSON(), { status: error.status, headers: { "Cache-Control": "no-store" } });
+        const retryAfter = error.fields?.retryAfter?.[0];
+        return NextResponse.json(error.toJSON(), { status: error.status, headers: { "Cache-Control": "no-store", ...(retryAfter ? { "Retry-After": retryAfter } : {}) } });
       }
       logger.error({ err: error instanceof Error ? { name: error.name, message: error.message, stack: error.stack } : String(error), path: new URL(req.url).pathname }, "handler failed");
       return NextResponse.json({ error: { code: "server_error", message: "Something went wrong on the server. Nothing you sent was lost; try again." } }, { status: 500 });

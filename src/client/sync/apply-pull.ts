@@ -37,7 +37,8 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
         case "photo": {
           // Bytes of a photo taken on another device are fetched when shown, not here.
           const local = await db.photos.get(id);
-          await db.photos.put({ ...pick(v, PHOTO_KEYS), updatedAt, blob: local?.blob ?? new Blob(), thumb: local?.thumb ?? new Blob(), uploaded: 1 });
+          const uploaded = v.stored === true ? 1 : local && local.blob.size > 0 ? 0 : 1;
+          await db.photos.put({ ...pick(v, PHOTO_KEYS), updatedAt, blob: local?.blob ?? new Blob(), thumb: local?.thumb ?? new Blob(), uploaded });
           break;
         }
         case "weighIn":

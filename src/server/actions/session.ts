@@ -1,8 +1,27 @@
 "use server";
 import { AuthError } from "next-auth";
+import { headers } from "next/headers";
 import { z } from "zod";
 import { defineAction, safeReturnPath } from "../action";
 import { signIn, signOut } from "../auth";
+import { AppError } from "../errors";
+import { spend } from "../limits";
+
+/** The same sign-in limits as the Auth.js endpoints, for the form's own path. */
+async function signInLimited(email: string) {
+  const h = await headers();
+  const address = h.get("x-forwarded-for")?.split(",")[0]?.trim() || "unknown";
+  try {
+    await spend([
+      ["signInPerAddress", address],
+      ["signInPerAccount", email.trim().toLowerCase()],
+    ]);
+    return null;
+  } catch (error) {
+    if (error instanceof AppError) return { ok: false, message: error.message };
+    throw error;
+  }
+}
 
 const passwordForm = z.object({
   email: z.email("Enter your e-mail address.").max(254),
@@ -11,6 +30,8 @@ const passwordForm = z.object({
 });
 
 export const signInWithPassword = defineAction({ public: true }, passwordForm, async (input) => {
+  const limited = await signInLimited(input.email);
+  if (limited) return limited;
   try {
     await signIn("credentials", { email: input.email, password: input.password, redirectTo: safeReturnPath(input.from) });
   } catch (error) {
@@ -25,6 +46,8 @@ export const signInWithPassword = defineAction({ public: true }, passwordForm, a
 const linkForm = z.object({ email: z.email("Enter your e-mail address.").max(254), from: z.string().max(500).optional() });
 
 export const sendSignInLink = defineAction({ public: true }, linkForm, async (input) => {
+  const limited = await signInLimited(input.email);
+  if (limited) return limited;
   try {
     // Unknown addresses are refused by the signIn callback; the member sees the same page
     // either way, so the form cannot be used to learn who belongs to the club.

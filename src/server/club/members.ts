@@ -10,6 +10,7 @@ import { audit } from "../audit";
 import { getDb } from "../db";
 import * as t from "../db/schema";
 import { AppError } from "../errors";
+import { logger } from "../log";
 import { sendMail } from "../mail";
 import { invitationMessage } from "../mail/messages";
 
@@ -48,7 +49,12 @@ export async function invite(actor: Actor, input: z.infer<typeof invitationInput
     tx.insert(t.invitations).values({ id, email, role: input.role, tokenHash: hashToken(token), invitedBy: actor.id, expiresAt: Date.now() + INVITATION_DAYS * 86_400_000 }).run();
     audit(tx, { actorId: actor.id, action: "invitation.create", entity: "invitation", entityId: id, after: { email, role: input.role } });
   });
-  await mailInvitation(email, origin, token, actor.name ?? actor.email);
+  try {
+    await mailInvitation(email, origin, token, actor.name ?? actor.email);
+  } catch (error) {
+    logger.warn({ code: "mail_failed", invitation: id, reason: (error as Error).message }, "invitation not mailed");
+    throw new AppError("unavailable:mail", "The invitation is saved, but the e-mail could not be sent. Use Resend once mail works again.");
+  }
   return { id };
 }
 

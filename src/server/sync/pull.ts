@@ -44,7 +44,8 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
       ...changesOf("price", tx.select().from(t.referencePrices).where(after(t.referencePrices)).orderBy(asc(t.referencePrices.seq)).limit(take).all() as unknown as Row[]),
       ...changesOf("outing", page(t.outings)),
       ...changesOf("find", page(t.finds), (r) => (hidden.has(r.memberId as string) ? { ...publicRecord(r), lat: null, lon: null, accuracyM: null } : publicRecord(r))),
-      ...changesOf("photo", page(t.photos), (r) => (hidden.has(r.memberId as string) ? { ...publicRecord(r), lat: null, lon: null } : publicRecord(r))),
+      // `stored`: whether the bytes are here, so a device re-sends them if not (a cut upload, a restored server).
+      ...changesOf("photo", page(t.photos), (r) => ({ ...publicRecord(r), stored: r.storageKey != null, ...(hidden.has(r.memberId as string) ? { lat: null, lon: null } : {}) })),
       ...changesOf("weighIn", page(t.weighIns)),
       ...changesOf("review", reviewsAfter(tx, actor, opts, take)),
     ].sort((a, b) => a.seq - b.seq);

@@ -22,6 +22,9 @@ export default async function ClubLayout({ children }: { children: React.ReactNo
               {label}
             </Link>
           ))}
+          <a href="/api/club/backup" className="btn justify-start" download>
+            Download a backup
+          </a>
           {caughtMailDir() && (
             <Link href="/club/mail" className="btn justify-start">
               Caught mail (demo)

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { requireActor } from "@/server/auth/actor";
 import { AppError } from "@/server/errors";
 import { json, route } from "@/server/http";
+import { spend } from "@/server/limits";
 import { requireSameOrigin } from "@/server/origin";
 import { receivePhoto, servePhoto } from "@/server/photos";
 
@@ -20,6 +21,7 @@ export const PUT = route<Ctx>(async (req, ctx) => {
   const id = await photoId(ctx);
   if (!(req.headers.get("content-type") ?? "").startsWith("image/jpeg")) throw new AppError("unsupported:photo", "Send the photo as image/jpeg.");
   const actor = await requireActor(req, "logFinds", "photo");
+  await spend([["photoPerAccount", actor.id]]);
   const result = await receivePhoto(actor, id, req);
   return json(result, { status: result.stored ? 201 : 200 });
 });

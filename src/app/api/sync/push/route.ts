@@ -2,6 +2,7 @@ import { MAX_PUSH_BYTES, PROTOCOL_VERSION, pushRequestSchema } from "@/lib/sync/
 import { requireActor } from "@/server/auth/actor";
 import { AppError } from "@/server/errors";
 import { json, parseJsonBody, route } from "@/server/http";
+import { clientAddress, spend } from "@/server/limits";
 import { requireSameOrigin } from "@/server/origin";
 import { applyPush } from "@/server/sync/push";
 
@@ -13,5 +14,9 @@ export const POST = route(async (req) => {
     throw new AppError("gone:protocol", "This copy of Lodebook is out of date. Reload to update it; your changes stay on the device.");
   }
   const actor = await requireActor(req, "logFinds", "push");
+  await spend([
+    ["pushPerAccount", actor.id],
+    ["pushPerAddress", clientAddress(req)],
+  ]);
   return json(applyPush(actor, push));
 });
