@@ -1,5 +1,6 @@
 import "server-only";
 import { LocalDiskStorage } from "./local-disk";
+import { S3Storage, s3SettingsFromEnv } from "./s3";
 
 /** Where photo bytes live: local disk by default; an S3 bucket when configured. */
 export interface PhotoStorage {
@@ -12,7 +13,10 @@ export interface PhotoStorage {
 let storage: PhotoStorage | undefined;
 
 export function photoStorage(): PhotoStorage {
-  storage ??= new LocalDiskStorage(process.env.LODEBOOK_PHOTO_DIR ?? "./data/photos");
+  if (!storage) {
+    const s3 = s3SettingsFromEnv();
+    storage = s3 ? new S3Storage(s3) : new LocalDiskStorage(process.env.LODEBOOK_PHOTO_DIR ?? "./data/photos");
+  }
   return storage;
 }
 
