@@ -1,7 +1,7 @@
 "use client";
 import { useEffect, useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
+import { estimateSpecimen, estimateSpecimenMonteCarlo, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import { formatMass, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
 import { EstimatePanel } from "./estimate-panel";
@@ -45,7 +45,7 @@ export function WeighInFlow({ initial, onSave }: Props) {
 
   // Lets anyone compare this device's arithmetic with the server's (and the tests do).
   useEffect(() => {
-    (globalThis as { lodebookEngine?: unknown }).lodebookEngine = { estimateSpecimen };
+    (globalThis as { lodebookEngine?: unknown }).lodebookEngine = { estimateSpecimen, estimateSpecimenMonteCarlo };
   }, []);
 
   const hanging = values.method === "hanging";

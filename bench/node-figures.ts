@@ -1,0 +1,122 @@
+import Database from "better-sqlite3";
+import fs from "node:fs";
+import path from "node:path";
+import { v7 as uuidv7 } from "uuid";
+import { estimateSpecimen, estimateSpecimenMonteCarlo } from "../src/lib/estimate";
+import { ledgerQuerySchema } from "../src/lib/club/ledger";
+import { PROTOCOL_VERSION } from "../src/lib/sync/protocol";
+import { ledgerPage } from "../src/server/club/ledger";
+import { closeDb, getDb } from "../src/server/db";
+import { seedLargeClub } from "../src/server/seed/large-club";
+import { applyPush } from "../src/server/sync/push";
+import { repeat, report } from "./stats";
+
+const OUT = path.resolve("bench/out");
+
+function freshDb(name: string) {
+  fs.mkdirSync(OUT, { recursive: true });
+  const file = path.join(OUT, name);
+  for (const s of ["", "-wal", "-shm"]) fs.rmSync(file + s, { force: true });
+  closeDb();
+  process.env.DATABASE_URL = file;
+  return { db: getDb(), file };
+}
+
+function mutationsFor(n: number) {
+  const muts: { id: number; name: string; args: Record<string, unknown> }[] = [];
+  const input = { method: "hanging" as const, airGrams: [100], waterGrams: [63.1], finenessPermille: 850, finenessRangePermille: [700, 950] as [number, number] };
+  const deviceEstimate = estimateSpecimen(input);
+  for (let i = 0; muts.length < n; i++) {
+    const find = { id: uuidv7(), outingId: null, claimId: null, kind: "specimen", weightGrams: 100, depthCm: null, method: "detecting", notes: "", lat: 41.8, lon: -117.6, accuracyM: 5, locationSource: "device", foundAt: 1780000000000 + i };
+    muts.push({ id: muts.length + 1, name: "find.put", args: find });
+    muts.push({ id: muts.length + 1, name: "weighIn.put", args: { id: uuidv7(), findId: find.id, input, deviceEstimate, weighedAt: 1780000000000 + i } });
+  }
+  return muts;
+}
+
+/** Sync ingest: 10 000 mutations through the real push logic against raw inserts of the same rows. */
+export async function syncIngest() {
+  const handler: number[] = [];
+  const raw: number[] = [];
+  for (let run = 0; run < 3; run++) {
+    const { db } = freshDb("ingest.db");
+    db.$client.prepare("insert into members (id, email, name, role, active) values ('bench-m', 'bench@x.example', 'Bench', 'member', 1)").run();
+    const actor = { id: "bench-m", email: "bench@x.example", name: "Bench", role: "member" as const };
+    const muts = mutationsFor(10_000);
+    const clientId = uuidv7();
+    let t = performance.now();
+    for (let i = 0; i < muts.length; i += 500) applyPush(actor, { protocolVersion: PROTOCOL_VERSION, clientId, mutations: muts.slice(i, i + 500) as never });
+    handler.push(performance.now() - t);
+    closeDb();
+
+    const rawFile = path.join(OUT, "ingest-raw.db");
+    for (const s of ["", "-wal", "-shm"]) fs.rmSync(rawFile + s, { force: true });
+    fs.copyFileSync(path.join(OUT, "ingest.db"), rawFile);
+    const sqlite = new Database(rawFile);
+    sqlite.pragma("journal_mode = WAL");
+    sqlite.pragma("synchronous = FULL");
+    sqlite.exec("delete from weigh_ins; delete from finds; delete from record_history;");
+    const insertFind = sqlite.prepare("insert into finds (id, member_id, kind, weight_grams, method, notes, lat, lon, accuracy_m, location_source, found_at, seq) values (?, 'bench-m', ?, ?, ?, '', ?, ?, ?, ?, ?, ?)");
+    const insertWeighIn = sqlite.prepare("insert into weigh_ins (id, member_id, find_id, input, device_estimate, server_estimate, engine_version, fine_gold_grams, gold_alloy_grams, weighed_at, seq) values (?, 'bench-m', ?, ?, ?, ?, ?, ?, ?, ?, ?)");
+    t = performance.now();
+    sqlite.transaction(() => {
+      let seq = 0;
+      for (const m of muts) {
+        const a = m.args as Record<string, never>;
+        if (m.name === "find.put") insertFind.run(a.id, a.kind, a.weightGrams, a.method, a.lat, a.lon, a.accuracyM, a.locationSource, a.foundAt, ++seq);
+        else {
+          const e = a.deviceEstimate as unknown as { engineVersion: string; fineGoldGrams: number; goldAlloyGrams: number };
+          insertWeighIn.run(a.id, a.findId, JSON.stringify(a.input), JSON.stringify(e), JSON.stringify(e), e.engineVersion, e.fineGoldGrams, e.goldAlloyGrams, a.weighedAt, ++seq);
+        }
+      }
+    })();
+    raw.push(performance.now() - t);
+    sqlite.close();
+  }
+  const rate = handler.map((h, i) => raw[i] / h);
+  report("sync ingest (10 000 mutations, finds + weigh-ins)", { value: handler, unit: "ms through the push logic", ratio: rate, ratioLabel: "share of the raw insert rate", goal: "≥ 0.40 of raw", pass: Math.min(...rate) >= 0.4 });
+}
+
+/** Ledger summary and first page over the large club, against the bare SQL aggregate. */
+export async function ledger() {
+  const file = path.join(OUT, "large.db");
+  if (!fs.existsSync(file)) {
+    console.log("(making the large club once: 500 members, 250 000 finds, 1 000 000 weigh-ins…)");
+    freshDb("large.db");
+    seedLargeClub(getDb());
+  }
+  closeDb();
+  process.env.DATABASE_URL = file;
+  const db = getDb();
+  const q = ledgerQuerySchema.parse({ season: "2026" });
+  const page = await repeat(3, () => {
+    const t = performance.now();
+    ledgerPage(q);
+    return performance.now() - t;
+  });
+  const bare = await repeat(3, () => {
+    const t = performance.now();
+    db.$client.prepare("select count(*), sum(weight_grams) from finds where deleted_at is null and found_at >= ? and found_at < ?").get(Date.UTC(2026, 0, 1), Date.UTC(2027, 0, 1));
+    return performance.now() - t;
+  });
+  const ratio = page.map((p, i) => p / bare[i]);
+  report("club ledger, one season of the large club (summary + first page)", { value: page, unit: "ms", ratio, ratioLabel: "× the bare SQL aggregate", goal: "≤ 2× and ≤ 150 ms", pass: Math.max(...ratio) <= 2 && Math.max(...page) <= 150 });
+  closeDb();
+}
+
+/** The plain estimate's cost per call, and a 10 000-sample Monte Carlo, in Node. */
+export async function estimateNode() {
+  const input = { method: "hanging" as const, airGrams: [100, 100.01], waterGrams: [62.72], finenessPermille: 850, finenessRangePermille: [700, 950] as [number, number] };
+  const perCall = await repeat(5, () => {
+    const t = performance.now();
+    for (let i = 0; i < 2000; i++) estimateSpecimen(input);
+    return ((performance.now() - t) / 2000) * 1000;
+  });
+  report("estimate, one call (Node)", { value: perCall, unit: "µs", goal: "reported", pass: true });
+  const mc = await repeat(5, () => {
+    const t = performance.now();
+    estimateSpecimenMonteCarlo(input, 10_000, 1);
+    return performance.now() - t;
+  });
+  report("estimate, 10 000-sample Monte Carlo (Node)", { value: mc, unit: "ms", goal: "≤ 50 ms", pass: Math.max(...mc) <= 50 });
+}

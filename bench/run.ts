@@ -1,0 +1,61 @@
+import Database from "better-sqlite3";
+import crypto from "node:crypto";
+import fs from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import { v7 as uuidv7 } from "uuid";
+import { buildApp, startApp } from "../scripts/lib/app-server";
+import { launchBrowser } from "../tests/e2e/support/browser";
+import { concurrency, deviceLists, estimateBrowser, offlineOpen, pageWeight, photoBytes } from "./browser-figures";
+import { estimateNode, ledger, syncIngest } from "./node-figures";
+
+// npm run bench: every figure on one run of this machine, each beside its baseline measured in
+// the same run (these machines are shared and noisy). Medians of several runs, with min–max.
+const started = performance.now();
+console.log(`Lodebook bench · ${new Date().toISOString()} · Node ${process.version} · ${os.cpus().length} cores\n`);
+
+await syncIngest();
+await estimateNode();
+await ledger();
+
+const freePort = () =>
+  new Promise<number>((resolve) => {
+    const s = net.createServer().listen(0, "127.0.0.1", () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-bench-"));
+const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: path.join(dir, "bench.db"), AUTH_SECRET: crypto.randomBytes(32).toString("base64url"), LODEBOOK_PHOTO_DIR: path.join(dir, "photos"), LODEBOOK_LOG: "warn", SMTP_PORT: "1" };
+Object.assign(process.env, env);
+const { closeDb, getDb } = await import("../src/server/db");
+const { hashPassword } = await import("../src/server/auth/password");
+const { seedDemoClub, DEMO_PASSWORDS } = await import("../src/server/seed/demo-club");
+closeDb();
+seedDemoClub(getDb(), { passwordHashes: { officer: await hashPassword(DEMO_PASSWORDS.officer), member: await hashPassword(DEMO_PASSWORDS.member) } });
+const benchMembers = Array.from({ length: 50 }, (_, i) => ({ id: uuidv7(), email: `bench${i}@quillmarsh.example` }));
+const insert = getDb().$client.prepare("insert into members (id, email, name, role, active) values (?, ?, ?, 'member', 1)");
+for (const m of benchMembers) insert.run(m.id, m.email, m.email);
+closeDb();
+
+if (!fs.existsSync(".next/BUILD_ID") || process.env.LODEBOOK_BENCH_BUILD === "1") await buildApp(env);
+const app = await startApp({ port: await freePort(), env, quiet: true });
+const browser = await launchBrowser();
+try {
+  await pageWeight(app.url);
+  await estimateBrowser(browser, app.url);
+  await photoBytes(browser, app.url);
+  await concurrency(app.url, benchMembers, (ids) => {
+    const db = new Database(env.DATABASE_URL!, { readonly: true });
+    const n = (db.prepare(`select count(*) n from finds where id in (${ids.map(() => "?").join(",")})`).get(...ids) as { n: number }).n;
+    db.close();
+    return n;
+  });
+  await offlineOpen(browser, app.url);
+  await deviceLists(browser, app.url);
+} finally {
+  await browser.close();
+  await app.stop();
+}
+console.log(`\nDone in ${((performance.now() - started) / 1000).toFixed(0)} s.`);
