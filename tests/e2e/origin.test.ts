@@ -29,6 +29,11 @@ describe("server actions keep Next's origin check (RELIABILITY 27)", () => {
       expect(res.status, `Origin ${origin}`).not.toBe(303);
     }
     const ok = await post(baseUrl);
-    expect(ok.headers.get("set-cookie") ?? "").toMatch(/authjs\.session-token=[^;]/);
+    const cookie = ok.headers.get("set-cookie") ?? "";
+    expect(cookie).toMatch(/authjs\.session-token=[^;]/);
+    // The session cookie is out of scripts' reach and not sent on cross-site requests.
+    const session = cookie.split(/,(?=\s*[\w.-]+=)/).find((c) => c.includes("authjs.session-token="))!;
+    expect(session).toMatch(/HttpOnly/i);
+    expect(session).toMatch(/SameSite=Lax/i);
   });
 });

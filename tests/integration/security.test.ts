@@ -180,7 +180,7 @@ describe("hostile input (RELIABILITY 31)", () => {
         const err = (await res.json()).error;
         expect(typeof err.message).toBe("string");
       }),
-      { numRuns: 400 },
+      { numRuns: 1000 },
     );
     const strip = (s: string) => s.split("\n").filter((l) => !l.startsWith("sync_clients:")).join("\n");
     expect(strip(databaseChecksum(db))).toBe(strip(before));
@@ -200,7 +200,7 @@ describe("hostile input (RELIABILITY 31)", () => {
           expect(res.status === 200 || (res.status >= 400 && res.status < 500), `${p}?${qs} → ${res.status}`).toBe(true);
         }
       }),
-      { numRuns: 400 },
+      { numRuns: 1000 },
     );
   });
 

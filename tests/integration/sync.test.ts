@@ -231,6 +231,14 @@ describe("ownership (RELIABILITY 23, 24, 26)", () => {
     expect((db.$client.prepare("select last_mutation_id l from sync_clients where id = ?").get(client) as { l: number }).l).toBe(1);
   });
 
+  it("22: changes held for another member are never applied under the signed-in identity", async () => {
+    const before = databaseChecksum(db);
+    const res = await push(other, uuidv7(), [{ id: 1, name: "find.put", args: newFind() }], { asMember: memberId });
+    expect(res.status).toBe(409);
+    expect(res.body.error?.code).toBe("conflict:member");
+    expect(databaseChecksum(db)).toBe(before);
+  });
+
   it("refuses an anonymous push and an old protocol", async () => {
     expect((await push("", uuidv7(), [{ id: 1, name: "find.put", args: newFind() }])).status).toBe(401);
     expect((await push(member, uuidv7(), [{ id: 1, name: "find.put", args: newFind() }], { protocolVersion: 0 })).status).toBe(410);
