@@ -1,18 +1,11 @@
 import Database from "better-sqlite3";
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { LAPTOP, launchBrowser, PHONE, shotPath } from "./support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { LAPTOP, PHONE, shotPath, sharedBrowser } from "./support/browser";
 import { signInToField, waitForSyncDone } from "./support/field";
 import { DEMO, SignInPage } from "./support/pages";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("the club console", () => {
   it("filters the ledger to a claim and season, verifies one find and queries another; the member's device shows both after sync", async () => {
@@ -24,7 +17,7 @@ describe("the club console", () => {
     db.close();
     expect(target.n).toBeGreaterThanOrEqual(2);
 
-    const page = await (await browser.newContext(LAPTOP)).newPage();
+    const page = await (await browser().newContext(LAPTOP)).newPage();
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
     await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
@@ -66,7 +59,7 @@ describe("the club console", () => {
     await page.context().close();
 
     // The member's device gets both reviews at its next sync.
-    const phone = await (await browser.newContext(PHONE)).newPage();
+    const phone = await (await browser().newContext(PHONE)).newPage();
     await signInToField(phone, baseUrl);
     await waitForSyncDone(phone);
     await phone.goto(`${baseUrl}/finds/view#id=${verified}`);

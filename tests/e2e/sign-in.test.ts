@@ -1,21 +1,13 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { LAPTOP, launchBrowser, PHONE, shotPath } from "./support/browser";
+import { describe, expect, inject, it } from "vitest";
+import { LAPTOP, PHONE, shotPath, sharedBrowser } from "./support/browser";
 import { DEMO, SignInPage, waitForMail } from "./support/pages";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("signing in through the real form", () => {
   it("takes a member to their home for today, without the club console", async () => {
-    const context = await browser.newContext(PHONE);
+    const context = await browser().newContext(PHONE);
     const page = await context.newPage();
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
@@ -32,7 +24,7 @@ describe("signing in through the real form", () => {
   });
 
   it("shows an officer the club console entry, and the console opens", async () => {
-    const context = await browser.newContext(LAPTOP);
+    const context = await browser().newContext(LAPTOP);
     const page = await context.newPage();
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
@@ -47,7 +39,7 @@ describe("signing in through the real form", () => {
   });
 
   it("signs out, and the home page then asks to sign in again", async () => {
-    const context = await browser.newContext(PHONE);
+    const context = await browser().newContext(PHONE);
     const page = await context.newPage();
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
@@ -61,7 +53,7 @@ describe("signing in through the real form", () => {
   });
 
   it("says clearly when the password is wrong", async () => {
-    const context = await browser.newContext(PHONE);
+    const context = await browser().newContext(PHONE);
     const page = await context.newPage();
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
@@ -75,7 +67,7 @@ describe("signing in through the real form", () => {
   });
 
   it("signs in by an e-mail link that reaches the mail catcher, once", async () => {
-    const context = await browser.newContext(PHONE);
+    const context = await browser().newContext(PHONE);
     const page = await context.newPage();
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
@@ -87,7 +79,7 @@ describe("signing in through the real form", () => {
     await page.goto(link);
     await page.getByRole("heading", { name: `Good day, ${DEMO.officer.firstName}` }).waitFor();
     // The same link a second time no longer signs anyone in.
-    const fresh = await browser.newContext(PHONE);
+    const fresh = await browser().newContext(PHONE);
     const again = await fresh.newPage();
     await again.goto(link);
     await again.waitForURL((url) => url.pathname === "/sign-in");

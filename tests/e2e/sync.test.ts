@@ -2,21 +2,15 @@ import Database from "better-sqlite3";
 import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, inject, it } from "vitest";
 import { makeJpeg } from "../support/jpeg";
-import { LAPTOP, launchBrowser, PHONE, shotPath } from "./support/browser";
+import { LAPTOP, PHONE, shotPath, sharedBrowser } from "./support/browser";
 import { deviceRecords, signInToField, tab, waitForSyncDone } from "./support/field";
 import { DEMO, SignInPage } from "./support/pages";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 const server = () => new Database(inject("databaseUrl"), { readonly: true, fileMustExist: true });
 
@@ -45,8 +39,8 @@ async function syncNow(page: Page) {
 
 describe("camp sync between two devices of one member and the club", () => {
   it("brings offline work from both devices to the server once, converges, and the officer sees it", async () => {
-    const phone = await (await browser.newContext({ ...PHONE, permissions: [] })).newPage();
-    const tablet = await (await browser.newContext({ ...PHONE, permissions: [] })).newPage();
+    const phone = await (await browser().newContext({ ...PHONE, permissions: [] })).newPage();
+    const tablet = await (await browser().newContext({ ...PHONE, permissions: [] })).newPage();
     await signInToField(phone, baseUrl);
     await signInToField(tablet, baseUrl);
     await waitForSyncDone(phone);
@@ -119,7 +113,7 @@ describe("camp sync between two devices of one member and the club", () => {
     }
 
     // The officer sees the new finds in the club's season.
-    const officer = await (await browser.newContext(LAPTOP)).newPage();
+    const officer = await (await browser().newContext(LAPTOP)).newPage();
     const signIn = new SignInPage(officer, baseUrl);
     await signIn.open();
     await signIn.signIn(DEMO.officer.email, DEMO.officer.password);

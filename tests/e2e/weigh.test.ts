@@ -1,23 +1,16 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { describe, expect, inject, it } from "vitest";
 import { estimateSpecimen } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import { IDENTITY_VECTORS } from "@/lib/estimate/vectors";
-import { launchBrowser, PHONE, shotPath } from "./support/browser";
+import { PHONE, shotPath, sharedBrowser } from "./support/browser";
 import { WeighPage } from "./support/weigh-page";
 
 const baseUrl = inject("baseUrl");
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("the weigh-in flow in Chromium", () => {
   it("gives the expected estimate and range for a known specimen, without an account", async () => {
-    const page = await (await browser.newContext(PHONE)).newPage();
+    const page = await (await browser().newContext(PHONE)).newPage();
     const weigh = new WeighPage(page, baseUrl);
     await weigh.open();
     await weigh.method("Hung from the scale");
@@ -39,7 +32,7 @@ describe("the weigh-in flow in Chromium", () => {
   });
 
   it("warns when the specimen is no denser than its host, and names a bad field", async () => {
-    const page = await (await browser.newContext(PHONE)).newPage();
+    const page = await (await browser().newContext(PHONE)).newPage();
     const weigh = new WeighPage(page, baseUrl);
     await weigh.open();
     await weigh.readings(["100.00"], ["61.00"]);
@@ -55,7 +48,7 @@ describe("the weigh-in flow in Chromium", () => {
   });
 
   it("computes bit-identical numbers in the browser bundle and through POST /api/estimate", async () => {
-    const page = await (await browser.newContext()).newPage();
+    const page = await (await browser().newContext()).newPage();
     await new WeighPage(page, baseUrl).open();
     await page.waitForFunction(() => "lodebookEngine" in globalThis);
     const inBrowser: string[] = await page.evaluate(

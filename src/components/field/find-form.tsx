@@ -8,10 +8,11 @@ import type { MemberSettings } from "@/client/settings";
 import { FieldError } from "@/components/field-error";
 import { parseNumber } from "@/components/weigh/form-model";
 import type { ClaimView } from "@/lib/entities/claim";
-import { METHOD_LABELS, methodSchema, OUTING_METHODS } from "@/lib/entities/common";
+import { methodSchema } from "@/lib/entities/common";
 import { FIND_KINDS, KIND_LABELS, type Find } from "@/lib/entities/find";
 import { convertMass, toGrams } from "@/lib/estimate/units";
 import { toLocalInput } from "@/lib/format";
+import { ClaimOptions, MethodOptions } from "./options";
 
 const optionalNumber = (message: string, ok: (n: number) => boolean) =>
   z.string().refine((v) => {
@@ -114,22 +115,14 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
         <label className="flex flex-col">
           <span className="field-label">Method</span>
           <select className="field-input" {...register("method")}>
-            {OUTING_METHODS.map((m) => (
-              <option key={m} value={m}>
-                {METHOD_LABELS[m]}
-              </option>
-            ))}
+            <MethodOptions />
           </select>
         </label>
         <label className="col-span-2 flex flex-col">
           <span className="field-label">Claim</span>
           <select className="field-input" {...register("claimId")}>
             <option value="">Off the club&apos;s claims</option>
-            {claims.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
+            <ClaimOptions claims={claims} />
           </select>
         </label>
         <label className="col-span-2 flex flex-col">

@@ -2,6 +2,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type BrowserContextOptions } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
 
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 
@@ -34,4 +35,16 @@ export const SHOTS_DIR = path.resolve("test-results/screenshots");
 export function shotPath(name: string): string {
   fs.mkdirSync(SHOTS_DIR, { recursive: true });
   return path.join(SHOTS_DIR, `${name}.png`);
+}
+
+/** One Chromium for a test file: launched before its tests, closed after them. */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => browser!;
 }

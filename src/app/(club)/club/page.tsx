@@ -2,10 +2,8 @@ import type { Metadata } from "next";
 import { ClaimsMap } from "@/components/club/claims-map";
 import { ProductionChart } from "@/components/club/production-chart";
 import { formatGrams } from "@/lib/format";
-import { ROLE_LABELS } from "@/lib/roles";
 import { currentSeason } from "@/lib/season";
 import { requirePageActor } from "@/server/auth/current";
-import { listMembers } from "@/server/queries/members";
 import { listClaims } from "@/server/club/claims";
 import { productionByMonth } from "@/server/club/production";
 import { clubSeasonByClaim } from "@/server/queries/tally";
@@ -16,7 +14,6 @@ export default async function ClubConsolePage() {
   await requirePageActor("viewLedger", "/club");
   const season = currentSeason();
   const byClaim = clubSeasonByClaim(season);
-  const roll = listMembers();
   const claims = listClaims();
   const labels = Object.fromEntries(
     claims.map((c) => {
@@ -87,31 +84,6 @@ export default async function ClubConsolePage() {
         </section>
       </div>
 
-      <section aria-labelledby="roll-title" className="sheet overflow-x-auto">
-        <h2 id="roll-title" className="heading-bar mb-3 text-lg">
-          Club roll
-        </h2>
-        <table className="w-full text-left">
-          <thead>
-            <tr className="border-b-2 border-rule">
-              <th className="py-2 pr-3">Name</th>
-              <th className="py-2 pr-3">E-mail</th>
-              <th className="py-2 pr-3">Role</th>
-              <th className="py-2">Status</th>
-            </tr>
-          </thead>
-          <tbody>
-            {roll.map((m) => (
-              <tr key={m.id} className="border-b border-rule">
-                <td className="py-2 pr-3 font-bold">{m.name ?? "—"}</td>
-                <td className="py-2 pr-3">{m.email}</td>
-                <td className="py-2 pr-3">{ROLE_LABELS[m.role]}</td>
-                <td className="py-2">{m.active ? "Active" : "Deactivated"}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </section>
     </div>
   );
 }

@@ -8,6 +8,7 @@ import { useMember } from "@/client/member";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/find";
 import { formatDay, formatGrams } from "@/lib/format";
 import { Skeleton } from "../skeleton";
+import { ClaimOptions } from "../options";
 
 const ROW_HEIGHT = 76;
 
@@ -65,11 +66,7 @@ export function FindsListScreen() {
           <span className="field-label">Claim</span>
           <select className="field-input" value={claim} onChange={(e) => setClaim(e.target.value)}>
             <option value="">All claims</option>
-            {claims.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
+            <ClaimOptions claims={claims} />
             <option value="none">Off the club&apos;s claims</option>
           </select>
         </label>

@@ -11,10 +11,11 @@ import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { FieldError } from "@/components/field-error";
 import { parseNumber } from "@/components/weigh/form-model";
-import { METHOD_LABELS, methodSchema, OUTING_METHODS } from "@/lib/entities/common";
+import { METHOD_LABELS, methodSchema } from "@/lib/entities/common";
 import { KIND_LABELS } from "@/lib/entities/find";
 import { formatDay, formatWhen, toLocalInput } from "@/lib/format";
 import { Skeleton } from "../skeleton";
+import { ClaimOptions, MethodOptions } from "../options";
 
 export function OutingsScreen() {
   const { db } = useMember();
@@ -139,21 +140,13 @@ export function OutingDetailScreen() {
           <span className="field-label">Claim</span>
           <select className="field-input" {...register("claimId")}>
             <option value="">Off the club&apos;s claims</option>
-            {claims.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
+            <ClaimOptions claims={claims} />
           </select>
         </label>
         <label className="flex flex-col">
           <span className="field-label">Method</span>
           <select className="field-input" {...register("method")}>
-            {OUTING_METHODS.map((m) => (
-              <option key={m} value={m}>
-                {METHOD_LABELS[m]}
-              </option>
-            ))}
+            <MethodOptions />
           </select>
         </label>
         <label className="flex flex-col">

@@ -13,6 +13,7 @@ import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
 import { currentSeason, seasonBounds } from "@/lib/season";
 import { Skeleton } from "../skeleton";
+import { ClaimOptions, MethodOptions } from "../options";
 
 export function TodayScreen() {
   const { member, db } = useMember();
@@ -75,22 +76,14 @@ export function TodayScreen() {
               <label className="flex flex-col">
                 <span className="field-label">Claim</span>
                 <select name="claimId" className="field-input">
-                  {(claims ?? []).filter((c) => c.active).map((c) => (
-                    <option key={c.id} value={c.id}>
-                      {c.name}
-                    </option>
-                  ))}
+                  <ClaimOptions claims={(claims ?? []).filter((c) => c.active)} />
                   <option value="">Off the club&apos;s claims</option>
                 </select>
               </label>
               <label className="flex flex-col">
                 <span className="field-label">Method</span>
                 <select name="method" className="field-input" defaultValue="detecting">
-                  {OUTING_METHODS.map((m) => (
-                    <option key={m} value={m}>
-                      {METHOD_LABELS[m]}
-                    </option>
-                  ))}
+                  <MethodOptions />
                 </select>
               </label>
             </div>
