@@ -211,3 +211,25 @@ describe("the weekly digest", () => {
     expect(digestText(d)).toMatch(/not assays/);
   });
 });
+
+describe("the ledger's figures follow the weigh-ins and reviews", () => {
+  it("shows a new weigh-in's server estimate, drops it when deleted, and follows the latest review", async () => {
+    const { push, newFind, newWeighIn } = await import("../support/sync-client");
+    const { v7 } = await import("uuid");
+    const { estimateSpecimen } = await import("@/lib/estimate");
+    const client = v7();
+    const find = newFind({ foundAt: Date.UTC(2026, 3, 2, 10) });
+    const weighIn = newWeighIn(find.id);
+    await push(member, client, [
+      { id: 1, name: "find.put", args: find },
+      { id: 2, name: "weighIn.put", args: weighIn },
+    ]);
+    const row = async () => (await (await getLedger(req(`/api/club/ledger?from=2026-04-02&to=2026-04-02&pageSize=200`, { cookie: officer }), none)).json()).rows.find((r: { id: string }) => r.id === find.id);
+    expect((await row()).fineGrams).toBe(estimateSpecimen(weighIn.input).fineGoldGrams);
+    expect((await row()).state).toBe("new");
+    await postReview(req("/x", jsonInit("POST", { action: "query", note: "Again, please." }, officer)), ctx(find.id));
+    expect((await row()).state).toBe("queried");
+    await push(member, client, [{ id: 3, name: "weighIn.delete", args: { id: weighIn.id } }]);
+    expect((await row()).fineGrams).toBeNull();
+  });
+});

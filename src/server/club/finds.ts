@@ -7,6 +7,7 @@ import { getDb } from "../db";
 import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
+import { refreshFindFigures } from "./figures";
 
 /** One find as an officer opens it: photos, position (as the member shares it), every weigh-in and the review history. */
 export function findForOfficer(id: string) {
@@ -53,6 +54,7 @@ export function reviewFind(actor: Actor, findId: string, input: { action: "verif
     if (!find || find.deletedAt) throw new AppError("not_found:find", "No such find.");
     const review = { id: uuidv7(), findId, officerId: actor.id, action: input.action, note: input.note, seq: nextSeq(tx) };
     tx.insert(t.reviews).values(review).run();
+    refreshFindFigures(tx, findId);
     audit(tx, { actorId: actor.id, action: `review.${input.action}`, entity: "find", entityId: findId, after: { action: input.action, note: input.note } });
     return { id: review.id };
   });

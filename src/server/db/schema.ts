@@ -126,12 +126,20 @@ export const finds = sqliteTable("finds", {
   accuracyM: real("accuracy_m"),
   locationSource: text("location_source", { enum: ["device", "photo", "map", "typed"] }),
   foundAt: integer("found_at").notNull(),
+  // The ledger's figures, kept on the row by the server (latest weigh-in, latest verify or
+  // query) so totals over a large club are one pass over an index; never sent by devices.
+  latestAlloyGrams: real("latest_alloy_grams"),
+  latestFineGrams: real("latest_fine_grams"),
+  latestFineLow: real("latest_fine_low"),
+  latestFineHigh: real("latest_fine_high"),
+  reviewState: text("review_state", { enum: ["new", "verified", "queried"] }).notNull().default("new"),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
   deletedAt: integer("deleted_at"),
   seq: seq(),
 }, (t) => [
   index("finds_member_seq").on(t.memberId, t.seq),
+  index("finds_ledger").on(t.foundAt, t.deletedAt, t.claimId, t.memberId, t.kind, t.reviewState, t.weightGrams, t.latestFineGrams),
   index("finds_seq").on(t.seq),
   index("finds_claim_found").on(t.claimId, t.foundAt),
   index("finds_found").on(t.foundAt),

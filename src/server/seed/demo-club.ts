@@ -7,6 +7,7 @@ import { seededRandom } from "@/lib/estimate/uncertainty";
 import type { Db } from "../db";
 import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
+import { refreshAllFigures } from "../club/figures";
 import { DEMO_CLAIMS, DEMO_PASSWORDS, DEMO_PEOPLE } from "./people";
 
 const DAY = 86_400_000;
@@ -120,6 +121,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
         }
       }
     }
+    refreshAllFigures(tx);
   });
   return { seeded: true, members: DEMO_PEOPLE.length, finds, weighIns };
 }

@@ -3,6 +3,7 @@ import { v7 as uuidv7 } from "uuid";
 import { estimateSpecimen } from "@/lib/estimate";
 import { seededRandom } from "@/lib/estimate/uncertainty";
 import type { Db } from "../db";
+import { refreshAllFigures } from "../club/figures";
 import { claimPolygon } from "./demo-club";
 
 export type LargeClubSize = { members: number; finds: number; weighIns: number; claims: number };
@@ -56,6 +57,7 @@ export function seedLargeClub(db: Db, size: LargeClubSize = LARGE_CLUB, password
       }
     }
     sqlite.prepare("insert into sequences (name, value) values ('change', ?) on conflict(name) do update set value = excluded.value").run(seq);
+    refreshAllFigures(db);
   })();
   return memberIds;
 }

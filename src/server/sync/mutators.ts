@@ -11,6 +11,7 @@ import type { Db } from "../db";
 import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { logger } from "../log";
+import { refreshFindFigures } from "../club/figures";
 import { RejectError } from "./reject";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -124,8 +125,13 @@ const MUTATORS: Record<MutationName, (tx: Tx, actor: Actor, args: never) => void
       { ...w, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch },
       actor,
     );
+    refreshFindFigures(tx, w.findId);
   },
-  "weighIn.delete": (tx, actor, { id }: { id: string }) => tombstone(tx, "weighIn", id, actor),
+  "weighIn.delete": (tx, actor, { id }: { id: string }) => {
+    tombstone(tx, "weighIn", id, actor);
+    const row = tx.select({ findId: t.weighIns.findId }).from(t.weighIns).where(eq(t.weighIns.id, id)).get();
+    if (row) refreshFindFigures(tx, row.findId);
+  },
   "settings.put": (tx, actor, s: { locationSharing: "exact" | "claim" }) => {
     tx.update(t.members).set({ locationSharing: s.locationSharing }).where(eq(t.members.id, actor.id)).run();
     // Officers' copies of this member's finds change with the setting: re-send them.
