@@ -1,9 +1,10 @@
+import Database from "better-sqlite3";
 import fs from "node:fs";
 import { afterAll, describe, expect, inject, it } from "vitest";
 import { DEMO_CLAIMS } from "@/server/seed/people";
 import { makeJpeg } from "../support/jpeg";
 import { launchPersistent, PHONE, shotPath } from "./support/browser";
-import { axeViolations, firstPage, signInToField, tab, waitForSyncDone } from "./support/field";
+import { axeViolations, deviceRecords, firstPage, signInToField, tab, waitForSyncDone } from "./support/field";
 
 const baseUrl = inject("baseUrl");
 const larkspur = DEMO_CLAIMS.find((c) => c.name === "Larkspur Bench")!;
@@ -96,6 +97,18 @@ describe("the field logbook with no signal", () => {
     const waiting = await page.getByTestId("sync-waiting").textContent();
     expect(Number(waiting!.match(/Waiting to send: (\d+)/)![1])).toBeGreaterThanOrEqual(6);
     expect(waiting).toMatch(/1 photo/);
+
+    // Fault 8: back in signal after the restart, the kept outbox goes up and empties, and
+    // every find on the device is on the server.
+    await context.setOffline(false);
+    await page.getByRole("button", { name: "Sync now" }).click();
+    await page.getByTestId("sync-waiting").filter({ hasText: /Waiting to send: 0 changes$/ }).waitFor({ timeout: 30_000 });
+    const device = await deviceRecords(page);
+    const db = new Database(inject("databaseUrl"), { readonly: true });
+    const missing = device.finds.filter((f) => !db.prepare("select 1 from finds where id = ? and deleted_at is null").get(f.id));
+    db.close();
+    expect(missing, `sync status: ${await page.getByTestId("sync-status").textContent()}`).toEqual([]);
+    expect(device.outbox).toBe(0);
     await context.close();
   });
 

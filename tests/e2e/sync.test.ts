@@ -127,3 +127,25 @@ describe("camp sync between two devices of one member and the club", () => {
     await Promise.all([phone.context().close(), tablet.context().close(), officer.context().close()]);
   });
 });
+
+describe("two tabs of one member (RELIABILITY 9)", () => {
+  it("both tabs' changes reach the server once; one tab leads the sync", async () => {
+    const context = await browser().newContext({ ...PHONE, permissions: [] });
+    const first = await context.newPage();
+    await signInToField(first, baseUrl);
+    await waitForSyncDone(first);
+    const second = await context.newPage();
+    await second.goto(`${baseUrl}/`);
+    await second.getByRole("heading", { name: /Good day/ }).waitFor();
+    await context.setOffline(true);
+    const a = await logFind(first, "Fines", "0.42");
+    const b = await logFind(second, "Crystalline", "1.7");
+    await context.setOffline(false);
+    await Promise.all([syncNow(first), second.getByRole("navigation", { name: "Field" }).getByRole("link", { name: "Sync", exact: true }).click().then(() => second.getByRole("button", { name: "Sync now" }).click())]);
+    await expect.poll(async () => (await deviceRecords(first)).outbox, { timeout: 30_000 }).toBe(0);
+    const db = server();
+    expect(db.prepare("select count(*) n from finds where id in (?, ?)").get(a, b)).toEqual({ n: 2 });
+    db.close();
+    await context.close();
+  });
+});

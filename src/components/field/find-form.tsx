@@ -43,6 +43,8 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
   const unit = settings.massUnit;
   const { register, handleSubmit, formState, setError } = useForm<FormValues>({
     resolver: zodResolver(findFormSchema),
+    // A sync can update the record while the member types: keep what they have changed.
+    resetOptions: { keepDirtyValues: true },
     values: {
       kind: find.kind,
       weight: find.weightGrams == null ? "" : String(Number(convertMass(find.weightGrams, unit).toFixed(4))),

@@ -82,6 +82,8 @@ export function OutingDetailScreen() {
   const finds = useLiveQuery(() => db.finds.where("outingId").equals(id).toArray(), [db, id]);
   const { register, handleSubmit, formState, setError } = useForm<OutingForm>({
     resolver: zodResolver(outingFormSchema),
+    // A sync can update the record while the member types: keep what they have changed.
+    resetOptions: { keepDirtyValues: true },
     values: outing
       ? {
           claimId: outing.claimId ?? "",
