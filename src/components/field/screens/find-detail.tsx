@@ -151,7 +151,7 @@ export function FindDetailScreen() {
         <p className="text-sm text-ink-soft">Estimates are not assays.</p>
       </section>
 
-      <FindForm find={find} claims={claims} settings={settings} onSave={save} />
+      <FindForm key={find.id} find={find} claims={claims} settings={settings} onSave={save} />
 
       <button
         type="button"
