@@ -2,7 +2,7 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import { usePathname } from "next/navigation";
 import { useEffect, useState } from "react";
-import type { LodebookDb } from "./db";
+import type { LodebookDb } from "./device-db";
 import { DEFAULT_SETTINGS, readSettings, type MemberSettings } from "./settings";
 
 export function useClaims(db: LodebookDb) {

@@ -1,7 +1,7 @@
 import Dexie from "dexie";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { makeJpeg } from "../../tests/support/jpeg";
-import { closeMemberDbs, databaseNameFor, LodebookDb, memberDb } from "./db";
+import { closeMemberDbs, databaseNameFor, LodebookDb, memberDb } from "./device-db";
 import { LocalValidationError, newId, saveFind, startOuting } from "./logbook";
 import { readPhotoMeta } from "./photos";
 import { readSettings, saveSettings } from "./settings";

@@ -4,7 +4,7 @@ import { findSchema, type Find } from "@/lib/entities/find";
 import { outingSchema, type Outing } from "@/lib/entities/outing";
 import { weighInSchema, type WeighIn } from "@/lib/entities/weigh-in";
 import { MUTATION_ARGS, type MutationArgs, type MutationName } from "@/lib/sync/mutations";
-import type { LodebookDb, OutboxEntry } from "./db";
+import type { LodebookDb, OutboxEntry } from "./device-db";
 
 /** A change refused on the device itself, with the field at fault. */
 export class LocalValidationError extends Error {

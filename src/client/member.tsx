@@ -2,7 +2,7 @@
 import { useRouter } from "next/navigation";
 import { createContext, useContext, useEffect, useState } from "react";
 import type { Role } from "@/lib/roles";
-import { memberDb, type LodebookDb } from "./db";
+import { memberDb, type LodebookDb } from "./device-db";
 import { startSync } from "./sync/scheduler";
 
 export type DeviceMember = { id: string; name: string | null; email: string; role: Role };

@@ -1,6 +1,6 @@
 import exifr from "exifr";
 import { MAX_PHOTO_EDGE } from "@/lib/entities/photo";
-import type { LodebookDb, LocalPhoto } from "./db";
+import type { LodebookDb, LocalPhoto } from "./device-db";
 import { enqueue, newId, stripLocal } from "./logbook";
 
 export type PhotoMeta = { takenAt: number | null; lat: number | null; lon: number | null };

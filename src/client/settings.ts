@@ -1,6 +1,6 @@
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { MassUnit } from "@/lib/estimate/units";
-import type { LodebookDb } from "./db";
+import type { LodebookDb } from "./device-db";
 import { enqueue } from "./logbook";
 
 /** The member's choices on this device. Location sharing also goes to the club's server. */

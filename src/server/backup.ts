@@ -2,6 +2,7 @@ import "server-only";
 import Database from "better-sqlite3";
 import fs from "node:fs";
 import path from "node:path";
+import { audit } from "./audit";
 import { getDb } from "./db";
 
 /** A consistent copy of the live database, taken with SQLite's online backup API while writes go on. */
@@ -31,4 +32,9 @@ export function restoreFrom(backup: string, target: string): void {
   const temp = `${target}.restoring`;
   fs.copyFileSync(backup, temp);
   fs.renameSync(temp, target);
+}
+
+/** The audit log's line for a backup an officer took away. */
+export function recordBackupDownload(actorId: string, bytes: number): void {
+  audit(getDb(), { actorId, action: "backup.download", entity: "database", entityId: null, after: { bytes } });
 }

@@ -1,5 +1,5 @@
 import type { PullChange } from "@/lib/sync/protocol";
-import type { LodebookDb } from "../db";
+import type { LodebookDb } from "../device-db";
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- records arrive as JSON; the keys are picked from the shared schemas
 const pick = (value: Record<string, unknown>, keys: readonly string[]): any => Object.fromEntries(keys.map((k) => [k, value[k] ?? null]));

@@ -1,5 +1,5 @@
 import { v7 as uuidv7 } from "uuid";
-import type { LodebookDb, OutboxEntry } from "../db";
+import type { LodebookDb, OutboxEntry } from "../device-db";
 import { applyPullPage } from "./apply-pull";
 import { createStatusStore, type SyncStatus } from "./status";
 import { fetchPull, sendPush, uploadPhoto } from "./transport";

@@ -1,4 +1,4 @@
-import type { LodebookDb } from "../db";
+import type { LodebookDb } from "../device-db";
 import { backoffMs, syncOnce, syncStatus } from "./engine";
 
 const PERIOD_MS = 5 * 60_000;

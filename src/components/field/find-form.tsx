@@ -3,7 +3,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
-import type { LocalFind } from "@/client/db";
+import type { LocalFind } from "@/client/device-db";
 import type { MemberSettings } from "@/client/settings";
 import { FieldError } from "@/components/field-error";
 import { parseNumber } from "@/components/weigh/form-model";

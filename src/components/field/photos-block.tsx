@@ -2,7 +2,7 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import { useEffect, useMemo, useState } from "react";
 import { useDropzone } from "react-dropzone";
-import type { LodebookDb, LocalPhoto } from "@/client/db";
+import type { LodebookDb, LocalPhoto } from "@/client/device-db";
 import { deletePhoto } from "@/client/logbook";
 import { addPhoto, StorageFullError } from "@/client/photos";
 import { requestSync } from "@/client/sync/scheduler";

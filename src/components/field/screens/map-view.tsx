@@ -3,7 +3,7 @@ import "maplibre-gl/dist/maplibre-gl.css";
 import type { FeatureCollection } from "geojson";
 import { LngLatBounds, Map as MapLibre, Marker, setWorkerUrl, type StyleSpecification } from "maplibre-gl";
 import { useEffect, useRef } from "react";
-import type { LocalFind } from "@/client/db";
+import type { LocalFind } from "@/client/device-db";
 import type { ClaimView } from "@/lib/entities/claim";
 
 type Props = {

@@ -2,9 +2,7 @@ import fs from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { requireActor } from "@/server/auth/actor";
-import { audit } from "@/server/audit";
-import { backupTo } from "@/server/backup";
-import { getDb } from "@/server/db";
+import { backupTo, recordBackupDownload } from "@/server/backup";
 import { route } from "@/server/http";
 
 /** A consistent backup of the club's database, for an officer to keep somewhere safe. */
@@ -15,7 +13,7 @@ export const GET = route(async (req) => {
   try {
     await backupTo(file);
     const bytes = await fs.readFile(file);
-    audit(getDb(), { actorId: actor.id, action: "backup.download", entity: "database", entityId: null, after: { bytes: bytes.length } });
+    recordBackupDownload(actor.id, bytes.length);
     return new Response(new Uint8Array(bytes), {
       headers: {
         "Content-Type": "application/vnd.sqlite3",
