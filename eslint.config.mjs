@@ -9,6 +9,6 @@ const config = [
       "@typescript-eslint/no-unused-vars": ["warn", { argsIgnorePattern: "^_", varsIgnorePattern: "^_", destructuredArrayIgnorePattern: "^_" }],
     },
   },
-  { ignores: [".next/**", "public/sw.js", "public/swe-worker*", "public/maplibre-gl-worker.mjs", "data/**", "drizzle/**", "next-env.d.ts", "test-results/**"] },
+  { ignores: [".next/**", "public/sw.js", "public/swe-worker*", "public/maplibre-gl-worker.mjs", "data/**", "drizzle/**", "next-env.d.ts", "test-results/**", "bench/tmp/**"] },
 ];
 export default config;

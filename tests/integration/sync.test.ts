@@ -1,3 +1,4 @@
+import Database from "better-sqlite3";
 import { v7 as uuidv7 } from "uuid";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import type { Db } from "@/server/db";
@@ -110,18 +111,21 @@ describe("bad changes and temporary trouble (RELIABILITY 5, 6)", () => {
   it("6: a busy database stops the batch without advancing; the retry succeeds", async () => {
     const client = uuidv7();
     const f = newFind();
-    const { getDb } = await import("@/server/db");
-    const real = getDb().transaction.bind(getDb());
-    const spy = vi.spyOn(getDb(), "transaction").mockImplementationOnce(() => {
-      throw Object.assign(new Error("database is locked"), { code: "SQLITE_BUSY" });
-    });
+    // A real lock: another connection holds the write lock past the server's busy timeout.
+    const { databasePath, getDb } = await import("@/server/db");
+    const other = new Database(databasePath());
+    other.exec("begin immediate");
+    getDb().$client.pragma("busy_timeout = 50");
     const busy = await push(member, client, [{ id: 1, name: "find.put", args: f }]);
     expect(busy.status).toBe(503);
+    expect(busy.body.error?.code).toBe("unavailable:database");
+    other.exec("rollback");
+    other.close();
+    getDb().$client.pragma("busy_timeout = 5000");
     expect(count("select count(*) n from finds where id = ?", f.id)).toBe(0);
-    spy.mockImplementation(real as never);
+    expect(db.$client.prepare("select count(*) n from sync_clients where id = ? and last_mutation_id > 0").get(client)).toEqual({ n: 0 });
     const retry = await push(member, client, [{ id: 1, name: "find.put", args: f }]);
     expect(retry.body.results[0].status).toBe("applied");
-    vi.restoreAllMocks();
   });
 });
 
@@ -261,5 +265,39 @@ describe("weigh-ins", () => {
     expect(byId[honest.id]).toMatchObject({ mismatch: 0, v: honest.deviceEstimate.engineVersion, g: honest.deviceEstimate.fineGoldGrams });
     expect(byId[odd.id].mismatch).toBe(1);
     expect(byId[odd.id].g).toBe(honest.deviceEstimate.fineGoldGrams);
+  });
+});
+
+describe("a refused change writes nothing", () => {
+  it("every reason a change is refused leaves every table as it was, and the queue still advances", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    const photo = { id: uuidv7(), findId: f.id, sha256: "a".repeat(64), contentType: "image/jpeg", bytes: 1000, width: 10, height: 10, takenAt: null, lat: null, lon: null };
+    await push(member, client, [
+      { id: 1, name: "find.put", args: f },
+      { id: 2, name: "photo.put", args: photo },
+    ]);
+    const otherFind = newFind();
+    await push(other, uuidv7(), [{ id: 1, name: "find.put", args: otherFind }]);
+    const before = databaseChecksum(db).replace(/^sync_clients:.*$/m, "");
+    const good = newWeighIn(f.id);
+    const refusals = [
+      { name: "find.put", args: { ...newFind(), weightGrams: -1 }, reason: "invalid" },
+      { name: "find.put", args: newFind({ claimId: uuidv7() }), reason: "unknown_claim" },
+      { name: "find.put", args: newFind({ outingId: uuidv7() }), reason: "unknown_parent" },
+      { name: "find.put", args: { ...otherFind, notes: "mine now" }, reason: "not_owner" },
+      { name: "photo.put", args: { ...photo, sha256: "b".repeat(64) }, reason: "photo_changed" },
+      { name: "weighIn.put", args: newWeighIn(uuidv7()), reason: "unknown_parent" },
+      { name: "weighIn.put", args: { ...good, input: { ...good.input, waterGrams: [50] } }, reason: "estimate_input" },
+      { name: "weighIn.put", args: { ...good, deviceEstimate: { ...good.deviceEstimate, warnings: "none" } }, reason: "invalid" },
+      { name: "outing.delete", args: { id: "not-an-id" }, reason: "invalid" },
+      { name: "settings.put", args: { locationSharing: "nowhere" }, reason: "invalid" },
+    ];
+    const res = await push(member, client, refusals.map((r, i) => ({ id: 3 + i, name: r.name, args: r.args })));
+    expect(res.body.results.map((r) => r.reason)).toEqual(refusals.map((r) => r.reason));
+    expect(res.body.lastMutationId).toBe(2 + refusals.length);
+    expect(databaseChecksum(db).replace(/^sync_clients:.*$/m, "")).toBe(before);
+    // The field named for an invalid device estimate points into it.
+    expect(res.body.results[7].field).toBe("deviceEstimate.warnings");
   });
 });

@@ -37,7 +37,11 @@ export function displacedGrams(method: WeighMethod, air: number, water: number):
  * [0, m] so that a reading outside the two densities gives "none" or "all of it".
  */
 export function evaluateModel(p: ModelPoint, s: ModelSettings): ModelResult {
-  const rhoW = waterDensity(p.tempC);
+  return evaluateMixture(p, s, waterDensity(p.tempC), s.goldDensity ?? goldAlloyDensity(p.fineness));
+}
+
+/** The model with water and alloy densities given (the range search computes each once per corner set). */
+export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, rhoW: number, alloyDensity: number): ModelResult {
   const displaced = displacedGrams(s.method, p.air, p.water);
   let density: number;
   let mass: number;
@@ -50,7 +54,6 @@ export function evaluateModel(p: ModelPoint, s: ModelSettings): ModelResult {
     density = displaced > 0 ? (p.air * rhoW) / displaced : Infinity;
     mass = p.air;
   }
-  const alloyDensity = s.goldDensity ?? goldAlloyDensity(p.fineness);
   let alloy: number;
   if (density <= p.host) alloy = 0;
   else if (density >= alloyDensity) alloy = mass;

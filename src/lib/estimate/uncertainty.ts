@@ -1,6 +1,7 @@
 import { centralPoint, QUANTITY_KEYS, type ResolvedInput } from "./input";
-import { evaluateModel, type ModelPoint } from "./model";
-import { WATER_DENSEST_C, WATER_TEMP_MAX_C, WATER_TEMP_MIN_C } from "./water";
+import { goldAlloyDensity } from "./alloy";
+import { evaluateMixture, evaluateModel, type ModelPoint } from "./model";
+import { WATER_DENSEST_C, WATER_TEMP_MAX_C, WATER_TEMP_MIN_C, waterDensity } from "./water";
 
 type Pair = [number, number];
 
@@ -17,21 +18,30 @@ export function cornerRange(r: ResolvedInput): { alloy: Pair; fine: Pair; densit
   const alloy: Pair = [Infinity, -Infinity];
   const fine: Pair = [Infinity, -Infinity];
   const density: Pair = [Infinity, -Infinity];
-  const n = QUANTITY_KEYS.length;
   // Water is densest near 3.98 °C, so below it the model runs the other way in temperature:
   // that turning point is a candidate extreme too when the span straddles it.
   const temps = [r.tempC.lo, r.tempC.hi];
   if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) temps.push(WATER_DENSEST_C);
+  const s = r.settings;
+  const corner = { air: 0, water: 0, host: 0, fineness: 0 };
   for (const tempC of temps) {
-    for (let mask = 0; mask < 1 << n; mask++) {
-      const p = { tempC } as ModelPoint;
-      QUANTITY_KEYS.forEach((key, i) => {
-        if (key !== "tempC") p[key] = mask & (1 << i) ? r[key].hi : r[key].lo;
-      });
-      const m = evaluateModel(p, r.settings);
-      widen(alloy, m.alloy);
-      widen(fine, m.fine);
-      widen(density, m.density);
+    const rhoW = waterDensity(tempC);
+    for (const fineness of [r.fineness.lo, r.fineness.hi]) {
+      const alloyDensity = s.goldDensity ?? goldAlloyDensity(fineness);
+      corner.fineness = fineness;
+      for (const air of [r.air.lo, r.air.hi]) {
+        corner.air = air;
+        for (const water of [r.water.lo, r.water.hi]) {
+          corner.water = water;
+          for (const host of [r.host.lo, r.host.hi]) {
+            corner.host = host;
+            const m = evaluateMixture(corner, s, rhoW, alloyDensity);
+            widen(alloy, m.alloy);
+            widen(fine, m.fine);
+            widen(density, m.density);
+          }
+        }
+      }
     }
   }
   return { alloy, fine, density };
@@ -58,8 +68,11 @@ export function gumUncertainty(r: ResolvedInput): { alloy: number; fine: number 
     const [min, max] = DOMAIN[key];
     const xUp = Math.min(centre[key] + h, max);
     const xDown = Math.max(centre[key] - h, min);
-    const up = evaluateModel({ ...centre, [key]: xUp }, r.settings);
-    const down = evaluateModel({ ...centre, [key]: xDown }, r.settings);
+    const at = { ...centre };
+    at[key] = xUp;
+    const up = evaluateModel(at, r.settings);
+    at[key] = xDown;
+    const down = evaluateModel(at, r.settings);
     const cAlloy = (up.alloy - down.alloy) / (xUp - xDown);
     const cFine = (up.fine - down.fine) / (xUp - xDown);
     alloy2 += cAlloy * u * (cAlloy * u);

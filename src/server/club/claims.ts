@@ -43,12 +43,12 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
     if (id) {
       const before = tx.select().from(t.claims).where(eq(t.claims.id, id)).get();
       if (!before) throw new AppError("not_found:claim", "No such claim.");
-      tx.update(t.claims).set({ ...values, updatedAt: Date.now(), seq: nextSeq(tx) }).where(eq(t.claims.id, id)).run();
+      tx.update(t.claims).set({ ...values, updatedAt: Date.now(), seq: nextSeq(db.$client) }).where(eq(t.claims.id, id)).run();
       audit(tx, { actorId: actor.id, action: "claim.update", entity: "claim", entityId: id, before, after: values });
       return { id };
     }
     const newId = uuidv7();
-    tx.insert(t.claims).values({ id: newId, ...values, boundary: boundary ?? null, seq: nextSeq(tx) }).run();
+    tx.insert(t.claims).values({ id: newId, ...values, boundary: boundary ?? null, seq: nextSeq(db.$client) }).run();
     audit(tx, { actorId: actor.id, action: "claim.create", entity: "claim", entityId: newId, after: values });
     return { id: newId };
   });

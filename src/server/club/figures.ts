@@ -1,28 +1,30 @@
 import "server-only";
-import { sql, type SQL } from "drizzle-orm";
-import type { Db } from "../db";
+import { statement, type Sqlite } from "../db/rows";
 
-type Tx = Pick<Db, "run">;
+// The ledger's figures are kept on each find row (the latest weigh-in's server estimate, the
+// latest verify or query) so that totals over a large club are one pass over an index.
+// Refreshed wherever those change: push, reviews, seeding.
 
-/**
- * Keeps the ledger's figures on each find row: the latest weigh-in's server estimate and the
- * latest verify or query. Called wherever those change (push, reviews, seeding).
- */
-function refresh(where: SQL): SQL {
-  return sql`
-    update finds set
-      latest_alloy_grams = (select w.gold_alloy_grams from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1),
-      latest_fine_grams = (select w.fine_gold_grams from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1),
-      latest_fine_low = (select json_extract(w.server_estimate, '$.range.fineGoldGrams[0]') from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1),
-      latest_fine_high = (select json_extract(w.server_estimate, '$.range.fineGoldGrams[1]') from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1),
-      review_state = coalesce((select case r.action when 'verify' then 'verified' else 'queried' end from reviews r where r.find_id = finds.id and r.action in ('verify','query') order by r.created_at desc, r.seq desc limit 1), 'new')
-    where ${where}`;
+const WEIGH_IN_FIGURES = `
+  (latest_alloy_grams, latest_fine_grams, latest_fine_low, latest_fine_high) = (
+    select w.gold_alloy_grams, w.fine_gold_grams,
+      json_extract(w.server_estimate, '$.range.fineGoldGrams[0]'), json_extract(w.server_estimate, '$.range.fineGoldGrams[1]')
+    from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1)`;
+
+const REVIEW_STATE = `
+  review_state = coalesce((select case r.action when 'verify' then 'verified' else 'queried' end
+    from reviews r where r.find_id = finds.id and r.action in ('verify','query') order by r.created_at desc, r.seq desc limit 1), 'new')`;
+
+/** After a weigh-in of the find is added, changed or deleted. */
+export function refreshWeighInFigures(sqlite: Sqlite, findId: string): void {
+  statement(sqlite, `update finds set ${WEIGH_IN_FIGURES} where id = ?`).run(findId);
 }
 
-export function refreshFindFigures(tx: Tx, findId: string): void {
-  tx.run(refresh(sql`id = ${findId}`));
+/** After an officer's review of the find. */
+export function refreshReviewState(sqlite: Sqlite, findId: string): void {
+  statement(sqlite, `update finds set ${REVIEW_STATE} where id = ?`).run(findId);
 }
 
-export function refreshAllFigures(tx: Tx): void {
-  tx.run(refresh(sql`1 = 1`));
+export function refreshAllFigures(sqlite: Sqlite): void {
+  sqlite.prepare(`update finds set ${WEIGH_IN_FIGURES}, ${REVIEW_STATE}`).run();
 }

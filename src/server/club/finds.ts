@@ -7,7 +7,7 @@ import { getDb } from "../db";
 import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
-import { refreshFindFigures } from "./figures";
+import { refreshReviewState } from "./figures";
 
 /** One find as an officer opens it: photos, position (as the member shares it), every weigh-in and the review history. */
 export function findForOfficer(id: string) {
@@ -52,9 +52,9 @@ export function reviewFind(actor: Actor, findId: string, input: { action: "verif
   return db.transaction((tx) => {
     const find = tx.select({ id: t.finds.id, deletedAt: t.finds.deletedAt }).from(t.finds).where(eq(t.finds.id, findId)).get();
     if (!find || find.deletedAt) throw new AppError("not_found:find", "No such find.");
-    const review = { id: uuidv7(), findId, officerId: actor.id, action: input.action, note: input.note, seq: nextSeq(tx) };
+    const review = { id: uuidv7(), findId, officerId: actor.id, action: input.action, note: input.note, seq: nextSeq(db.$client) };
     tx.insert(t.reviews).values(review).run();
-    refreshFindFigures(tx, findId);
+    refreshReviewState(db.$client, findId);
     audit(tx, { actorId: actor.id, action: `review.${input.action}`, entity: "find", entityId: findId, after: { action: input.action, note: input.note } });
     return { id: review.id };
   });

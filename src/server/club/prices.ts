@@ -23,7 +23,7 @@ export function recordPrice(actor: Actor, input: z.infer<typeof priceInputSchema
   const db = getDb();
   return db.transaction((tx) => {
     const id = uuidv7();
-    tx.insert(t.referencePrices).values({ id, ...input, recordedBy: actor.id, seq: nextSeq(tx) }).run();
+    tx.insert(t.referencePrices).values({ id, ...input, recordedBy: actor.id, seq: nextSeq(db.$client) }).run();
     audit(tx, { actorId: actor.id, action: "price.record", entity: "price", entityId: id, after: input });
     return { id };
   });

@@ -28,6 +28,7 @@ export function openDatabase(file = databasePath()): Db {
   sqlite.pragma("synchronous = FULL");
   sqlite.pragma("foreign_keys = ON");
   sqlite.pragma("busy_timeout = 5000");
+  sqlite.pragma("temp_store = MEMORY");
   const db = drizzle(sqlite, { schema }) as Db;
   migrate(db, { migrationsFolder: migrationsFolder() });
   return db;

@@ -57,7 +57,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
 
     const claimRows = DEMO_CLAIMS.map((c) => {
       const id = idAt(seasonStart - 20 * DAY);
-      tx.insert(t.claims).values({ id, name: c.name, kind: c.kind, agencyRef: c.agencyRef, rules: c.rules, boundary: claimPolygon(c), active: true, seq: nextSeq(tx) }).run();
+      tx.insert(t.claims).values({ id, name: c.name, kind: c.kind, agencyRef: c.agencyRef, rules: c.rules, boundary: claimPolygon(c), active: true, seq: nextSeq(db.$client) }).run();
       return { id, ...c };
     });
 
@@ -67,7 +67,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
       { daysAgo: 45, price: 2512 },
     ].forEach((p) => {
       const on = new Date(now - p.daysAgo * DAY).toISOString().slice(0, 10);
-      tx.insert(t.referencePrices).values({ id: idAt(now - p.daysAgo * DAY), effectiveOn: on, pricePerTroyOunce: p.price, currency: "USD", recordedBy: officers[0].id, seq: nextSeq(tx) }).run();
+      tx.insert(t.referencePrices).values({ id: idAt(now - p.daysAgo * DAY), effectiveOn: on, pricePerTroyOunce: p.price, currency: "USD", recordedBy: officers[0].id, seq: nextSeq(db.$client) }).run();
     });
 
     for (const member of memberIds) {
@@ -81,7 +81,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
         tx.insert(t.outings).values({
           id: outingId, memberId: member.id, claimId: claim.id, startedAt: start, endedAt: start + hours * 3_600_000, hours, method,
           companions: rand() < 0.4 ? "went with a club partner" : "", conditions: pick(["clear, hot", "overcast, breezy", "clear, cool morning", "thunderheads to the west by noon"]),
-          notes: "", seq: nextSeq(tx),
+          notes: "", seq: nextSeq(db.$client),
         }).run();
         const findCount = Math.floor(rand() * 4);
         for (let f = 0; f < findCount; f++) {
@@ -97,7 +97,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
             depthCm: method === "detecting" ? Math.round(5 + rand() * 35) : null, notes: "",
             lat: round6(claim.lat + (dx * Math.sin(claim.turn) + dy * Math.cos(claim.turn)) / METRES_PER_DEG_LAT),
             lon: round6(claim.lon + (dx * Math.cos(claim.turn) - dy * Math.sin(claim.turn)) / mPerDegLon),
-            accuracyM: round2(3 + rand() * 12), foundAt, seq: nextSeq(tx),
+            accuracyM: round2(3 + rand() * 12), foundAt, seq: nextSeq(db.$client),
           }).run();
           finds++;
           if (kind === "specimen") {
@@ -106,7 +106,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
             tx.insert(t.weighIns).values({
               id: idAt(foundAt + DAY / 3), memberId: member.id, findId, input, deviceEstimate: estimate, serverEstimate: estimate,
               engineVersion: estimate.engineVersion, fineGoldGrams: estimate.fineGoldGrams, goldAlloyGrams: estimate.goldAlloyGrams,
-              weighedAt: foundAt + DAY / 3, seq: nextSeq(tx),
+              weighedAt: foundAt + DAY / 3, seq: nextSeq(db.$client),
             }).run();
             weighIns++;
             if (rand() < 0.35) {
@@ -114,14 +114,14 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
               tx.insert(t.reviews).values({
                 id: idAt(foundAt + 2 * DAY), findId, officerId: pick(officers).id, action,
                 note: action === "query" ? "Readings look close together: please weigh again with the line tared under water." : "",
-                seq: nextSeq(tx),
+                seq: nextSeq(db.$client),
               }).run();
             }
           }
         }
       }
     }
-    refreshAllFigures(tx);
+    refreshAllFigures(db.$client);
   });
   return { seeded: true, members: DEMO_PEOPLE.length, finds, weighIns };
 }

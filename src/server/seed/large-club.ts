@@ -57,7 +57,7 @@ export function seedLargeClub(db: Db, size: LargeClubSize = LARGE_CLUB, password
       }
     }
     sqlite.prepare("insert into sequences (name, value) values ('change', ?) on conflict(name) do update set value = excluded.value").run(seq);
-    refreshAllFigures(db);
+    refreshAllFigures(sqlite);
   })();
   return memberIds;
 }

@@ -1,32 +1,35 @@
 import "server-only";
-import { and, eq, isNull } from "drizzle-orm";
+import { z } from "zod";
 import { estimateSpecimen } from "@/lib/estimate";
 import type { Find } from "@/lib/entities/find";
 import type { Outing } from "@/lib/entities/outing";
 import type { Photo } from "@/lib/entities/photo";
-import type { WeighIn } from "@/lib/entities/weigh-in";
+import { reportedEstimateSchema, weighInSchema, type WeighIn } from "@/lib/entities/weigh-in";
 import { MUTATION_ARGS, type MutationName } from "@/lib/sync/mutations";
 import type { Actor } from "../auth/actor";
-import type { Db } from "../db";
+import { insertRow, selectRow, statement, updateRow, type Sqlite } from "../db/rows";
 import * as t from "../db/schema";
-import { nextSeq } from "../db/sequence";
 import { logger } from "../log";
-import { refreshFindFigures } from "../club/figures";
+import { refreshWeighInFigures } from "../club/figures";
 import { RejectError } from "./reject";
 
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+// Server mutators are plain synchronous functions over the push's one SQLite transaction,
+// on statements prepared once per connection (see ../db/rows).
+/** The push's transaction: its connection, and change sequence numbers allocated for the batch. */
+export type PushTx = { db: Sqlite; seq: () => number };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
+type Entity = "outing" | "find" | "photo" | "weighIn";
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
 
-const ENTITY: Record<string, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns };
+const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns };
+const TABLE_NAME: Record<Entity, string> = { outing: "outings", find: "finds", photo: "photos", weighIn: "weigh_ins" };
 
 /**
  * Loads a member record for a write. Another member's record is refused (and logged);
  * a record deleted earlier wins over a late edit, whose content is kept in history.
  */
-function loadForWrite(tx: Tx, entity: string, id: string, actor: Actor, incoming?: unknown): Owned | undefined {
-  const table = ENTITY[entity];
-  const row = tx.select().from(table).where(eq(table.id, id)).get() as (Owned & Record<string, unknown>) | undefined;
+function loadForWrite(tx: PushTx, entity: Entity, id: string, actor: Actor, incoming?: unknown): Owned | undefined {
+  const row = selectRow<Owned>(tx.db, ENTITY[entity], id);
   if (!row) return undefined;
   if (row.memberId !== actor.id) {
     logger.warn({ code: "forbidden:record", entity, id, actor: actor.id }, "push touched another member's record");
@@ -40,112 +43,151 @@ function loadForWrite(tx: Tx, entity: string, id: string, actor: Actor, incoming
   return row;
 }
 
-export function keepHistory(tx: Tx, entity: string, entityId: string, memberId: string, version: Record<string, unknown>) {
-  tx.insert(t.recordHistory).values({ entity, entityId, memberId, version }).run();
+export function keepHistory(db: Sqlite, entity: string, entityId: string, memberId: string, version: Record<string, unknown>) {
+  insertRow(db, t.recordHistory, { entity, entityId, memberId, version });
 }
 
-function requireOwnedParent(tx: Tx, table: typeof t.finds | typeof t.outings, id: string, actor: Actor, field: string, label: string) {
-  const row = tx.select({ memberId: table.memberId, deletedAt: table.deletedAt }).from(table).where(eq(table.id, id)).get();
-  if (!row || row.memberId !== actor.id) throw new RejectError("unknown_parent", `The ${label} this belongs to is not on the server.`, field);
-  if (row.deletedAt !== null) throw new RejectError("deleted", `The ${label} this belongs to was deleted.`, field);
+function requireOwnedParent(tx: PushTx, parent: "find" | "outing", id: string, actor: Actor, field: string) {
+  const row = statement(tx.db, `select member_id as memberId, deleted_at as deletedAt from ${TABLE_NAME[parent]} where id = ?`).get(id) as
+    | { memberId: string; deletedAt: number | null }
+    | undefined;
+  if (!row || row.memberId !== actor.id) throw new RejectError("unknown_parent", `The ${parent} this belongs to is not on the server.`, field);
+  if (row.deletedAt !== null) throw new RejectError("deleted", `The ${parent} this belongs to was deleted.`, field);
 }
 
-function requireClaim(tx: Tx, claimId: string | null) {
+function requireClaim(tx: PushTx, claimId: string | null) {
   if (claimId === null) return;
-  const row = tx.select({ id: t.claims.id }).from(t.claims).where(eq(t.claims.id, claimId)).get();
-  if (!row) throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
+  if (!statement(tx.db, "select 1 from claims where id = ?").get(claimId)) throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
 }
 
 /** Upsert by id; the version it replaces goes to history (two devices: arrival order decides). */
-function upsert(tx: Tx, entity: string, existing: Owned | undefined, values: Record<string, unknown>, actor: Actor) {
+function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values: Record<string, unknown>, actor: Actor) {
   const table = ENTITY[entity];
-  const now = Date.now();
-  const row = { ...values, memberId: actor.id, seq: nextSeq(tx), ...(entity === "photo" ? {} : { updatedAt: now }) };
+  const row = { ...values, memberId: actor.id, seq: tx.seq(), ...(entity === "photo" ? {} : { updatedAt: Date.now() }) };
   if (existing) {
-    keepHistory(tx, entity, existing.id, actor.id, existing as unknown as Record<string, unknown>);
-    tx.update(table).set(row).where(eq(table.id, existing.id)).run();
+    keepHistory(tx.db, entity, existing.id, actor.id, existing as unknown as Record<string, unknown>);
+    updateRow(tx.db, table, existing.id, row);
   } else {
-    tx.insert(table).values(row as never).run();
+    insertRow(tx.db, table, row);
   }
 }
 
-function tombstone(tx: Tx, entity: string, id: string, actor: Actor) {
-  const existing = loadForWrite(tx, entity, id, actor);
-  if (!existing) return; // never reached the server: nothing to delete
-  const table = ENTITY[entity];
-  tx.update(table).set({ deletedAt: Date.now(), seq: nextSeq(tx) }).where(eq(table.id, id)).run();
+function markDeleted(tx: PushTx, entity: Entity, id: string) {
+  statement(tx.db, `update ${TABLE_NAME[entity]} set deleted_at = ?, seq = ? where id = ?`).run(Date.now(), tx.seq(), id);
 }
 
-const MUTATORS: Record<MutationName, (tx: Tx, actor: Actor, args: never) => void> = {
+/** A delete's check; its write, or nothing when the record never reached the server. */
+function tombstone(tx: PushTx, entity: Entity, id: string, actor: Actor, after?: () => void): Write {
+  const existing = loadForWrite(tx, entity, id, actor);
+  if (!existing) return () => {};
+  return () => {
+    markDeleted(tx, entity, id);
+    after?.();
+  };
+}
+
+/**
+ * A mutator checks everything first and throws RejectError only there; what it returns does
+ * the writes. So a refused change has written nothing, with no savepoint per change (which
+ * cost a quarter of a push's time).
+ */
+type Write = () => void;
+
+const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => Write> = {
   "outing.put": (tx, actor, o: Outing) => {
     const existing = loadForWrite(tx, "outing", o.id, actor, o);
     requireClaim(tx, o.claimId);
-    upsert(tx, "outing", existing, o, actor);
+    return () => upsert(tx, "outing", existing, o, actor);
   },
   "outing.delete": (tx, actor, { id }: { id: string }) => tombstone(tx, "outing", id, actor),
   "find.put": (tx, actor, f: Find) => {
     const existing = loadForWrite(tx, "find", f.id, actor, f);
     requireClaim(tx, f.claimId);
-    if (f.outingId) requireOwnedParent(tx, t.outings, f.outingId, actor, "outingId", "outing");
-    upsert(tx, "find", existing, f, actor);
+    if (f.outingId) requireOwnedParent(tx, "outing", f.outingId, actor, "outingId");
+    return () => upsert(tx, "find", existing, f, actor);
   },
-  "find.delete": (tx, actor, { id }: { id: string }) => {
-    tombstone(tx, "find", id, actor);
-    // Its photos and weigh-ins go with it.
-    for (const table of [t.photos, t.weighIns]) {
-      const children = tx.select({ id: table.id }).from(table).where(and(eq(table.findId, id), isNull(table.deletedAt))).all();
-      for (const c of children) tx.update(table).set({ deletedAt: Date.now(), seq: nextSeq(tx) }).where(eq(table.id, c.id)).run();
-    }
-  },
+  "find.delete": (tx, actor, { id }: { id: string }) =>
+    tombstone(tx, "find", id, actor, () => {
+      // Its photos and weigh-ins go with it.
+      for (const entity of ["photo", "weighIn"] as const) {
+        const children = statement(tx.db, `select id from ${TABLE_NAME[entity]} where find_id = ? and deleted_at is null`).all(id) as { id: string }[];
+        for (const c of children) markDeleted(tx, entity, c.id);
+      }
+    }),
   "photo.put": (tx, actor, p: Photo) => {
     const existing = loadForWrite(tx, "photo", p.id, actor, p);
-    requireOwnedParent(tx, t.finds, p.findId, actor, "findId", "find");
+    requireOwnedParent(tx, "find", p.findId, actor, "findId");
     if (existing && (existing as unknown as { sha256: string }).sha256 !== p.sha256) {
       throw new RejectError("photo_changed", "A photo cannot change its bytes; add a new photo instead.", "sha256");
     }
-    upsert(tx, "photo", existing, p, actor);
+    return () => upsert(tx, "photo", existing, p, actor);
   },
   "photo.delete": (tx, actor, { id }: { id: string }) => tombstone(tx, "photo", id, actor),
   "weighIn.put": (tx, actor, w: WeighIn) => {
     const existing = loadForWrite(tx, "weighIn", w.id, actor, w);
-    requireOwnedParent(tx, t.finds, w.findId, actor, "findId", "find");
+    requireOwnedParent(tx, "find", w.findId, actor, "findId");
     let server;
     try {
       server = estimateSpecimen(w.input);
     } catch (error) {
       throw new RejectError("estimate_input", (error as Error).message, `input.${(error as { field?: string }).field ?? ""}`);
     }
-    // The server's recomputation stands; a device that disagrees is recorded, not hidden.
-    const mismatch = JSON.stringify(server) !== JSON.stringify(w.deviceEstimate);
-    if (mismatch) logger.warn({ code: "estimate_mismatch", weighIn: w.id, device: w.deviceEstimate.engineVersion, server: server.engineVersion }, "device estimate differs");
-    upsert(
-      tx,
-      "weighIn",
-      existing,
-      { ...w, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch },
-      actor,
-    );
-    refreshFindFigures(tx, w.findId);
+    // The server's recomputation stands; a device that disagrees is recorded, not hidden. A
+    // device figure equal to the server's is valid by that equality; any other is checked.
+    const mismatch = !sameValue(server, w.deviceEstimate);
+    let deviceEstimate: unknown = server;
+    if (mismatch) {
+      const reported = reportedEstimateSchema.safeParse(w.deviceEstimate);
+      if (!reported.success) throw rejectInvalid(reported.error, "deviceEstimate");
+      logger.warn({ code: "estimate_mismatch", weighIn: w.id, device: reported.data.engineVersion, server: server.engineVersion }, "device estimate differs");
+      deviceEstimate = reported.data;
+    }
+    const values = { ...w, deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch };
+    return () => {
+      upsert(tx, "weighIn", existing, values, actor);
+      refreshWeighInFigures(tx.db, w.findId);
+    };
   },
-  "weighIn.delete": (tx, actor, { id }: { id: string }) => {
-    tombstone(tx, "weighIn", id, actor);
-    const row = tx.select({ findId: t.weighIns.findId }).from(t.weighIns).where(eq(t.weighIns.id, id)).get();
-    if (row) refreshFindFigures(tx, row.findId);
-  },
-  "settings.put": (tx, actor, s: { locationSharing: "exact" | "claim" }) => {
-    tx.update(t.members).set({ locationSharing: s.locationSharing }).where(eq(t.members.id, actor.id)).run();
+  "weighIn.delete": (tx, actor, { id }: { id: string }) =>
+    tombstone(tx, "weighIn", id, actor, () => {
+      const row = statement(tx.db, "select find_id as findId from weigh_ins where id = ?").get(id) as { findId: string } | undefined;
+      if (row) refreshWeighInFigures(tx.db, row.findId);
+    }),
+  "settings.put": (tx, actor, s: { locationSharing: "exact" | "claim" }) => () => {
+    statement(tx.db, "update members set location_sharing = ? where id = ?").run(s.locationSharing, actor.id);
     // Officers' copies of this member's finds change with the setting: re-send them.
-    const owned = tx.select({ id: t.finds.id }).from(t.finds).where(eq(t.finds.memberId, actor.id)).all();
-    for (const f of owned) tx.update(t.finds).set({ seq: nextSeq(tx) }).where(eq(t.finds.id, f.id)).run();
+    const owned = statement(tx.db, "select id from finds where member_id = ?").all(actor.id) as { id: string }[];
+    for (const f of owned) statement(tx.db, "update finds set seq = ? where id = ?").run(tx.seq(), f.id);
   },
 };
 
-/** Parses a mutation's arguments with the shared schema, then applies it. Throws RejectError. */
-export function applyMutation(tx: Tx, actor: Actor, name: MutationName, rawArgs: unknown): void {
-  const parsed = MUTATION_ARGS[name].safeParse(rawArgs);
-  if (!parsed.success) {
-    const issue = parsed.error.issues[0];
-    throw new RejectError("invalid", issue.message, issue.path.join(".") || undefined);
-  }
-  MUTATORS[name](tx, actor, parsed.data as never);
+/** A weigh-in's arguments with the device's estimate checked after the server's recomputation (see weighIn.put). */
+const weighInArgsSchema = weighInSchema.extend({ deviceEstimate: z.unknown() });
+
+/** Deep equality of JSON values, to the last bit of every number (the device's figures against the server's). */
+function sameValue(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  // As JSON carries them: a number that is not finite travels as null.
+  if (typeof a === "number" && !Number.isFinite(a)) return b === null;
+  if (typeof a !== "object" || typeof b !== "object" || a === null || b === null) return false;
+  if (Array.isArray(a) !== Array.isArray(b)) return false;
+  const ka = Object.keys(a);
+  const kb = Object.keys(b);
+  if (ka.length !== kb.length) return false;
+  for (const k of ka) if (!sameValue((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k])) return false;
+  return true;
+}
+
+/** Parses a mutation's arguments with the shared schema, checks the change, then writes it. Throws RejectError before any write. */
+export function applyMutation(tx: PushTx, actor: Actor, name: MutationName, rawArgs: unknown): void {
+  const parsed = (name === "weighIn.put" ? weighInArgsSchema : MUTATION_ARGS[name]).safeParse(rawArgs);
+  if (!parsed.success) throw rejectInvalid(parsed.error);
+  const write = MUTATORS[name](tx, actor, parsed.data as never);
+  write();
+}
+
+function rejectInvalid(error: z.ZodError, under?: string): RejectError {
+  const issue = error.issues[0];
+  const path = [...(under ? [under] : []), ...issue.path].join(".");
+  return new RejectError("invalid", issue.message, path || undefined);
 }

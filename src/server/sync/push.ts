@@ -1,10 +1,10 @@
 import "server-only";
-import { eq } from "drizzle-orm";
 import type { MutationName } from "@/lib/sync/mutations";
 import type { MutationResult, PushRequest, PushResponse } from "@/lib/sync/protocol";
 import type { Actor } from "../auth/actor";
 import { getDb } from "../db";
-import { syncClients } from "../db/schema";
+import { statement } from "../db/rows";
+import { sequenceBlock } from "../db/sequence";
 import { AppError } from "../errors";
 import { logger } from "../log";
 import { applyMutation, keepHistory } from "./mutators";
@@ -28,15 +28,19 @@ export function applyPush(actor: Actor, push: PushRequest): PushResponse {
     // Another member signed in on this device: the first member's changes never go under this identity.
     throw new AppError("conflict:member", "These changes belong to another member. Sign in as that member to send them.");
   }
-  const db = getDb();
+  const sqlite = getDb().$client;
   try {
-    return db.transaction((tx) => {
-      const client = tx.select().from(syncClients).where(eq(syncClients.id, push.clientId)).get();
+    return sqlite.transaction(() => {
+      const client = statement(sqlite, "select member_id as memberId, last_mutation_id as lastMutationId from sync_clients where id = ?").get(push.clientId) as
+        | { memberId: string; lastMutationId: number }
+        | undefined;
       if (client && client.memberId !== actor.id) {
         logger.warn({ code: "forbidden:client", actor: actor.id }, "push named another member's client");
         throw new AppError("forbidden:client", "This device id belongs to another member.");
       }
-      if (!client) tx.insert(syncClients).values({ id: push.clientId, memberId: actor.id, lastMutationId: 0 }).run();
+      if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
+      const seq = sequenceBlock(sqlite);
+      const pushTx = { db: sqlite, seq: seq.next };
       let last = client?.lastMutationId ?? 0;
       const results: MutationResult[] = [];
       for (const m of push.mutations) {
@@ -53,21 +57,21 @@ export function applyPush(actor: Actor, push: PushRequest): PushResponse {
           break; // apply what came before the gap; the device resends the rest
         }
         try {
-          // A savepoint per change: a rejected change leaves no partial write behind.
-          tx.transaction((sp) => applyMutation(sp, actor, m.name as MutationName, m.args));
+          applyMutation(pushTx, actor, m.name as MutationName, m.args);
           results.push({ id: m.id, status: "applied" });
         } catch (error) {
           if (!(error instanceof RejectError)) throw error;
-          if (error.keep) keepHistory(tx, error.keep.entity, error.keep.entityId, error.keep.memberId, error.keep.version);
+          if (error.keep) keepHistory(sqlite, error.keep.entity, error.keep.entityId, error.keep.memberId, error.keep.version);
           results.push({ id: m.id, status: "rejected", reason: error.reason, field: error.field, message: error.message });
         }
         last = m.id;
       }
       if (last !== (client?.lastMutationId ?? 0)) {
-        tx.update(syncClients).set({ lastMutationId: last, updatedAt: Date.now() }).where(eq(syncClients.id, push.clientId)).run();
+        statement(sqlite, "update sync_clients set last_mutation_id = ?, updated_at = ? where id = ?").run(last, Date.now(), push.clientId);
       }
+      seq.store();
       return { lastMutationId: last, results };
-    });
+    }).immediate();
   } catch (error) {
     if (isTemporaryDbError(error)) {
       throw new AppError("unavailable:database", "The club's server is busy. Nothing was applied; try again shortly.");

@@ -1,0 +1,105 @@
+import "server-only";
+import type Database from "better-sqlite3";
+import { getTableColumns, getTableName } from "drizzle-orm";
+import type { SQLiteColumn, SQLiteTable } from "drizzle-orm/sqlite-core";
+
+/**
+ * Statements prepared once per connection. Drizzle compiles and prepares every query anew,
+ * which was nine tenths of a push's cost (thousands of changes a batch); the push path uses
+ * these instead. Column names and value encoding still come from the Drizzle schema.
+ */
+export type Sqlite = Database.Database;
+
+type Prepared = { byText: Map<string, Database.Statement>; shapes: Map<SQLiteTable, { insert: Shape[]; update: Shape[] }> };
+const cache = new WeakMap<Sqlite, Prepared>();
+
+function preparedOf(sqlite: Sqlite): Prepared {
+  let p = cache.get(sqlite);
+  if (!p) cache.set(sqlite, (p = { byText: new Map(), shapes: new Map() }));
+  return p;
+}
+
+export function statement(sqlite: Sqlite, text: string): Database.Statement {
+  const { byText } = preparedOf(sqlite);
+  let stmt = byText.get(text);
+  if (!stmt) byText.set(text, (stmt = sqlite.prepare(text)));
+  return stmt;
+}
+
+type Columns = { table: string; all: [string, SQLiteColumn][]; byKey: Map<string, SQLiteColumn> };
+/** One set of row keys and the statement written for it (rows of one entity share their keys). */
+type Shape = { keys: string[]; cols: (SQLiteColumn | undefined)[]; stmt: Database.Statement };
+const columnsOf = new WeakMap<SQLiteTable, Columns>();
+
+function columns(table: SQLiteTable): Columns {
+  let c = columnsOf.get(table);
+  if (!c) {
+    const all = Object.entries(getTableColumns(table)) as [string, SQLiteColumn][];
+    columnsOf.set(table, (c = { table: getTableName(table), all, byKey: new Map(all) }));
+  }
+  return c;
+}
+
+/** The row's defined keys in order are the shape's keys (no string building on the hot path). */
+function matches(shape: Shape, row: Record<string, unknown>): boolean {
+  let i = 0;
+  for (const key in row) {
+    if (row[key] === undefined) continue;
+    if (shape.keys[i++] !== key) return false;
+  }
+  return i === shape.keys.length;
+}
+
+function shapeFor(sqlite: Sqlite, table: SQLiteTable, kind: "insert" | "update", row: Record<string, unknown>): Shape {
+  const c = columns(table);
+  const { shapes } = preparedOf(sqlite);
+  let byKind = shapes.get(table);
+  if (!byKind) shapes.set(table, (byKind = { insert: [], update: [] }));
+  const list = byKind[kind];
+  for (const shape of list) if (matches(shape, row)) return shape;
+  const keys = Object.keys(row).filter((k) => row[k] !== undefined);
+  const cols = keys.map((k) => c.byKey.get(k));
+  const names = cols.filter((col) => col !== undefined).map((col) => `"${col.name}"`);
+  const text =
+    kind === "insert"
+      ? `insert into "${c.table}" (${names.join(", ")}) values (${names.map(() => "?").join(", ")})`
+      : `update "${c.table}" set ${names.map((n) => `${n} = ?`).join(", ")} where "id" = ?`;
+  const shape = { keys, cols, stmt: sqlite.prepare(text) };
+  list.push(shape);
+  return shape;
+}
+
+/** Values for the shape's columns, encoded as Drizzle would (JSON, booleans). */
+function encode(shape: Shape, row: Record<string, unknown>): unknown[] {
+  const values: unknown[] = [];
+  for (let i = 0; i < shape.keys.length; i++) {
+    const col = shape.cols[i];
+    if (!col) continue;
+    const value = row[shape.keys[i]];
+    values.push(value === null ? null : col.mapToDriverValue(value));
+  }
+  return values;
+}
+
+export function insertRow(sqlite: Sqlite, table: SQLiteTable, row: Record<string, unknown>): void {
+  const shape = shapeFor(sqlite, table, "insert", row);
+  shape.stmt.run(...encode(shape, row));
+}
+
+export function updateRow(sqlite: Sqlite, table: SQLiteTable, id: string, row: Record<string, unknown>): void {
+  const shape = shapeFor(sqlite, table, "update", row);
+  shape.stmt.run(...encode(shape, row), id);
+}
+
+/** One row by id, decoded into the schema's keys (the shape a Drizzle select returns). */
+export function selectRow<T = Record<string, unknown>>(sqlite: Sqlite, table: SQLiteTable, id: string): T | undefined {
+  const c = columns(table);
+  const raw = statement(sqlite, `select * from "${c.table}" where "id" = ?`).get(id) as Record<string, unknown> | undefined;
+  if (!raw) return undefined;
+  const row: Record<string, unknown> = {};
+  for (const [key, col] of c.all) {
+    const value = raw[col.name];
+    row[key] = value === null || value === undefined ? null : col.mapFromDriverValue(value);
+  }
+  return row as T;
+}
