@@ -27,6 +27,13 @@ const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
   serverExternalPackages: ["better-sqlite3", "smtp-server", "mailparser", "pino"],
+  webpack(config, { isServer, dev }) {
+    // The member layout and its screens share small modules (device database, logbook). Below
+    // Next's 20 kB threshold for a shared chunk, webpack copied them into each entry, so a
+    // screen loaded them twice; a lower threshold gives them one shared chunk.
+    if (!isServer && !dev && config.optimization.splitChunks) config.optimization.splitChunks.minSize = 2000;
+    return config;
+  },
   async headers() {
     return [
       {

@@ -1,32 +1,31 @@
 import { v7 as uuidv7 } from "uuid";
-import { z } from "zod";
-import { findSchema, type Find } from "@/lib/entities/find";
-import { outingSchema, type Outing } from "@/lib/entities/outing";
-import { weighInSchema, type WeighIn } from "@/lib/entities/weigh-in";
-import { MUTATION_ARGS, type MutationArgs, type MutationName } from "@/lib/sync/mutations";
+import type { Find } from "@/lib/entities/find";
+import type { Outing } from "@/lib/entities/outing";
+import type { WeighIn } from "@/lib/entities/weigh-in";
+import type { MutationArgs, MutationName } from "@/lib/sync/mutations";
 import type { LodebookDb, OutboxEntry } from "./device-db";
 
-/** A change refused on the device itself, with the field at fault. */
-export class LocalValidationError extends Error {
-  constructor(readonly fields: Record<string, string[]>) {
-    super(Object.values(fields)[0]?.[0] ?? "Check the form.");
-    this.name = "LocalValidationError";
-  }
+export { LocalValidationError } from "./local-validation-error";
+
+type Validation = typeof import("./validation");
+let validation: Validation | undefined;
+
+/**
+ * The validator, loaded once and on demand: every write awaits this before its transaction
+ * opens (an IndexedDB transaction cannot wait for a module to load).
+ */
+export async function loadValidation(): Promise<Validation> {
+  return (validation ??= await import("./validation"));
 }
 
-function check<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
-  const parsed = schema.safeParse(value);
-  if (!parsed.success) {
-    const fields: Record<string, string[]> = {};
-    for (const issue of parsed.error.issues) (fields[issue.path.join(".") || "_"] ??= []).push(issue.message);
-    throw new LocalValidationError(fields);
-  }
-  return parsed.data;
+function loaded(): Validation {
+  if (!validation) throw new Error("loadValidation() must be awaited before a logbook transaction");
+  return validation;
 }
 
 /** Queues a change for camp sync. Call only inside a transaction that also writes the record. */
 export async function enqueue<N extends MutationName>(db: LodebookDb, name: N, args: MutationArgs<N>, entityId: string) {
-  const entry: OutboxEntry = { name, args: check(MUTATION_ARGS[name], args), entityId, createdAt: Date.now(), state: "pending" };
+  const entry: OutboxEntry = { name, args: loaded().checkArgs(name, args), entityId, createdAt: Date.now(), state: "pending" };
   // A newer change to the same record supersedes one the server refused earlier.
   await db.outbox.where("entityId").equals(entityId).filter((e) => e.state === "rejected").delete();
   return db.outbox.add(entry);
@@ -37,7 +36,7 @@ export const newId = () => uuidv7();
 // Each write below puts the record and its outbox entry in one transaction: both or neither.
 
 export async function saveOuting(db: LodebookDb, outing: Outing): Promise<Outing> {
-  const value = check(outingSchema, outing);
+  const value = (await loadValidation()).checkRecord("outing", outing);
   await db.transaction("rw", db.outings, db.outbox, async () => {
     await db.outings.put({ ...value, updatedAt: Date.now() });
     await enqueue(db, "outing.put", value, value.id);
@@ -55,6 +54,7 @@ export async function endOuting(db: LodebookDb, outing: Outing, at = Date.now())
 }
 
 export async function deleteOuting(db: LodebookDb, id: string): Promise<void> {
+  await loadValidation();
   await db.transaction("rw", db.outings, db.finds, db.outbox, async () => {
     // Finds stay: they lose their outing, not their record.
     const orphans = await db.finds.where("outingId").equals(id).toArray();
@@ -69,7 +69,7 @@ export async function deleteOuting(db: LodebookDb, id: string): Promise<void> {
 }
 
 export async function saveFind(db: LodebookDb, find: Find): Promise<Find> {
-  const value = check(findSchema, find);
+  const value = (await loadValidation()).checkRecord("find", find);
   await db.transaction("rw", db.finds, db.outbox, async () => {
     await db.finds.put({ ...value, updatedAt: Date.now() });
     await enqueue(db, "find.put", value, value.id);
@@ -78,6 +78,7 @@ export async function saveFind(db: LodebookDb, find: Find): Promise<Find> {
 }
 
 export async function deleteFind(db: LodebookDb, id: string): Promise<void> {
+  await loadValidation();
   await db.transaction("rw", [db.finds, db.photos, db.weighIns, db.outbox], async () => {
     for (const p of await db.photos.where("findId").equals(id).toArray()) {
       await db.photos.delete(p.id);
@@ -93,7 +94,7 @@ export async function deleteFind(db: LodebookDb, id: string): Promise<void> {
 }
 
 export async function saveWeighIn(db: LodebookDb, weighIn: WeighIn): Promise<WeighIn> {
-  const value = check(weighInSchema, weighIn);
+  const value = (await loadValidation()).checkRecord("weighIn", weighIn);
   await db.transaction("rw", db.weighIns, db.outbox, async () => {
     await db.weighIns.put({ ...value, updatedAt: Date.now() });
     await enqueue(db, "weighIn.put", value, value.id);
@@ -102,6 +103,7 @@ export async function saveWeighIn(db: LodebookDb, weighIn: WeighIn): Promise<Wei
 }
 
 export async function deleteWeighIn(db: LodebookDb, id: string): Promise<void> {
+  await loadValidation();
   await db.transaction("rw", db.weighIns, db.outbox, async () => {
     await db.weighIns.delete(id);
     await enqueue(db, "weighIn.delete", { id }, id);
@@ -109,6 +111,7 @@ export async function deleteWeighIn(db: LodebookDb, id: string): Promise<void> {
 }
 
 export async function deletePhoto(db: LodebookDb, id: string): Promise<void> {
+  await loadValidation();
   await db.transaction("rw", db.photos, db.outbox, async () => {
     await db.photos.delete(id);
     await enqueue(db, "photo.delete", { id }, id);

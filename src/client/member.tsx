@@ -3,6 +3,7 @@ import { useRouter } from "next/navigation";
 import { createContext, useContext, useEffect, useState } from "react";
 import type { Role } from "@/lib/roles";
 import { memberDb, type LodebookDb } from "./device-db";
+import { loadValidation } from "./logbook";
 import { startSync } from "./sync/scheduler";
 
 export type DeviceMember = { id: string; name: string | null; email: string; role: Role };
@@ -59,7 +60,13 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
   useEffect(() => {
     if (!ready) return;
     const sync = startSync(ready.db, ready.member.id);
-    return () => sync.stop();
+    // The validator comes in its own chunk; have it ready before the member first saves. A
+    // failure here shows again, with its reason, at that save.
+    const idle = requestIdleCallback(() => void loadValidation().catch(() => undefined));
+    return () => {
+      cancelIdleCallback(idle);
+      sync.stop();
+    };
   }, [ready?.db, ready?.member.id]); // eslint-disable-line react-hooks/exhaustive-deps
 
   const router = useRouter();

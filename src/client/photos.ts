@@ -1,12 +1,13 @@
-import exifr from "exifr";
-import { MAX_PHOTO_EDGE } from "@/lib/entities/photo";
+import { MAX_PHOTO_EDGE } from "@/lib/entities/constants";
 import type { LodebookDb, LocalPhoto } from "./device-db";
-import { enqueue, newId, stripLocal } from "./logbook";
+import { enqueue, loadValidation, newId, stripLocal } from "./logbook";
 
 export type PhotoMeta = { takenAt: number | null; lat: number | null; lon: number | null };
 
 /** GPS position and time from a photo's EXIF, read before shrinking drops them. */
 export async function readPhotoMeta(file: Blob | ArrayBuffer): Promise<PhotoMeta> {
+  // Loaded when a photo is added, not with the screen (a precached chunk, so offline too).
+  const { default: exifr } = await import("exifr");
   try {
     const bytes = file instanceof ArrayBuffer ? file : await file.arrayBuffer();
     const tags = (await exifr.parse(bytes, { gps: true, tiff: true, exif: true, pick: ["DateTimeOriginal", "CreateDate", "GPSLatitude", "GPSLongitude", "GPSLatitudeRef", "GPSLongitudeRef"] })) as
@@ -81,6 +82,7 @@ export async function addPhoto(db: LodebookDb, findId: string, file: Blob): Prom
     updatedAt: Date.now(),
   };
   let positionFromPhoto = false;
+  await loadValidation();
   try {
     await db.transaction("rw", [db.photos, db.finds, db.outbox], async () => {
       const { blob: _b, thumb: _t, uploaded: _u, ...record } = photo;

@@ -1,7 +1,7 @@
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { MassUnit } from "@/lib/estimate/units";
 import type { LodebookDb } from "./device-db";
-import { enqueue } from "./logbook";
+import { enqueue, loadValidation } from "./logbook";
 
 /** The member's choices on this device. Location sharing also goes to the club's server. */
 export type MemberSettings = {
@@ -31,6 +31,7 @@ export async function readSettings(db: LodebookDb): Promise<MemberSettings> {
 }
 
 export async function saveSettings(db: LodebookDb, changes: Partial<MemberSettings>): Promise<void> {
+  await loadValidation();
   await db.transaction("rw", db.settings, db.outbox, async () => {
     const before = (await db.settings.get("locationSharing"))?.value ?? DEFAULT_SETTINGS.locationSharing;
     await db.settings.bulkPut(Object.entries(changes).map(([key, value]) => ({ key, value })));

@@ -1,11 +1,10 @@
 import { v7 as uuidv7 } from "uuid";
 import type { LodebookDb, OutboxEntry } from "../device-db";
 import { applyPullPage } from "./apply-pull";
-import { createStatusStore, type SyncStatus } from "./status";
+import type { SyncStatus } from "./status";
 import { fetchPull, sendPush, uploadPhoto } from "./transport";
 
 const BATCH = 200;
-const MAX_BACKOFF_MS = 5 * 60_000;
 
 async function meta<T>(db: LodebookDb, key: string, fallback: T): Promise<T> {
   return ((await db.meta.get(key))?.value as T | undefined) ?? fallback;
@@ -162,10 +161,3 @@ function failure(kind: string, message: string | undefined, waiting: number, ret
   }
 }
 
-/** Delay before retry n (from 0): doubling from 2 s to 5 min, with jitter so devices spread out. */
-export function backoffMs(attempt: number, random = Math.random): number {
-  const base = Math.min(MAX_BACKOFF_MS, 2000 * 2 ** attempt);
-  return Math.round(base * (0.5 + random() * 0.5));
-}
-
-export const syncStatus = createStatusStore({ kind: "idle", waiting: 0, rejected: 0, lastSyncedAt: null });

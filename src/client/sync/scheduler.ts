@@ -1,7 +1,18 @@
 import type { LodebookDb } from "../device-db";
-import { backoffMs, syncOnce, syncStatus } from "./engine";
+import { syncStatus } from "./status";
 
 const PERIOD_MS = 5 * 60_000;
+const MAX_BACKOFF_MS = 5 * 60_000;
+
+/** Delay before retry n (from 0): doubling from 2 s to 5 min, with jitter so devices spread out. */
+export function backoffMs(attempt: number, random = Math.random): number {
+  const base = Math.min(MAX_BACKOFF_MS, 2000 * 2 ** attempt);
+  return Math.round(base * (0.5 + random() * 0.5));
+}
+
+// The engine (push, pull, photo upload) is loaded with the first sync, not with the screen:
+// a chunk the service worker precaches, so it is there offline too.
+const loadEngine = () => import("./engine");
 
 type Running = { stop: () => void; request: () => void };
 let current: Running | undefined;
@@ -28,6 +39,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     running = true;
     try {
       const work = async () => {
+        const { syncOnce } = await loadEngine();
         const outcome = await syncOnce(db, memberId, (s) => syncStatus.set(s));
         syncStatus.set(outcome);
         clearTimeout(retryTimer);

@@ -28,3 +28,6 @@ export function createStatusStore(initial: SyncStatus) {
 }
 
 export type StatusStore = ReturnType<typeof createStatusStore>;
+
+/** The device's one camp-sync status, set by the scheduler and read by the status component. */
+export const syncStatus = createStatusStore({ kind: "idle", waiting: 0, rejected: 0, lastSyncedAt: null });

@@ -1,4 +1,5 @@
-import { PROTOCOL_VERSION, type PullResponse, type PushResponse } from "@/lib/sync/protocol";
+import type { PullResponse, PushResponse } from "@/lib/sync/protocol";
+import { PROTOCOL_VERSION } from "@/lib/sync/version";
 
 export type Answer<T> =
   | { ok: true; body: T }

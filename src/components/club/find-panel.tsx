@@ -1,7 +1,7 @@
 "use client";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { KIND_LABELS } from "@/lib/entities/find";
+import { KIND_LABELS } from "@/lib/entities/constants";
 import type { SpecimenEstimate, SpecimenInput } from "@/lib/estimate/types";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { formatDecimal, toDms } from "@/lib/geo";

@@ -4,7 +4,7 @@ import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type So
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { REVIEW_STATES, type LedgerPage, type LedgerRow } from "@/lib/club/ledger";
-import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/find";
+import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
 import { formatDay, formatGrams } from "@/lib/format";
 import { api } from "./api";

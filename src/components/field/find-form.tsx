@@ -1,40 +1,20 @@
 "use client";
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { z } from "zod";
 import type { LocalFind } from "@/client/device-db";
 import type { MemberSettings } from "@/client/settings";
 import { FieldError } from "@/components/field-error";
 import { parseNumber } from "@/components/weigh/form-model";
 import type { ClaimView } from "@/lib/entities/claim";
-import { methodSchema } from "@/lib/entities/common";
-import { FIND_KINDS, KIND_LABELS, type Find } from "@/lib/entities/find";
+import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
+import type { Find } from "@/lib/entities/find";
 import { convertMass, toGrams } from "@/lib/estimate/units";
 import { toLocalInput } from "@/lib/format";
+import type { FindFormValues } from "./form-schemas";
+import { lazyZodResolver } from "./lazy-resolver";
 import { ClaimOptions, MethodOptions } from "./options";
 
-const optionalNumber = (message: string, ok: (n: number) => boolean) =>
-  z.string().refine((v) => {
-    const n = parseNumber(v);
-    return n === undefined || (!Number.isNaN(n) && ok(n));
-  }, message);
-
-export const findFormSchema = z
-  .object({
-    kind: z.enum(FIND_KINDS, { error: "Choose what you found." }),
-    weight: optionalNumber("The weight must be a number above zero, or empty.", (n) => n > 0),
-    depthCm: optionalNumber("The depth must be a number of centimetres, or empty.", (n) => n >= 0 && n <= 10_000),
-    method: methodSchema,
-    claimId: z.string(),
-    notes: z.string().max(4000, "At most 4000 characters."),
-    foundAt: z.string().min(1, "When was it found?"),
-    lat: optionalNumber("Latitude is a number between −90 and 90.", (n) => Math.abs(n) <= 90),
-    lon: optionalNumber("Longitude is a number between −180 and 180.", (n) => Math.abs(n) <= 180),
-  })
-  .refine((v) => (v.lat.trim() === "") === (v.lon.trim() === ""), { message: "Give both latitude and longitude, or neither.", path: ["lat"] });
-
-type FormValues = z.infer<typeof findFormSchema>;
+type FormValues = FindFormValues;
 
 type Props = { find: LocalFind; claims: ClaimView[]; settings: MemberSettings; onSave: (find: Find) => Promise<void> };
 
@@ -42,7 +22,7 @@ type Props = { find: LocalFind; claims: ClaimView[]; settings: MemberSettings; o
 export function FindForm({ find, claims, settings, onSave }: Props) {
   const unit = settings.massUnit;
   const { register, handleSubmit, formState, setError } = useForm<FormValues>({
-    resolver: zodResolver(findFormSchema),
+    resolver: lazyZodResolver(async () => (await import("./form-schemas")).findFormSchema),
     // A sync can update the record while the member types: keep what they have changed.
     resetOptions: { keepDirtyValues: true },
     values: {

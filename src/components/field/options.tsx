@@ -1,4 +1,4 @@
-import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/common";
+import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/constants";
 
 /** The club's claims as <option>s, by name. */
 export function ClaimOptions({ claims }: { claims: { id: string; name: string | null }[] }) {

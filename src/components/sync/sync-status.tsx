@@ -3,7 +3,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { useSyncExternalStore } from "react";
 import type { LodebookDb } from "@/client/device-db";
-import { syncStatus } from "@/client/sync/engine";
+import { syncStatus } from "@/client/sync/status";
 import { requestSync } from "@/client/sync/scheduler";
 import type { SyncStatus } from "@/client/sync/status";
 

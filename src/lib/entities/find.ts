@@ -1,15 +1,9 @@
 import { z } from "zod";
 import { idSchema, methodSchema, shortText, timestampSchema } from "./common";
 
-export const FIND_KINDS = ["nugget", "specimen", "flakes", "fines", "crystalline"] as const;
-export const KIND_LABELS: Record<(typeof FIND_KINDS)[number], string> = {
-  nugget: "Nugget",
-  specimen: "Specimen",
-  flakes: "Flakes",
-  fines: "Fines",
-  crystalline: "Crystalline",
-};
-export const LOCATION_SOURCES = ["device", "photo", "map", "typed"] as const;
+import { FIND_KINDS, LOCATION_SOURCES } from "./constants";
+
+export { FIND_KINDS, KIND_LABELS, LOCATION_SOURCES } from "./constants";
 
 export const latSchema = z.number().min(-90, "Latitude is between −90 and 90.").max(90, "Latitude is between −90 and 90.");
 export const lonSchema = z.number().min(-180, "Longitude is between −180 and 180.").max(180, "Longitude is between −180 and 180.");

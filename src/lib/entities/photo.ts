@@ -1,10 +1,9 @@
 import { z } from "zod";
 import { idSchema, timestampSchema } from "./common";
 import { latSchema, lonSchema } from "./find";
+import { MAX_PHOTO_BYTES, MAX_PHOTO_EDGE, PHOTO_TYPES } from "./constants";
 
-export const PHOTO_TYPES = ["image/jpeg"] as const;
-export const MAX_PHOTO_BYTES = 4 * 1024 * 1024;
-export const MAX_PHOTO_EDGE = 2048;
+export { MAX_PHOTO_BYTES, MAX_PHOTO_EDGE, PHOTO_TYPES } from "./constants";
 
 /** A photo's record; its bytes travel separately, checked by their SHA-256. */
 export const photoSchema = z

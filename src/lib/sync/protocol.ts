@@ -1,11 +1,9 @@
 import { z } from "zod";
 import { MUTATION_NAMES } from "./mutations";
 
-/** Bumped when a change to push or pull would confuse an older client. */
-export const PROTOCOL_VERSION = 1;
-export const MAX_PUSH_MUTATIONS = 500;
-export const MAX_PUSH_BYTES = 2_000_000;
-export const DEFAULT_PULL_LIMIT = 500;
+import { DEFAULT_PULL_LIMIT, MAX_PUSH_MUTATIONS } from "./version";
+
+export { DEFAULT_PULL_LIMIT, MAX_PUSH_BYTES, MAX_PUSH_MUTATIONS, PROTOCOL_VERSION } from "./version";
 
 export const mutationSchema = z
   .object({

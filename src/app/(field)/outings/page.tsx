@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { Skeleton } from "@/components/field/skeleton";
-import { OutingsScreen } from "@/components/field/screens/outings";
+import { OutingsScreen } from "@/components/field/screens/outings-list";
 
 export const metadata: Metadata = { title: "Outings" };
 

@@ -1,5 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
+import dynamic from "next/dynamic";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
@@ -7,14 +8,16 @@ import { useClaims, useDevicePosition, useHashParams, useSettings } from "@/clie
 import { deleteFind, deleteWeighIn, newId, saveFind, saveWeighIn, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
-import { WeighInFlow } from "@/components/weigh/weigh-in-flow";
-import { KIND_LABELS } from "@/lib/entities/find";
+import { KIND_LABELS } from "@/lib/entities/constants";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { claimAt } from "@/lib/geo";
 import { FindForm } from "../find-form";
 import { LocationLine } from "../location-line";
 import { PhotosBlock } from "../photos-block";
 import { Skeleton } from "../skeleton";
+
+// The weigh-in flow (and the estimate engine with it) loads when the member starts weighing.
+const WeighInFlow = dynamic(() => import("@/components/weigh/weigh-in-flow").then((m) => m.WeighInFlow), { ssr: false, loading: () => <Skeleton /> });
 
 const REVIEW_LABEL = { verify: "Verified", query: "Queried", note: "Note" } as const;
 

@@ -5,7 +5,7 @@ import Link from "next/link";
 import { useMemo, useRef, useState } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
 import { useMember } from "@/client/member";
-import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/find";
+import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import { formatDay, formatGrams } from "@/lib/format";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions } from "../options";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { Skeleton } from "@/components/field/skeleton";
-import { OutingDetailScreen } from "@/components/field/screens/outings";
+import { OutingDetailScreen } from "@/components/field/screens/outing-detail";
 
 export const metadata: Metadata = { title: "Outing" };
 

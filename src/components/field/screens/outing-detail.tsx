@@ -1,77 +1,23 @@
 "use client";
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
-import { z } from "zod";
 import { useClaims, useHashParams } from "@/client/hooks";
 import { deleteOuting, endOuting, saveOuting, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { FieldError } from "@/components/field-error";
 import { parseNumber } from "@/components/weigh/form-model";
-import { METHOD_LABELS, methodSchema } from "@/lib/entities/common";
-import { KIND_LABELS } from "@/lib/entities/find";
-import { formatDay, formatWhen, toLocalInput } from "@/lib/format";
+import { KIND_LABELS } from "@/lib/entities/constants";
+import { formatWhen, toLocalInput } from "@/lib/format";
+import type { OutingFormValues } from "../form-schemas";
+import { lazyZodResolver } from "../lazy-resolver";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
 
-export function OutingsScreen() {
-  const { db } = useMember();
-  const claims = useClaims(db) ?? [];
-  const outings = useLiveQuery(() => db.outings.orderBy("startedAt").reverse().toArray(), [db]);
-  const counts = useLiveQuery(async () => {
-    const m = new Map<string, number>();
-    await db.finds.each((f) => f.outingId && m.set(f.outingId, (m.get(f.outingId) ?? 0) + 1));
-    return m;
-  }, [db]);
-  const claimName = (id: string | null) => claims.find((c) => c.id === id)?.name ?? "off-claim";
-  return (
-    <div className="flex flex-col gap-3">
-      <div className="flex items-center justify-between gap-2">
-        <h1 className="text-2xl font-bold">Outings</h1>
-        <Link href="/" className="btn">
-          Start one from Today
-        </Link>
-      </div>
-      {outings === undefined ? (
-        <Skeleton />
-      ) : outings.length === 0 ? (
-        <p className="text-ink-soft">No outings yet.</p>
-      ) : (
-        <ul className="flex flex-col gap-2">
-          {outings.map((o) => (
-            <li key={o.id}>
-              <Link href={`/outings/view#id=${o.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
-                <span>
-                  <span className="font-bold">{formatDay(o.startedAt)}</span> · {METHOD_LABELS[o.method]} on {claimName(o.claimId)}
-                  {o.endedAt === null && <span className="ml-2 font-bold text-moss">under way</span>}
-                </span>
-                <span className="text-sm">{counts?.get(o.id) ?? 0} finds</span>
-              </Link>
-            </li>
-          ))}
-        </ul>
-      )}
-    </div>
-  );
-}
 
-const outingFormSchema = z.object({
-  claimId: z.string(),
-  method: methodSchema,
-  startedAt: z.string().min(1, "When did it start?"),
-  endedAt: z.string(),
-  hours: z.string().refine((v) => {
-    const n = parseNumber(v);
-    return n === undefined || (!Number.isNaN(n) && n >= 0 && n <= 240);
-  }, "Hours: a number from 0 to 240, or empty."),
-  companions: z.string().max(300, "At most 300 characters."),
-  conditions: z.string().max(300, "At most 300 characters."),
-  notes: z.string().max(4000, "At most 4000 characters."),
-});
-type OutingForm = z.infer<typeof outingFormSchema>;
+type OutingForm = OutingFormValues;
 
 export function OutingDetailScreen() {
   const id = useHashParams().get("id") ?? "";
@@ -81,7 +27,7 @@ export function OutingDetailScreen() {
   const outing = useLiveQuery(async () => (await db.outings.get(id)) ?? null, [db, id]);
   const finds = useLiveQuery(() => db.finds.where("outingId").equals(id).toArray(), [db, id]);
   const { register, handleSubmit, formState, setError } = useForm<OutingForm>({
-    resolver: zodResolver(outingFormSchema),
+    resolver: lazyZodResolver(async () => (await import("../form-schemas")).outingFormSchema),
     // A sync can update the record while the member types: keep what they have changed.
     resetOptions: { keepDirtyValues: true },
     values: outing

@@ -1,0 +1,49 @@
+"use client";
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { useClaims } from "@/client/hooks";
+import { useMember } from "@/client/member";
+import { METHOD_LABELS } from "@/lib/entities/constants";
+import { formatDay } from "@/lib/format";
+import { Skeleton } from "../skeleton";
+
+export function OutingsScreen() {
+  const { db } = useMember();
+  const claims = useClaims(db) ?? [];
+  const outings = useLiveQuery(() => db.outings.orderBy("startedAt").reverse().toArray(), [db]);
+  const counts = useLiveQuery(async () => {
+    const m = new Map<string, number>();
+    await db.finds.each((f) => f.outingId && m.set(f.outingId, (m.get(f.outingId) ?? 0) + 1));
+    return m;
+  }, [db]);
+  const claimName = (id: string | null) => claims.find((c) => c.id === id)?.name ?? "off-claim";
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex items-center justify-between gap-2">
+        <h1 className="text-2xl font-bold">Outings</h1>
+        <Link href="/" className="btn">
+          Start one from Today
+        </Link>
+      </div>
+      {outings === undefined ? (
+        <Skeleton />
+      ) : outings.length === 0 ? (
+        <p className="text-ink-soft">No outings yet.</p>
+      ) : (
+        <ul className="flex flex-col gap-2">
+          {outings.map((o) => (
+            <li key={o.id}>
+              <Link href={`/outings/view#id=${o.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
+                <span>
+                  <span className="font-bold">{formatDay(o.startedAt)}</span> · {METHOD_LABELS[o.method]} on {claimName(o.claimId)}
+                  {o.endedAt === null && <span className="ml-2 font-bold text-moss">under way</span>}
+                </span>
+                <span className="text-sm">{counts?.get(o.id) ?? 0} finds</span>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,25 @@
+// The entities' fixed lists and limits, without their zod schemas, so that screens which only
+// show labels do not carry the validator in their first load.
+
+export const FIND_KINDS = ["nugget", "specimen", "flakes", "fines", "crystalline"] as const;
+export const KIND_LABELS: Record<(typeof FIND_KINDS)[number], string> = {
+  nugget: "Nugget",
+  specimen: "Specimen",
+  flakes: "Flakes",
+  fines: "Fines",
+  crystalline: "Crystalline",
+};
+export const LOCATION_SOURCES = ["device", "photo", "map", "typed"] as const;
+
+export const OUTING_METHODS = ["detecting", "panning", "sluicing", "drywashing", "other"] as const;
+export const METHOD_LABELS: Record<(typeof OUTING_METHODS)[number], string> = {
+  detecting: "Detecting",
+  panning: "Panning",
+  sluicing: "Sluicing",
+  drywashing: "Drywashing",
+  other: "Other",
+};
+
+export const PHOTO_TYPES = ["image/jpeg"] as const;
+export const MAX_PHOTO_BYTES = 4 * 1024 * 1024;
+export const MAX_PHOTO_EDGE = 2048;
