@@ -51,6 +51,14 @@ export class LodebookDb extends Dexie {
 
   constructor(name: string) {
     super(name);
+    // A newer copy of the app (another tab, after an update) upgrades this database: step
+    // aside so its upgrade can run, and reload into the new version. Nothing is lost: every
+    // write was committed together with its outbox entry.
+    this.on("versionchange", () => {
+      this.close();
+      onNewerSchema();
+      return false;
+    });
     // Version 1: the logbook's first tables.
     this.version(1).stores({
       outings: "id, startedAt",
@@ -85,6 +93,15 @@ export class LodebookDb extends Dexie {
 }
 
 export const DB_VERSION = 2;
+
+let onNewerSchema = () => {
+  if (typeof window !== "undefined") window.location.reload();
+};
+
+/** What a tab does when a newer version of the app upgrades its database (tests watch it). */
+export function whenNewerSchema(handler: () => void): void {
+  onNewerSchema = handler;
+}
 
 /** Each member has their own database on a device: a second member never sees the first's. */
 export const databaseNameFor = (memberId: string) => `lodebook-member-${memberId}`;

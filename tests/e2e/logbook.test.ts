@@ -128,4 +128,51 @@ describe("the field logbook with no signal", () => {
     expect(found).toEqual({});
     await context.close();
   });
+
+  it("21: a photo saved when the device's storage is full is refused whole, the member is told, and a retry with room saves it", async () => {
+    const { context, userDataDir } = await launchPersistent(undefined, { ...PHONE, permissions: [] });
+    dirs.push(userDataDir);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await waitForSyncDone(page);
+    await context.setOffline(true); // so that what the device holds stays put while we look
+    await page.getByTestId("log-find").click();
+    await page.getByRole("button", { name: "Specimen", exact: true }).click();
+    await page.getByRole("button", { name: "Save the find" }).click();
+    await page.getByText("Find saved on this device.").waitFor();
+    const before = await deviceRecords(page);
+
+    // A full disk, as IndexedDB reports it: writes to the photo store fail with
+    // QuotaExceededError (Chromium's quota override is not enforced on writes headless).
+    const fillDisk = (full: boolean) =>
+      page.evaluate((on) => {
+        const w = window as unknown as { __full?: boolean; __patched?: boolean };
+        w.__full = on;
+        if (w.__patched) return;
+        w.__patched = true;
+        for (const method of ["add", "put"] as const) {
+          const real = IDBObjectStore.prototype[method];
+          IDBObjectStore.prototype[method] = function (this: IDBObjectStore, ...args: [unknown, IDBValidKey?]) {
+            if (w.__full && this.name === "photos") throw new DOMException("The quota has been exceeded.", "QuotaExceededError");
+            return real.apply(this, args);
+          };
+        }
+      }, full);
+    await fillDisk(true);
+    const photo = { name: "quartz.jpg", mimeType: "image/jpeg", buffer: makeJpeg({ width: 2400, height: 1800, takenAt: new Date() }) };
+    await page.getByTestId("photo-input").setInputFiles(photo);
+    await page.getByText(/out of storage space, so the photo was not saved/).waitFor();
+    const refused = await deviceRecords(page);
+    expect(refused.photos).toEqual(before.photos);
+    expect(refused.outbox).toBe(before.outbox);
+    expect(await page.locator("img[alt='Photo of the find']").count()).toBe(0);
+
+    await fillDisk(false);
+    await page.getByTestId("photo-input").setInputFiles(photo);
+    await page.getByText(/^Photo saved/).waitFor();
+    const saved = await deviceRecords(page);
+    expect(saved.photos.length).toBe(before.photos.length + 1);
+    expect(saved.outbox).toBe(before.outbox + 1);
+    await context.close();
+  });
 });

@@ -55,10 +55,57 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
           break;
       }
     }
+    // A full resync marks what it brings; what it never brings is dropped at its end.
+    const resync = (await db.meta.get("resync"))?.value as string[] | undefined;
+    if (resync) {
+      for (const c of changes) if (c.op === "put") resync.push(`${c.entity}:${c.value.id as string}`);
+      await db.meta.put({ key: "resync", value: resync });
+    }
     // Changes the server applied whose answer never arrived: they are done.
     if (lastMutationId > 0) {
       await db.outbox.filter((e) => e.state === "pending" && e.mutationId !== undefined && e.mutationId <= lastMutationId).delete();
     }
     await db.meta.put({ key: "cursor", value: cursor });
+  });
+}
+
+/** Starts a full resync (deletions this device may have missed were purged): from cursor 0, marking what arrives. */
+export async function beginResync(db: LodebookDb): Promise<void> {
+  await db.meta.bulkPut([
+    { key: "resync", value: [] },
+    { key: "cursor", value: 0 },
+  ]);
+}
+
+/**
+ * Ends a full resync: a record the full pull did not bring was deleted on the server, so it
+ * goes from this device too, unless a change to it is still waiting here, or it is a photo
+ * whose bytes have not gone up yet (those stay, and go up or are refused with a reason).
+ */
+export async function finishResync(db: LodebookDb): Promise<number> {
+  return db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
+    const marks = (await db.meta.get("resync"))?.value as string[] | undefined;
+    if (!marks) return 0;
+    const seen = new Set(marks);
+    const waiting = new Set((await db.outbox.toArray()).map((e) => e.entityId));
+    const unsentPhotos = new Set((await db.photos.filter((p) => p.blob.size > 0 && p.uploaded === 0).toArray()).map((p) => p.id));
+    const tables = [
+      ["outing", db.outings],
+      ["find", db.finds],
+      ["photo", db.photos],
+      ["weighIn", db.weighIns],
+      ["claim", db.claims],
+      ["review", db.reviews],
+      ["price", db.prices],
+    ] as const;
+    let dropped = 0;
+    for (const [entity, table] of tables) {
+      const ids = (await (table as unknown as { toCollection: () => { primaryKeys: () => Promise<string[]> } }).toCollection().primaryKeys()) as string[];
+      const gone = ids.filter((id) => !seen.has(`${entity}:${id}`) && !waiting.has(id) && !unsentPhotos.has(id));
+      await (table as unknown as { bulkDelete: (ids: string[]) => Promise<void> }).bulkDelete(gone);
+      dropped += gone.length;
+    }
+    await db.meta.delete("resync");
+    return dropped;
   });
 }

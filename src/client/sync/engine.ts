@@ -1,6 +1,6 @@
 import { v7 as uuidv7 } from "uuid";
 import type { LodebookDb, OutboxEntry } from "../device-db";
-import { applyPullPage } from "./apply-pull";
+import { applyPullPage, beginResync, finishResync } from "./apply-pull";
 import type { SyncStatus } from "./status";
 import { fetchPull, sendPush, uploadPhoto } from "./transport";
 
@@ -137,10 +137,15 @@ export async function syncOnce(db: LodebookDb, memberId: string, report: (s: Syn
       await resetAndResend(db);
       return syncOnce(db, memberId, report);
     }
+    if (answer.body.resync) {
+      await beginResync(db);
+      continue;
+    }
     await applyPullPage(db, answer.body.changes, answer.body.cursor, answer.body.lastMutationId);
     received += answer.body.changes.length;
     if (!answer.body.more) break;
   }
+  await finishResync(db);
   const at = Date.now();
   await db.meta.put({ key: "lastSyncedAt", value: at });
   return { kind: "done", at, sent, received, rejected };

@@ -118,14 +118,17 @@ export function monteCarlo(r: ResolvedInput, samples = 10000, seed = 1): MonteCa
     return s;
   };
   const uniform = (lo: number, hi: number) => lo + (hi - lo) * rand();
+  // A reading with no type A part (one reading) draws no normal term: same distribution, and
+  // a cold run on a slow phone stays short.
+  const typeAAir = aAir > 0 ? () => aAir * normal() : () => 0;
+  const typeAWater = aWater > 0 ? () => aWater * normal() : () => 0;
+  const p: ModelPoint = { air: 0, water: 0, tempC: 0, host: 0, fineness: 0 };
   for (let i = 0; i < samples; i++) {
-    const p: ModelPoint = {
-      air: centre.air + (rand() - 0.5) * r.resolution + aAir * normal(),
-      water: centre.water + (rand() - 0.5) * r.resolution + aWater * normal(),
-      tempC: uniform(r.tempC.lo, r.tempC.hi),
-      host: uniform(r.host.lo, r.host.hi),
-      fineness: uniform(r.fineness.lo, r.fineness.hi),
-    };
+    p.air = centre.air + (rand() - 0.5) * r.resolution + typeAAir();
+    p.water = centre.water + (rand() - 0.5) * r.resolution + typeAWater();
+    p.tempC = uniform(r.tempC.lo, r.tempC.hi);
+    p.host = uniform(r.host.lo, r.host.hi);
+    p.fineness = uniform(r.fineness.lo, r.fineness.hi);
     const m = evaluateModel(p, r.settings);
     alloys[i] = m.alloy;
     fines[i] = m.fine;

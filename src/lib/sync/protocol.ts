@@ -55,4 +55,9 @@ export type PullResponse = {
   lastMutationId: number;
   /** True when the device's cursor is beyond what this server has (a restore from backup): start again from 0. */
   reset: boolean;
+  /**
+   * True when deletions the device may not have seen were purged (it was away longer than they
+   * are kept): pull everything again from 0, then drop what the full pull did not bring.
+   */
+  resync: boolean;
 };

@@ -1,9 +1,8 @@
 import "server-only";
-import { eq } from "drizzle-orm";
 import { decode } from "next-auth/jwt";
 import { can, type Capability, type Role } from "@/lib/roles";
 import { getDb } from "../db";
-import { members } from "../db/schema";
+import { statement } from "../db/rows";
 import { AppError } from "../errors";
 
 /** Who is acting, as the database says now (not as the session cookie remembered it). */
@@ -23,11 +22,10 @@ export function authSecret(): string {
  */
 export function loadActor(memberId: string | undefined, sessionVersion: unknown): Actor | null {
   if (!memberId) return null;
-  const row = getDb()
-    .select({ id: members.id, email: members.email, name: members.name, role: members.role, active: members.active, sv: members.sessionVersion })
-    .from(members)
-    .where(eq(members.id, memberId))
-    .get();
+  // Read on every request: one statement prepared once per connection.
+  const row = statement(getDb().$client, "select id, email, name, role, active, session_version as sv from members where id = ?").get(memberId) as
+    | { id: string; email: string; name: string | null; role: Role; active: number; sv: number }
+    | undefined;
   if (!row || !row.active || row.sv !== sessionVersion) return null;
   return { id: row.id, email: row.email, name: row.name, role: row.role };
 }

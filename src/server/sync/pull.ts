@@ -4,6 +4,7 @@ import type { PullChange, PullEntity, PullResponse } from "@/lib/sync/protocol";
 import type { Actor } from "../auth/actor";
 import { getDb, type Db } from "../db";
 import * as t from "../db/schema";
+import { tombstoneHorizon } from "./tombstones";
 import type { AnySQLiteColumn } from "drizzle-orm/sqlite-core";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -30,7 +31,8 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
     const head = tx.get<{ value: number | null }>(sql`select value from ${t.sequences} where name = 'change'`)?.value ?? 0;
     const client = tx.select({ memberId: t.syncClients.memberId, last: t.syncClients.lastMutationId }).from(t.syncClients).where(eq(t.syncClients.id, opts.clientId)).get();
     const lastMutationId = client && client.memberId === actor.id ? client.last : 0;
-    if (opts.cursor > head) return { changes: [], cursor: 0, more: true, lastMutationId, reset: true };
+    if (opts.cursor > head) return { changes: [], cursor: 0, more: true, lastMutationId, reset: true, resync: false };
+    if (opts.cursor > 0 && opts.cursor < tombstoneHorizon(db.$client)) return { changes: [], cursor: 0, more: true, lastMutationId, reset: false, resync: true };
 
     const take = opts.limit + 1;
     const after = (table: { seq: AnySQLiteColumn }) => gt(table.seq, opts.cursor);
@@ -52,7 +54,7 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
 
     const more = changes.length > opts.limit;
     const pageChanges = more ? changes.slice(0, opts.limit) : changes;
-    return { changes: pageChanges, cursor: more ? pageChanges[pageChanges.length - 1].seq : head, more, lastMutationId, reset: false };
+    return { changes: pageChanges, cursor: more ? pageChanges[pageChanges.length - 1].seq : head, more, lastMutationId, reset: false, resync: false };
   });
 }
 

@@ -3,7 +3,7 @@ import type { MutationName } from "@/lib/sync/mutations";
 import type { MutationResult, PushRequest, PushResponse } from "@/lib/sync/protocol";
 import type { Actor } from "../auth/actor";
 import { getDb } from "../db";
-import { statement } from "../db/rows";
+import { statement, type Sqlite } from "../db/rows";
 import { sequenceBlock } from "../db/sequence";
 import { AppError } from "../errors";
 import { logger } from "../log";
@@ -19,63 +19,120 @@ export function isTemporaryDbError(error: unknown): boolean {
 }
 
 /**
- * Applies a push in one SQLite transaction: ids already applied are skipped, a gap is
- * refused, a change rejected for good still advances the client's last mutation id, and the
- * id is stored in the same transaction as the writes (exactly once).
+ * A push's work inside an open transaction: ids already applied are skipped, a gap is refused,
+ * a change rejected for good still advances the client's last mutation id, and the id is
+ * stored in the same transaction as the writes (exactly once).
  */
-export function applyPush(actor: Actor, push: PushRequest): PushResponse {
+function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushResponse {
   if (push.asMember !== undefined && push.asMember !== actor.id) {
     // Another member signed in on this device: the first member's changes never go under this identity.
     throw new AppError("conflict:member", "These changes belong to another member. Sign in as that member to send them.");
   }
+  const client = statement(sqlite, "select member_id as memberId, last_mutation_id as lastMutationId from sync_clients where id = ?").get(push.clientId) as
+    | { memberId: string; lastMutationId: number }
+    | undefined;
+  if (client && client.memberId !== actor.id) {
+    logger.warn({ code: "forbidden:client", actor: actor.id }, "push named another member's client");
+    throw new AppError("forbidden:client", "This device id belongs to another member.");
+  }
+  if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
+  const seq = sequenceBlock(sqlite);
+  const pushTx = { db: sqlite, seq: seq.next };
+  let last = client?.lastMutationId ?? 0;
+  const results: MutationResult[] = [];
+  for (const m of push.mutations) {
+    if (m.id <= last) {
+      results.push({ id: m.id, status: "skipped" });
+      continue;
+    }
+    if (m.id !== last + 1) {
+      if (results.every((r) => r.status === "skipped")) {
+        throw new AppError("conflict:mutation_gap", `The server expected change ${last + 1} next, not ${m.id}. Resend from ${last + 1}.`, {
+          expected: [String(last + 1)],
+        });
+      }
+      break; // apply what came before the gap; the device resends the rest
+    }
+    try {
+      applyMutation(pushTx, actor, m.name as MutationName, m.args);
+      results.push({ id: m.id, status: "applied" });
+    } catch (error) {
+      if (!(error instanceof RejectError)) throw error;
+      if (error.keep) keepHistory(sqlite, error.keep.entity, error.keep.entityId, error.keep.memberId, error.keep.version);
+      results.push({ id: m.id, status: "rejected", reason: error.reason, field: error.field, message: error.message });
+    }
+    last = m.id;
+  }
+  if (last !== (client?.lastMutationId ?? 0)) {
+    statement(sqlite, "update sync_clients set last_mutation_id = ?, updated_at = ? where id = ?").run(last, Date.now(), push.clientId);
+  }
+  seq.store();
+  return { lastMutationId: last, results };
+}
+
+function unavailable(error: unknown): unknown {
+  return isTemporaryDbError(error) ? new AppError("unavailable:database", "The club's server is busy. Nothing was applied; try again shortly.") : error;
+}
+
+/** Applies one push in its own immediate transaction. */
+export function applyPush(actor: Actor, push: PushRequest): PushResponse {
   const sqlite = getDb().$client;
   try {
-    return sqlite.transaction(() => {
-      const client = statement(sqlite, "select member_id as memberId, last_mutation_id as lastMutationId from sync_clients where id = ?").get(push.clientId) as
-        | { memberId: string; lastMutationId: number }
-        | undefined;
-      if (client && client.memberId !== actor.id) {
-        logger.warn({ code: "forbidden:client", actor: actor.id }, "push named another member's client");
-        throw new AppError("forbidden:client", "This device id belongs to another member.");
-      }
-      if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
-      const seq = sequenceBlock(sqlite);
-      const pushTx = { db: sqlite, seq: seq.next };
-      let last = client?.lastMutationId ?? 0;
-      const results: MutationResult[] = [];
-      for (const m of push.mutations) {
-        if (m.id <= last) {
-          results.push({ id: m.id, status: "skipped" });
-          continue;
-        }
-        if (m.id !== last + 1) {
-          if (results.every((r) => r.status === "skipped")) {
-            throw new AppError("conflict:mutation_gap", `The server expected change ${last + 1} next, not ${m.id}. Resend from ${last + 1}.`, {
-              expected: [String(last + 1)],
-            });
-          }
-          break; // apply what came before the gap; the device resends the rest
-        }
-        try {
-          applyMutation(pushTx, actor, m.name as MutationName, m.args);
-          results.push({ id: m.id, status: "applied" });
-        } catch (error) {
-          if (!(error instanceof RejectError)) throw error;
-          if (error.keep) keepHistory(sqlite, error.keep.entity, error.keep.entityId, error.keep.memberId, error.keep.version);
-          results.push({ id: m.id, status: "rejected", reason: error.reason, field: error.field, message: error.message });
-        }
-        last = m.id;
-      }
-      if (last !== (client?.lastMutationId ?? 0)) {
-        statement(sqlite, "update sync_clients set last_mutation_id = ?, updated_at = ? where id = ?").run(last, Date.now(), push.clientId);
-      }
-      seq.store();
-      return { lastMutationId: last, results };
-    }).immediate();
+    return sqlite.transaction(() => applyPushIn(sqlite, actor, push)).immediate();
   } catch (error) {
-    if (isTemporaryDbError(error)) {
-      throw new AppError("unavailable:database", "The club's server is busy. Nothing was applied; try again shortly.");
-    }
-    throw error;
+    throw unavailable(error);
   }
+}
+
+type Job = { actor: Actor; push: PushRequest; resolve: (r: PushResponse) => void; reject: (e: unknown) => void };
+const MAX_GROUP = 64;
+let queue: Job[] = [];
+let scheduled = false;
+
+/**
+ * Group commit: pushes that arrive together (members back at camp) share one transaction and
+ * one flush to disk, each in its own savepoint, so one push's refusal leaves the others. Each
+ * answer is given only after the commit that holds it; a temporary error refuses the whole
+ * group, and every device resends.
+ */
+export function applyPushGrouped(actor: Actor, push: PushRequest): Promise<PushResponse> {
+  return new Promise((resolve, reject) => {
+    queue.push({ actor, push, resolve, reject });
+    if (!scheduled) {
+      scheduled = true;
+      // After the pending I/O callbacks, so that pushes already read join this group.
+      setImmediate(commitGroup);
+    }
+  });
+}
+
+function commitGroup() {
+  const jobs = queue.slice(0, MAX_GROUP);
+  queue = queue.slice(MAX_GROUP);
+  scheduled = queue.length > 0;
+  if (scheduled) setImmediate(commitGroup);
+  const sqlite = getDb().$client;
+  const outcomes: ({ ok: PushResponse } | { error: unknown })[] = [];
+  try {
+    sqlite
+      .transaction(() => {
+        for (const job of jobs) {
+          try {
+            outcomes.push({ ok: sqlite.transaction(() => applyPushIn(sqlite, job.actor, job.push))() });
+          } catch (error) {
+            if (isTemporaryDbError(error)) throw error;
+            outcomes.push({ error });
+          }
+        }
+      })
+      .immediate();
+  } catch (error) {
+    for (const job of jobs) job.reject(unavailable(error));
+    return;
+  }
+  jobs.forEach((job, i) => {
+    const outcome = outcomes[i];
+    if ("ok" in outcome) job.resolve(outcome.ok);
+    else job.reject(outcome.error);
+  });
 }

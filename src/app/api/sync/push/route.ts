@@ -4,7 +4,7 @@ import { AppError } from "@/server/errors";
 import { json, parseJsonBody, route } from "@/server/http";
 import { clientAddress, spend } from "@/server/limits";
 import { requireSameOrigin } from "@/server/origin";
-import { applyPush } from "@/server/sync/push";
+import { applyPushGrouped } from "@/server/sync/push";
 
 /** Camp sync, device → server: a batch of changes applied exactly once. */
 export const POST = route(async (req) => {
@@ -18,5 +18,5 @@ export const POST = route(async (req) => {
     ["pushPerAccount", actor.id],
     ["pushPerAddress", clientAddress(req)],
   ]);
-  return json(applyPush(actor, push));
+  return json(await applyPushGrouped(actor, push));
 });
