@@ -71,12 +71,16 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   document.addEventListener("visibilitychange", onVisible);
   navigator.serviceWorker?.addEventListener("message", onMessage);
   const timer = setInterval(() => navigator.onLine && void run(), PERIOD_MS);
-  void run();
+  // The sync at app start waits until the first screen has drawn what the device holds (the
+  // browser is idle, or 2 s at most): on a slow phone it would otherwise compete with it.
+  const startIdle = typeof requestIdleCallback === "function" ? requestIdleCallback(() => void run(), { timeout: 2000 }) : setTimeout(() => void run(), 0);
 
   current = {
     request: () => void run(),
     stop: () => {
       stopped = true;
+      if (typeof cancelIdleCallback === "function") cancelIdleCallback(startIdle as number);
+      clearTimeout(startIdle as ReturnType<typeof setTimeout>);
       clearInterval(timer);
       clearTimeout(retryTimer);
       window.removeEventListener("online", run);
