@@ -155,3 +155,37 @@ describe("an app update that bumps the device schema (RELIABILITY 19)", () => {
     expect(await reloaded.finds.count()).toBe(await newTab.finds.count());
   });
 });
+
+describe("answers that stop a sync without losing anything (RELIABILITY 20, 22)", () => {
+  it("20: a server that refuses this copy as outdated keeps the outbox and asks the member to update", async () => {
+    const phone = device("phone");
+    await saveFind(phone, newFind());
+    const real = globalThis.fetch;
+    // This copy speaks a protocol the server no longer takes.
+    vi.stubGlobal("fetch", (input: string, init?: RequestInit) => {
+      if (typeof init?.body === "string") init = { ...init, body: init.body.replace(/"protocolVersion":\d+/, '"protocolVersion":0') };
+      return real(input.replace(/protocolVersion=\d+/, "protocolVersion=0"), init);
+    });
+    const outcome = await syncOnce(phone, memberId, () => {});
+    expect(outcome).toMatchObject({ kind: "outdated", waiting: 1 });
+    expect(await phone.outbox.count()).toBe(1);
+    vi.stubGlobal("fetch", real);
+    await sync(phone);
+    expect(await phone.outbox.count()).toBe(0);
+  });
+
+  it("22: an expired session keeps the outbox and asks to sign in; signed in again, it goes up once", async () => {
+    const phone = device("phone");
+    const f = newFind();
+    await saveFind(phone, f);
+    const signedIn = cookie;
+    cookie = "";
+    const outcome = await syncOnce(phone, memberId, () => {});
+    expect(outcome).toMatchObject({ kind: "needs-sign-in", reason: "expired", waiting: 1 });
+    expect(db.$client.prepare("select count(*) n from finds where id = ?").get(f.id)).toEqual({ n: 0 });
+    cookie = signedIn;
+    await sync(phone);
+    expect(await phone.outbox.count()).toBe(0);
+    expect(db.$client.prepare("select count(*) n from finds where id = ?").get(f.id)).toEqual({ n: 1 });
+  });
+});
