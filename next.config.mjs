@@ -1,5 +1,6 @@
 import withSerwistInit from "@serwist/next";
 import fs from "node:fs";
+import path from "node:path";
 
 // MapLibre runs its tile work in a Web Worker loaded by URL: serve the package's own worker
 // file from public/ (git-ignored, copied here on every build and start).
@@ -32,6 +33,9 @@ const nextConfig = {
     // Next's 20 kB threshold for a shared chunk, webpack copied them into each entry, so a
     // screen loaded them twice; a lower threshold gives them one shared chunk.
     if (!isServer && !dev && config.optimization.splitChunks) config.optimization.splitChunks.minSize = 2000;
+    // Dexie's package points bundlers at its ES5 build; its modern ES build is the same code,
+    // 1.4 kB smaller gzipped, on every member screen. One alias, so one Dexie instance.
+    if (!isServer) config.resolve.alias = { ...config.resolve.alias, dexie$: path.resolve("node_modules/dexie/dist/modern/dexie.mjs") };
     return config;
   },
   async headers() {

@@ -4,7 +4,8 @@ import { makeJpeg } from "../../tests/support/jpeg";
 import { closeMemberDbs, databaseNameFor, LodebookDb, memberDb } from "./device-db";
 import { LocalValidationError, newId, saveFind, startOuting } from "./logbook";
 import { readPhotoMeta } from "./photos";
-import { readSettings, saveSettings } from "./settings";
+import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
+import { DEFAULT_SETTINGS, readSettings, saveSettings } from "./settings";
 
 const find = (over: Partial<Parameters<typeof saveFind>[1]> = {}) => ({
   id: newId(),
@@ -105,6 +106,13 @@ describe("device database", () => {
     await saveSettings(db, { locationSharing: "claim" });
     expect((await readSettings(db)).massUnit).toBe("dwt");
     expect(await db.outbox.toArray()).toMatchObject([{ name: "settings.put", args: { locationSharing: "claim" } }]);
+  });
+});
+
+describe("default settings", () => {
+  it("name the first host and fineness presets of the weigh-in flow", () => {
+    expect(DEFAULT_SETTINGS.hostPreset).toBe(HOST_PRESETS[0].id);
+    expect(DEFAULT_SETTINGS.finenessPreset).toBe(FINENESS_PRESETS[0].id);
   });
 });
 

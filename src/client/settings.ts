@@ -1,4 +1,3 @@
-import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { MassUnit } from "@/lib/estimate/units";
 import type { LodebookDb } from "./device-db";
 import { enqueue, loadValidation } from "./logbook";
@@ -18,8 +17,9 @@ export const DEFAULT_SETTINGS: MemberSettings = {
   massUnit: "g",
   tempUnit: "C",
   scaleResolution: "0.01",
-  hostPreset: HOST_PRESETS[0].id,
-  finenessPreset: FINENESS_PRESETS[0].id,
+  // Preset ids, not the preset tables: those (with their sources) load with the weigh-in flow.
+  hostPreset: "quartz",
+  finenessPreset: "natural",
   locationSharing: "exact",
   tileUrl: "",
 };

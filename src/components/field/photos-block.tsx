@@ -1,11 +1,18 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
 import { useEffect, useMemo, useState } from "react";
-import { useDropzone } from "react-dropzone";
+import dynamic from "next/dynamic";
 import type { LodebookDb, LocalPhoto } from "@/client/device-db";
 import { deletePhoto } from "@/client/logbook";
 import { addPhoto, StorageFullError } from "@/client/photos";
 import { requestSync } from "@/client/sync/scheduler";
+
+// The drop area (react-dropzone) loads just after the block itself: the camera button and the
+// photos already here show at once.
+const PhotoDrop = dynamic(() => import("./photo-drop").then((m) => m.PhotoDrop), {
+  ssr: false,
+  loading: () => <div className="rounded-md border-2 border-dashed border-rule p-4 text-center">Drop photos here, or tap to choose</div>,
+});
 
 function Thumb({ photo, onDelete }: { photo: LocalPhoto; onDelete: () => void }) {
   // A photo taken on another device has no bytes here: the club's server has it.
@@ -47,14 +54,7 @@ export function PhotosBlock({ db, findId }: { db: LodebookDb; findId: string }) 
     }
   }
 
-  const { getRootProps, getInputProps, isDragActive } = useDropzone({
-    accept: { "image/jpeg": [".jpg", ".jpeg"], "image/png": [".png"], "image/webp": [".webp"] },
-    maxSize: 40 * 1024 * 1024,
-    onDrop: (accepted, refused) => {
-      if (refused.length) setMessage({ tone: "bad", text: "Only JPEG, PNG or WebP photos up to 40 MB." });
-      if (accepted.length) void take(accepted);
-    },
-  });
+  const onRefused = () => setMessage({ tone: "bad", text: "Only JPEG, PNG or WebP photos up to 40 MB." });
 
   return (
     <section className="sheet flex flex-col gap-3" aria-labelledby="photos-title">
@@ -73,10 +73,7 @@ export function PhotosBlock({ db, findId }: { db: LodebookDb; findId: string }) 
           />
         ))}
       </ul>
-      <div {...getRootProps({ className: `rounded-md border-2 border-dashed p-4 text-center ${isDragActive ? "border-ochre" : "border-rule"}` })}>
-        <input {...getInputProps({ "aria-label": "Add photos" })} data-testid="photo-input" />
-        <p>{busy ? "Shrinking and saving…" : "Drop photos here, or tap to choose"}</p>
-      </div>
+      <PhotoDrop busy={busy} onFiles={(files) => void take(files)} onRefused={onRefused} />
       <label className="btn self-start">
         Take a photo
         <input

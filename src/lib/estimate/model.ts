@@ -36,12 +36,12 @@ export function displacedGrams(method: WeighMethod, air: number, water: number):
  * substances whose volumes add): m_g = m·ρg·(ρs − ρh) / (ρs·(ρg − ρh)), clamped to
  * [0, m] so that a reading outside the two densities gives "none" or "all of it".
  */
-export function evaluateModel(p: ModelPoint, s: ModelSettings): ModelResult {
-  return evaluateMixture(p, s, waterDensity(p.tempC), s.goldDensity ?? goldAlloyDensity(p.fineness));
+export function evaluateModel(p: ModelPoint, s: ModelSettings, out?: ModelResult): ModelResult {
+  return evaluateMixture(p, s, waterDensity(p.tempC), s.goldDensity ?? goldAlloyDensity(p.fineness), out);
 }
 
 /** The model with water and alloy densities given (the range search computes each once per corner set). */
-export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, rhoW: number, alloyDensity: number): ModelResult {
+export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, rhoW: number, alloyDensity: number, out?: ModelResult): ModelResult {
   const displaced = displacedGrams(s.method, p.air, p.water);
   let density: number;
   let mass: number;
@@ -59,5 +59,13 @@ export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, 
   else if (density >= alloyDensity) alloy = mass;
   else alloy = (mass * alloyDensity * (density - p.host)) / (density * (alloyDensity - p.host));
   const fine = (alloy * p.fineness) / 1000;
-  return { density, volume: mass / density, mass, alloyDensity, alloy, fine };
+  // `out`: the range search and Monte Carlo reuse one result object (no allocation per point).
+  if (!out) return { density, volume: mass / density, mass, alloyDensity, alloy, fine };
+  out.density = density;
+  out.volume = mass / density;
+  out.mass = mass;
+  out.alloyDensity = alloyDensity;
+  out.alloy = alloy;
+  out.fine = fine;
+  return out;
 }

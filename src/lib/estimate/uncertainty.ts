@@ -24,6 +24,7 @@ export function cornerRange(r: ResolvedInput): { alloy: Pair; fine: Pair; densit
   if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) temps.push(WATER_DENSEST_C);
   const s = r.settings;
   const corner = { air: 0, water: 0, host: 0, fineness: 0 };
+  const m = { density: 0, volume: 0, mass: 0, alloyDensity: 0, alloy: 0, fine: 0 };
   for (const tempC of temps) {
     const rhoW = waterDensity(tempC);
     for (const fineness of [r.fineness.lo, r.fineness.hi]) {
@@ -35,7 +36,7 @@ export function cornerRange(r: ResolvedInput): { alloy: Pair; fine: Pair; densit
           corner.water = water;
           for (const host of [r.host.lo, r.host.hi]) {
             corner.host = host;
-            const m = evaluateMixture(corner, s, rhoW, alloyDensity);
+            evaluateMixture(corner, s, rhoW, alloyDensity, m);
             widen(alloy, m.alloy);
             widen(fine, m.fine);
             widen(density, m.density);
@@ -123,13 +124,14 @@ export function monteCarlo(r: ResolvedInput, samples = 10000, seed = 1): MonteCa
   const typeAAir = aAir > 0 ? () => aAir * normal() : () => 0;
   const typeAWater = aWater > 0 ? () => aWater * normal() : () => 0;
   const p: ModelPoint = { air: 0, water: 0, tempC: 0, host: 0, fineness: 0 };
+  const m = { density: 0, volume: 0, mass: 0, alloyDensity: 0, alloy: 0, fine: 0 };
   for (let i = 0; i < samples; i++) {
     p.air = centre.air + (rand() - 0.5) * r.resolution + typeAAir();
     p.water = centre.water + (rand() - 0.5) * r.resolution + typeAWater();
     p.tempC = uniform(r.tempC.lo, r.tempC.hi);
     p.host = uniform(r.host.lo, r.host.hi);
     p.fineness = uniform(r.fineness.lo, r.fineness.hi);
-    const m = evaluateModel(p, r.settings);
+    evaluateModel(p, r.settings, m);
     alloys[i] = m.alloy;
     fines[i] = m.fine;
   }
