@@ -74,25 +74,34 @@ export async function concurrency(baseUrl: string, members: { id: string; email:
   const cookies = await Promise.all(members.map(async (m) => `authjs.session-token=${await encode({ token: { sub: m.id, email: m.email, sv: 0 }, secret, salt: "authjs.session-token" })}`));
   // One push first, not counted: it loads the route's module, as any running server has.
   await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie: cookies[0], origin: baseUrl }, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }] }) });
+  // Three rounds, each with fresh devices; the bodies are made before the clock starts, so
+  // the load generator (on the same two cores) does as little as it can while timed.
   const ids: string[] = [];
-  const latencies: number[] = [];
+  const p95s: number[] = [];
   let errors = 0;
-  await Promise.all(
-    cookies.map(async (cookie) => {
+  for (let round = 0; round < 3; round++) {
+    const bodies = cookies.map((cookie) => {
       const mutations = Array.from({ length: 100 }, (_, i) => {
         const id = uuidv7();
         ids.push(id);
         return { id: i + 1, name: "find.put", args: { id, outingId: null, claimId: null, kind: "flakes", weightGrams: 0.4, depthCm: null, method: "panning", notes: "", lat: null, lon: null, accuracyM: null, locationSource: null, foundAt: 1780000000000 + i } };
       });
-      const t = performance.now();
-      const res = await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie, origin: baseUrl }, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations }) });
-      latencies.push(performance.now() - t);
-      if (res.status !== 200) errors++;
-    }),
-  );
+      return { cookie, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations }) };
+    });
+    const latencies = await Promise.all(
+      bodies.map(async ({ cookie, body }) => {
+        const t = performance.now();
+        const res = await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie, origin: baseUrl }, body });
+        await res.arrayBuffer();
+        if (res.status !== 200) errors++;
+        return performance.now() - t;
+      }),
+    );
+    p95s.push(percentile(latencies, 95));
+  }
   const lost = ids.length - countFinds(ids);
-  const p95 = percentile(latencies, 95);
-  report(`concurrency: 50 members × 100 changes at once (${errors} errors, ${lost} lost)`, { value: [p95], unit: "ms p95 per push", goal: "0 errors, 0 lost, p95 ≤ 500 ms", pass: errors === 0 && lost === 0 && p95 <= 500 });
+  const p95 = summary(p95s).median;
+  report(`concurrency: 50 members × 100 changes at once, 3 rounds (${errors} errors, ${lost} lost)`, { value: p95s, unit: "ms p95 per push", goal: "0 errors, 0 lost, p95 ≤ 500 ms (median round)", pass: errors === 0 && lost === 0 && p95 <= 500 });
 }
 
 /** A 12-megapixel JPEG made here, shrunk in Chromium by the device's own code. */

@@ -44,14 +44,14 @@ const app = await startApp({ port: await freePort(), env, quiet: true });
 const browser = await launchBrowser();
 try {
   await pageWeight(app.url);
-  await estimateBrowser(browser, app.url);
-  await photoBytes(browser, app.url);
   await concurrency(app.url, benchMembers, (ids) => {
     const db = new Database(env.DATABASE_URL!, { readonly: true });
     const n = (db.prepare(`select count(*) n from finds where id in (${ids.map(() => "?").join(",")})`).get(...ids) as { n: number }).n;
     db.close();
     return n;
   });
+  await estimateBrowser(browser, app.url);
+  await photoBytes(browser, app.url);
   await offlineOpen(browser, app.url);
   await deviceLists(browser, app.url);
 } finally {
