@@ -1,5 +1,6 @@
 import { eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { encode } from "next-auth/jwt";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { GET as getMembers } from "@/app/api/club/members/route";
 import { GET as getMe } from "@/app/api/me/route";
 import { members } from "@/server/db/schema";
@@ -91,5 +92,19 @@ describe("route handlers check the session and the role themselves", () => {
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
     db.update(members).set({ active: true, sessionVersion: member.sv + 1 }).where(eq(members.id, member.id)).run();
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
+  });
+
+  it("a session that expires after its token was first read is anonymous from then on", async () => {
+    const { db } = await seededDatabase();
+    const member = memberByEmail(db, MEMBER_EMAIL);
+    const name = "authjs.session-token";
+    const token = await encode({ token: { sub: member.id, sv: member.sv }, secret: process.env.AUTH_SECRET!, salt: name, maxAge: 60 });
+    const cookie = `${name}=${token}`;
+    expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);
+    expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);
+    const later = Date.now() + 120_000;
+    vi.spyOn(Date, "now").mockReturnValue(later);
+    expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
+    vi.restoreAllMocks();
   });
 });

@@ -51,16 +51,18 @@ const DECODED_MAX = 1000;
  */
 async function decodeSession(token: string, salt: string): Promise<SessionPayload | null> {
   const key = `${salt}:${token}`;
-  let payload = decoded.get(key);
-  if (!payload) {
-    payload = ((await decode({ token, secret: authSecret(), salt })) ?? {}) as SessionPayload;
-    if (decoded.size >= DECODED_MAX) decoded.delete(decoded.keys().next().value!);
-    decoded.set(key, payload);
+  const kept = decoded.get(key);
+  if (kept) {
+    // Decoding checked the expiry then; time has passed since.
+    if (typeof kept.exp === "number" && kept.exp * 1000 <= Date.now()) {
+      decoded.delete(key);
+      return null;
+    }
+    return kept;
   }
-  if (typeof payload.exp === "number" && payload.exp * 1000 <= Date.now()) {
-    decoded.delete(key);
-    return null;
-  }
+  const payload = ((await decode({ token, secret: authSecret(), salt })) ?? {}) as SessionPayload;
+  if (decoded.size >= DECODED_MAX) decoded.delete(decoded.keys().next().value!);
+  decoded.set(key, payload);
   return payload;
 }
 
