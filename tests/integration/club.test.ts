@@ -232,4 +232,38 @@ describe("the ledger's figures follow the weigh-ins and reviews", () => {
     await push(member, client, [{ id: 3, name: "weighIn.delete", args: { id: weighIn.id } }]);
     expect((await row()).fineGrams).toBeNull();
   });
+
+  it("keeps the latest weigh-in's figures when an older one arrives later, and takes a newer one's", async () => {
+    const { push, newFind, newWeighIn } = await import("../support/sync-client");
+    const { v7 } = await import("uuid");
+    const { estimateSpecimen } = await import("@/lib/estimate");
+    const client = v7();
+    const find = newFind({ foundAt: Date.UTC(2026, 3, 3, 10) });
+    const weighed = (waterGrams: number, weighedAt: number) => {
+      const w = newWeighIn(find.id);
+      const input = { ...w.input, waterGrams: [waterGrams] };
+      return { ...w, input, deviceEstimate: estimateSpecimen(input), weighedAt };
+    };
+    const middle = weighed(26.1, Date.UTC(2026, 3, 3, 12));
+    const older = weighed(30.2, Date.UTC(2026, 3, 3, 11));
+    const newer = weighed(33.9, Date.UTC(2026, 3, 3, 13));
+    const figures = () => sql<{ fine: number; low: number; high: number; alloy: number }>("select latest_fine_grams fine, latest_fine_low low, latest_fine_high high, latest_alloy_grams alloy from finds where id = ?", find.id);
+    const of = (w: typeof middle) => {
+      const e = estimateSpecimen(w.input);
+      return { fine: e.fineGoldGrams, low: e.range.fineGoldGrams[0], high: e.range.fineGoldGrams[1], alloy: e.goldAlloyGrams };
+    };
+    expect(of(older).fine).not.toBe(of(middle).fine);
+    await push(member, client, [
+      { id: 1, name: "find.put", args: find },
+      { id: 2, name: "weighIn.put", args: middle },
+    ]);
+    expect(figures()).toEqual(of(middle));
+    await push(member, client, [{ id: 3, name: "weighIn.put", args: older }]);
+    expect(figures()).toEqual(of(middle));
+    await push(member, client, [{ id: 4, name: "weighIn.put", args: newer }]);
+    expect(figures()).toEqual(of(newer));
+    // Moving the newest back in time hands the place back to the middle one.
+    await push(member, client, [{ id: 5, name: "weighIn.put", args: { ...newer, weighedAt: Date.UTC(2026, 3, 3, 10) } }]);
+    expect(figures()).toEqual(of(middle));
+  });
 });

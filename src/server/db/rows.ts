@@ -69,14 +69,22 @@ function shapeFor(sqlite: Sqlite, table: SQLiteTable, kind: "insert" | "update",
   return shape;
 }
 
-/** Values for the shape's columns, encoded as Drizzle would (JSON, booleans). */
+/**
+ * Values for the shape's columns, encoded as Drizzle would (JSON, booleans). One object in
+ * two columns of a row (a weigh-in's device and server estimates, when equal) is encoded once.
+ */
 function encode(shape: Shape, row: Record<string, unknown>): unknown[] {
   const values: unknown[] = [];
+  let lastObject: unknown;
+  let lastEncoded: unknown;
   for (let i = 0; i < shape.keys.length; i++) {
     const col = shape.cols[i];
     if (!col) continue;
     const value = row[shape.keys[i]];
-    values.push(value === null ? null : col.mapToDriverValue(value));
+    if (value === null) values.push(null);
+    else if (typeof value !== "object") values.push(col.mapToDriverValue(value));
+    else if (value === lastObject) values.push(lastEncoded);
+    else values.push((lastEncoded = col.mapToDriverValue((lastObject = value))));
   }
   return values;
 }

@@ -10,7 +10,7 @@ import type { Actor } from "../auth/actor";
 import { insertRow, selectRow, statement, updateRow, type Sqlite } from "../db/rows";
 import * as t from "../db/schema";
 import { logger } from "../log";
-import { refreshWeighInFigures } from "../club/figures";
+import { refreshWeighInFigures, weighInAdded } from "../club/figures";
 import { RejectError } from "./reject";
 
 // Server mutators are plain synchronous functions over the push's one SQLite transaction,
@@ -145,7 +145,8 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
     const values = { ...w, deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch };
     return () => {
       upsert(tx, "weighIn", existing, values, actor);
-      refreshWeighInFigures(tx.db, w.findId);
+      if (existing) refreshWeighInFigures(tx.db, w.findId);
+      else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams });
     };
   },
   "weighIn.delete": (tx, actor, { id }: { id: string }) =>
