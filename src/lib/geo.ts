@@ -1,4 +1,4 @@
-import booleanPointInPolygon from "@turf/boolean-point-in-polygon";
+import pointInRing from "point-in-polygon";
 import type { Polygon } from "./entities/claim";
 
 /** Degrees, minutes and seconds with the hemisphere, e.g. 41° 48′ 0.0″ N. */
@@ -25,7 +25,19 @@ export function formatDecimal(lat: number, lon: number): string {
 
 type ClaimShape = { id: string; name: string; boundary: Polygon | null; active?: boolean };
 
-/** The claim whose boundary holds the point, if any (boundaries are the club's drawing, not a survey). */
+/** Inside the outer ring and in none of its holes (GeoJSON rings: [lon, lat]). */
+function inPolygon(point: [number, number], rings: number[][][]): boolean {
+  return pointInRing(point, rings[0]) && !rings.slice(1).some((hole) => pointInRing(point, hole));
+}
+
+/**
+ * The claim whose boundary holds the point, if any (boundaries are the club's drawing, not a
+ * survey: a point on a corner line may fall either side, well inside a GPS fix's error).
+ */
 export function claimAt<T extends ClaimShape>(lat: number, lon: number, claims: T[]): T | undefined {
-  return claims.find((c) => c.boundary && c.active !== false && booleanPointInPolygon([lon, lat], c.boundary));
+  const point: [number, number] = [lon, lat];
+  return claims.find((c) => {
+    if (!c.boundary || c.active === false) return false;
+    return c.boundary.type === "Polygon" ? inPolygon(point, c.boundary.coordinates) : c.boundary.coordinates.some((p) => inPolygon(point, p));
+  });
 }

@@ -4,7 +4,7 @@ import { useForm } from "react-hook-form";
 import type { LocalFind } from "@/client/device-db";
 import type { MemberSettings } from "@/client/settings";
 import { FieldError } from "@/components/field-error";
-import { parseNumber } from "@/components/weigh/form-model";
+import { parseNumber } from "@/lib/parse-number";
 import type { ClaimView } from "@/lib/entities/claim";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import type { Find } from "@/lib/entities/find";

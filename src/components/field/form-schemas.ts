@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { parseNumber } from "@/components/weigh/form-model";
+import { parseNumber } from "@/lib/parse-number";
 import { methodSchema } from "@/lib/entities/common";
 import { FIND_KINDS } from "@/lib/entities/constants";
 

@@ -1,18 +1,14 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import { useEffect, useMemo, useState } from "react";
-import dynamic from "next/dynamic";
+import { lazy, Suspense, useEffect, useMemo, useState } from "react";
 import type { LodebookDb, LocalPhoto } from "@/client/device-db";
 import { deletePhoto } from "@/client/logbook";
-import { addPhoto, StorageFullError } from "@/client/photos";
 import { requestSync } from "@/client/sync/scheduler";
 
 // The drop area (react-dropzone) loads just after the block itself: the camera button and the
 // photos already here show at once.
-const PhotoDrop = dynamic(() => import("./photo-drop").then((m) => m.PhotoDrop), {
-  ssr: false,
-  loading: () => <div className="rounded-md border-2 border-dashed border-rule p-4 text-center">Drop photos here, or tap to choose</div>,
-});
+const PhotoDrop = lazy(() => import("./photo-drop").then((m) => ({ default: m.PhotoDrop })));
+const dropPlaceholder = <div className="rounded-md border-2 border-dashed border-rule p-4 text-center">Drop photos here, or tap to choose</div>;
 
 function Thumb({ photo, onDelete }: { photo: LocalPhoto; onDelete: () => void }) {
   // A photo taken on another device has no bytes here: the club's server has it.
@@ -39,16 +35,19 @@ export function PhotosBlock({ db, findId }: { db: LodebookDb; findId: string }) 
   async function take(files: File[]) {
     setBusy(true);
     setMessage(null);
+    // Shrinking and storing load with the first photo added (a precached chunk, so offline too).
+    let photosLib: typeof import("@/client/photos") | undefined;
     try {
+      photosLib = await import("@/client/photos");
       let fromPhoto = false;
       for (const file of files) {
-        const result = await addPhoto(db, findId, file);
+        const result = await photosLib.addPhoto(db, findId, file);
         fromPhoto ||= result.positionFromPhoto;
       }
       setMessage({ tone: "ok", text: fromPhoto ? "Photo saved. The find's position was taken from the photo." : "Photo saved on this device." });
       requestSync();
     } catch (error) {
-      setMessage({ tone: "bad", text: error instanceof StorageFullError ? error.message : `That photo could not be read (${(error as Error).message}). Try another.` });
+      setMessage({ tone: "bad", text: photosLib && error instanceof photosLib.StorageFullError ? error.message : `That photo could not be read (${(error as Error).message}). Try another.` });
     } finally {
       setBusy(false);
     }
@@ -73,7 +72,9 @@ export function PhotosBlock({ db, findId }: { db: LodebookDb; findId: string }) 
           />
         ))}
       </ul>
-      <PhotoDrop busy={busy} onFiles={(files) => void take(files)} onRefused={onRefused} />
+      <Suspense fallback={dropPlaceholder}>
+        <PhotoDrop busy={busy} onFiles={(files) => void take(files)} onRefused={onRefused} />
+      </Suspense>
       <label className="btn self-start">
         Take a photo
         <input

@@ -1,6 +1,9 @@
 import { ASSAY_HALF_RANGE, FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import { fahrenheitToCelsius, toGrams, type MassUnit } from "@/lib/estimate/units";
+import { parseNumber } from "@/lib/parse-number";
+
+export { parseNumber };
 
 /** The weigh-in form as typed: strings, so half-typed numbers never jump about. */
 export type WeighFormValues = {
@@ -45,12 +48,6 @@ export const DEFAULT_WEIGH_FORM: WeighFormValues = {
   airBuoyancy: false,
 };
 
-/** Accepts "12.5" and "12,5" (a decimal comma); empty is undefined; junk is NaN. */
-export function parseNumber(text: string): number | undefined {
-  const t = text.trim().replace(",", ".");
-  if (t === "") return undefined;
-  return /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(t) ? Number(t) : Number.NaN;
-}
 
 /** Maps the engine's field names back to the form's. */
 export const ENGINE_FIELD_TO_FORM: Record<string, WeighField> = {

@@ -1,23 +1,28 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import dynamic from "next/dynamic";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { useClaims, useDevicePosition, useHashParams, useSettings } from "@/client/hooks";
+import { lazy, Suspense, useState } from "react";
+import { useClaims, useSettings } from "@/client/hooks";
+import { useHashParams } from "@/client/hash-params";
+import type { PositionState } from "@/client/position";
 import { deleteFind, deleteWeighIn, newId, saveFind, saveWeighIn, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { claimAt } from "@/lib/geo";
-import { FindForm } from "../find-form";
 import { LocationLine } from "../location-line";
-import { PhotosBlock } from "../photos-block";
 import { Skeleton } from "../skeleton";
 
 // The weigh-in flow (and the estimate engine with it) loads when the member starts weighing.
-const WeighInFlow = dynamic(() => import("@/components/weigh/weigh-in-flow").then((m) => m.WeighInFlow), { ssr: false, loading: () => <Skeleton /> });
+// (React's lazy: Suspense shows a skeleton meanwhile, with no loader library in the first load.)
+const WeighInFlow = lazy(() => import("@/components/weigh/weigh-in-flow").then((m) => ({ default: m.WeighInFlow })));
+
+// The photos block (thumbnails, camera, drop area) and the editing form (and its form library)
+// load just after the record itself: both are precached chunks, so offline too.
+const PhotosBlock = lazy(() => import("../photos-block").then((m) => ({ default: m.PhotosBlock })));
+const FindForm = lazy(() => import("../find-form").then((m) => ({ default: m.FindForm })));
 
 const REVIEW_LABEL = { verify: "Verified", query: "Queried", note: "Note" } as const;
 
@@ -27,12 +32,20 @@ export function FindDetailScreen() {
   const justSaved = hash.get("saved") === "1";
   const { db } = useMember();
   const router = useRouter();
-  const find = useLiveQuery(async () => (await db.finds.get(id)) ?? null, [db, id]);
+  // A live query keeps its last answer while it runs again for a new id: the answer says which
+  // id it is for, so the previous find is never shown (or edited) under the next one's address.
+  const loaded = useLiveQuery(async () => ({ id, find: (await db.finds.get(id)) ?? null }), [db, id]);
+  const find = loaded?.id === id ? loaded.find : undefined;
   const claims = useClaims(db) ?? [];
   const settings = useSettings(db);
   const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);
   const reviews = useLiveQuery(() => db.reviews.where("findId").equals(id).sortBy("createdAt"), [db, id]);
-  const { state: position, locate } = useDevicePosition(false);
+  // Asked for when the member taps for it; the position code loads then.
+  const [position, setPosition] = useState<PositionState>({ kind: "idle" });
+  const locate = async () => {
+    setPosition({ kind: "finding" });
+    setPosition(await (await import("@/client/position")).askPosition());
+  };
   const [weighing, setWeighing] = useState(false);
 
   if (find === undefined) return <Skeleton />;
@@ -107,7 +120,16 @@ export function FindDetailScreen() {
         {position.kind === "failed" && <p className="text-sm text-rust">{position.message}</p>}
       </section>
 
-      <PhotosBlock db={db} findId={find.id} />
+      <Suspense
+        fallback={
+          <section className="sheet flex flex-col gap-3" aria-label="Photos">
+            <h2 className="heading-bar self-start text-lg">Photos</h2>
+            <Skeleton lines={1} />
+          </section>
+        }
+      >
+        <PhotosBlock db={db} findId={find.id} />
+      </Suspense>
 
       <section className="sheet flex flex-col gap-3" aria-labelledby="weighins-title">
         <h2 id="weighins-title" className="heading-bar self-start text-lg">
@@ -138,14 +160,16 @@ export function FindDetailScreen() {
           ))}
         </ul>
         {weighing ? (
-          <WeighInFlow
-            initial={{ resolution: settings.scaleResolution, hostPreset: settings.hostPreset, finenessPreset: settings.finenessPreset, tempUnit: settings.tempUnit, readingUnit: "g" }}
-            onSave={async (input, estimate) => {
-              await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now() });
-              setWeighing(false);
-              requestSync();
-            }}
-          />
+          <Suspense fallback={<Skeleton />}>
+            <WeighInFlow
+              initial={{ resolution: settings.scaleResolution, hostPreset: settings.hostPreset, finenessPreset: settings.finenessPreset, tempUnit: settings.tempUnit, readingUnit: "g" }}
+              onSave={async (input, estimate) => {
+                await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now() });
+                setWeighing(false);
+                requestSync();
+              }}
+            />
+          </Suspense>
         ) : (
           <button type="button" className="btn btn-primary self-start" onClick={() => setWeighing(true)}>
             Weigh this specimen
@@ -154,7 +178,9 @@ export function FindDetailScreen() {
         <p className="text-sm text-ink-soft">Estimates are not assays.</p>
       </section>
 
-      <FindForm key={find.id} find={find} claims={claims} settings={settings} onSave={save} />
+      <Suspense fallback={<Skeleton />}>
+        <FindForm key={find.id} find={find} claims={claims} settings={settings} onSave={save} />
+      </Suspense>
 
       <button
         type="button"

@@ -1,9 +1,9 @@
 "use client";
-import { useVirtualizer } from "@tanstack/react-virtual";
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
-import { useMemo, useRef, useState } from "react";
+import { lazy, Suspense, useMemo, useState, type ReactElement } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
+import type { LocalFind } from "@/client/device-db";
 import { useMember } from "@/client/member";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import { formatDay, formatGrams } from "@/lib/format";
@@ -11,6 +11,12 @@ import { Skeleton } from "../skeleton";
 import { ClaimOptions } from "../options";
 
 const ROW_HEIGHT = 76;
+/** Rows drawn plainly while the list's virtualiser loads: more than a phone's screen holds. */
+const FIRST_SCREEN = 12;
+
+// The virtualiser loads just after the screen; the first rows show at once without it.
+type VirtualRowsProps = { data: LocalFind[]; itemSize: number; children: (f: LocalFind) => ReactElement };
+const VirtualRows = lazy(() => import("../virtual-rows").then((m) => ({ default: m.VirtualRows as (p: VirtualRowsProps) => ReactElement })));
 
 /** The member's own finds: search, filter, and a list that stays quick with thousands. */
 export function FindsListScreen() {
@@ -34,9 +40,19 @@ export function FindsListScreen() {
     );
   }, [all, text, kind, claim, claimName]);
 
-  const parent = useRef<HTMLDivElement>(null);
-  // eslint-disable-next-line react-hooks/incompatible-library -- TanStack Virtual returns functions React Compiler cannot memoise; this screen does not need it to
-  const rows = useVirtualizer({ count: shown.length, getScrollElement: () => parent.current, estimateSize: () => ROW_HEIGHT, overscan: 8 });
+  const row = (f: LocalFind) => (
+    <div key={f.id} style={{ height: ROW_HEIGHT }} className="pb-2">
+      <Link href={`/finds/view#id=${f.id}`} className="sheet flex h-full items-center justify-between gap-2 no-underline">
+        <span>
+          <span className="font-bold">{KIND_LABELS[f.kind]}</span>
+          <span className="block text-sm text-ink-soft">
+            {claimName.get(f.claimId ?? "") ?? "off-claim"} · {formatDay(f.foundAt)}
+          </span>
+        </span>
+        <span className="figure font-bold">{f.weightGrams != null ? formatGrams(f.weightGrams, settings.massUnit) : "—"}</span>
+      </Link>
+    </div>
+  );
 
   return (
     <div className="flex flex-col gap-3">
@@ -78,25 +94,20 @@ export function FindsListScreen() {
           <p className="text-sm text-ink-soft" data-testid="finds-count">
             {shown.length} of {all.length} finds
           </p>
-          <div ref={parent} className="max-h-[70dvh] overflow-auto" data-testid="finds-list">
-            <ul style={{ height: rows.getTotalSize(), position: "relative" }}>
-              {rows.getVirtualItems().map((row) => {
-                const f = shown[row.index];
-                return (
-                  <li key={f.id} style={{ position: "absolute", top: 0, left: 0, right: 0, height: ROW_HEIGHT - 8, transform: `translateY(${row.start}px)` }}>
-                    <Link href={`/finds/view#id=${f.id}`} className="sheet flex h-full items-center justify-between gap-2 no-underline">
-                      <span>
-                        <span className="font-bold">{KIND_LABELS[f.kind]}</span>
-                        <span className="block text-sm text-ink-soft">
-                          {claimName.get(f.claimId ?? "") ?? "off-claim"} · {formatDay(f.foundAt)}
-                        </span>
-                      </span>
-                      <span className="figure font-bold">{f.weightGrams != null ? formatGrams(f.weightGrams, settings.massUnit) : "—"}</span>
-                    </Link>
-                  </li>
-                );
-              })}
-            </ul>
+          <div className="max-h-[70dvh] overflow-auto" data-testid="finds-list">
+            <Suspense
+              fallback={
+                <ul>
+                  {shown.slice(0, FIRST_SCREEN).map((f) => (
+                    <li key={f.id}>{row(f)}</li>
+                  ))}
+                </ul>
+              }
+            >
+              <VirtualRows data={shown} itemSize={ROW_HEIGHT}>
+                {row}
+              </VirtualRows>
+            </Suspense>
           </div>
         </>
       )}

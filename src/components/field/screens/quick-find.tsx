@@ -1,7 +1,8 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useClaims, useCurrentOuting, useDevicePosition, useSettings } from "@/client/hooks";
+import { useClaims, useCurrentOuting, useSettings } from "@/client/hooks";
+import { useDevicePosition } from "@/client/position";
 import { LocalValidationError, newId, saveFind } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
@@ -10,7 +11,7 @@ import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import type { FindKind } from "@/lib/entities/find";
 import { toGrams } from "@/lib/estimate/units";
 import { claimAt } from "@/lib/geo";
-import { parseNumber } from "@/components/weigh/form-model";
+import { parseNumber } from "@/lib/parse-number";
 import { LocationLine } from "../location-line";
 
 /** Log a find in seconds, one-handed: tap the kind, type the weight, tap save. */
