@@ -82,6 +82,13 @@ describe("the field logbook with no signal", () => {
     const countText = () => page.getByTestId("finds-count").textContent();
     await page.getByTestId("finds-count").waitFor();
     const total = (await countText())!.match(/of (\d+)/)![1];
+    // The rows are links to each find, drawn by the virtualiser (or its plain first rows).
+    const rows = page.getByTestId("finds-list").locator('li a[href^="/finds/view#id="]');
+    await rows.first().waitFor();
+    const drawn = await rows.count();
+    expect(drawn).toBeGreaterThanOrEqual(Math.min(Number(total), 5));
+    expect(drawn).toBeLessThanOrEqual(Number(total));
+    await page.screenshot({ path: shotPath("logbook-finds-list-phone"), fullPage: true });
     await page.getByRole("searchbox").fill("flakes");
     await page.getByTestId("finds-count").filter({ hasText: /^[1-9]\d* of/ }).waitFor();
 
