@@ -42,22 +42,10 @@ export function evaluateModel(p: ModelPoint, s: ModelSettings, out?: ModelResult
 
 /** The model with water and alloy densities given (the range search computes each once per corner set). */
 export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, rhoW: number, alloyDensity: number, out?: ModelResult): ModelResult {
-  const displaced = displacedGrams(s.method, p.air, p.water);
-  let density: number;
-  let mass: number;
-  if (s.airCorrection) {
-    // Density-kit form with air buoyancy: ρs = A·(ρw − ρa)/(A − B) + ρa; true mass from the
-    // conventional value (OIML D 28): m = A·(1 − ρa/ρref)/(1 − ρa/ρs).
-    density = displaced > 0 ? (p.air * (rhoW - AIR_DENSITY)) / displaced + AIR_DENSITY : Infinity;
-    mass = (p.air * (1 - AIR_DENSITY / REFERENCE_WEIGHT_DENSITY)) / (1 - AIR_DENSITY / density);
-  } else {
-    density = displaced > 0 ? (p.air * rhoW) / displaced : Infinity;
-    mass = p.air;
-  }
-  let alloy: number;
-  if (density <= p.host) alloy = 0;
-  else if (density >= alloyDensity) alloy = mass;
-  else alloy = (mass * alloyDensity * (density - p.host)) / (density * (alloyDensity - p.host));
+  const specimen = weighedSpecimen(p.air, p.water, s, rhoW, SCRATCH);
+  const density = specimen.density;
+  const mass = specimen.mass;
+  const alloy = alloyInMixture(mass, density, p.host, alloyDensity);
   const fine = (alloy * p.fineness) / 1000;
   // `out`: the range search and Monte Carlo reuse one result object (no allocation per point).
   if (!out) return { density, volume: mass / density, mass, alloyDensity, alloy, fine };
@@ -68,4 +56,28 @@ export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, 
   out.alloy = alloy;
   out.fine = fine;
   return out;
+}
+
+const SCRATCH = { density: 0, mass: 0 };
+
+/** The specimen's density and true mass from its two readings (the first half of the model). */
+export function weighedSpecimen(air: number, water: number, s: ModelSettings, rhoW: number, out: { density: number; mass: number }) {
+  const displaced = displacedGrams(s.method, air, water);
+  if (s.airCorrection) {
+    // Density-kit form with air buoyancy: ρs = A·(ρw − ρa)/(A − B) + ρa; true mass from the
+    // conventional value (OIML D 28): m = A·(1 − ρa/ρref)/(1 − ρa/ρs).
+    out.density = displaced > 0 ? (air * (rhoW - AIR_DENSITY)) / displaced + AIR_DENSITY : Infinity;
+    out.mass = (air * (1 - AIR_DENSITY / REFERENCE_WEIGHT_DENSITY)) / (1 - AIR_DENSITY / out.density);
+  } else {
+    out.density = displaced > 0 ? (air * rhoW) / displaced : Infinity;
+    out.mass = air;
+  }
+  return out;
+}
+
+/** Mass of gold alloy in the two-component mixture, clamped to [0, mass] (the second half). */
+export function alloyInMixture(mass: number, density: number, host: number, alloyDensity: number): number {
+  if (density <= host) return 0;
+  if (density >= alloyDensity) return mass;
+  return (mass * alloyDensity * (density - host)) / (density * (alloyDensity - host));
 }

@@ -1,6 +1,6 @@
 import { centralPoint, QUANTITY_KEYS, type ResolvedInput } from "./input";
 import { goldAlloyDensity } from "./alloy";
-import { evaluateMixture, evaluateModel, type ModelPoint } from "./model";
+import { alloyInMixture, evaluateMixture, evaluateModel, weighedSpecimen, type ModelPoint, type ModelResult } from "./model";
 import { WATER_DENSEST_C, WATER_TEMP_MAX_C, WATER_TEMP_MIN_C, waterDensity } from "./water";
 
 type Pair = [number, number];
@@ -13,38 +13,47 @@ const DOMAIN: Record<keyof ModelPoint, Pair> = {
   fineness: [Number.MIN_VALUE, 1000],
 };
 
-/** Min and max over every corner of the input box: the model is monotonic in each input. */
+/**
+ * Min and max over every corner of the input box: the model is monotonic in each input.
+ * The specimen's density depends on the readings and the water only, so it is worked out once
+ * for each of those corners and the host and fineness corners reuse it (the same arithmetic
+ * on the same values as evaluateModel, so the same bits).
+ */
 export function cornerRange(r: ResolvedInput): { alloy: Pair; fine: Pair; density: Pair } {
   const alloy: Pair = [Infinity, -Infinity];
   const fine: Pair = [Infinity, -Infinity];
   const density: Pair = [Infinity, -Infinity];
+  const s = r.settings;
+  const fineLo = r.fineness.lo;
+  const fineHi = r.fineness.hi;
+  const alloyLo = s.goldDensity ?? goldAlloyDensity(fineLo);
+  const alloyHi = s.goldDensity ?? goldAlloyDensity(fineHi);
+  const specimen = { density: 0, mass: 0 };
+  const corner = (rhoW: number, air: number, water: number) => {
+    weighedSpecimen(air, water, s, rhoW, specimen);
+    widen(density, specimen.density);
+    for (let h = 0; h < 2; h++) {
+      const host = h === 0 ? r.host.lo : r.host.hi;
+      const alloyAtLo = alloyInMixture(specimen.mass, specimen.density, host, alloyLo);
+      const alloyAtHi = alloyInMixture(specimen.mass, specimen.density, host, alloyHi);
+      widen(alloy, alloyAtLo);
+      widen(alloy, alloyAtHi);
+      widen(fine, (alloyAtLo * fineLo) / 1000);
+      widen(fine, (alloyAtHi * fineHi) / 1000);
+    }
+  };
+  const at = (tempC: number) => {
+    const rhoW = waterDensity(tempC);
+    corner(rhoW, r.air.lo, r.water.lo);
+    corner(rhoW, r.air.lo, r.water.hi);
+    corner(rhoW, r.air.hi, r.water.lo);
+    corner(rhoW, r.air.hi, r.water.hi);
+  };
+  at(r.tempC.lo);
+  at(r.tempC.hi);
   // Water is densest near 3.98 °C, so below it the model runs the other way in temperature:
   // that turning point is a candidate extreme too when the span straddles it.
-  const temps = [r.tempC.lo, r.tempC.hi];
-  if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) temps.push(WATER_DENSEST_C);
-  const s = r.settings;
-  const corner = { air: 0, water: 0, host: 0, fineness: 0 };
-  const m = { density: 0, volume: 0, mass: 0, alloyDensity: 0, alloy: 0, fine: 0 };
-  for (const tempC of temps) {
-    const rhoW = waterDensity(tempC);
-    for (const fineness of [r.fineness.lo, r.fineness.hi]) {
-      const alloyDensity = s.goldDensity ?? goldAlloyDensity(fineness);
-      corner.fineness = fineness;
-      for (const air of [r.air.lo, r.air.hi]) {
-        corner.air = air;
-        for (const water of [r.water.lo, r.water.hi]) {
-          corner.water = water;
-          for (const host of [r.host.lo, r.host.hi]) {
-            corner.host = host;
-            evaluateMixture(corner, s, rhoW, alloyDensity, m);
-            widen(alloy, m.alloy);
-            widen(fine, m.fine);
-            widen(density, m.density);
-          }
-        }
-      }
-    }
-  }
+  if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) at(WATER_DENSEST_C);
   return { alloy, fine, density };
 }
 
@@ -55,12 +64,21 @@ function widen(pair: Pair, v: number) {
 
 /**
  * Combined standard uncertainty by linear propagation (JCGM 100:2008, GUM, eq. 10), inputs
- * taken as uncorrelated; sensitivity coefficients by central differences.
+ * taken as uncorrelated; sensitivity coefficients by central differences. The water and alloy
+ * densities at the centre are worked out once; only a step in temperature or fineness moves them.
  */
 export function gumUncertainty(r: ResolvedInput): { alloy: number; fine: number } {
   const centre = centralPoint(r);
+  const s = r.settings;
+  const rhoWCentre = waterDensity(centre.tempC);
+  const alloyCentre = s.goldDensity ?? goldAlloyDensity(centre.fineness);
+  const up: ModelResult = { density: 0, volume: 0, mass: 0, alloyDensity: 0, alloy: 0, fine: 0 };
+  const down: ModelResult = { ...up };
+  const at = (p: ModelPoint, out: ModelResult) =>
+    evaluateMixture(p, s, p.tempC === centre.tempC ? rhoWCentre : waterDensity(p.tempC), p.fineness === centre.fineness ? alloyCentre : (s.goldDensity ?? goldAlloyDensity(p.fineness)), out);
   let alloy2 = 0;
   let fine2 = 0;
+  const p = { ...centre };
   for (const key of QUANTITY_KEYS) {
     const u = r[key].u;
     if (u === 0) continue;
@@ -69,11 +87,11 @@ export function gumUncertainty(r: ResolvedInput): { alloy: number; fine: number 
     const [min, max] = DOMAIN[key];
     const xUp = Math.min(centre[key] + h, max);
     const xDown = Math.max(centre[key] - h, min);
-    const at = { ...centre };
-    at[key] = xUp;
-    const up = evaluateModel(at, r.settings);
-    at[key] = xDown;
-    const down = evaluateModel(at, r.settings);
+    p[key] = xUp;
+    at(p, up);
+    p[key] = xDown;
+    at(p, down);
+    p[key] = centre[key];
     const cAlloy = (up.alloy - down.alloy) / (xUp - xDown);
     const cFine = (up.fine - down.fine) / (xUp - xDown);
     alloy2 += cAlloy * u * (cAlloy * u);

@@ -40,24 +40,43 @@ function columns(table: SQLiteTable): Columns {
   return c;
 }
 
+/**
+ * A row comes as the record's own values plus the server's (owner, sequence, times), kept in
+ * two objects: spreading them into one made a new object shape per entity at one site, and V8
+ * then defined each added property through its slow generic path, on every change of a push.
+ */
+type Extra = Record<string, unknown> | undefined;
+
+function definedKeys(row: Record<string, unknown>, extra: Extra): string[] {
+  const keys = Object.keys(row).filter((k) => row[k] !== undefined && !(extra && k in extra));
+  if (extra) for (const k of Object.keys(extra)) if (extra[k] !== undefined) keys.push(k);
+  return keys;
+}
+
 /** The row's defined keys in order are the shape's keys (no string building on the hot path). */
-function matches(shape: Shape, row: Record<string, unknown>): boolean {
+function matches(shape: Shape, row: Record<string, unknown>, extra: Extra): boolean {
   let i = 0;
   for (const key in row) {
-    if (row[key] === undefined) continue;
+    if (row[key] === undefined || (extra && key in extra)) continue;
     if (shape.keys[i++] !== key) return false;
+  }
+  if (extra) {
+    for (const key in extra) {
+      if (extra[key] === undefined) continue;
+      if (shape.keys[i++] !== key) return false;
+    }
   }
   return i === shape.keys.length;
 }
 
-function shapeFor(sqlite: Sqlite, table: SQLiteTable, kind: "insert" | "update", row: Record<string, unknown>): Shape {
+function shapeFor(sqlite: Sqlite, table: SQLiteTable, kind: "insert" | "update", row: Record<string, unknown>, extra: Extra): Shape {
   const c = columns(table);
   const { shapes } = preparedOf(sqlite);
   let byKind = shapes.get(table);
   if (!byKind) shapes.set(table, (byKind = { insert: [], update: [] }));
   const list = byKind[kind];
-  for (const shape of list) if (matches(shape, row)) return shape;
-  const keys = Object.keys(row).filter((k) => row[k] !== undefined);
+  for (const shape of list) if (matches(shape, row, extra)) return shape;
+  const keys = definedKeys(row, extra);
   const cols = keys.map((k) => c.byKey.get(k));
   const names = cols.filter((col) => col !== undefined).map((col) => `"${col.name}"`);
   const text =
@@ -73,14 +92,15 @@ function shapeFor(sqlite: Sqlite, table: SQLiteTable, kind: "insert" | "update",
  * Values for the shape's columns, encoded as Drizzle would (JSON, booleans). One object in
  * two columns of a row (a weigh-in's device and server estimates, when equal) is encoded once.
  */
-function encode(shape: Shape, row: Record<string, unknown>): unknown[] {
+function encode(shape: Shape, row: Record<string, unknown>, extra: Extra): unknown[] {
   const values: unknown[] = [];
   let lastObject: unknown;
   let lastEncoded: unknown;
   for (let i = 0; i < shape.keys.length; i++) {
     const col = shape.cols[i];
     if (!col) continue;
-    const value = row[shape.keys[i]];
+    const key = shape.keys[i];
+    const value = extra && key in extra ? extra[key] : row[key];
     if (value === null) values.push(null);
     else if (typeof value !== "object") values.push(col.mapToDriverValue(value));
     else if (value === lastObject) values.push(lastEncoded);
@@ -89,14 +109,15 @@ function encode(shape: Shape, row: Record<string, unknown>): unknown[] {
   return values;
 }
 
-export function insertRow(sqlite: Sqlite, table: SQLiteTable, row: Record<string, unknown>): void {
-  const shape = shapeFor(sqlite, table, "insert", row);
-  shape.stmt.run(...encode(shape, row));
+/** Inserts the row; `extra`'s values (the server's fields) are added to it and win over the row's. */
+export function insertRow(sqlite: Sqlite, table: SQLiteTable, row: Record<string, unknown>, extra?: Record<string, unknown>): void {
+  const shape = shapeFor(sqlite, table, "insert", row, extra);
+  shape.stmt.run(...encode(shape, row, extra));
 }
 
-export function updateRow(sqlite: Sqlite, table: SQLiteTable, id: string, row: Record<string, unknown>): void {
-  const shape = shapeFor(sqlite, table, "update", row);
-  shape.stmt.run(...encode(shape, row), id);
+export function updateRow(sqlite: Sqlite, table: SQLiteTable, id: string, row: Record<string, unknown>, extra?: Record<string, unknown>): void {
+  const shape = shapeFor(sqlite, table, "update", row, extra);
+  shape.stmt.run(...encode(shape, row, extra), id);
 }
 
 /** One row by id, decoded into the schema's keys (the shape a Drizzle select returns). */

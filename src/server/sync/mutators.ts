@@ -60,15 +60,18 @@ function requireClaim(tx: PushTx, claimId: string | null) {
   if (!statement(tx.db, "select 1 from claims where id = ?").get(claimId)) throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
 }
 
-/** Upsert by id; the version it replaces goes to history (two devices: arrival order decides). */
-function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values: Record<string, unknown>, actor: Actor) {
+/**
+ * Upsert by id; the version it replaces goes to history (two devices: arrival order decides).
+ * `server` holds the server's own fields of the row beside the device's values.
+ */
+function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values: object, actor: Actor, server?: Record<string, unknown>) {
   const table = ENTITY[entity];
-  const row = { ...values, memberId: actor.id, seq: tx.seq(), ...(entity === "photo" ? {} : { updatedAt: Date.now() }) };
+  const extra = server ?? (entity === "photo" ? { memberId: actor.id, seq: tx.seq() } : { memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
   if (existing) {
     keepHistory(tx.db, entity, existing.id, actor.id, existing as unknown as Record<string, unknown>);
-    updateRow(tx.db, table, existing.id, row);
+    updateRow(tx.db, table, existing.id, values as Record<string, unknown>, extra);
   } else {
-    insertRow(tx.db, table, row);
+    insertRow(tx.db, table, values as Record<string, unknown>, extra);
   }
 }
 
@@ -142,9 +145,9 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
       logger.warn({ code: "estimate_mismatch", weighIn: w.id, device: reported.data.engineVersion, server: server.engineVersion }, "device estimate differs");
       deviceEstimate = reported.data;
     }
-    const values = { ...w, deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch };
     return () => {
-      upsert(tx, "weighIn", existing, values, actor);
+      const fields = { deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() };
+      upsert(tx, "weighIn", existing, w, actor, fields);
       if (existing) refreshWeighInFigures(tx.db, w.findId);
       else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams });
     };
