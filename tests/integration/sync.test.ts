@@ -266,6 +266,46 @@ describe("weigh-ins", () => {
     expect(byId[odd.id].mismatch).toBe(1);
     expect(byId[odd.id].g).toBe(honest.deviceEstimate.fineGoldGrams);
   });
+
+  it("go with their find when it comes in the same push, and not after it was deleted in that push", async () => {
+    const f = newFind();
+    const gone = newFind();
+    const res = await push(member, uuidv7(), [
+      { id: 1, name: "find.put", args: f },
+      { id: 2, name: "weighIn.put", args: newWeighIn(f.id) },
+      { id: 3, name: "find.put", args: gone },
+      { id: 4, name: "find.delete", args: { id: gone.id } },
+      { id: 5, name: "weighIn.put", args: newWeighIn(gone.id) },
+    ]);
+    expect(res.body.results?.map((r: { status: string; reason?: string }) => r.reason ?? r.status)).toEqual(["applied", "applied", "applied", "applied", "deleted"]);
+    const latest = db.$client.prepare("select latest_fine_grams g from finds where id = ?").get(f.id) as { g: number | null };
+    expect(latest.g).not.toBeNull();
+  });
+
+  it("call a device figure equal only when every key and every bit agree", async () => {
+    const client = uuidv7();
+    const f = newFind();
+    const base = newWeighIn(f.id);
+    const e = base.deviceEstimate;
+    // Keys in another order are the same figure; one key fewer, one more, or a density one ulp off is not.
+    const reordered = Object.fromEntries(Object.entries(e).reverse());
+    const { warnings: _w, ...lacking } = e;
+    const extra = { ...e, note: null };
+    const ulpOff = { ...e, specimenDensity: e.specimenDensity + e.specimenDensity * Number.EPSILON };
+    expect(ulpOff.specimenDensity).not.toBe(e.specimenDensity);
+    const cases = { reordered, lacking, extra, ulpOff };
+    const ids: Record<string, string> = {};
+    const mutations = [{ id: 1, name: "find.put", args: f }, ...Object.entries(cases).map(([k, deviceEstimate], i) => {
+      const w = { ...newWeighIn(f.id), deviceEstimate };
+      ids[k] = w.id;
+      return { id: i + 2, name: "weighIn.put", args: w };
+    })];
+    const res = await push(member, client, mutations);
+    expect(res.body.results?.map((r: { status: string }) => r.status)).toEqual(["applied", "applied", "rejected", "rejected", "applied"]);
+    const mismatch = (id: string) => (db.$client.prepare("select mismatch from weigh_ins where id = ?").get(id) as { mismatch: number }).mismatch;
+    expect(mismatch(ids.reordered)).toBe(0);
+    expect(mismatch(ids.ulpOff)).toBe(1);
+  });
 });
 
 describe("a refused change writes nothing", () => {
