@@ -80,10 +80,10 @@ export async function syncIngest() {
 
 /** Ledger summary and first page over the large club, against the bare SQL aggregate. */
 export async function ledger() {
-  const file = path.join(OUT, "large.db");
+  const file = path.join(OUT, "large-v2.db");
   if (!fs.existsSync(file)) {
-    console.log("(making the large club once: 500 members, 250 000 finds, 1 000 000 weigh-ins…)");
-    freshDb("large.db");
+    console.log("(making the large club once: 500 members, 250 000 finds, 1 000 000 weigh-ins, 37 monthly prices…)");
+    freshDb("large-v2.db");
     seedLargeClub(getDb());
   }
   closeDb();

@@ -75,6 +75,75 @@ describe("the club ledger", () => {
     expect(byDate.summary.value).not.toBeCloseTo(today.summary.value, 2);
   });
 
+  // The price in force on a find's day, straight from SQL: the latest price dated on or before
+  // that day (of two on one day, the later entered); none before the first.
+  const PRICE_ON_DAY = `(select p.price_per_troy_ounce from reference_prices p
+    where unixepoch(p.effective_on) * 1000 <= f.found_at order by p.effective_on desc, p.created_at desc limit 1)`;
+
+  it("values each find at the price in force on its day, in the totals and on every row", async () => {
+    const prices = sql<{ n: number }>("select count(*) n from reference_prices").n;
+    expect(prices).toBeGreaterThan(1);
+    const body = await ledger("pageSize=200&sort=weight");
+    const plain = sql<{ value: number; priced: number }>(
+      `select sum(f.latest_fine_grams * ${PRICE_ON_DAY} / ${TROY_OUNCE_GRAMS}) value, count(${PRICE_ON_DAY}) priced from finds f where f.deleted_at is null`,
+    );
+    expect(plain.priced).toBeGreaterThan(0);
+    expect(body.summary.value).toBeCloseTo(plain.value, 6);
+    for (const row of body.rows) {
+      const expected = sql<{ price: number | null }>(`select ${PRICE_ON_DAY} price from finds f where f.id = ?`, row.id).price;
+      expect(row.price).toBe(expected);
+      expect(row.value).toBe(expected === null || row.fineGrams === null ? null : (row.fineGrams * expected) / TROY_OUNCE_GRAMS);
+    }
+  });
+
+  it("pages through every sort in the sort's order, each find once", async () => {
+    const total = sql<{ n: number }>("select count(*) n from finds where deleted_at is null").n;
+    const key: Record<string, (r: { weightGrams: number | null; fineGrams: number | null; memberName: string | null; claimName: string | null; foundAt: number; kind: string }) => number | string | null> = {
+      foundAt: (r) => r.foundAt,
+      weight: (r) => r.weightGrams,
+      fine: (r) => r.fineGrams,
+      member: (r) => r.memberName,
+      claim: (r) => r.claimName,
+      kind: (r) => r.kind,
+    };
+    for (const [sort, of] of Object.entries(key)) {
+      for (const dir of ["asc", "desc"]) {
+        const seen: ReturnType<typeof of>[] = [];
+        const ids = new Set<string>();
+        for (let page = 1; ; page++) {
+          const body = await ledger(`sort=${sort}&dir=${dir}&pageSize=30&page=${page}`);
+          for (const r of body.rows) {
+            ids.add(r.id);
+            seen.push(of(r));
+          }
+          if (body.rows.length < 30) break;
+        }
+        expect(ids.size, `${sort} ${dir}`).toBe(total);
+        // Nulls last either way; the rest in order.
+        const values = seen.filter((v) => v !== null);
+        expect(seen.slice(values.length).every((v) => v === null), `${sort} ${dir} nulls last`).toBe(true);
+        const sorted = [...values].sort((a, b) => (a! < b! ? -1 : a! > b! ? 1 : 0));
+        expect(values, `${sort} ${dir}`).toEqual(dir === "asc" ? sorted : sorted.reverse());
+      }
+    }
+  });
+
+  it("production by month adds up to the season's plain totals", async () => {
+    const res = await getProduction(req("/api/club/production?season=2026", { cookie: officer }), none);
+    expect(res.status).toBe(200);
+    const { months } = (await res.json()) as { months: { finds: number; weightGrams: number; fineGrams: number }[] };
+    const plain = sql<{ n: number; w: number; fine: number }>(
+      `select count(*) n, sum(f.weight_grams) w,
+              sum((select w.fine_gold_grams from weigh_ins w where w.find_id = f.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1)) fine
+       from finds f where f.deleted_at is null and f.found_at >= ? and f.found_at < ?`,
+      Date.UTC(2026, 0, 1),
+      Date.UTC(2027, 0, 1),
+    );
+    expect(months.reduce((n, m) => n + m.finds, 0)).toBe(plain.n);
+    expect(months.reduce((n, m) => n + m.weightGrams, 0)).toBeCloseTo(plain.w, 6);
+    expect(months.reduce((n, m) => n + m.fineGrams, 0)).toBeCloseTo(plain.fine, 6);
+  });
+
   it("refuses bad filters with the field named", async () => {
     const res = await getLedger(req("/api/club/ledger?season=abc&sort=colour", { cookie: officer }), none);
     expect(res.status).toBe(400);

@@ -8,28 +8,83 @@ import { getDb } from "../db";
 // The latest weigh-in's figures and the review state are kept on each find row (see
 // figures.ts). The reference price in force on a find's day comes from the price periods:
 // each price runs from its date to the next one's; "today" uses the latest price for all.
-function periods(mode: LedgerQuery["price"]): SQL {
-  return mode === "today"
-    ? sql.raw(`periods as materialized (select price_per_troy_ounce as price, currency, 0 as start_ms, 9e15 as end_ms from reference_prices order by effective_on desc, created_at desc limit 1)`)
-    : sql.raw(
-        `periods as materialized (select price_per_troy_ounce as price, currency, unixepoch(effective_on) * 1000 as start_ms, coalesce(lead(unixepoch(effective_on) * 1000) over (order by effective_on, created_at), 9e15) as end_ms from reference_prices)`,
-      );
-}
-const PRICE_JOIN = sql.raw(`left join periods p on f.found_at >= p.start_ms and f.found_at < p.end_ms`);
+// Prices are applied outside SQL: a join on date ranges searched every period for every row
+// (a season of a large club with monthly prices took 0.3 s for totals and 0.5 s for a page
+// sorted by anything but date).
 
-function where(q: LedgerQuery): SQL {
+/** The filters other than time; time is a found_at range (see timeBounds). */
+function filters(q: LedgerQuery): SQL[] {
   const parts: SQL[] = [sql`f.deleted_at is null`];
   if (q.claimId) parts.push(sql`f.claim_id = ${q.claimId}`);
   if (q.memberId) parts.push(sql`f.member_id = ${q.memberId}`);
   if (q.kind) parts.push(sql`f.kind = ${q.kind}`);
-  if (q.season) {
-    const { start, end } = seasonBounds(q.season);
-    parts.push(sql`f.found_at >= ${start} and f.found_at < ${end}`);
-  }
-  if (q.from) parts.push(sql`f.found_at >= ${Date.parse(`${q.from}T00:00:00Z`)}`);
-  if (q.to) parts.push(sql`f.found_at < ${Date.parse(`${q.to}T00:00:00Z`) + 86_400_000}`);
   if (q.state) parts.push(sql`f.review_state = ${q.state}`);
+  return parts;
+}
+
+const NEVER = -9e15;
+const FOREVER = 9e15;
+
+/** Season, from and to as one found_at range [start, end). */
+function timeBounds(q: LedgerQuery): { start: number; end: number } {
+  let start = NEVER;
+  let end = FOREVER;
+  if (q.season) ({ start, end } = seasonBounds(q.season));
+  if (q.from) start = Math.max(start, Date.parse(`${q.from}T00:00:00Z`));
+  if (q.to) end = Math.min(end, Date.parse(`${q.to}T00:00:00Z`) + 86_400_000);
+  return { start, end };
+}
+
+/** Only the bounds that bound anything, so an unbounded query keeps the planner's other indexes in play. */
+function where(q: LedgerQuery, bounds = timeBounds(q)): SQL {
+  const parts = filters(q);
+  if (bounds.start > NEVER) parts.push(sql`f.found_at >= ${bounds.start}`);
+  if (bounds.end < FOREVER) parts.push(sql`f.found_at < ${bounds.end}`);
   return sql.join(parts, sql` and `);
+}
+
+type Span = { price: number | null; currency: string | null; start: number; end: number };
+
+/**
+ * The price periods as found_at ranges: each price runs from its date to the next one's (of
+ * two on one date, the later entered), and the time before the first has no price; "today"
+ * puts every find under the latest price.
+ */
+function priceSpans(mode: LedgerQuery["price"]): Span[] {
+  const prices = getDb().$client
+    .prepare("select price_per_troy_ounce as price, currency, unixepoch(effective_on) * 1000 as start from reference_prices order by effective_on, created_at")
+    .all() as { price: number; currency: string; start: number }[];
+  if (prices.length === 0) return [{ price: null, currency: null, start: NEVER, end: FOREVER }];
+  if (mode === "today") return [{ ...prices[prices.length - 1], start: NEVER, end: FOREVER }];
+  return [
+    { price: null, currency: null, start: NEVER, end: prices[0].start },
+    ...prices.map((p, i) => ({ price: p.price, currency: p.currency, start: p.start, end: i + 1 < prices.length ? prices[i + 1].start : FOREVER })),
+  ];
+}
+
+/**
+ * Totals as one plain aggregate per price period, each an index range on found_at over the
+ * covering ledger index (the bare aggregate's plan): the value is each period's fine gold
+ * times its price, with no price lookup or product per row.
+ */
+function ledgerSummary(q: LedgerQuery, spans: Span[]): LedgerPage["summary"] {
+  const bounds = timeBounds(q);
+  const summary: LedgerPage["summary"] = { finds: 0, weightGrams: 0, fineGrams: 0, value: 0, currency: null };
+  for (const span of spans) {
+    const start = Math.max(span.start, bounds.start);
+    const end = Math.min(span.end, bounds.end);
+    if (start >= end) continue;
+    const part = getDb().get<{ finds: number; weight: number | null; fine: number | null }>(
+      sql`select count(*) as finds, sum(f.weight_grams) as weight, sum(f.latest_fine_grams) as fine from finds f where ${where(q, { start, end })}`,
+    );
+    if (part.finds === 0) continue;
+    summary.finds += part.finds;
+    summary.weightGrams += part.weight ?? 0;
+    summary.fineGrams += part.fine ?? 0;
+    if (span.price !== null) summary.value += ((part.fine ?? 0) * span.price) / TROY_OUNCE_GRAMS;
+    if (span.currency !== null && (summary.currency === null || span.currency > summary.currency)) summary.currency = span.currency;
+  }
+  return summary;
 }
 
 const ORDER: Record<LedgerQuery["sort"], string> = {
@@ -44,46 +99,55 @@ const ORDER: Record<LedgerQuery["sort"], string> = {
 const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName, f.claim_id as claimId, c.name as claimName,
   f.found_at as foundAt, f.kind, f.method, f.weight_grams as weightGrams,
   f.latest_alloy_grams as alloyGrams, f.latest_fine_grams as fineGrams, f.latest_fine_low as fineLow, f.latest_fine_high as fineHigh,
-  p.price as price, p.currency as currency, f.latest_fine_grams * p.price / ${TROY_OUNCE_GRAMS} as value, f.review_state as state`);
+  f.review_state as state`);
 
-function rows(q: LedgerQuery, tail: SQL): SQL {
-  return sql`with ${periods(q.price)}
-    select ${ROW_COLUMNS}
-    from finds f join members m on m.id = f.member_id left join claims c on c.id = f.claim_id ${PRICE_JOIN}
-    where ${where(q)} ${tail}`;
+type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value">;
+
+function rows(q: LedgerQuery, tail: SQL): UnpricedRow[] {
+  return getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS}
+    from finds f join members m on m.id = f.member_id left join claims c on c.id = f.claim_id
+    where ${where(q)} ${tail}`);
 }
 
+/** Each row's price in force on its day (a binary search of the periods, which tile all time) and its value. */
+function withPrices(list: UnpricedRow[], spans: Span[]): LedgerRow[] {
+  return list.map((r) => {
+    let lo = 0;
+    let hi = spans.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (spans[mid].start <= r.foundAt) lo = mid;
+      else hi = mid - 1;
+    }
+    const { price, currency } = spans[lo];
+    return { ...r, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+  });
+}
+
+/** What the page's sort needs beside the find row itself. */
+const SORT_JOIN: Partial<Record<LedgerQuery["sort"], string>> = {
+  member: "join members m on m.id = f.member_id",
+  claim: "left join claims c on c.id = f.claim_id",
+};
+
 export function ledgerPage(q: LedgerQuery): LedgerPage {
-  const db = getDb();
-  return db.transaction((tx) => {
-    // Each price period (and the time before the first) is the outer loop, an index range on
-    // found_at the inner one (CROSS JOIN fixes that order in SQLite): one pass over the rows, as
-    // the bare aggregate makes, instead of a search of the periods for every row.
-    const summary = tx.get<{ finds: number; weight: number | null; fine: number | null; value: number | null; currency: string | null }>(sql`
-      with ${periods(q.price)},
-      spans as (
-        select price, currency, start_ms, end_ms from periods
-        union all select null, null, -9e15, coalesce((select min(start_ms) from periods), 9e15)
-      )
-      select count(*) as finds, sum(f.weight_grams) as weight, sum(f.latest_fine_grams) as fine,
-             sum(f.latest_fine_grams * s.price) / ${TROY_OUNCE_GRAMS} as value, max(s.currency) as currency
-      from spans s cross join finds f on f.found_at >= s.start_ms and f.found_at < s.end_ms
-      where ${where(q)}`);
-    const order = sql.raw(`order by ${ORDER[q.sort]} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.id`);
-    const page = tx.all<LedgerRow>(rows(q, sql`${order} limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}`));
-    return {
-      rows: page,
-      total: summary.finds,
-      summary: { finds: summary.finds, weightGrams: summary.weight ?? 0, fineGrams: summary.fine ?? 0, value: summary.value ?? 0, currency: summary.currency },
-      page: q.page,
-      pageSize: q.pageSize,
-    };
+  return getDb().transaction(() => {
+    const spans = priceSpans(q.price);
+    const summary = ledgerSummary(q, spans);
+    // The page is chosen on sort keys alone (for most sorts, from the covering ledger index),
+    // then only its rows are read whole: a sort of whole joined rows took 0.25 s on a large
+    // club's season. Ties fall back to the row's place in the table, which is stable.
+    const order = sql.raw(`order by ${ORDER[q.sort]} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.rowid`);
+    const chosen = sql`(select f.rowid as rid from finds f ${sql.raw(SORT_JOIN[q.sort] ?? "")} where ${where(q)} ${order} limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}) page`;
+    const list = getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS}
+      from ${chosen} join finds f on f.rowid = page.rid join members m on m.id = f.member_id left join claims c on c.id = f.claim_id ${order}`);
+    return { rows: withPrices(list, spans), total: summary.finds, summary, page: q.page, pageSize: q.pageSize };
   });
 }
 
 /** Every row the filters select, for export (bounded). */
 export function ledgerRows(q: LedgerQuery, max = 200_000): LedgerRow[] {
-  return getDb().all<LedgerRow>(rows(q, sql`order by f.found_at, f.id limit ${max}`));
+  return getDb().transaction(() => withPrices(rows(q, sql`order by f.found_at, f.id limit ${max}`), priceSpans(q.price)));
 }
 
 /** Seasons that have finds, newest first, for the filters. */

@@ -6,8 +6,9 @@ import type { Db } from "../db";
 import { refreshAllFigures } from "../club/figures";
 import { claimPolygon } from "./demo-club";
 
-export type LargeClubSize = { members: number; finds: number; weighIns: number; claims: number };
-export const LARGE_CLUB: LargeClubSize = { members: 500, finds: 250_000, weighIns: 1_000_000, claims: 20 };
+export type LargeClubSize = { members: number; finds: number; weighIns: number; claims: number; priceMonths: number };
+/** Three seasons of finds, with a reference price set on the first of every month (as a club that keeps it current would). */
+export const LARGE_CLUB: LargeClubSize = { members: 500, finds: 250_000, weighIns: 1_000_000, claims: 20, priceMonths: 37 };
 
 /**
  * An invented large club for benchmarks: members, claims, finds and weigh-ins written in one
@@ -35,6 +36,7 @@ export function seedLargeClub(db: Db, size: LargeClubSize = LARGE_CLUB, password
   const insertWeighIn = sqlite.prepare(
     "insert into weigh_ins (id, member_id, find_id, input, device_estimate, server_estimate, engine_version, fine_gold_grams, gold_alloy_grams, weighed_at, seq) values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
   );
+  const insertPrice = sqlite.prepare("insert into reference_prices (id, effective_on, price_per_troy_ounce, currency, recorded_by, seq) values (?, ?, ?, 'USD', ?, ?)");
   const kinds = ["nugget", "specimen", "flakes", "fines", "crystalline"];
   const methods = ["detecting", "panning", "sluicing", "drywashing"];
   sqlite.transaction(() => {
@@ -42,6 +44,11 @@ export function seedLargeClub(db: Db, size: LargeClubSize = LARGE_CLUB, password
     claimIds.forEach((id, i) =>
       insertClaim.run(id, `Claim ${i + 1}`, i % 4 === 0 ? "lode" : "placer", `BIG-${i}`, JSON.stringify(claimPolygon({ lat: 40 + i * 0.01, lon: -117 - i * 0.01, halfW: 300, halfH: 150, turn: 0 })), ++seq),
     );
+    // Invented prices drifting around 2 000 a troy ounce, one a month back from the last.
+    for (let m = 0; m < size.priceMonths; m++) {
+      const month = new Date(Date.UTC(2026, 10 - m, 1));
+      insertPrice.run(uuidv7({ msecs: month.getTime() }), month.toISOString().slice(0, 10), Math.round(1800 + 400 * rand()), memberIds[0], ++seq);
+    }
     const perFind = size.weighIns / size.finds;
     let weighed = 0;
     for (let i = 0; i < size.finds; i++) {
