@@ -1,6 +1,6 @@
 import { centralPoint, QUANTITY_KEYS, type ResolvedInput } from "./input";
 import { goldAlloyDensity } from "./alloy";
-import { alloyInMixture, evaluateMixture, evaluateModel, weighedSpecimen, type ModelPoint, type ModelResult } from "./model";
+import { alloyInMixture, evaluateMixture, evaluateModel, weighedSpecimen, type ModelPoint, type ModelResult, type ModelSettings } from "./model";
 import { WATER_DENSEST_C, WATER_TEMP_MAX_C, WATER_TEMP_MIN_C, waterDensity } from "./water";
 
 type Pair = [number, number];
@@ -20,41 +20,49 @@ const DOMAIN: Record<keyof ModelPoint, Pair> = {
  * on the same values as evaluateModel, so the same bits).
  */
 export function cornerRange(r: ResolvedInput): { alloy: Pair; fine: Pair; density: Pair } {
-  const alloy: Pair = [Infinity, -Infinity];
-  const fine: Pair = [Infinity, -Infinity];
-  const density: Pair = [Infinity, -Infinity];
   const s = r.settings;
-  const fineLo = r.fineness.lo;
-  const fineHi = r.fineness.hi;
-  const alloyLo = s.goldDensity ?? goldAlloyDensity(fineLo);
-  const alloyHi = s.goldDensity ?? goldAlloyDensity(fineHi);
-  const specimen = { density: 0, mass: 0 };
-  const corner = (rhoW: number, air: number, water: number) => {
-    weighedSpecimen(air, water, s, rhoW, specimen);
-    widen(density, specimen.density);
-    for (let h = 0; h < 2; h++) {
-      const host = h === 0 ? r.host.lo : r.host.hi;
-      const alloyAtLo = alloyInMixture(specimen.mass, specimen.density, host, alloyLo);
-      const alloyAtHi = alloyInMixture(specimen.mass, specimen.density, host, alloyHi);
-      widen(alloy, alloyAtLo);
-      widen(alloy, alloyAtHi);
-      widen(fine, (alloyAtLo * fineLo) / 1000);
-      widen(fine, (alloyAtHi * fineHi) / 1000);
-    }
+  const box: CornerBox = {
+    r,
+    alloyLo: s.goldDensity ?? goldAlloyDensity(r.fineness.lo),
+    alloyHi: s.goldDensity ?? goldAlloyDensity(r.fineness.hi),
+    specimen: { density: 0, mass: 0 },
+    alloy: [Infinity, -Infinity],
+    fine: [Infinity, -Infinity],
+    density: [Infinity, -Infinity],
   };
-  const at = (tempC: number) => {
-    const rhoW = waterDensity(tempC);
-    corner(rhoW, r.air.lo, r.water.lo);
-    corner(rhoW, r.air.lo, r.water.hi);
-    corner(rhoW, r.air.hi, r.water.lo);
-    corner(rhoW, r.air.hi, r.water.hi);
-  };
-  at(r.tempC.lo);
-  at(r.tempC.hi);
+  cornersAt(box, r.tempC.lo);
+  cornersAt(box, r.tempC.hi);
   // Water is densest near 3.98 °C, so below it the model runs the other way in temperature:
   // that turning point is a candidate extreme too when the span straddles it.
-  if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) at(WATER_DENSEST_C);
-  return { alloy, fine, density };
+  if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) cornersAt(box, WATER_DENSEST_C);
+  return { alloy: box.alloy, fine: box.fine, density: box.density };
+}
+
+/** The range search's state: plain functions over it rather than closures made per call. */
+type CornerBox = { r: ResolvedInput; alloyLo: number; alloyHi: number; specimen: { density: number; mass: number }; alloy: Pair; fine: Pair; density: Pair };
+
+function cornersAt(box: CornerBox, tempC: number) {
+  const rhoW = waterDensity(tempC);
+  const { air, water } = box.r;
+  corner(box, rhoW, air.lo, water.lo);
+  corner(box, rhoW, air.lo, water.hi);
+  corner(box, rhoW, air.hi, water.lo);
+  corner(box, rhoW, air.hi, water.hi);
+}
+
+function corner(box: CornerBox, rhoW: number, air: number, water: number) {
+  const { r, specimen } = box;
+  weighedSpecimen(air, water, r.settings, rhoW, specimen);
+  widen(box.density, specimen.density);
+  for (let h = 0; h < 2; h++) {
+    const host = h === 0 ? r.host.lo : r.host.hi;
+    const alloyAtLo = alloyInMixture(specimen.mass, specimen.density, host, box.alloyLo);
+    const alloyAtHi = alloyInMixture(specimen.mass, specimen.density, host, box.alloyHi);
+    widen(box.alloy, alloyAtLo);
+    widen(box.alloy, alloyAtHi);
+    widen(box.fine, (alloyAtLo * r.fineness.lo) / 1000);
+    widen(box.fine, (alloyAtHi * r.fineness.hi) / 1000);
+  }
 }
 
 function widen(pair: Pair, v: number) {
@@ -74,8 +82,7 @@ export function gumUncertainty(r: ResolvedInput): { alloy: number; fine: number 
   const alloyCentre = s.goldDensity ?? goldAlloyDensity(centre.fineness);
   const up: ModelResult = { density: 0, volume: 0, mass: 0, alloyDensity: 0, alloy: 0, fine: 0 };
   const down: ModelResult = { ...up };
-  const at = (p: ModelPoint, out: ModelResult) =>
-    evaluateMixture(p, s, p.tempC === centre.tempC ? rhoWCentre : waterDensity(p.tempC), p.fineness === centre.fineness ? alloyCentre : (s.goldDensity ?? goldAlloyDensity(p.fineness)), out);
+  const at = { centre, rhoWCentre, alloyCentre };
   let alloy2 = 0;
   let fine2 = 0;
   const p = { ...centre };
@@ -88,9 +95,9 @@ export function gumUncertainty(r: ResolvedInput): { alloy: number; fine: number 
     const xUp = Math.min(centre[key] + h, max);
     const xDown = Math.max(centre[key] - h, min);
     p[key] = xUp;
-    at(p, up);
+    evaluateNear(at, p, s, up);
     p[key] = xDown;
-    at(p, down);
+    evaluateNear(at, p, s, down);
     p[key] = centre[key];
     const cAlloy = (up.alloy - down.alloy) / (xUp - xDown);
     const cFine = (up.fine - down.fine) / (xUp - xDown);
@@ -98,6 +105,13 @@ export function gumUncertainty(r: ResolvedInput): { alloy: number; fine: number 
     fine2 += cFine * u * (cFine * u);
   }
   return { alloy: Math.sqrt(alloy2), fine: Math.sqrt(fine2) };
+}
+
+/** The model at a point one step from the centre, reusing the centre's water and alloy densities where they hold. */
+function evaluateNear(at: { centre: ModelPoint; rhoWCentre: number; alloyCentre: number }, p: ModelPoint, s: ModelSettings, out: ModelResult) {
+  const rhoW = p.tempC === at.centre.tempC ? at.rhoWCentre : waterDensity(p.tempC);
+  const alloyDensity = p.fineness === at.centre.fineness ? at.alloyCentre : (s.goldDensity ?? goldAlloyDensity(p.fineness));
+  return evaluateMixture(p, s, rhoW, alloyDensity, out);
 }
 
 /** Small, fast, seedable generator (mulberry32); the same seed gives the same stream anywhere. */
