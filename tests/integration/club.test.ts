@@ -110,11 +110,15 @@ describe("the club ledger", () => {
       for (const dir of ["asc", "desc"]) {
         const seen: ReturnType<typeof of>[] = [];
         const ids = new Set<string>();
+        let previous: { key: ReturnType<typeof of>; foundAt: number } | undefined;
         for (let page = 1; ; page++) {
           const body = await ledger(`sort=${sort}&dir=${dir}&pageSize=30&page=${page}`);
           for (const r of body.rows) {
             ids.add(r.id);
             seen.push(of(r));
+            // Equal keys: newest first.
+            if (previous && previous.key === of(r)) expect(r.foundAt, `${sort} ${dir} ties`).toBeLessThanOrEqual(previous.foundAt);
+            previous = { key: of(r), foundAt: r.foundAt };
           }
           if (body.rows.length < 30) break;
         }

@@ -136,8 +136,8 @@ export function ledgerPage(q: LedgerQuery): LedgerPage {
     const summary = ledgerSummary(q, spans);
     // The page is chosen on sort keys alone (for most sorts, from the covering ledger index),
     // then only its rows are read whole: a sort of whole joined rows took 0.25 s on a large
-    // club's season. Ties fall back to the row's place in the table, which is stable.
-    const order = sql.raw(`order by ${ORDER[q.sort]} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.rowid`);
+    // club's season. Ties go newest first, then by the row's place in the table (stable).
+    const order = sql.raw(`order by ${ORDER[q.sort]} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.found_at desc, f.rowid`);
     const chosen = sql`(select f.rowid as rid from finds f ${sql.raw(SORT_JOIN[q.sort] ?? "")} where ${where(q)} ${order} limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}) page`;
     const list = getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS}
       from ${chosen} join finds f on f.rowid = page.rid join members m on m.id = f.member_id left join claims c on c.id = f.claim_id ${order}`);
