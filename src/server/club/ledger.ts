@@ -4,6 +4,7 @@ import { TROY_OUNCE_GRAMS } from "@/lib/estimate/units";
 import type { LedgerPage, LedgerQuery, LedgerRow } from "@/lib/club/ledger";
 import { seasonBounds } from "@/lib/season";
 import { getDb } from "../db";
+import { listPrices } from "./prices";
 
 // The latest weigh-in's figures and the review state are kept on each find row (see
 // figures.ts). The reference price in force on a find's day comes from the price periods:
@@ -51,9 +52,9 @@ type Span = { price: number | null; currency: string | null; start: number; end:
  * puts every find under the latest price.
  */
 function priceSpans(mode: LedgerQuery["price"]): Span[] {
-  const prices = getDb().$client
-    .prepare("select price_per_troy_ounce as price, currency, unixepoch(effective_on) * 1000 as start from reference_prices order by effective_on, created_at")
-    .all() as { price: number; currency: string; start: number }[];
+  const prices = listPrices()
+    .reverse()
+    .map((p) => ({ price: p.pricePerTroyOunce, currency: p.currency, start: Date.parse(`${p.effectiveOn}T00:00:00Z`) }));
   if (prices.length === 0) return [{ price: null, currency: null, start: NEVER, end: FOREVER }];
   if (mode === "today") return [{ ...prices[prices.length - 1], start: NEVER, end: FOREVER }];
   return [
@@ -103,10 +104,12 @@ const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName
 
 type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value">;
 
+const MEMBER_JOIN = "join members m on m.id = f.member_id";
+const CLAIM_JOIN = "left join claims c on c.id = f.claim_id";
+const ROW_JOINS = sql.raw(`${MEMBER_JOIN} ${CLAIM_JOIN}`);
+
 function rows(q: LedgerQuery, tail: SQL): UnpricedRow[] {
-  return getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS}
-    from finds f join members m on m.id = f.member_id left join claims c on c.id = f.claim_id
-    where ${where(q)} ${tail}`);
+  return getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS} from finds f ${ROW_JOINS} where ${where(q)} ${tail}`);
 }
 
 /** Each row's price in force on its day (a binary search of the periods, which tile all time) and its value. */
@@ -125,10 +128,7 @@ function withPrices(list: UnpricedRow[], spans: Span[]): LedgerRow[] {
 }
 
 /** What the page's sort needs beside the find row itself. */
-const SORT_JOIN: Partial<Record<LedgerQuery["sort"], string>> = {
-  member: "join members m on m.id = f.member_id",
-  claim: "left join claims c on c.id = f.claim_id",
-};
+const SORT_JOIN: Partial<Record<LedgerQuery["sort"], string>> = { member: MEMBER_JOIN, claim: CLAIM_JOIN };
 
 export function ledgerPage(q: LedgerQuery): LedgerPage {
   return getDb().transaction(() => {
@@ -139,8 +139,7 @@ export function ledgerPage(q: LedgerQuery): LedgerPage {
     // club's season. Ties go newest first, then by the row's place in the table (stable).
     const order = sql.raw(`order by ${ORDER[q.sort]} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.found_at desc, f.rowid`);
     const chosen = sql`(select f.rowid as rid from finds f ${sql.raw(SORT_JOIN[q.sort] ?? "")} where ${where(q)} ${order} limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}) page`;
-    const list = getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS}
-      from ${chosen} join finds f on f.rowid = page.rid join members m on m.id = f.member_id left join claims c on c.id = f.claim_id ${order}`);
+    const list = getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS} from ${chosen} join finds f on f.rowid = page.rid ${ROW_JOINS} ${order}`);
     return { rows: withPrices(list, spans), total: summary.finds, summary, page: q.page, pageSize: q.pageSize };
   });
 }
