@@ -27,6 +27,9 @@ const withSerwist = withSerwistInit({
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
+  // Server actions here are short forms (sign-in, joining); Next counts the body as it
+  // streams and refuses it past this size, before any action runs.
+  experimental: { serverActions: { bodySizeLimit: "64kb" } },
   serverExternalPackages: ["better-sqlite3", "smtp-server", "mailparser", "pino"],
   webpack(config, { isServer, dev }) {
     // The member layout and its screens share small modules (device database, logbook). Below

@@ -71,7 +71,8 @@ export async function offlineOpen(browser: Browser, baseUrl: string) {
 /** 50 members pushing 100-change batches at once on loopback. */
 export async function concurrency(baseUrl: string, members: { id: string; email: string }[], countFinds: (ids: string[]) => number) {
   const secret = process.env.AUTH_SECRET!;
-  const cookies = await Promise.all(members.map(async (m) => `authjs.session-token=${await encode({ token: { sub: m.id, email: m.email, sv: 0 }, secret, salt: "authjs.session-token" })}`));
+  const { openSession } = await import("../src/server/auth/sessions");
+  const cookies = await Promise.all(members.map(async (m) => `authjs.session-token=${await encode({ token: { sub: m.id, email: m.email, sv: 0, sid: openSession(m.id) }, secret, salt: "authjs.session-token" })}`));
   // One push first, not counted: it loads the route's module, as any running server has.
   await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie: cookies[0], origin: baseUrl }, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }] }) });
   // Three rounds, each with fresh devices; the bodies are made before the clock starts, so

@@ -10,6 +10,8 @@ import { startMailCatcher } from "./lib/mail-catcher";
 // npm run demo: migrate, seed if empty, build, then serve the app with its local stand-ins.
 applyLocalDefaults();
 const port = Number(process.env.PORT ?? 3000);
+// Every link in mail (sign-in, invitations) is built from this, never from the request.
+process.env.LODEBOOK_ORIGIN ??= `http://localhost:${port}`;
 const mailDir = path.resolve("data/mail");
 process.env.LODEBOOK_MAIL_DIR ??= mailDir;
 

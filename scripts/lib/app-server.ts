@@ -11,12 +11,14 @@ export function buildApp(env: NodeJS.ProcessEnv = process.env): Promise<void> {
   });
 }
 
+const SERVE = path.resolve("scripts/serve.mjs");
+
 /**
- * Starts the production server and waits until it answers. Stopped by the pid it was started
- * with: `next start` renames its process, so never look for it by name.
+ * Starts the production server (Next behind the front door, scripts/serve.mjs) and waits until
+ * it answers. Stopped by the pid it was started with, never looked for by name.
  */
 export async function startApp(opts: { port: number; env: NodeJS.ProcessEnv; quiet?: boolean }): Promise<{ url: string; child: ChildProcess; stop: () => Promise<void> }> {
-  const child = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(opts.port), "-H", "127.0.0.1"], {
+  const child = spawn(process.execPath, [SERVE, "--port", String(opts.port), "--hostname", "127.0.0.1"], {
     env: { ...opts.env, NODE_ENV: "production" },
     stdio: opts.quiet ? ["ignore", "ignore", "pipe"] : "inherit",
   });
@@ -25,7 +27,7 @@ export async function startApp(opts: { port: number; env: NodeJS.ProcessEnv; qui
   const url = `http://localhost:${opts.port}`;
   const deadline = Date.now() + 60_000;
   for (;;) {
-    if (child.exitCode !== null) throw new Error(`next start exited with ${child.exitCode}\n${stderr.join("")}`);
+    if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode}\n${stderr.join("")}`);
     try {
       const res = await fetch(`${url}/sign-in`);
       if (res.ok) break;

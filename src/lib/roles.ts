@@ -42,3 +42,6 @@ export function can(role: Role | undefined, capability: Capability): boolean {
 }
 
 export const ROLE_LABELS: Record<Role, string> = { member: "Member", officer: "Club officer" };
+
+/** Where each role lands after signing in when no other page was asked for. */
+export const ROLE_HOME: Record<Role, string> = { member: "/", officer: "/club" };

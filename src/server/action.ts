@@ -34,8 +34,3 @@ export function defineAction<S extends z.ZodType>(
     return (await act(parsed.data, actor)) ?? { ok: true };
   };
 }
-
-/** Only same-site paths: never an open redirect to another host. */
-export function safeReturnPath(from: unknown): string {
-  return typeof from === "string" && from.startsWith("/") && !from.startsWith("//") && !from.startsWith("/\\") ? from : "/";
-}

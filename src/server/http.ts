@@ -22,19 +22,41 @@ export function badRequest(subject: string, error: z.ZodError): AppError {
 
 export const MAX_JSON_BYTES = 1_000_000;
 
+/**
+ * A request's body, refused as soon as it passes `maxBytes`: a declared length over the limit
+ * is refused before a byte is read, and a chunked body (no declared length) is counted while
+ * it streams, so memory never holds more than the limit.
+ */
+export async function readBodyLimited(req: Request, maxBytes: number, subject: string, message = `The body is over ${maxBytes} bytes.`): Promise<Buffer> {
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw new AppError(`too_large:${subject}`, message);
+  if (!req.body) return Buffer.alloc(0);
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  const reader = req.body.getReader();
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw new AppError(`too_large:${subject}`, message);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks, size);
+}
+
 /** Reads a JSON body (refusing other content types and oversize bodies) and parses it with zod. */
 export async function parseJsonBody<T extends z.ZodType>(req: Request, schema: T, subject: string, maxBytes = MAX_JSON_BYTES): Promise<z.infer<T>> {
   const type = req.headers.get("content-type") ?? "";
   if (!type.toLowerCase().startsWith("application/json")) {
     throw new AppError(`unsupported:${subject}`, "Send the body as application/json.");
   }
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > maxBytes) throw new AppError(`too_large:${subject}`, `The body is over ${maxBytes} bytes.`);
-  const text = await req.text();
-  if (text.length > maxBytes) throw new AppError(`too_large:${subject}`, `The body is over ${maxBytes} bytes.`);
+  const bytes = await readBodyLimited(req, maxBytes, subject);
   let raw: unknown;
   try {
-    raw = JSON.parse(text);
+    raw = JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
   } catch {
     throw new AppError(`bad_request:${subject}`, "The body is not valid JSON.", { _: ["not valid JSON"] });
   }

@@ -7,8 +7,14 @@ import { AppError } from "./errors";
  * memory (one server process per club); a member who hits a limit affects nobody else.
  */
 export const LIMITS = {
-  signInPerAccount: { points: 10, duration: 60 },
+  /** Password attempts from one address, whatever the account (the per-account delay is in auth/sign-in-guard.ts). */
   signInPerAddress: { points: 30, duration: 60 },
+  /** Requests for a sign-in e-mail: per address, per account, and per account from one address, an hour. */
+  signInMailPerAddress: { points: 20, duration: 3600 },
+  signInMailPerAccount: { points: 6, duration: 3600 },
+  signInMailPerAccountAddress: { points: 3, duration: 3600 },
+  /** Invitation links tried from one address (joining), a minute. */
+  joinPerAddress: { points: 20, duration: 60 },
   pushPerAccount: { points: 120, duration: 60 },
   pushPerAddress: { points: 240, duration: 60 },
   photoPerAccount: { points: 120, duration: 60 },
@@ -24,11 +30,6 @@ function limiter(name: LimitName): RateLimiterMemory {
     limiters.set(name, l);
   }
   return l;
-}
-
-/** The caller's address as the server in front saw it (Next sets x-forwarded-for). */
-export function clientAddress(req: Request): string {
-  return req.headers.get("x-forwarded-for")?.split(",")[0]?.trim() || req.headers.get("x-real-ip") || "unknown";
 }
 
 /** Counts one attempt against each named limit; throws a 429 AppError carrying Retry-After. */

@@ -7,6 +7,7 @@ import type { Actor } from "./auth/actor";
 import { getDb } from "./db";
 import { photos } from "./db/schema";
 import { AppError } from "./errors";
+import { readBodyLimited } from "./http";
 import { inspectJpeg, stripJpegMetadata } from "./jpeg";
 import { photoStorage } from "./storage";
 
@@ -25,33 +26,13 @@ function photoFor(actor: Actor, id: string, forWrite: boolean) {
   return row;
 }
 
-async function readLimited(req: Request, max: number): Promise<Buffer> {
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > max) throw new AppError("too_large:photo", `A photo may be at most ${Math.round(max / 1024 / 1024)} MB after shrinking.`);
-  if (!req.body) return Buffer.alloc(0);
-  const chunks: Buffer[] = [];
-  let size = 0;
-  const reader = req.body.getReader();
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > max) {
-      await reader.cancel();
-      throw new AppError("too_large:photo", `A photo may be at most ${Math.round(max / 1024 / 1024)} MB after shrinking.`);
-    }
-    chunks.push(Buffer.from(value));
-  }
-  return Buffer.concat(chunks);
-}
-
 /**
  * Stores a photo's bytes after its record: idempotent by id and SHA-256, checked to be a real
  * JPEG within the size and pixel limits, kept under a server-made name.
  */
 export async function receivePhoto(actor: Actor, id: string, req: Request): Promise<{ stored: boolean; sha256: string }> {
   const row = photoFor(actor, id, true);
-  const bytes = await readLimited(req, MAX_PHOTO_BYTES);
+  const bytes = await readBodyLimited(req, MAX_PHOTO_BYTES, "photo", `A photo may be at most ${Math.round(MAX_PHOTO_BYTES / 1024 / 1024)} MB after shrinking.`);
   const sha256 = crypto.createHash("sha256").update(bytes).digest("hex");
   if (sha256 !== row.sha256) {
     throw new AppError("bad_request:photo", "The bytes do not match the photo's SHA-256: the upload was cut or changed. Send it again.", { sha256: ["mismatch"] });

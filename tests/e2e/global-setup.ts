@@ -40,6 +40,7 @@ export default async function setup(project: TestProject) {
     SMTP_HOST: "127.0.0.1",
     SMTP_PORT: String(smtpPort),
     LODEBOOK_LOG: "warn",
+    LODEBOOK_ORIGIN: `http://localhost:${appPort}`,
   };
   Object.assign(process.env, env);
 

@@ -5,6 +5,7 @@ import { GET as getMembers } from "@/app/api/club/members/route";
 import { GET as getMe } from "@/app/api/me/route";
 import { members } from "@/server/db/schema";
 import { hashPassword } from "@/server/auth/password";
+import { openSession } from "@/server/auth/sessions";
 import { seedDemoClub } from "@/server/seed/demo-club";
 import { databaseChecksum, freshDatabase, MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
 
@@ -98,7 +99,7 @@ describe("route handlers check the session and the role themselves", () => {
     const { db } = await seededDatabase();
     const member = memberByEmail(db, MEMBER_EMAIL);
     const name = "authjs.session-token";
-    const token = await encode({ token: { sub: member.id, sv: member.sv }, secret: process.env.AUTH_SECRET!, salt: name, maxAge: 60 });
+    const token = await encode({ token: { sub: member.id, sv: member.sv, sid: openSession(member.id) }, secret: process.env.AUTH_SECRET!, salt: name, maxAge: 60 });
     const cookie = `${name}=${token}`;
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);

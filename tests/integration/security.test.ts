@@ -8,6 +8,7 @@ import { resetLimits } from "@/server/limits";
 import type { Db } from "@/server/db";
 import { makeJpeg } from "../support/jpeg";
 import { newFind, push } from "../support/sync-client";
+import { discoverHandlers } from "../support/handlers";
 import { databaseChecksum, MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
 
 type Role = "anonymous" | "member" | "other" | "officer";
@@ -95,23 +96,6 @@ const MATRIX: Record<string, Row> = {
   "GET /api/club/backup": { expect: OFFICER_ONLY(200), request: () => ({}) },
 };
 
-function discoverHandlers(): { key: string; file: string; method: string }[] {
-  const root = path.resolve("src/app/api");
-  const out: { key: string; file: string; method: string }[] = [];
-  const walk = (dir: string) => {
-    for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
-      const full = path.join(dir, e.name);
-      if (e.isDirectory()) walk(full);
-      else if (e.name === "route.ts") {
-        const src = fs.readFileSync(full, "utf8");
-        const route = "/api/" + path.relative(root, dir).split(path.sep).join("/");
-        for (const m of ["GET", "POST", "PUT", "PATCH", "DELETE"]) if (new RegExp(`export const (\\{[^}]*\\b${m}\\b[^}]*\\}|${m}\\b)`).test(src)) out.push({ key: `${m} ${route}`, file: full, method: m });
-      }
-    }
-  };
-  walk(root);
-  return out;
-}
 
 describe("authorization matrix (RELIABILITY 23–25, 30)", () => {
   const handlers = discoverHandlers();
@@ -272,16 +256,7 @@ describe("abuse limits (RELIABILITY 29)", () => {
     expect(Number(limited?.headers.get("retry-after"))).toBeGreaterThan(0);
     expect((await send(cookies.other)).status).toBe(200);
   });
-  it("sign-in attempts: 429 for that account after ten a minute; another account still answered", async () => {
-    const { POST } = await import("@/app/api/auth/[...nextauth]/route");
-    const attempt = (email: string) =>
-      POST(req("/api/auth/callback/credentials", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: `email=${encodeURIComponent(email)}&password=wrong` }), { params: Promise.resolve({ nextauth: ["callback", "credentials"] }) });
-    const statuses: number[] = [];
-    for (let i = 0; i < 12; i++) statuses.push((await attempt(MEMBER_EMAIL)).status);
-    expect(statuses.slice(0, 10)).not.toContain(429);
-    expect(statuses[11]).toBe(429);
-    expect((await attempt(OTHER_MEMBER_EMAIL)).status).not.toBe(429);
-  });
+  // Sign-in limits: tests/integration/doors.test.ts.
 });
 
 describe("cross-site requests (RELIABILITY 27)", () => {

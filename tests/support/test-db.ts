@@ -5,6 +5,7 @@ import path from "node:path";
 import { encode } from "next-auth/jwt";
 import { closeDb, getDb, type Db } from "@/server/db";
 import { hashPassword } from "@/server/auth/password";
+import { openSession } from "@/server/auth/sessions";
 import { seedDemoClub } from "@/server/seed/demo-club";
 
 /** A fresh SQLite file in a temp folder, migrated, as the app's shared connection. */
@@ -33,9 +34,9 @@ export function databaseChecksum(db: Db): string {
 }
 
 /** A session cookie exactly as Auth.js would set it after signing in. */
-export async function sessionCookie(member: { id: string; email?: string }, sessionVersion = 0): Promise<string> {
+export async function sessionCookie(member: { id: string; email?: string }, sessionVersion = 0, sid = openSession(member.id)): Promise<string> {
   const name = "authjs.session-token";
-  const token = await encode({ token: { sub: member.id, email: member.email, sv: sessionVersion }, secret: process.env.AUTH_SECRET!, salt: name });
+  const token = await encode({ token: { sub: member.id, email: member.email, sv: sessionVersion, sid }, secret: process.env.AUTH_SECRET!, salt: name });
   return `${name}=${token}`;
 }
 

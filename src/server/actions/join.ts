@@ -1,9 +1,12 @@
 "use server";
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { z } from "zod";
 import { defineAction } from "../action";
 import { acceptInvitation } from "../club/members";
+import { clientAddress } from "../client-address";
 import { AppError } from "../errors";
+import { spend } from "../limits";
 
 const joinForm = z
   .object({
@@ -17,6 +20,7 @@ const joinForm = z
 /** Accepting an invitation: public (the link is the key), and it works once. */
 export const joinClub = defineAction({ public: true }, joinForm, async (input) => {
   try {
+    await spend([["joinPerAddress", clientAddress(await headers())]]);
     await acceptInvitation(input.token, input.name, input.password);
   } catch (error) {
     if (error instanceof AppError) return { ok: false, message: error.message };

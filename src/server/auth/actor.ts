@@ -4,29 +4,31 @@ import { can, type Capability, type Role } from "@/lib/roles";
 import { getDb } from "../db";
 import { statement } from "../db/rows";
 import { AppError } from "../errors";
+import { authSecret } from "./secret";
 
 /** Who is acting, as the database says now (not as the session cookie remembered it). */
 export type Actor = { id: string; email: string; name: string | null; role: Role };
 
 export const SESSION_COOKIES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
 
-export function authSecret(): string {
-  const secret = process.env.AUTH_SECRET;
-  if (!secret) throw new Error("AUTH_SECRET is not set");
-  return secret;
-}
+/** What a session token carries: the member, their session version, and the session's row. */
+export type SessionClaims = { sub?: unknown; sv?: unknown; sid?: unknown };
 
 /**
- * The member behind a session, or null when the member is gone, deactivated, or their
- * sessions were ended (session version bumped on deactivation or role change).
+ * The member behind a session, or null when the member is gone or deactivated, their sessions
+ * were ended (session version bumped on deactivation or role change), or this session was
+ * signed out (its row is gone).
  */
-export function loadActor(memberId: string | undefined, sessionVersion: unknown): Actor | null {
-  if (!memberId) return null;
+export function loadActor(claims: SessionClaims | null | undefined): Actor | null {
+  if (!claims || typeof claims.sub !== "string" || typeof claims.sid !== "string") return null;
   // Read on every request: one statement prepared once per connection.
-  const row = statement(getDb().$client, "select id, email, name, role, active, session_version as sv from members where id = ?").get(memberId) as
-    | { id: string; email: string; name: string | null; role: Role; active: number; sv: number }
-    | undefined;
-  if (!row || !row.active || row.sv !== sessionVersion) return null;
+  const row = statement(
+    getDb().$client,
+    `select m.id, m.email, m.name, m.role, m.active, m.session_version as sv
+     from auth_sessions s join members m on m.id = s.user_id
+     where s.session_token = ? and m.id = ? and s.expires > ?`,
+  ).get(claims.sid, claims.sub, Date.now()) as { id: string; email: string; name: string | null; role: Role; active: number; sv: number } | undefined;
+  if (!row || !row.active || row.sv !== claims.sv) return null;
   return { id: row.id, email: row.email, name: row.name, role: row.role };
 }
 
@@ -39,7 +41,7 @@ function readCookie(header: string | null, name: string): string | undefined {
   return undefined;
 }
 
-type SessionPayload = { sub?: string; sv?: unknown; exp?: number };
+type SessionPayload = SessionClaims & { exp?: number };
 const decoded = new Map<string, SessionPayload>();
 const DECODED_MAX = 1000;
 
@@ -47,7 +49,7 @@ const DECODED_MAX = 1000;
  * Auth.js's decode derives a key and decrypts on every call (about 2 ms, a fifth of a push).
  * The token is authenticated encryption, so one string always decodes to one payload: keep
  * the last thousand, and still honour their expiry. Who the member is now (active, role,
- * session version) is read from the database on every request all the same.
+ * session version, session not signed out) is read from the database on every request.
  */
 async function decodeSession(token: string, salt: string): Promise<SessionPayload | null> {
   const key = `${salt}:${token}`;
@@ -67,14 +69,18 @@ async function decodeSession(token: string, salt: string): Promise<SessionPayloa
 }
 
 /** Decodes the Auth.js session cookie of a request (the same JWT `auth()` reads). */
-export async function actorFromRequest(req: Request): Promise<Actor | null> {
-  const header = req.headers.get("cookie");
+export function actorFromRequest(req: Request): Promise<Actor | null> {
+  return actorFromHeaders(req.headers);
+}
+
+export async function actorFromHeaders(headers: Headers): Promise<Actor | null> {
+  const header = headers.get("cookie");
   for (const name of SESSION_COOKIES) {
     const token = readCookie(header, name);
     if (!token) continue;
     try {
       const payload = await decodeSession(token, name);
-      if (payload?.sub) return loadActor(payload.sub, payload.sv);
+      if (payload?.sub) return loadActor(payload);
     } catch {
       return null;
     }

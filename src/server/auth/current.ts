@@ -1,13 +1,12 @@
 import "server-only";
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { can, type Capability } from "@/lib/roles";
-import { auth } from ".";
-import { loadActor, type Actor } from "./actor";
+import { actorFromHeaders, type Actor } from "./actor";
 
-/** The signed-in member for server components and actions, checked against the database. */
+/** The signed-in member for server components and actions, read as route handlers read it. */
 export async function currentActor(): Promise<Actor | null> {
-  const session = await auth();
-  return loadActor(session?.user?.id, (session as { sv?: unknown } | null)?.sv);
+  return actorFromHeaders(await headers());
 }
 
 /** For pages: send the visitor to sign in, or home when the role lacks the capability. */

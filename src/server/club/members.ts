@@ -13,8 +13,10 @@ import { AppError } from "../errors";
 import { logger } from "../log";
 import { sendMail } from "../mail";
 import { invitationMessage } from "../mail/messages";
+import { siteLink } from "../site-link";
 
 const INVITATION_DAYS = 14;
+const GONE_MESSAGE = "This invitation link has been used, withdrawn or has run out. Ask an officer for a new one.";
 const hashToken = (token: string) => crypto.createHash("sha256").update(token).digest("hex");
 
 /** Invitations not yet accepted, withdrawn or run out. */
@@ -31,16 +33,18 @@ export function listInvitations() {
     .all();
 }
 
-async function mailInvitation(email: string, origin: string, token: string, inviter: string) {
-  await sendMail({ to: email, ...invitationMessage(`${origin}/join#token=${token}`, inviter, INVITATION_DAYS) });
+async function mailInvitation(email: string, token: string, inviter: string) {
+  await sendMail({ to: email, ...invitationMessage(siteLink(`/join#token=${token}`), inviter, INVITATION_DAYS) });
 }
 
 /** Invites someone by e-mail: the link sets their password, once, within 14 days. */
-export async function invite(actor: Actor, input: z.infer<typeof invitationInputSchema>, origin: string) {
+export async function invite(actor: Actor, input: z.infer<typeof invitationInputSchema>) {
   const email = input.email.trim().toLowerCase();
   const db = getDb();
   const existing = db.select({ id: t.members.id }).from(t.members).where(eq(t.members.email, email)).get();
   if (existing) throw new AppError("conflict:invitation", "That address already belongs to a member.", { email: ["already a member"] });
+  // Refused before anything is written when no link could be mailed (no configured origin).
+  siteLink("/join");
   const token = crypto.randomBytes(32).toString("base64url");
   const id = uuidv7();
   db.transaction((tx) => {
@@ -50,7 +54,7 @@ export async function invite(actor: Actor, input: z.infer<typeof invitationInput
     audit(tx, { actorId: actor.id, action: "invitation.create", entity: "invitation", entityId: id, after: { email, role: input.role } });
   });
   try {
-    await mailInvitation(email, origin, token, actor.name ?? actor.email);
+    await mailInvitation(email, token, actor.name ?? actor.email);
   } catch (error) {
     logger.warn({ code: "mail_failed", invitation: id, reason: (error as Error).message }, "invitation not mailed");
     throw new AppError("unavailable:mail", "The invitation is saved, but the e-mail could not be sent. Use Resend once mail works again.");
@@ -59,10 +63,10 @@ export async function invite(actor: Actor, input: z.infer<typeof invitationInput
 }
 
 /** Sends a fresh link (the old one stops working). */
-export async function resendInvitation(actor: Actor, id: string, origin: string) {
+export async function resendInvitation(actor: Actor, id: string) {
   const row = getDb().select().from(t.invitations).where(eq(t.invitations.id, id)).get();
   if (!row || row.acceptedAt || row.revokedAt) throw new AppError("not_found:invitation", "No open invitation with that id.");
-  return invite(actor, { email: row.email, role: row.role }, origin);
+  return invite(actor, { email: row.email, role: row.role });
 }
 
 export function revokeInvitation(actor: Actor, id: string) {
@@ -84,11 +88,13 @@ export function openInvitation(token: string) {
 
 /** Accepting makes the member (or revives a deactivated one) with the chosen password. The link then stops working. */
 export async function acceptInvitation(token: string, name: string, password: string) {
+  // The cheap check first: a wrong or spent link never costs a password hash.
+  if (!openInvitation(token)) throw new AppError("gone:invitation", GONE_MESSAGE);
   const passwordHash = await hashPassword(password);
   const db = getDb();
   return db.transaction((tx) => {
     const row = tx.select().from(t.invitations).where(eq(t.invitations.tokenHash, hashToken(token))).get();
-    if (!row || row.acceptedAt || row.revokedAt || row.expiresAt < Date.now()) throw new AppError("gone:invitation", "This invitation link has been used, withdrawn or has run out. Ask an officer for a new one.");
+    if (!row || row.acceptedAt || row.revokedAt || row.expiresAt < Date.now()) throw new AppError("gone:invitation", GONE_MESSAGE);
     const existing = tx.select({ id: t.members.id }).from(t.members).where(eq(t.members.email, row.email)).get();
     const id = existing?.id ?? uuidv7();
     if (existing) tx.update(t.members).set({ name, passwordHash, role: row.role, active: true, sessionVersion: sql`${t.members.sessionVersion} + 1` }).where(eq(t.members.id, id)).run();

@@ -15,12 +15,18 @@ export function nextSeq(sqlite: Sqlite): number {
  * once at the end. Only inside an immediate transaction, where no other writer can
  * interleave; a number left unused by a rolled-back savepoint is a harmless gap.
  */
-export function sequenceBlock(sqlite: Sqlite): { next: () => number; store: () => void } {
+export function sequenceBlock(sqlite: Sqlite): { next: () => number; reserve: (n: number) => number; store: () => void } {
   const row = statement(sqlite, "select value from sequences where name = 'change'").get() as { value: number } | undefined;
   const start = row?.value ?? 0;
   let value = start;
   return {
     next: () => ++value,
+    /** n consecutive numbers; returns the first. */
+    reserve: (n: number) => {
+      const first = value + 1;
+      value += n;
+      return first;
+    },
     store: () => {
       if (value === start) return;
       statement(sqlite, "insert into sequences (name, value) values ('change', ?) on conflict(name) do update set value = excluded.value").run(value);

@@ -1,24 +1,28 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
+import { serverEnv } from "../env";
 
 export type MailMessage = { to: string; subject: string; text: string; html?: string };
 
 export function smtpSettings() {
+  const env = serverEnv();
   return {
-    host: process.env.SMTP_HOST ?? "127.0.0.1",
-    port: Number(process.env.SMTP_PORT ?? 2525),
-    secure: process.env.SMTP_SECURE === "true",
+    host: env.SMTP_HOST,
+    port: env.SMTP_PORT,
+    secure: env.SMTP_SECURE,
     // The local catcher speaks plain SMTP on loopback; a real relay sets SMTP_SECURE or STARTTLS.
-    ignoreTLS: process.env.SMTP_SECURE !== "true" && (process.env.SMTP_HOST ?? "127.0.0.1") === "127.0.0.1",
-    auth: { user: process.env.SMTP_USER ?? "lodebook", pass: process.env.SMTP_PASSWORD ?? "lodebook" },
+    ignoreTLS: !env.SMTP_SECURE && env.SMTP_HOST === "127.0.0.1",
+    auth: { user: env.SMTP_USER, pass: env.SMTP_PASSWORD },
   };
 }
 
-export const mailFrom = () => process.env.MAIL_FROM ?? "Lodebook <lodebook@localhost>";
+export const mailFrom = () => serverEnv().MAIL_FROM;
 
-let transport: Transporter | undefined;
+let transport: { key: string; transporter: Transporter } | undefined;
 
 export async function sendMail(message: MailMessage): Promise<void> {
-  transport ??= nodemailer.createTransport(smtpSettings());
-  await transport.sendMail({ from: mailFrom(), ...message });
+  const settings = smtpSettings();
+  const key = JSON.stringify(settings);
+  if (transport?.key !== key) transport = { key, transporter: nodemailer.createTransport(settings) };
+  await transport.transporter.sendMail({ from: mailFrom(), ...message });
 }

@@ -20,7 +20,7 @@ import { RejectError } from "./reject";
  * the finds and outings this push has written and not deleted (the member's own, alive), so a
  * weigh-in or photo sent with its find needs no lookup of it.
  */
-export type PushTx = { db: Sqlite; seq: () => number; written: Set<string> };
+export type PushTx = { db: Sqlite; seq: () => number; written: Set<string>; resendFindsOf: Set<string> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = "outing" | "find" | "photo" | "weighIn";
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
@@ -164,10 +164,10 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
       if (row) refreshWeighInFigures(tx.db, row.findId);
     }),
   "settings.put": (tx, actor, s: { locationSharing: "exact" | "claim" }) => () => {
-    statement(tx.db, "update members set location_sharing = ? where id = ?").run(s.locationSharing, actor.id);
-    // Officers' copies of this member's finds change with the setting: re-send them.
-    const owned = statement(tx.db, "select id from finds where member_id = ?").all(actor.id) as { id: string }[];
-    for (const f of owned) statement(tx.db, "update finds set seq = ? where id = ?").run(tx.seq(), f.id);
+    const changed = statement(tx.db, "update members set location_sharing = ? where id = ? and location_sharing <> ?").run(s.locationSharing, actor.id, s.locationSharing).changes;
+    // Officers' copies of this member's finds change with the setting: they are re-sent once
+    // at the end of the push (resendFinds), however many settings changes it holds.
+    if (changed > 0) tx.resendFindsOf.add(actor.id);
   },
 };
 
@@ -210,4 +210,18 @@ function rejectInvalid(error: z.ZodError, under?: string): RejectError {
   const issue = error.issues[0];
   const path = [...(under ? [under] : []), ...issue.path].join(".");
   return new RejectError("invalid", issue.message, path || undefined);
+}
+
+/**
+ * Gives every find of the member a new change number, so officers' devices pull them again:
+ * one set-based statement over a block of numbers reserved from the push's sequence.
+ */
+export function resendFinds(tx: PushTx, memberId: string, reserve: (n: number) => number): void {
+  const n = (statement(tx.db, "select count(*) as n from finds where member_id = ?").get(memberId) as { n: number }).n;
+  if (n === 0) return;
+  const first = reserve(n);
+  statement(
+    tx.db,
+    `update finds set seq = ? + r.rn from (select id, row_number() over (order by id) - 1 as rn from finds where member_id = ?) r where finds.id = r.id`,
+  ).run(first, memberId);
 }

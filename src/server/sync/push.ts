@@ -7,7 +7,7 @@ import { statement, type Sqlite } from "../db/rows";
 import { sequenceBlock } from "../db/sequence";
 import { AppError } from "../errors";
 import { logger } from "../log";
-import { applyMutation, keepHistory } from "./mutators";
+import { applyMutation, keepHistory, resendFinds } from "./mutators";
 import { RejectError } from "./reject";
 
 /** SQLite answers that mean "try again later", not "this change is wrong". */
@@ -37,7 +37,7 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
   }
   if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
   const seq = sequenceBlock(sqlite);
-  const pushTx = { db: sqlite, seq: seq.next, written: new Set<string>() };
+  const pushTx = { db: sqlite, seq: seq.next, written: new Set<string>(), resendFindsOf: new Set<string>() };
   let last = client?.lastMutationId ?? 0;
   const results: MutationResult[] = [];
   for (const m of push.mutations) {
@@ -63,6 +63,7 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
     }
     last = m.id;
   }
+  for (const memberId of pushTx.resendFindsOf) resendFinds(pushTx, memberId, seq.reserve);
   if (last !== (client?.lastMutationId ?? 0)) {
     statement(sqlite, "update sync_clients set last_mutation_id = ?, updated_at = ? where id = ?").run(last, Date.now(), push.clientId);
   }

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { currentActor } from "@/server/auth/current";
-import { safeReturnPath } from "@/server/action";
+import { safeReturnPath } from "@/lib/web/return-path";
 import { SignInForms } from "./sign-in-forms";
 
 export const metadata: Metadata = { title: "Sign in" };

@@ -1,24 +1,33 @@
+import { NextRequest } from "next/server";
 import { handlers } from "@/server/auth";
+import { withSignInScope } from "@/server/auth/sign-in-guard";
 import { AppError } from "@/server/errors";
-import { route } from "@/server/http";
-import { clientAddress, spend } from "@/server/limits";
+import { siteOrigin } from "@/server/env";
+import { readBodyLimited, route } from "@/server/http";
 
-export const { GET } = handlers;
+/** Auth.js reads `nextUrl`, which only a NextRequest has (Next always passes one; tests may not). */
+const asNext = (req: Request) => (req instanceof NextRequest ? req : new NextRequest(req));
+
+export const GET = (req: Request) => handlers.GET(asNext(req));
+
+/** Sign-in bodies are a few short fields; anything longer is refused while it streams. */
+const MAX_AUTH_BODY_BYTES = 8 * 1024;
 
 /**
- * Auth.js's own endpoints, with the sign-in limits in front: password attempts and e-mail
- * links are counted per account and per address before Auth.js sees them.
+ * Auth.js's own endpoints. The body is read once, within a limit, and handed on unchanged;
+ * the sign-in limits live where Auth.js checks the credentials (auth/sign-in-guard.ts), so no
+ * body shape can step around them. A held-back attempt is answered 429 with Retry-After.
  */
 export const POST = route(async (req) => {
-  const path = new URL(req.url).pathname;
-  if (path.endsWith("/callback/credentials") || path.endsWith("/signin/nodemailer")) {
-    const form = await req.clone().formData().catch(() => null);
-    const email = String(form?.get("email") ?? "").trim().toLowerCase();
-    if (email.length > 254) throw new AppError("bad_request:sign_in", "That e-mail address is too long.", { email: ["too long"] });
-    await spend([
-      ["signInPerAddress", clientAddress(req)],
-      ...(email ? ([["signInPerAccount", email]] as [ "signInPerAccount", string][]) : []),
-    ]);
-  }
-  return handlers.POST(req as never);
+  const body = await readBodyLimited(req, MAX_AUTH_BODY_BYTES, "sign_in");
+  const forwarded = new NextRequest(req.url, { method: "POST", headers: req.headers, body: body.length > 0 ? new Uint8Array(body) : undefined });
+  return withSignInScope(async (scope) => {
+    const res = await handlers.POST(forwarded);
+    if (scope.refused) {
+      throw new AppError(scope.refused.status === 429 ? "rate_limited:sign_in" : "unavailable:sign_in", scope.refused.message, { retryAfter: [String(scope.refused.retryAfterS)] });
+    }
+    const secure = siteOrigin()?.startsWith("https:") ? "; Secure" : "";
+    for (const c of scope.setCookies) res.headers.append("Set-Cookie", `${c.name}=${c.value}; Path=/; Max-Age=${c.maxAgeS}; HttpOnly; SameSite=Lax${secure}`);
+    return res;
+  });
 });

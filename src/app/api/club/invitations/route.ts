@@ -13,5 +13,5 @@ export const POST = route(async (req) => {
   requireSameOrigin(req);
   const input = await parseJsonBody(req, invitationInputSchema, "invitation");
   const actor = await requireActor(req, "manageMembers", "club");
-  return json(await invite(actor, input, new URL(req.url).origin), { status: 201 });
+  return json(await invite(actor, input), { status: 201 });
 });

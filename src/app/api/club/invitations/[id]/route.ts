@@ -18,7 +18,7 @@ export const POST = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
   await parseJsonBody(req, z.object({ action: z.literal("resend") }).strict(), "invitation");
   const actor = await requireActor(req, "manageMembers", "club");
-  return json(await resendInvitation(actor, await invitationId(ctx), new URL(req.url).origin));
+  return json(await resendInvitation(actor, await invitationId(ctx)));
 });
 
 export const DELETE = route<Ctx>(async (req, ctx) => {

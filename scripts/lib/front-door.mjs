@@ -1,0 +1,64 @@
+// @ts-check
+import net from "node:net";
+
+/** The header the front door sets to the caller's address; any copy a client sends is dropped. */
+export const CLIENT_HEADER = "x-lodebook-client";
+
+/** Bodies declared larger than this are refused before Next reads a byte (photos are at most 4 MB). */
+export const MAX_DECLARED_BODY_BYTES = 8 * 1024 * 1024;
+
+/** @param {string | undefined} address */
+function normalise(address) {
+  if (!address) return undefined;
+  const bare = address.trim().replace(/^\[|\]$/g, "");
+  const mapped = /^::ffff:(\d+\.\d+\.\d+\.\d+)$/i.exec(bare);
+  const ip = mapped ? mapped[1] : bare;
+  return net.isIP(ip) ? ip.toLowerCase() : undefined;
+}
+
+/**
+ * The caller's address. With no trusted proxies (the default) that is the socket's peer, and
+ * X-Forwarded-For is ignored: anyone can write it. Behind N trusted proxies, each appends the
+ * address it saw, so the caller is the Nth entry from the right of [forwarded…, socket].
+ *
+ * @param {{ socketAddress: string | undefined; forwardedFor: string | string[] | undefined; trustedProxies: number }} input
+ * @returns {string}
+ */
+export function resolveClientAddress({ socketAddress, forwardedFor, trustedProxies }) {
+  const socket = normalise(socketAddress) ?? "unknown";
+  if (trustedProxies <= 0) return socket;
+  const header = Array.isArray(forwardedFor) ? forwardedFor.join(",") : (forwardedFor ?? "");
+  const chain = [...header.split(","), socket].map((a) => a.trim()).filter(Boolean);
+  const at = Math.max(0, chain.length - 1 - trustedProxies);
+  return normalise(chain[at]) ?? socket;
+}
+
+/**
+ * Makes a request's forwarding headers say only what the configured proxies vouch for, and
+ * records the caller's address where the app reads it.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ * @param {number} trustedProxies
+ */
+export function settleForwardingHeaders(req, trustedProxies) {
+  const address = resolveClientAddress({ socketAddress: req.socket.remoteAddress, forwardedFor: req.headers["x-forwarded-for"], trustedProxies });
+  req.headers[CLIENT_HEADER] = address;
+  // Next fills these from the socket only when absent, so a client's own copies would stand.
+  req.headers["x-forwarded-for"] = address;
+  if (trustedProxies <= 0) {
+    delete req.headers["x-forwarded-host"];
+    delete req.headers["x-forwarded-proto"];
+    delete req.headers["x-forwarded-port"];
+    delete req.headers["x-real-ip"];
+    delete req.headers.forwarded;
+  }
+  return address;
+}
+
+/** @param {string | undefined} raw */
+export function trustedProxyCount(raw) {
+  if (raw === undefined || raw === "") return 0;
+  const n = Number(raw);
+  if (!Number.isInteger(n) || n < 0 || n > 10) throw new Error(`LODEBOOK_TRUSTED_PROXIES must be a whole number from 0 to 10, not ${JSON.stringify(raw)}`);
+  return n;
+}

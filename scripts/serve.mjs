@@ -1,0 +1,42 @@
+// @ts-check
+// The production server: Next behind a small front door that settles who the caller is
+// (the socket's address unless trusted proxies are configured) and refuses oversized bodies
+// before Next reads them. `npm start` and the demo run this, never `next start` directly.
+import http from "node:http";
+import { parseArgs } from "node:util";
+import next from "next";
+import { MAX_DECLARED_BODY_BYTES, settleForwardingHeaders, trustedProxyCount } from "./lib/front-door.mjs";
+
+const { values } = parseArgs({ options: { port: { type: "string", short: "p" }, hostname: { type: "string", short: "H" } } });
+const port = Number(values.port ?? process.env.PORT ?? 3000);
+const hostname = values.hostname ?? process.env.HOSTNAME ?? "0.0.0.0";
+const trustedProxies = trustedProxyCount(process.env.LODEBOOK_TRUSTED_PROXIES);
+
+// @ts-expect-error the process is production whatever the shell said
+process.env.NODE_ENV = "production";
+/** @type {any} */ (globalThis).__lodebookFrontDoor = true;
+
+const app = next({ dev: false, hostname, port });
+await app.prepare();
+const handle = app.getRequestHandler();
+
+const server = http.createServer((req, res) => {
+  settleForwardingHeaders(req, trustedProxies);
+  const declared = Number(req.headers["content-length"] ?? 0);
+  if (declared > MAX_DECLARED_BODY_BYTES) {
+    res.writeHead(413, { "content-type": "application/json", connection: "close" });
+    res.end(JSON.stringify({ error: { code: "too_large:request", message: `The body is over ${MAX_DECLARED_BODY_BYTES} bytes.` } }));
+    return;
+  }
+  handle(req, res);
+});
+// A slow client may not hold a connection open indefinitely.
+server.headersTimeout = 20_000;
+server.requestTimeout = 120_000;
+server.listen(port, hostname, () => {
+  console.log(`Lodebook listening on http://${hostname}:${port} (trusted proxies: ${trustedProxies})`);
+});
+
+const stop = () => server.close(() => process.exit(0));
+process.on("SIGTERM", stop);
+process.on("SIGINT", stop);

@@ -1,0 +1,40 @@
+import http from "node:http";
+import { describe, expect, it } from "vitest";
+import { CLIENT_HEADER, resolveClientAddress, settleForwardingHeaders, trustedProxyCount } from "../../scripts/lib/front-door.mjs";
+
+describe("the caller's address: forwarding headers count only behind trusted proxies (RELIABILITY 32)", () => {
+  it("with no trusted proxy (the default) the socket's address counts and X-Forwarded-For is ignored", () => {
+    expect(resolveClientAddress({ socketAddress: "198.51.100.7", forwardedFor: "203.0.113.1", trustedProxies: 0 })).toBe("198.51.100.7");
+    expect(resolveClientAddress({ socketAddress: "::ffff:198.51.100.7", forwardedFor: undefined, trustedProxies: 0 })).toBe("198.51.100.7");
+  });
+
+  it("behind N trusted proxies the caller is the Nth address from the right", () => {
+    // client → proxy A (appends client) → proxy B (appends A) → us (socket = B)
+    expect(resolveClientAddress({ socketAddress: "10.0.0.2", forwardedFor: "203.0.113.50", trustedProxies: 1 })).toBe("203.0.113.50");
+    expect(resolveClientAddress({ socketAddress: "10.0.0.3", forwardedFor: "203.0.113.50, 10.0.0.2", trustedProxies: 2 })).toBe("203.0.113.50");
+    // A client's own forged entries sit further left and are never reached.
+    expect(resolveClientAddress({ socketAddress: "10.0.0.2", forwardedFor: "1.2.3.4, 5.6.7.8, 203.0.113.50", trustedProxies: 1 })).toBe("203.0.113.50");
+    expect(resolveClientAddress({ socketAddress: "10.0.0.2", forwardedFor: ["1.2.3.4", "203.0.113.50"], trustedProxies: 1 })).toBe("203.0.113.50");
+  });
+
+  it("garbage where an address should be falls back to the socket", () => {
+    expect(resolveClientAddress({ socketAddress: "10.0.0.2", forwardedFor: "not-an-ip", trustedProxies: 1 })).toBe("10.0.0.2");
+    expect(resolveClientAddress({ socketAddress: undefined, forwardedFor: undefined, trustedProxies: 0 })).toBe("unknown");
+  });
+
+  it("settles the headers the app reads: the client's copies of forwarding and address headers do not survive", () => {
+    const req = new http.IncomingMessage(null as never);
+    Object.defineProperty(req, "socket", { value: { remoteAddress: "198.51.100.7" } });
+    req.headers = { [CLIENT_HEADER]: "1.1.1.1", "x-forwarded-for": "1.1.1.1", "x-forwarded-host": "evil.example", "x-forwarded-proto": "https", "x-real-ip": "1.1.1.1", forwarded: "for=1.1.1.1" };
+    settleForwardingHeaders(req, 0);
+    expect(req.headers[CLIENT_HEADER]).toBe("198.51.100.7");
+    expect(req.headers["x-forwarded-for"]).toBe("198.51.100.7");
+    for (const h of ["x-forwarded-host", "x-forwarded-proto", "x-real-ip", "forwarded"]) expect(req.headers[h]).toBeUndefined();
+  });
+
+  it("reads the proxy count strictly", () => {
+    expect(trustedProxyCount(undefined)).toBe(0);
+    expect(trustedProxyCount("2")).toBe(2);
+    for (const bad of ["-1", "1.5", "eleven", "11"]) expect(() => trustedProxyCount(bad)).toThrow(/LODEBOOK_TRUSTED_PROXIES/);
+  });
+});
