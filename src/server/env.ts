@@ -35,11 +35,15 @@ const envSchema = z.object({
   LODEBOOK_MAIL_DIR: z.string().min(1).optional(),
   LODEBOOK_LOG: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   LODEBOOK_PHOTO_DIR: z.string().min(1).default("./data/photos"),
+  /** Photo bytes each member may keep on the server, in MB (deleted photos count until purged). */
+  LODEBOOK_PHOTO_QUOTA_MB: z.coerce.number().positive().max(1_000_000).default(500),
   LODEBOOK_TOMBSTONE_DAYS: z.coerce.number().positive().default(180),
   LODEBOOK_S3_BUCKET: z.string().min(1).optional(),
   LODEBOOK_S3_REGION: z.string().min(1).default("us-east-1"),
   LODEBOOK_S3_ENDPOINT: z.url().optional(),
   LODEBOOK_S3_PREFIX: z.string().default(""),
+  AWS_ACCESS_KEY_ID: z.string().min(1).optional(),
+  AWS_SECRET_ACCESS_KEY: z.string().min(1).optional(),
 });
 
 export type ServerEnv = z.infer<typeof envSchema>;

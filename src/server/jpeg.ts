@@ -5,42 +5,82 @@ import "server-only";
  * JPEG (an HTML page, an SVG, a polyglot with junk before the start-of-image marker).
  */
 export function inspectJpeg(buf: Buffer): { width: number; height: number } | null {
-  if (buf.length < 4 || buf[0] !== 0xff || buf[1] !== 0xd8 || buf[2] !== 0xff) return null;
-  let i = 2;
-  while (i + 4 <= buf.length) {
-    if (buf[i] !== 0xff) return null;
-    const marker = buf[i + 1];
-    if (marker === 0xff) {
-      i += 1;
-      continue;
-    }
-    const length = buf.readUInt16BE(i + 2);
-    if (length < 2 || i + 2 + length > buf.length) return null;
-    // SOF0–SOF15 except DHT (C4), JPG (C8) and DAC (CC) carry the frame size.
-    if (marker >= 0xc0 && marker <= 0xcf && marker !== 0xc4 && marker !== 0xc8 && marker !== 0xcc) {
-      const height = buf.readUInt16BE(i + 5);
-      const width = buf.readUInt16BE(i + 7);
-      return width > 0 && height > 0 ? { width, height } : null;
-    }
-    if (marker === 0xda) return null; // scan data before any frame header
-    i += 2 + length;
-  }
-  return null;
+  const walked = walkJpeg(buf);
+  return walked && walked.width > 0 && walked.height > 0 ? { width: walked.width, height: walked.height } : null;
 }
 
-/** The JPEG without APP1–APP15 and comment segments: no EXIF, no GPS, no XMP. */
-export function stripJpegMetadata(buf: Buffer): Buffer {
-  const parts: Buffer[] = [buf.subarray(0, 2)];
+/** The JPEG with only what a picture needs: no EXIF, GPS, XMP, comments or trailing bytes. */
+export function stripJpegMetadata(buf: Buffer): Buffer | null {
+  return walkJpeg(buf)?.stripped ?? null;
+}
+
+const SOI = 0xd8;
+const EOI = 0xd9;
+const SOS = 0xda;
+const isRst = (m: number) => m >= 0xd0 && m <= 0xd7;
+const isSof = (m: number) => m >= 0xc0 && m <= 0xcf && m !== 0xc4 && m !== 0xc8 && m !== 0xcc;
+/** Segments a decoder needs: tables, frame, restart interval, number of lines, scans. */
+const isPictureSegment = (m: number) => isSof(m) || m === 0xc4 || m === 0xcc || m === 0xdb || m === 0xdd || m === 0xdc || m === SOS;
+
+function startsWith(seg: Buffer, signature: string): boolean {
+  return seg.length >= signature.length && seg.toString("latin1", 0, signature.length) === signature;
+}
+
+/**
+ * Application segments kept by their signature alone, none of which can carry a position:
+ * the JFIF header, an ICC colour profile, and Adobe's colour-transform flag.
+ */
+function keepApplication(marker: number, payload: Buffer): boolean {
+  if (marker === 0xe0) return startsWith(payload, "JFIF\0");
+  if (marker === 0xe2) return startsWith(payload, "ICC_PROFILE\0");
+  if (marker === 0xee) return startsWith(payload, "Adobe");
+  return false;
+}
+
+/**
+ * Walks every segment of a JPEG, fill bytes and all scans included (progressive files put
+ * tables and even metadata between scans), and rebuilds it from the segments a decoder needs.
+ * Anything that does not parse as a JPEG is refused (null), never passed through.
+ */
+function walkJpeg(buf: Buffer): { width: number; height: number; stripped: Buffer } | null {
+  if (buf.length < 4 || buf[0] !== 0xff || buf[1] !== SOI) return null;
+  const out: Buffer[] = [buf.subarray(0, 2)];
+  let width = 0;
+  let height = 0;
   let i = 2;
-  while (i + 4 <= buf.length && buf[i] === 0xff) {
-    const marker = buf[i + 1];
-    if (marker === 0xda) break; // start of scan: the rest is image data
-    const length = buf.readUInt16BE(i + 2);
-    const segment = buf.subarray(i, i + 2 + length);
-    const metadata = (marker >= 0xe1 && marker <= 0xef) || marker === 0xfe;
-    if (!metadata) parts.push(segment);
-    i += 2 + length;
+  for (;;) {
+    // A marker is 0xFF, any number of 0xFF fill bytes, then its code.
+    if (i >= buf.length || buf[i] !== 0xff) return null;
+    while (i < buf.length && buf[i] === 0xff) i++;
+    if (i >= buf.length) return null;
+    const marker = buf[i];
+    i++;
+    if (marker === EOI) {
+      if (width === 0) return null;
+      out.push(Buffer.from([0xff, EOI]));
+      return { width, height, stripped: Buffer.concat(out) };
+    }
+    if (marker === 0x00 || marker === SOI || isRst(marker) || marker === 0x01) return null;
+    if (i + 2 > buf.length) return null;
+    const length = buf.readUInt16BE(i);
+    if (length < 2 || i + length > buf.length) return null;
+    const segment = buf.subarray(i - 2, i + length);
+    const payload = buf.subarray(i + 2, i + length);
+    i += length;
+    if (isSof(marker)) {
+      if (payload.length < 5 || width !== 0) return null;
+      height = payload.readUInt16BE(1);
+      width = payload.readUInt16BE(3);
+    }
+    const keep = isPictureSegment(marker) || (marker >= 0xe0 && marker <= 0xef && keepApplication(marker, payload));
+    if (keep) out.push(Buffer.concat([Buffer.from([0xff, marker]), segment.subarray(2)]));
+    if (marker === SOS) {
+      if (width === 0) return null; // scan data before any frame header
+      // Entropy-coded data runs to the next marker that is not a stuffed zero or a restart.
+      const start = i;
+      while (i + 1 < buf.length && !(buf[i] === 0xff && buf[i + 1] !== 0x00 && !isRst(buf[i + 1]) && buf[i + 1] !== 0xff)) i++;
+      if (i + 1 >= buf.length) return null;
+      out.push(buf.subarray(start, i));
+    }
   }
-  parts.push(buf.subarray(i));
-  return Buffer.concat(parts);
 }

@@ -1,18 +1,19 @@
 import "server-only";
 import crypto from "node:crypto";
-import { and, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { and, eq, isNotNull, sql } from "drizzle-orm";
 import { MAX_PHOTO_BYTES, MAX_PHOTO_EDGE } from "@/lib/entities/photo";
 import { can } from "@/lib/roles";
 import type { Actor } from "./auth/actor";
 import { getDb } from "./db";
+import { serverEnv } from "./env";
 import { photos } from "./db/schema";
 import { AppError } from "./errors";
 import { readBodyLimited } from "./http";
 import { inspectJpeg, stripJpegMetadata } from "./jpeg";
 import { photoStorage } from "./storage";
 
-/** Photo bytes one member may keep on the club's server. */
-export const MEMBER_PHOTO_QUOTA_BYTES = 500 * 1024 * 1024;
+/** Photo bytes one member may keep on the club's server (LODEBOOK_PHOTO_QUOTA_MB). */
+const memberPhotoQuotaBytes = () => Math.floor(serverEnv().LODEBOOK_PHOTO_QUOTA_MB * 1024 * 1024);
 
 function photoFor(actor: Actor, id: string, forWrite: boolean) {
   const row = getDb()
@@ -43,15 +44,18 @@ export async function receivePhoto(actor: Actor, id: string, req: Request): Prom
   if (size.width > MAX_PHOTO_EDGE || size.height > MAX_PHOTO_EDGE) {
     throw new AppError("too_large:photo", `Photos may be at most ${MAX_PHOTO_EDGE} pixels on a side.`, { width: [String(size.width)], height: [String(size.height)] });
   }
+  // What storage holds for this member, deleted photos awaiting their purge included.
   const used = getDb()
-    .select({ total: sql<number>`coalesce(sum(${photos.bytes}), 0)` })
+    .select({ total: sql<number>`coalesce(sum(${photos.storedBytes}), 0)` })
     .from(photos)
-    .where(and(eq(photos.memberId, actor.id), isNotNull(photos.storageKey), isNull(photos.deletedAt)))
+    .where(and(eq(photos.memberId, actor.id), isNotNull(photos.storageKey)))
     .get()!.total;
-  if (used + bytes.length > MEMBER_PHOTO_QUOTA_BYTES) throw new AppError("too_large:quota", "Your photo space on the club's server is full. Ask an officer.");
+  if (used + bytes.length > memberPhotoQuotaBytes()) {
+    throw new AppError("too_large:quota", "Your photo space on the club's server is full (deleted photos count until their keeping time ends). Ask an officer.");
+  }
   const key = `p/${id}`;
   await photoStorage().put(key, bytes, "image/jpeg");
-  getDb().update(photos).set({ storageKey: key, uploadedAt: Date.now(), width: size.width, height: size.height }).where(eq(photos.id, id)).run();
+  getDb().update(photos).set({ storageKey: key, storedBytes: bytes.length, uploadedAt: Date.now(), width: size.width, height: size.height }).where(eq(photos.id, id)).run();
   return { stored: true, sha256 };
 }
 
@@ -61,5 +65,8 @@ export async function servePhoto(actor: Actor, id: string): Promise<Buffer> {
   if (!row.storageKey) throw new AppError("not_found:photo", "This photo has not reached the server yet.");
   const bytes = await photoStorage().get(row.storageKey);
   if (!bytes) throw new AppError("not_found:photo", "This photo has not reached the server yet.");
-  return stripJpegMetadata(bytes);
+  const stripped = stripJpegMetadata(bytes);
+  // Uploads are walked the same way before they are kept, so this is storage gone wrong.
+  if (!stripped) throw new AppError("not_found:photo", "This photo cannot be read on the server.");
+  return stripped;
 }

@@ -1,4 +1,5 @@
 import "server-only";
+import { serverEnv } from "../env";
 import Database from "better-sqlite3";
 import { drizzle, type BetterSQLite3Database } from "drizzle-orm/better-sqlite3";
 import { migrate } from "drizzle-orm/better-sqlite3/migrator";
@@ -11,12 +12,12 @@ export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Data
 let instance: Db | undefined;
 
 export function databasePath(): string {
-  const url = process.env.DATABASE_URL ?? "./data/lodebook.db";
+  const url = serverEnv().DATABASE_URL;
   return path.resolve(url.replace(/^file:/, ""));
 }
 
 export function migrationsFolder(): string {
-  return path.resolve(process.env.LODEBOOK_MIGRATIONS ?? "drizzle");
+  return path.resolve(serverEnv().LODEBOOK_MIGRATIONS);
 }
 
 /** Opens a connection with the pragmas every connection needs, and brings the schema up to date. */

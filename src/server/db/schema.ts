@@ -155,6 +155,8 @@ export const photos = sqliteTable("photos", {
   width: integer("width"),
   height: integer("height"),
   storageKey: text("storage_key"),
+  /** What storage actually holds for this photo (the quota counts this, not the record's `bytes`). */
+  storedBytes: integer("stored_bytes"),
   takenAt: integer("taken_at"),
   /** Position from the photo's EXIF, kept in the record; served bytes never carry it. */
   lat: real("lat"),
@@ -164,6 +166,12 @@ export const photos = sqliteTable("photos", {
   deletedAt: integer("deleted_at"),
   seq: seq(),
 }, (t) => [index("photos_find").on(t.findId), index("photos_member_seq").on(t.memberId, t.seq)]);
+
+/** Photo bytes to remove from storage: written with the purge that made them final, removed once gone. */
+export const photoBytesToDelete = sqliteTable("photo_bytes_to_delete", {
+  storageKey: text("storage_key").primaryKey(),
+  since: integer("since").notNull(),
+});
 
 export const weighIns = sqliteTable("weigh_ins", {
   id: text("id").primaryKey(),

@@ -1,4 +1,5 @@
 import "server-only";
+import { serverEnv } from "../env";
 import fs from "node:fs/promises";
 import path from "node:path";
 
@@ -6,7 +7,7 @@ import path from "node:path";
 export type CaughtMail = { id: string; at: string; from: string; to: string[]; subject: string; text: string };
 
 /** Where the catcher writes; unset in production, which hides the caught-mail page. */
-export const caughtMailDir = () => process.env.LODEBOOK_MAIL_DIR;
+export const caughtMailDir = () => serverEnv().LODEBOOK_MAIL_DIR;
 
 export async function listCaughtMail(limit = 50): Promise<CaughtMail[]> {
   const dir = caughtMailDir();

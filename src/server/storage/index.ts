@@ -1,4 +1,5 @@
 import "server-only";
+import { serverEnv } from "../env";
 import { LocalDiskStorage } from "./local-disk";
 import { S3Storage, s3SettingsFromEnv } from "./s3";
 
@@ -10,17 +11,19 @@ export interface PhotoStorage {
   delete(key: string): Promise<void>;
 }
 
-let storage: PhotoStorage | undefined;
+let configured: { key: string; storage: PhotoStorage } | undefined;
+let override: PhotoStorage | undefined;
 
+/** The store the settings name, made again only when the settings change. */
 export function photoStorage(): PhotoStorage {
-  if (!storage) {
-    const s3 = s3SettingsFromEnv();
-    storage = s3 ? new S3Storage(s3) : new LocalDiskStorage(process.env.LODEBOOK_PHOTO_DIR ?? "./data/photos");
-  }
-  return storage;
+  if (override) return override;
+  const s3 = s3SettingsFromEnv();
+  const key = s3 ? JSON.stringify(s3) : `disk:${serverEnv().LODEBOOK_PHOTO_DIR}`;
+  if (configured?.key !== key) configured = { key, storage: s3 ? new S3Storage(s3) : new LocalDiskStorage(serverEnv().LODEBOOK_PHOTO_DIR) };
+  return configured.storage;
 }
 
 /** For tests: use another store. */
 export function setPhotoStorage(next: PhotoStorage | undefined): void {
-  storage = next;
+  override = next;
 }

@@ -1,4 +1,5 @@
 import "server-only";
+import { serverEnv, type ServerEnv } from "../env";
 import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import type { PhotoStorage } from ".";
 
@@ -40,12 +41,12 @@ export class S3Storage implements PhotoStorage {
 }
 
 /** S3 settings from the environment, when a bucket is configured. */
-export function s3SettingsFromEnv(env = process.env): S3Settings | null {
+export function s3SettingsFromEnv(env: ServerEnv = serverEnv()): S3Settings | null {
   if (!env.LODEBOOK_S3_BUCKET) return null;
   return {
     bucket: env.LODEBOOK_S3_BUCKET,
-    region: env.LODEBOOK_S3_REGION ?? "us-east-1",
-    endpoint: env.LODEBOOK_S3_ENDPOINT || undefined,
+    region: env.LODEBOOK_S3_REGION,
+    endpoint: env.LODEBOOK_S3_ENDPOINT,
     accessKeyId: env.AWS_ACCESS_KEY_ID,
     secretAccessKey: env.AWS_SECRET_ACCESS_KEY,
     prefix: env.LODEBOOK_S3_PREFIX,

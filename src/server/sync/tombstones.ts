@@ -1,13 +1,15 @@
 import "server-only";
+import { serverEnv } from "../env";
 import { getDb } from "../db";
 import { statement, type Sqlite } from "../db/rows";
+import { logger } from "../log";
+import { photoStorage } from "../storage";
 
 const DAY_MS = 86_400_000;
 
 /** How long a deletion is kept for devices that have not synced (LODEBOOK_TOMBSTONE_DAYS, default 180). */
 export function tombstoneDays(): number {
-  const days = Number(process.env.LODEBOOK_TOMBSTONE_DAYS ?? 180);
-  return Number.isFinite(days) && days > 0 ? days : 180;
+  return serverEnv().LODEBOOK_TOMBSTONE_DAYS;
 }
 
 /** The highest change number of a purged deletion: a device whose cursor is below it may have missed one. */
@@ -17,7 +19,7 @@ export function tombstoneHorizon(sqlite: Sqlite): number {
 
 // Children before parents, and only rows nothing still points at (a review keeps its find).
 const PURGES = [
-  "delete from photos where deleted_at is not null and deleted_at < ? returning seq",
+  "delete from photos where deleted_at is not null and deleted_at < ? returning seq, storage_key as storageKey",
   "delete from weigh_ins where deleted_at is not null and deleted_at < ? returning seq",
   `delete from finds where deleted_at is not null and deleted_at < ?
      and not exists (select 1 from photos p where p.find_id = finds.id)
@@ -40,13 +42,37 @@ export function purgeTombstones(now = Date.now(), days = tombstoneDays()): { pur
       let purged = 0;
       let horizon = tombstoneHorizon(sqlite);
       for (const text of PURGES) {
-        for (const { seq } of statement(sqlite, text).all(cutoff) as { seq: number }[]) {
+        for (const { seq, storageKey } of statement(sqlite, text).all(cutoff) as { seq: number; storageKey?: string | null }[]) {
           purged++;
           horizon = Math.max(horizon, seq);
+          // The photo's bytes go too, once this deletion is final (deletePurgedPhotoBytes).
+          if (storageKey) statement(sqlite, "insert or ignore into photo_bytes_to_delete (storage_key, since) values (?, ?)").run(storageKey, now);
         }
       }
       statement(sqlite, "insert into sequences (name, value) values ('tombstone_horizon', ?) on conflict(name) do update set value = excluded.value").run(horizon);
       return { purged, horizon };
     })
     .immediate();
+}
+
+/**
+ * Removes from storage the bytes of photos whose deletion became final. Each key is forgotten
+ * only after storage confirms, so a failure is retried at the next purge.
+ */
+export async function deletePurgedPhotoBytes(): Promise<{ deleted: number; failed: number }> {
+  const sqlite = getDb().$client;
+  const keys = (statement(sqlite, "select storage_key as key from photo_bytes_to_delete").all() as { key: string }[]).map((r) => r.key);
+  let deleted = 0;
+  let failed = 0;
+  for (const key of keys) {
+    try {
+      await photoStorage().delete(key);
+      statement(sqlite, "delete from photo_bytes_to_delete where storage_key = ?").run(key);
+      deleted++;
+    } catch (error) {
+      failed++;
+      logger.warn({ code: "storage_delete_failed", key, reason: (error as Error).message }, "photo bytes not deleted; retried at the next purge");
+    }
+  }
+  return { deleted, failed };
 }
