@@ -1,3 +1,4 @@
+import crypto from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -240,5 +241,32 @@ describe("sessions (RELIABILITY 35)", () => {
       expect(res.status).toBe(302);
       expect(new URL(res.headers.get("location")!).origin).toBe(ORIGIN);
     }
+  });
+});
+
+describe("exports and mails are safe to open (RELIABILITY 37)", () => {
+  it("member and claim names that look like formulas or carry bidi controls come out inert", async () => {
+    const { GET: getCsv } = await import("@/app/api/club/ledger/csv/route");
+    const { buildDigest, digestText } = await import("@/server/club/digest");
+    const Papa = (await import("papaparse")).default;
+    const m = memberByEmail(db, MEMBER_EMAIL);
+    const claim = db.$client.prepare("select c.id from claims c join finds f on f.claim_id = c.id where f.member_id = ? limit 1").get(m.id) as { id: string };
+    db.$client.prepare("update members set name = ? where id = ?").run('=HYPERLINK("https://evil.example","Ines")', m.id);
+    db.$client.prepare("update claims set name = ? where id = ?").run("@SUM(1+1)\u202eBench", claim.id);
+    const officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
+    const res = await getCsv(req(`/api/club/ledger/csv?memberId=${m.id}&claimId=${claim.id}`, { cookie: officer }), none);
+    const table = Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true }).data;
+    expect(table.length).toBeGreaterThan(0);
+    for (const row of table) {
+      expect(row.memberName).toBe(`'=HYPERLINK("https://evil.example","Ines")`);
+      expect(row.claimName).toBe("'@SUM(1+1)Bench");
+      for (const cell of Object.values(row)) expect(/^[=+@\t\r]/.test(cell) || /^-(?!\d)/.test(cell)).toBe(false);
+    }
+    // A query on one of the member's finds, as the digest lists it.
+    const find = db.$client.prepare("select id from finds where member_id = ? limit 1").get(m.id) as { id: string };
+    db.$client.prepare("insert into reviews (id, find_id, officer_id, action, note, created_at, seq) values (?, ?, ?, 'query', ?, ?, (select coalesce(max(seq), 0) + 1 from reviews))").run(crypto.randomUUID(), find.id, memberByEmail(db, OFFICER_EMAIL).id, "weight\u202e 0.2 g", Date.now());
+    const text = digestText(buildDigest());
+    expect(text).not.toMatch(/[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/);
+    expect(text).toContain("weight 0.2 g");
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { boundaryFromCorners, readBoundary } from "./geometry";
+import { boundaryFromCorners, MAX_CLAIM_POSITIONS, readBoundary } from "./geometry";
 
 const square = [[0, 0], [1, 0], [1, 1], [0, 1], [0, 0]];
 
@@ -25,5 +25,18 @@ describe("claim boundaries", () => {
     const r = boundaryFromCorners("41.80, -117.62\n41.80 -117.61\n41.81, -117.61\n41.81, -117.62");
     expect(r.ok && r.polygon.coordinates[0]).toEqual([[-117.62, 41.8], [-117.61, 41.8], [-117.61, 41.81], [-117.62, 41.81], [-117.62, 41.8]]);
     expect(boundaryFromCorners("41.8, x").ok).toBe(false);
+  });
+});
+
+describe("outline size (RELIABILITY 34: bounded work per request)", () => {
+  const circle = (n: number) => {
+    const ring = Array.from({ length: n }, (_, i) => [-117.6 + 0.01 * Math.cos((2 * Math.PI * i) / n), 41.8 + 0.01 * Math.sin((2 * Math.PI * i) / n)]);
+    return { type: "Polygon", coordinates: [[...ring, ring[0]]] };
+  };
+  it("accepts an outline at the limit and refuses one past it, saying how many positions it had", () => {
+    expect(readBoundary(circle(MAX_CLAIM_POSITIONS - 1)).ok).toBe(true);
+    const refused = readBoundary(circle(20_000));
+    expect(refused.ok).toBe(false);
+    expect(!refused.ok && refused.message).toMatch(/20001 positions; at most 2000/);
   });
 });

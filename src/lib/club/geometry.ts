@@ -1,6 +1,13 @@
 import kinks from "@turf/kinks";
 import { polygonSchema, type Polygon } from "../entities/claim";
 
+/**
+ * The most positions a claim outline may have, all rings together. A claim is a handful of
+ * corners; a traced outline of a few hundred is plenty. The crossing check compares every
+ * edge with every other, so this also bounds the work one request can ask of the server.
+ */
+export const MAX_CLAIM_POSITIONS = 2000;
+
 export type GeometryResult = { ok: true; polygon: Polygon } | { ok: false; message: string };
 
 const same = (a: number[], b: number[]) => a[0] === b[0] && a[1] === b[1];
@@ -29,6 +36,10 @@ export function readBoundary(input: unknown): GeometryResult {
   if (!parsed.success) return { ok: false, message: "That is not a GeoJSON Polygon or MultiPolygon with [longitude, latitude] positions." };
   const polygon = parsed.data;
   const polys = polygon.type === "Polygon" ? [polygon.coordinates] : polygon.coordinates;
+  const positions = polys.reduce((n, rings) => n + rings.reduce((m, r) => m + r.length, 0), 0);
+  if (positions > MAX_CLAIM_POSITIONS) {
+    return { ok: false, message: `The outline has ${positions} positions; at most ${MAX_CLAIM_POSITIONS} are accepted. Simplify it to the claim's corners.` };
+  }
   for (const [i, rings] of polys.entries()) {
     const problem = checkRings(rings, polys.length > 1 ? `Part ${i + 1}, ` : "");
     if (problem) return { ok: false, message: problem.charAt(0).toUpperCase() + problem.slice(1) };

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { formatGrams } from "@/lib/format";
+import { withoutBidiControls as plain } from "@/lib/text/safe-text";
 import { getDb } from "../db";
 import { members } from "../db/schema";
 import { sendMail } from "../mail";
@@ -29,10 +30,10 @@ export function buildDigest(now = Date.now(), days = 7): Digest {
 export function digestText(d: Digest): string {
   const lines = [`Lodebook — the club's week since ${new Date(d.since).toISOString().slice(0, 10)}`, "", "New finds by claim:"];
   if (d.newFinds.length === 0) lines.push("  none");
-  for (const f of d.newFinds) lines.push(`  ${f.claimName ?? "off-claim"}: ${f.finds} finds, ${formatGrams(f.weightGrams)} recorded`);
+  for (const f of d.newFinds) lines.push(`  ${f.claimName ? plain(f.claimName) : "off-claim"}: ${f.finds} finds, ${formatGrams(f.weightGrams)} recorded`);
   lines.push("", "Queries still open:");
   if (d.openQueries.length === 0) lines.push("  none");
-  for (const q of d.openQueries) lines.push(`  ${q.memberName ?? "?"} — ${q.kind} of ${new Date(q.foundAt).toISOString().slice(0, 10)}: ${q.note}`);
+  for (const q of d.openQueries) lines.push(`  ${q.memberName ? plain(q.memberName) : "?"} — ${q.kind} of ${new Date(q.foundAt).toISOString().slice(0, 10)}: ${plain(q.note)}`);
   lines.push("", "Figures are estimates, not assays.");
   return lines.join("\n");
 }

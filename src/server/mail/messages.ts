@@ -1,4 +1,5 @@
 import "server-only";
+import { withoutBidiControls } from "@/lib/text/safe-text";
 
 export function signInLinkMessage(url: string) {
   return {
@@ -11,6 +12,6 @@ export function signInLinkMessage(url: string) {
 export function invitationMessage(url: string, inviter: string, days: number) {
   return {
     subject: "You are invited to your club's Lodebook",
-    text: `${inviter} invites you to keep your prospecting log in Lodebook, with your club.\n\nOpen this link to choose your password. It works once, for ${days} days:\n\n${url}\n\nIf you were not expecting this, ignore it.`,
+    text: `${withoutBidiControls(inviter)} invites you to keep your prospecting log in Lodebook, with your club.\n\nOpen this link to choose your password. It works once, for ${days} days:\n\n${url}\n\nIf you were not expecting this, ignore it.`,
   };
 }

@@ -4,6 +4,7 @@ import { ledgerQuerySchema } from "@/lib/club/ledger";
 import { KIND_LABELS } from "@/lib/entities/find";
 import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
 import { formatDay, formatGrams } from "@/lib/format";
+import { withoutBidiControls as plain } from "@/lib/text/safe-text";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
 import { ledgerRows } from "@/server/club/ledger";
@@ -33,7 +34,7 @@ export default async function ReportPage({ searchParams }: Props) {
     <article className="report flex flex-col gap-4 bg-sheet p-6 print:p-0" data-testid="report">
       <header className="flex items-start justify-between gap-4">
         <div>
-          <h1 className="text-2xl font-bold">Production report — {claim ? claim.name : member ? (member.name ?? member.email) : "whole club"}</h1>
+          <h1 className="text-2xl font-bold">Production report — {claim ? plain(claim.name) : member ? plain(member.name ?? member.email) : "whole club"}</h1>
           <p>
             {period}
             {q.kind ? ` · ${KIND_LABELS[q.kind]} only` : ""}
@@ -83,8 +84,12 @@ export default async function ReportPage({ searchParams }: Props) {
           {rows.map((r) => (
             <tr key={r.id} className="border-b border-rule">
               <td className="figure py-1 pr-2">{formatDay(r.foundAt)}</td>
-              <td className="py-1 pr-2">{r.memberName}</td>
-              <td className="py-1 pr-2">{r.claimName ?? "off-claim"}</td>
+              <td className="py-1 pr-2">
+                <bdi>{plain(r.memberName ?? "")}</bdi>
+              </td>
+              <td className="py-1 pr-2">
+                <bdi>{r.claimName ? plain(r.claimName) : "off-claim"}</bdi>
+              </td>
               <td className="py-1 pr-2">{KIND_LABELS[r.kind as keyof typeof KIND_LABELS]}</td>
               <td className="figure py-1 pr-2 text-right">{r.weightGrams != null ? formatGrams(r.weightGrams) : "—"}</td>
               <td className="figure py-1 pr-2 text-right">{r.fineGrams != null ? formatGrams(r.fineGrams) : "—"}</td>
