@@ -1,9 +1,37 @@
 import { convertMass, type MassUnit } from "./estimate/units";
 
 const DIGITS: Record<MassUnit, number> = { g: 2, ozt: 3, dwt: 2, gr: 1 };
+/** The finest a figure is ever shown: a milligram scale's step, in each unit. */
+const FINEST: Record<MassUnit, number> = { g: 3, ozt: 5, dwt: 3, gr: 2 };
 
-export function formatGrams(grams: number, unit: MassUnit = "g"): string {
-  return `${convertMass(grams, unit).toFixed(DIGITS[unit])} ${unit}`;
+/**
+ * Decimals that show a standard uncertainty with two significant digits when it starts with
+ * 1 or 2, else with one (JCGM 100:2008, 7.2.6: at most two), no finer than FINEST.
+ */
+export function decimalsForUncertainty(uncertaintyGrams: number, unit: MassUnit): number {
+  let u = convertMass(Math.abs(uncertaintyGrams), unit);
+  if (!(u > 0) || !Number.isFinite(u)) return FINEST[unit];
+  let decimals = 0;
+  while (u < 1 && decimals < FINEST[unit]) {
+    u *= 10;
+    decimals++;
+  }
+  while (u >= 10 && decimals > 0) {
+    u /= 10;
+    decimals--;
+  }
+  // u now lies in [1, 10) at `decimals` places: a leading 1 or 2 earns a second digit.
+  const sig = u < 3 ? decimals + 1 : decimals;
+  return Math.min(Math.max(sig, 0), FINEST[unit]);
+}
+
+/**
+ * A mass in the member's unit. Given its standard uncertainty, to the precision that allows
+ * (no three decimals on a ± 0.3 g figure); otherwise to the unit's usual decimals.
+ */
+export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGrams?: number): string {
+  const digits = uncertaintyGrams === undefined ? DIGITS[unit] : decimalsForUncertainty(uncertaintyGrams, unit);
+  return `${convertMass(grams, unit).toFixed(digits)} ${unit}`;
 }
 
 export function formatDay(ms: number): string {
