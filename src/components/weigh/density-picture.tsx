@@ -1,6 +1,6 @@
 import type { SpecimenEstimate } from "@/lib/estimate/types";
 
-type Props = { estimate: SpecimenEstimate; airGrams: number; hostDensity: number; alloyDensity: number; unitLabel: (g: number) => string };
+type Props = { estimate: SpecimenEstimate; specimenGrams: number; unitLabel: (g: number) => string };
 
 const W = 320;
 const PAD = 12;
@@ -10,13 +10,16 @@ const LOG_MAX = Math.log(20);
 const xDensity = (d: number) => PAD + ((Math.log(Math.min(Math.max(d, 1), 20)) - LOG_MIN) / (LOG_MAX - LOG_MIN)) * (W - 2 * PAD);
 
 /** Where the specimen sits between its host rock and gold, and the span of the estimate. */
-export function DensityPicture({ estimate, airGrams, hostDensity, alloyDensity, unitLabel }: Props) {
+export function DensityPicture({ estimate, specimenGrams, unitLabel }: Props) {
+  // The host and alloy the engine worked with, not retyped defaults.
+  const hostDensity = estimate.assumptions.hostDensity;
+  const alloyDensity = estimate.assumptions.goldAlloyDensity;
   const xs = xDensity(estimate.specimenDensity);
   const [lo, hi] = estimate.range.goldAlloyGrams;
-  const xg = (g: number) => PAD + (Math.min(Math.max(g, 0), airGrams) / airGrams) * (W - 2 * PAD);
+  const xg = (g: number) => PAD + (Math.min(Math.max(g, 0), specimenGrams) / specimenGrams) * (W - 2 * PAD);
   return (
     <figure className="flex flex-col gap-1">
-      <svg viewBox={`0 0 ${W} 120`} className="w-full" role="img" aria-label={`Specimen density ${estimate.specimenDensity.toFixed(2)} g/cm³, between host rock ${hostDensity.toFixed(2)} and gold alloy ${alloyDensity.toFixed(2)}; gold alloy between ${unitLabel(lo)} and ${unitLabel(hi)}.`}>
+      <svg viewBox={`0 0 ${W} 120`} className="w-full" role="img" aria-label={`Specimen density ${estimate.specimenDensity.toFixed(2)} g/cm³, between host rock ${hostDensity.toFixed(2)} and gold alloy ${alloyDensity.toFixed(2)}; gold alloy at worst between ${unitLabel(lo)} and ${unitLabel(hi)}.`}>
         <text x={PAD} y={12} fontSize="11" fill="var(--ink-soft)">Density, g/cm³</text>
         <line x1={PAD} x2={W - PAD} y1={30} y2={30} stroke="var(--rule)" strokeWidth={6} strokeLinecap="round" />
         <line x1={xDensity(hostDensity)} x2={xDensity(alloyDensity)} y1={30} y2={30} stroke="var(--ochre)" strokeOpacity={0.35} strokeWidth={6} />
@@ -42,7 +45,7 @@ export function DensityPicture({ estimate, airGrams, hostDensity, alloyDensity, 
         <line x1={xg(estimate.goldAlloyGrams)} x2={xg(estimate.goldAlloyGrams)} y1={80} y2={100} stroke="var(--ink)" strokeWidth={2.5} />
         <text x={PAD} y={114} fontSize="10" fill="var(--ink-soft)">0</text>
         <text x={W - PAD} y={114} fontSize="10" textAnchor="end" fill="var(--ink-soft)">
-          whole specimen {unitLabel(airGrams)}
+          whole specimen {unitLabel(specimenGrams)}
         </text>
       </svg>
     </figure>

@@ -1,25 +1,27 @@
 "use client";
 import { useState } from "react";
-import { goldAlloyDensity } from "@/lib/estimate/alloy";
-import type { SpecimenEstimate, SpecimenInput } from "@/lib/estimate/types";
-import { convertMass, gramsToTroyOunces, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
+import type { SpecimenEstimate } from "@/lib/estimate/types";
+import { gramsToTroyOunces, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
+import { formatGrams } from "@/lib/format";
 import { DensityPicture } from "./density-picture";
 import { parseNumber } from "./form-model";
+import { warningText } from "./warning-text";
 
-const DIGITS: Record<MassUnit, number> = { g: 3, ozt: 4, dwt: 3, gr: 1 };
+type Props = { estimate: SpecimenEstimate; unit: MassUnit; onUnitChange: (u: MassUnit) => void };
 
-type Props = { estimate: SpecimenEstimate; input: SpecimenInput; unit: MassUnit; onUnitChange: (u: MassUnit) => void };
-
-export function EstimatePanel({ estimate, input, unit, onUnitChange }: Props) {
+/** The estimate in a prospector's words: figures to the precision their ± allows, the range as the worst case. */
+export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
   const [price, setPrice] = useState("");
   const [currency, setCurrency] = useState("USD");
-  const fmt = (g: number) => `${convertMass(g, unit).toFixed(DIGITS[unit])} ${unit}`;
-  const airMean = input.airGrams.reduce((a, b) => a + b, 0) / input.airGrams.length;
-  const alloyDensity = input.goldDensity ?? goldAlloyDensity(input.finenessPermille ?? 1000);
+  const u = estimate.standardUncertainty;
+  const fine = (g: number) => formatGrams(g, unit, u.fineGoldGrams);
+  const alloy = (g: number) => formatGrams(g, unit, u.goldAlloyGrams);
   const perOz = parseNumber(price);
   const value = (g: number) => (perOz && perOz > 0 ? `${(gramsToTroyOunces(g) * perOz).toFixed(2)} ${currency}` : "—");
   const [fLo, fHi] = estimate.range.fineGoldGrams;
   const [aLo, aHi] = estimate.range.goldAlloyGrams;
+  const a = estimate.assumptions;
+  const specimenGrams = estimate.volumeCm3 * estimate.specimenDensity;
 
   return (
     <section aria-labelledby="estimate-title" aria-live="polite" className="sheet flex flex-col gap-3" data-testid="estimate">
@@ -30,9 +32,9 @@ export function EstimatePanel({ estimate, input, unit, onUnitChange }: Props) {
         <label className="flex items-center gap-2 text-sm font-bold">
           Show in
           <select className="field-input w-auto" value={unit} onChange={(e) => onUnitChange(e.target.value as MassUnit)}>
-            {MASS_UNITS.map((u) => (
-              <option key={u} value={u}>
-                {MASS_UNIT_LABELS[u]}
+            {MASS_UNITS.map((m) => (
+              <option key={m} value={m}>
+                {MASS_UNIT_LABELS[m]}
               </option>
             ))}
           </select>
@@ -42,10 +44,15 @@ export function EstimatePanel({ estimate, input, unit, onUnitChange }: Props) {
       <div>
         <p className="text-sm text-ink-soft">Fine gold</p>
         <p className="figure text-3xl font-bold" data-testid="fine-gold">
-          {fmt(estimate.fineGoldGrams)}
+          {fine(estimate.fineGoldGrams)}
         </p>
         <p className="figure" data-testid="fine-range">
-          range {fmt(fLo)} – {fmt(fHi)} · ± {fmt(estimate.standardUncertainty.fineGoldGrams)} (1 s.u.)
+          ± {fine(u.fineGoldGrams)} · at worst {fine(fLo)} – {fine(fHi)}
+        </p>
+        <p className="mt-1 text-xs text-ink-soft">
+          ± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it. “At worst” is the
+          lowest and highest your readings and assumptions allow — scale, water temperature, host rock and fineness all at their
+          worst at once.
         </p>
       </div>
 
@@ -53,10 +60,10 @@ export function EstimatePanel({ estimate, input, unit, onUnitChange }: Props) {
         <div>
           <dt className="text-ink-soft">Gold alloy</dt>
           <dd className="figure font-bold" data-testid="alloy-gold">
-            {fmt(estimate.goldAlloyGrams)}
+            {alloy(estimate.goldAlloyGrams)}
           </dd>
           <dd className="figure text-ink-soft">
-            {fmt(aLo)} – {fmt(aHi)}
+            ± {alloy(u.goldAlloyGrams)} · at worst {alloy(aLo)} – {alloy(aHi)}
           </dd>
         </div>
         <div>
@@ -76,13 +83,20 @@ export function EstimatePanel({ estimate, input, unit, onUnitChange }: Props) {
         </div>
       </dl>
 
-      <DensityPicture estimate={estimate} airGrams={airMean} hostDensity={input.hostDensity ?? 2.65} alloyDensity={alloyDensity} unitLabel={fmt} />
+      <DensityPicture estimate={estimate} specimenGrams={specimenGrams} unitLabel={alloy} />
+
+      <p className="text-xs text-ink-soft" data-testid="assumptions">
+        Worked with: host rock {a.hostDensity.toFixed(2)} g/cm³ ({a.hostDensityRange[0].toFixed(2)}–{a.hostDensityRange[1].toFixed(2)}) · gold{" "}
+        {Math.round(a.finenessPermille)} ‰ ({Math.round(a.finenessRangePermille[0])}–{Math.round(a.finenessRangePermille[1])}), alloy{" "}
+        {a.goldAlloyDensity.toFixed(2)} g/cm³ · water {a.waterTempC.toFixed(1)} °C ({a.waterTempRangeC[0].toFixed(1)}–{a.waterTempRangeC[1].toFixed(1)}) · scale ±{" "}
+        {a.scaleAccuracyGrams.toFixed(3)} g a reading · {a.airBuoyancyCorrection ? "air buoyancy corrected (OIML D 28)" : "no air-buoyancy correction (textbook figure)"}
+      </p>
 
       {estimate.warnings.length > 0 && (
         <ul className="flex flex-col gap-2" aria-label="Warnings" data-testid="warnings">
-          {estimate.warnings.map((w) => (
-            <li key={w.code} className="rounded-md border-2 border-caution p-2 text-sm" data-code={w.code}>
-              {w.message}
+          {estimate.warnings.map((w, i) => (
+            <li key={`${w.code}-${i}`} className="rounded-md border-2 border-caution p-2 text-sm" data-code={w.code}>
+              {warningText(w, alloy)}
             </li>
           ))}
         </ul>
@@ -102,7 +116,7 @@ export function EstimatePanel({ estimate, input, unit, onUnitChange }: Props) {
         </div>
         <p className="figure" data-testid="melt-value">
           {value(estimate.fineGoldGrams)}
-          {perOz ? ` (range ${value(fLo)} – ${value(fHi)})` : ""}
+          {perOz ? ` (at worst ${value(fLo)} – ${value(fHi)})` : ""}
         </p>
       </fieldset>
 

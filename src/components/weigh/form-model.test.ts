@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PENNYWEIGHT_GRAMS } from "@/lib/estimate/units";
-import { DEFAULT_WEIGH_FORM, parseNumber, toSpecimenInput } from "./form-model";
+import { DEFAULT_WEIGH_FORM, DEFAULT_REPEATS, parseNumber, toSpecimenInput } from "./form-model";
 
 describe("weigh-in form model", () => {
   it("reads decimal points and decimal commas, and refuses junk", () => {
@@ -39,5 +39,30 @@ describe("weigh-in form model", () => {
   it("gives an assayed fineness its ±5 ‰", () => {
     const r = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, finenessPreset: "assayed", fineness: "912" });
     expect(r.input.finenessRangePermille).toEqual([907, 917]);
+  });
+
+  it("starts with three repeat readings and the air-buoyancy correction on", () => {
+    expect(DEFAULT_REPEATS).toBe(3);
+    expect(DEFAULT_WEIGH_FORM.air).toHaveLength(3);
+    expect(DEFAULT_WEIGH_FORM.water).toHaveLength(3);
+    const r = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, air: [{ value: "10" }, { value: "10.01" }, { value: "" }], water: [{ value: "6" }, { value: "" }, { value: "" }] });
+    expect(r.input.airGrams).toEqual([10, 10.01]);
+    expect(r.input.airBuoyancyCorrection).toBe(true);
+    // Blank accuracy leaves the engine's default for the step.
+    expect(r.input.scaleAccuracyGrams).toBeUndefined();
+  });
+
+  it("carries the scale's stated accuracy in the reading unit", () => {
+    const r = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, readingUnit: "dwt", accuracy: "0.02", air: [{ value: "10" }], water: [{ value: "6" }] });
+    expect(r.input.scaleAccuracyGrams).toBeCloseTo(0.02 * PENNYWEIGHT_GRAMS, 12);
+  });
+
+  it("enters ranges as a centre give or take, so the value is the centre", () => {
+    const host = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, hostPreset: "custom", hostDensity: "2.8", hostSpread: "0.1" });
+    expect(host.input.hostDensityRange).toEqual([2.8 - 0.1, 2.8 + 0.1]);
+    const assay = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, finenessPreset: "assayed", fineness: "998" });
+    expect(assay.input.finenessRangePermille).toEqual([996, 1000]);
+    const past = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, finenessPreset: "custom", fineness: "980", finenessSpread: "30" });
+    expect(past.errors.fineness).toMatch(/1000/);
   });
 });

@@ -1,3 +1,4 @@
+import { DEFAULTS } from "@/lib/estimate/input";
 import { ASSAY_HALF_RANGE, FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import { fahrenheitToCelsius, toGrams, type MassUnit } from "@/lib/estimate/units";
@@ -12,41 +13,50 @@ export type WeighFormValues = {
   air: { value: string }[];
   water: { value: string }[];
   resolution: string;
+  /** The scale's stated accuracy (± a reading); blank takes the engine's default for the step. */
+  accuracy: string;
   temp: string;
   tempUnit: "C" | "F";
   tempTolerance: string;
   hostPreset: string;
   hostDensity: string;
-  hostLow: string;
-  hostHigh: string;
+  /** Give or take, g/cm³: ranges are entered as a centre and a half-width, as the engine takes them. */
+  hostSpread: string;
   finenessPreset: string;
   fineness: string;
-  finenessLow: string;
-  finenessHigh: string;
+  finenessSpread: string;
   airBuoyancy: boolean;
 };
 
-export type WeighField = "air" | "water" | "resolution" | "temp" | "tempTolerance" | "hostDensity" | "fineness" | "method";
+export type WeighField = "air" | "water" | "resolution" | "accuracy" | "temp" | "tempTolerance" | "hostDensity" | "fineness" | "method";
+
+/** Three repeat readings to start with: their spread is part of the estimate's honesty. */
+export const DEFAULT_REPEATS = 3;
+const blankReadings = () => Array.from({ length: DEFAULT_REPEATS }, () => ({ value: "" }));
 
 export const DEFAULT_WEIGH_FORM: WeighFormValues = {
   method: "hanging",
   readingUnit: "g",
-  air: [{ value: "" }],
-  water: [{ value: "" }],
-  resolution: "0.01",
-  temp: "20",
+  air: blankReadings(),
+  water: blankReadings(),
+  resolution: String(DEFAULTS.scaleResolutionGrams),
+  accuracy: "",
+  temp: String(DEFAULTS.waterTempC),
   tempUnit: "C",
-  tempTolerance: "2",
+  tempTolerance: String(DEFAULTS.waterTempToleranceC),
   hostPreset: "quartz",
   hostDensity: "",
-  hostLow: "",
-  hostHigh: "",
+  hostSpread: "",
   finenessPreset: "natural",
   fineness: "",
-  finenessLow: "",
-  finenessHigh: "",
-  airBuoyancy: false,
+  finenessSpread: "",
+  airBuoyancy: true,
 };
+
+/** Fresh blank readings, for clearing the form. */
+export function emptyReadings(): { value: string }[] {
+  return blankReadings();
+}
 
 
 /** Maps the engine's field names back to the form's. */
@@ -55,6 +65,7 @@ export const ENGINE_FIELD_TO_FORM: Record<string, WeighField> = {
   airGrams: "air",
   waterGrams: "water",
   scaleResolutionGrams: "resolution",
+  scaleAccuracyGrams: "accuracy",
   waterTempC: "temp",
   waterTempToleranceC: "tempTolerance",
   hostDensity: "hostDensity",
@@ -90,6 +101,7 @@ export function toSpecimenInput(v: WeighFormValues): FormResult {
   };
 
   const resolution = num(v.resolution, "resolution", "Scale step");
+  const accuracy = num(v.accuracy, "accuracy", "Scale accuracy");
   const tempRaw = num(v.temp, "temp", "Temperature");
   const tolRaw = num(v.tempTolerance, "tempTolerance", "Tolerance");
   const input: SpecimenInput = {
@@ -97,6 +109,7 @@ export function toSpecimenInput(v: WeighFormValues): FormResult {
     airGrams,
     waterGrams,
     scaleResolutionGrams: resolution !== undefined ? toGrams(resolution, unit) : undefined,
+    scaleAccuracyGrams: accuracy !== undefined ? toGrams(accuracy, unit) : undefined,
     waterTempC: tempRaw === undefined ? undefined : v.tempUnit === "F" ? fahrenheitToCelsius(tempRaw) : tempRaw,
     waterTempToleranceC: tolRaw === undefined ? undefined : v.tempUnit === "F" ? (tolRaw * 5) / 9 : tolRaw,
     airBuoyancyCorrection: v.airBuoyancy,
@@ -108,11 +121,10 @@ export function toSpecimenInput(v: WeighFormValues): FormResult {
     input.hostDensityRange = host.range;
   } else {
     const d = num(v.hostDensity, "hostDensity", "Host density");
-    const lo = num(v.hostLow, "hostDensity", "Host density, low");
-    const hi = num(v.hostHigh, "hostDensity", "Host density, high");
+    const spread = num(v.hostSpread, "hostDensity", "Host density, give or take");
     if (d === undefined) errors.hostDensity ??= "Enter the host rock's density in g/cm³.";
     input.hostDensity = d;
-    if (lo !== undefined && hi !== undefined) input.hostDensityRange = [lo, hi];
+    if (d !== undefined && spread !== undefined) input.hostDensityRange = [d - spread, d + spread];
   }
 
   const preset = FINENESS_PRESETS.find((p) => p.id === v.finenessPreset);
@@ -124,11 +136,15 @@ export function toSpecimenInput(v: WeighFormValues): FormResult {
     if (f === undefined) errors.fineness ??= "Enter the fineness in parts per thousand (‰).";
     input.finenessPermille = f;
     if (v.finenessPreset === "assayed" && f !== undefined) {
-      input.finenessRangePermille = [Math.max(1, f - ASSAY_HALF_RANGE), Math.min(1000, f + ASSAY_HALF_RANGE)];
+      // ± the assay's half-range, narrowed alike on both sides at 1000 ‰ so the assay stays the centre.
+      const half = Math.max(0, Math.min(ASSAY_HALF_RANGE, 1000 - f, f - 1));
+      input.finenessRangePermille = [f - half, f + half];
     } else {
-      const lo = num(v.finenessLow, "fineness", "Fineness, low");
-      const hi = num(v.finenessHigh, "fineness", "Fineness, high");
-      if (lo !== undefined && hi !== undefined) input.finenessRangePermille = [lo, hi];
+      const spread = num(v.finenessSpread, "fineness", "Fineness, give or take");
+      if (f !== undefined && spread !== undefined) {
+        if (f + spread > 1000 || f - spread <= 0) errors.fineness ??= `${f} ‰ give or take ${spread} goes past 0–1000 ‰: narrow it.`;
+        else input.finenessRangePermille = [f - spread, f + spread];
+      }
     }
   }
 

@@ -1,11 +1,12 @@
 "use client";
-import { useEffect, useMemo, useState } from "react";
+import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { estimateSpecimen, estimateSpecimenMonteCarlo, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
+import { defaultScaleAccuracy, estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
-import { formatMass, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
+import { MASS_UNIT_LABELS, MASS_UNITS, toGrams, convertMass, type MassUnit } from "@/lib/estimate/units";
+import { formatGrams } from "@/lib/format";
 import { EstimatePanel } from "./estimate-panel";
-import { DEFAULT_WEIGH_FORM, ENGINE_FIELD_TO_FORM, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
+import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseNumber, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
 import { ReadingsField } from "./readings-field";
 
 type Props = {
@@ -14,13 +15,21 @@ type Props = {
   onSave?: (input: SpecimenInput, estimate: SpecimenEstimate) => void | Promise<void>;
 };
 
-type Outcome = { input: SpecimenInput; estimate?: SpecimenEstimate; errors: Partial<Record<WeighField, string>> };
+type Outcome = {
+  input: SpecimenInput;
+  estimate?: SpecimenEstimate;
+  /** Fine gold with the air-buoyancy correction minus without it, for these readings. */
+  airEffectGrams?: number;
+  errors: Partial<Record<WeighField, string>>;
+};
 
 const PRACTICE = [
   "Dry the specimen before the reading in air.",
   "Wet the line, then tare with it already under water.",
   "Hang the specimen free of the walls and the bottom.",
   "Brush off air bubbles clinging to it.",
+  "Soak a porous or vuggy specimen until the in-water reading stops moving, and use the settled reading.",
+  "Take three readings of each weighing: their spread shows in the estimate.",
   "Measure the water's temperature.",
 ];
 
@@ -28,11 +37,32 @@ function compute(values: WeighFormValues): Outcome {
   const { input, errors, complete } = toSpecimenInput(values);
   if (!complete) return { input, errors };
   try {
-    return { input, errors, estimate: estimateSpecimen(input) };
+    const estimate = estimateSpecimen(input);
+    return { input, errors, estimate, airEffectGrams: airBuoyancyEffect(input, estimate) };
   } catch (error) {
     if (error instanceof EstimateInputError) return { input, errors: { ...errors, [ENGINE_FIELD_TO_FORM[error.field] ?? "water"]: error.message } };
     throw error;
   }
+}
+
+/** What the air-buoyancy correction changes for these readings: the estimate with it minus without it. */
+function airBuoyancyEffect(input: SpecimenInput, estimate: SpecimenEstimate): number | undefined {
+  const on = estimate.assumptions.airBuoyancyCorrection;
+  let other: SpecimenEstimate;
+  try {
+    other = estimateSpecimen({ ...input, airBuoyancyCorrection: !on });
+  } catch (error) {
+    // The other figure can be refused at an edge (denser than gold one way only): then say nothing.
+    if (error instanceof EstimateInputError) return undefined;
+    throw error;
+  }
+  return on ? estimate.fineGoldGrams - other.fineGoldGrams : other.fineGoldGrams - estimate.fineGoldGrams;
+}
+
+function airEffectText(effectGrams: number, textbookGrams: number, unit: MassUnit): string {
+  const sign = effectGrams > 0 ? "+" : effectGrams < 0 ? "−" : "±";
+  const percent = textbookGrams > 0 ? ` (${sign}${Math.abs((effectGrams / textbookGrams) * 100).toFixed(1)} %)` : "";
+  return `For these readings it changes the fine gold by ${sign}${formatGrams(Math.abs(effectGrams), unit, Math.abs(effectGrams) / 10)}${percent}.`;
 }
 
 /** The weigh-in: readings in, the estimate out, recomputed as each number is typed. */
@@ -43,14 +73,14 @@ export function WeighInFlow({ initial, onSave }: Props) {
   const [resultUnit, setResultUnit] = useState<MassUnit>("g");
   const [saving, setSaving] = useState(false);
 
-  // Lets anyone compare this device's arithmetic with the server's (and the tests do).
-  useEffect(() => {
-    (globalThis as { lodebookEngine?: unknown }).lodebookEngine = { estimateSpecimen, estimateSpecimenMonteCarlo };
-  }, []);
-
   const hanging = values.method === "hanging";
   const unit = values.readingUnit;
   const e = outcome.errors;
+  const step = parseNumber(values.resolution);
+  const accuracyHint = step !== undefined && step > 0 ? `± ${Number(convertMass(defaultScaleAccuracy(toGrams(step, unit)), unit).toPrecision(2))}` : "";
+  const textbookFine = outcome.estimate && outcome.airEffectGrams !== undefined
+    ? (outcome.estimate.assumptions.airBuoyancyCorrection ? outcome.estimate.fineGoldGrams - outcome.airEffectGrams : outcome.estimate.fineGoldGrams)
+    : undefined;
 
   return (
     <div className="grid gap-4 lg:grid-cols-[1fr_minmax(320px,420px)]">
@@ -101,8 +131,15 @@ export function WeighInFlow({ initial, onSave }: Props) {
               <span className="field-label">Scale step</span>
               <input inputMode="decimal" className="field-input figure w-28" aria-invalid={!!e.resolution} {...register("resolution")} />
             </label>
+            <label className="flex flex-col">
+              <span className="field-label">Accuracy ±</span>
+              <input inputMode="decimal" className="field-input figure w-28" placeholder={accuracyHint} aria-invalid={!!e.accuracy} aria-describedby="accuracy-hint" {...register("accuracy")} />
+            </label>
           </div>
-          {e.resolution && <p className="field-error">{e.resolution}</p>}
+          <p id="accuracy-hint" className="text-sm text-ink-soft">
+            How far one reading may be off, from your scale&apos;s specification (repeatability and linearity). Left blank: {accuracyHint || "a default"} for this step.
+          </p>
+          {(e.resolution || e.accuracy) && <p className="field-error">{e.resolution ?? e.accuracy}</p>}
           <ReadingsField name="air" label="Dry, in air" hint="The specimen alone on the scale." unit={unit} error={e.air} control={control} register={register} />
           <ReadingsField
             name="water"
@@ -149,18 +186,14 @@ export function WeighInFlow({ initial, onSave }: Props) {
             </select>
           </label>
           {values.hostPreset === "custom" && (
-            <div className="grid grid-cols-3 gap-2">
+            <div className="grid grid-cols-2 gap-2">
               <label className="flex flex-col text-sm">
                 <span className="font-bold">Density g/cm³</span>
                 <input inputMode="decimal" className="field-input figure" {...register("hostDensity")} />
               </label>
               <label className="flex flex-col text-sm">
-                <span className="font-bold">Lowest</span>
-                <input inputMode="decimal" className="field-input figure" {...register("hostLow")} />
-              </label>
-              <label className="flex flex-col text-sm">
-                <span className="font-bold">Highest</span>
-                <input inputMode="decimal" className="field-input figure" {...register("hostHigh")} />
+                <span className="font-bold">give or take</span>
+                <input inputMode="decimal" className="field-input figure" placeholder="± 2 %" {...register("hostSpread")} />
               </label>
             </div>
           )}
@@ -179,30 +212,30 @@ export function WeighInFlow({ initial, onSave }: Props) {
             </select>
           </label>
           {(values.finenessPreset === "assayed" || values.finenessPreset === "custom") && (
-            <div className="grid grid-cols-3 gap-2">
+            <div className="grid grid-cols-2 gap-2">
               <label className="flex flex-col text-sm">
                 <span className="font-bold">Fineness ‰</span>
                 <input inputMode="decimal" className="field-input figure" {...register("fineness")} />
               </label>
               {values.finenessPreset === "custom" && (
-                <>
-                  <label className="flex flex-col text-sm">
-                    <span className="font-bold">Lowest</span>
-                    <input inputMode="decimal" className="field-input figure" {...register("finenessLow")} />
-                  </label>
-                  <label className="flex flex-col text-sm">
-                    <span className="font-bold">Highest</span>
-                    <input inputMode="decimal" className="field-input figure" {...register("finenessHigh")} />
-                  </label>
-                </>
+                <label className="flex flex-col text-sm">
+                  <span className="font-bold">give or take ‰</span>
+                  <input inputMode="decimal" className="field-input figure" {...register("finenessSpread")} />
+                </label>
               )}
             </div>
           )}
           {e.fineness && <p className="field-error">{e.fineness}</p>}
           <label className="flex min-h-touch items-center gap-2 text-sm">
-            <input type="checkbox" className="h-5 w-5" {...register("airBuoyancy")} />
-            Correct for the air&apos;s buoyancy (OIML D 28; moves the result by under 1 %)
+            <input type="checkbox" className="h-5 w-5" aria-describedby="air-buoyancy-hint" {...register("airBuoyancy")} />
+            Correct for the air&apos;s buoyancy (OIML D 28)
           </label>
+          <p id="air-buoyancy-hint" className="text-sm text-ink-soft" data-testid="air-buoyancy-hint">
+            In air the scale reads a little light, by the weight of the air the specimen pushes aside, while the host densities are
+            true densities. Left off, you get the textbook figure, which always makes the specimen look denser and so flatters the
+            gold: a fraction of a per cent on a rich piece, several per cent at low grade.
+            {outcome.airEffectGrams !== undefined && textbookFine !== undefined && ` ${airEffectText(outcome.airEffectGrams, textbookFine, resultUnit)}`}
+          </p>
         </div>
       </form>
 
@@ -212,15 +245,15 @@ export function WeighInFlow({ initial, onSave }: Props) {
           className="sheet figure sticky bottom-2 z-10 flex items-baseline justify-between gap-2 font-bold no-underline shadow-lg lg:hidden"
           aria-label="Jump to the estimate"
         >
-          <span>Fine gold ≈ {formatMass(outcome.estimate.fineGoldGrams, resultUnit)}</span>
+          <span>Fine gold ≈ {formatGrams(outcome.estimate.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}</span>
           <span className="text-sm text-ink-soft">
-            {formatMass(outcome.estimate.range.fineGoldGrams[0], resultUnit)} – {formatMass(outcome.estimate.range.fineGoldGrams[1], resultUnit)}
+            ± {formatGrams(outcome.estimate.standardUncertainty.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}
           </span>
         </a>
       )}
       <div id="estimate" className="flex flex-col gap-3 lg:sticky lg:top-4 lg:self-start">
         {outcome.estimate ? (
-          <EstimatePanel estimate={outcome.estimate} input={outcome.input} unit={resultUnit} onUnitChange={setResultUnit} />
+          <EstimatePanel estimate={outcome.estimate} unit={resultUnit} onUnitChange={setResultUnit} />
         ) : (
           <section className="sheet" aria-live="polite" data-testid="estimate-waiting">
             <h2 className="heading-bar mb-2 text-lg">Estimate</h2>
@@ -245,8 +278,8 @@ export function WeighInFlow({ initial, onSave }: Props) {
           </button>
         )}
         <button type="button" className="btn" onClick={() => {
-            setValue("air", [{ value: "" }]);
-            setValue("water", [{ value: "" }]);
+            setValue("air", emptyReadings());
+            setValue("water", emptyReadings());
           }}>
           Clear the readings
         </button>

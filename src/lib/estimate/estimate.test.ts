@@ -27,7 +27,8 @@ describe("estimateSpecimen — worked example of our own", () => {
     // By hand: ρw(20 °C) = 0.9982067 (Tanaka 2001 check value); V = 37.28/0.9982067 = 37.34697 cm³;
     // ρs = 2.677593; ρg(850 ‰) = 1/(0.85/19.32 + 0.15/10.49) = 17.15407;
     // m_g = 100·ρg·(ρs − 2.65)/(ρs·(ρg − 2.65)) = 1.2188 g.
-    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.72], finenessPermille: 850, hostDensity: 2.65 });
+    // The textbook figure: no air-buoyancy correction (air-buoyancy.test.ts checks that one).
+    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.72], finenessPermille: 850, hostDensity: 2.65, airBuoyancyCorrection: false });
     expect(e.volumeCm3).toBeCloseTo(37.34697, 4);
     expect(e.specimenDensity).toBeCloseTo(2.677593, 5);
     expect(e.goldAlloyGrams).toBeCloseTo(1.2188, 3);
@@ -54,18 +55,24 @@ describe("estimateSpecimen — honest about what it cannot tell", () => {
   const base: SpecimenInput = { method: "hanging", airGrams: [100], waterGrams: [62.5] };
   const codes = (i: SpecimenInput) => estimateSpecimen(i).warnings.map((w) => w.code);
 
-  it("finds no gold in a specimen lighter than its host", () => {
-    const e = estimateSpecimen({ ...base, waterGrams: [61] });
+  it("finds no gold in a specimen no denser than its host", () => {
+    const e = estimateSpecimen({ ...base, waterGrams: [62.25] });
     expect(e.goldAlloyGrams).toBe(0);
     expect(e.warnings.map((w) => w.code)).toContain("no_gold_detectable");
   });
+  it("doubts the host rather than the gold in a specimen lighter than its host's lowest", () => {
+    const e = estimateSpecimen({ ...base, waterGrams: [61] });
+    expect(e.goldAlloyGrams).toBe(0);
+    expect(e.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(["lighter_than_host"]));
+  });
   it("says when gold cannot be told from none", () => {
-    expect(codes({ ...base, waterGrams: [62.35] })).toContain("gold_not_distinguishable");
+    expect(codes({ ...base, waterGrams: [62.4] })).toContain("gold_not_distinguishable");
   });
   it("caps a specimen denser than the chosen alloy and says so", () => {
     const s = composeSpecimen({ goldGrams: 50, fineness: 1000, hostGrams: 0.5, hostDensity: 2.65 });
     const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessPermille: 700 });
-    expect(e.goldAlloyGrams).toBe(s.air);
+    expect(e.goldMassPercent).toBe(100);
+    expect(e.goldAlloyGrams).toBeCloseTo(s.mass, 9);
     expect(e.warnings.map((w) => w.code)).toContain("denser_than_alloy");
   });
   it("flags a specimen too small for the scale", () => {
@@ -75,7 +82,7 @@ describe("estimateSpecimen — honest about what it cannot tell", () => {
     expect(codes({ ...base, airGrams: [100, 100.2] })).toContain("readings_disagree");
     expect(codes({ ...base, airGrams: [100, 100.01] })).not.toContain("readings_disagree");
   });
-  it("flags a water reading that drifts (porous specimen, ASTM B311 note 1)", () => {
+  it("flags a water reading that drifts (pores filling: REFERENCES.md, porous specimens)", () => {
     expect(codes({ ...base, waterGrams: [62.5, 62.55, 62.61] })).toContain("water_reading_drifts");
   });
   it("flags a range wider than the estimate", () => {
@@ -128,7 +135,8 @@ function inputFor(s: Specimen, method: "hanging" | "buoyancy" = "hanging"): Spec
     waterTempC: s.tempC,
     hostDensity: s.hostDensity,
     finenessPermille: s.fineness,
-    finenessRangePermille: [Math.max(1, s.fineness - 50), Math.min(1000, s.fineness + 50)],
+    // Centred on the fineness, as every range is taken to be.
+    finenessRangePermille: [s.fineness - Math.min(50, 1000 - s.fineness), s.fineness + Math.min(50, 1000 - s.fineness)],
   };
 }
 

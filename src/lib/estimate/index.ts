@@ -2,32 +2,35 @@ import { GOLD_DENSITY } from "./alloy";
 import { EstimateInputError } from "./errors";
 import { centralPoint, resolveInput } from "./input";
 import { evaluateModel } from "./model";
+import { searchRange } from "./range";
 import type { SpecimenEstimate, SpecimenInput } from "./types";
-import { cornerRange, gumUncertainty, monteCarlo, type MonteCarloResult } from "./uncertainty";
+import { gumUncertainty, monteCarlo, type MonteCarloResult } from "./uncertainty";
+import { ENGINE_VERSION } from "./version";
 import { collectWarnings } from "./warnings";
 
 export { goldAlloyDensity, karatToFineness, GOLD_DENSITY, SILVER_DENSITY } from "./alloy";
 export { EstimateInputError } from "./errors";
+export { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS } from "./input";
 export { waterDensity } from "./water";
+export { ENGINE_VERSION } from "./version";
 export * from "./units";
-export type { SpecimenInput, SpecimenEstimate, EstimateWarning, WeighMethod } from "./types";
+export type { SpecimenInput, SpecimenEstimate, EstimateWarning, EstimateAssumptions, WarningCode, WeighMethod } from "./types";
 export type { MonteCarloResult } from "./uncertainty";
-
-/** Bumped whenever a change could move any result; stored with every server recomputation. */
-export const ENGINE_VERSION = "1.0.0";
 
 /** Gold in a specimen from a hydrostatic weighing, with its range and standard uncertainty. */
 export function estimateSpecimen(input: SpecimenInput): SpecimenEstimate {
   const r = resolveInput(input);
   const central = evaluateModel(centralPoint(r), r.settings);
-  if (central.density > GOLD_DENSITY) {
+  const ranges = searchRange(r);
+  // Impossible only when even the lightest the readings allow is denser than pure gold; a
+  // pure-gold piece that rounding pushes over 19.32 is all gold, with a warning.
+  if (ranges.density[0] > GOLD_DENSITY) {
     throw new EstimateInputError(
       "denser_than_gold",
       "waterGrams",
-      `These readings make the specimen ${central.density.toFixed(2)} g/cm³, denser than pure gold (${GOLD_DENSITY}). Re-check the readings and the tare.`,
+      `These readings make the specimen ${central.density.toFixed(2)} g/cm³, and at least ${ranges.density[0].toFixed(2)} within the scale's accuracy: denser than pure gold (${GOLD_DENSITY}). Re-check the readings and the tare.`,
     );
   }
-  const ranges = cornerRange(r);
   const u = gumUncertainty(r);
   const goldVolume = central.alloy / central.alloyDensity;
   return {
@@ -39,7 +42,19 @@ export function estimateSpecimen(input: SpecimenInput): SpecimenEstimate {
     goldVolumePercent: (goldVolume / central.volume) * 100,
     range: { goldAlloyGrams: ranges.alloy, fineGoldGrams: ranges.fine },
     standardUncertainty: { goldAlloyGrams: u.alloy, fineGoldGrams: u.fine },
-    warnings: collectWarnings(r, central, ranges),
+    warnings: collectWarnings(r, central, ranges, u),
+    assumptions: {
+      airBuoyancyCorrection: r.settings.airCorrection,
+      scaleResolutionGrams: r.resolution,
+      scaleAccuracyGrams: r.accuracy,
+      waterTempC: r.tempC.value,
+      waterTempRangeC: [r.tempC.lo, r.tempC.hi],
+      hostDensity: r.host.value,
+      hostDensityRange: [r.host.lo, r.host.hi],
+      finenessPermille: r.fineness.value,
+      finenessRangePermille: [r.fineness.lo, r.fineness.hi],
+      goldAlloyDensity: central.alloyDensity,
+    },
     engineVersion: ENGINE_VERSION,
   };
 }

@@ -1,4 +1,4 @@
-import { GOLD_DENSITY } from "./alloy";
+import { GOLD_DENSITY, goldAlloyDensity } from "./alloy";
 import { EstimateInputError } from "./errors";
 import type { ModelPoint, ModelSettings } from "./model";
 import type { SpecimenInput } from "./types";
@@ -15,25 +15,67 @@ export const DEFAULTS = {
   finenessPermille: 1000,
 } as const;
 
-/** An uncertain input: its central value, its extremes, and its standard uncertainty (k = 1). */
+/** The heaviest reading taken as a specimen weighing (a 100 kg scale); beyond it, a typing slip. */
+export const MAX_READING_GRAMS = 100_000;
+/** The coarsest scale step and accuracy accepted. */
+export const MAX_STEP_GRAMS = 10;
+
+/**
+ * The accuracy assumed when the member does not state their scale's: how far one reading may
+ * be off, rounding included. From pocket-scale specifications as commonly printed [memory, not
+ * confirmed in a source]: milligram scales ±3 steps (drafts and static tell at that step),
+ * centigram scales ±2 steps, coarser scales ±1 step.
+ */
+export function defaultScaleAccuracy(step: number): number {
+  if (step < 0.005) return 3 * step;
+  if (step < 0.05) return 2 * step;
+  return step;
+}
+
+/**
+ * An uncertain input: its central value, its extremes, and its standard uncertainty (k = 1).
+ * Every assumption is rectangular over [lo, hi] and its value is the centre of that range, so
+ * the headline, the standard uncertainty and Monte Carlo all stand on one distribution.
+ */
 export type Quantity = { value: number; lo: number; hi: number; u: number };
+
+/** A reading's mean with its extremes and uncertainty, the scale's part kept apart. */
+export type Reading = Quantity & {
+  readings: number[];
+  /** The most one reading may be off: the stated accuracy, at least half a step. */
+  bound: number;
+  /** Type B standard uncertainty of the scale (rectangular over ± bound). */
+  uScale: number;
+  /** Type A: the standard deviation of the mean of the repeats. */
+  uRepeat: number;
+};
+
+/** A value given off the centre of its range; the engine used the centre. */
+export type NotCentred = { quantity: "hostDensity" | "finenessPermille"; given: number; used: number };
 
 export type ResolvedInput = {
   settings: ModelSettings;
   resolution: number;
-  air: Quantity;
-  water: Quantity;
+  accuracy: number;
+  air: Reading;
+  water: Reading;
   tempC: Quantity;
   host: Quantity;
   fineness: Quantity;
-  airReadings: number[];
-  waterReadings: number[];
+  notCentred: NotCentred[];
 };
 
 const SQRT3 = Math.sqrt(3);
+/** A value this close to its range's centre (relative) is taken as the centre itself. */
+const CENTRE_TOLERANCE = 1e-9;
 
 function fail(code: string, field: keyof SpecimenInput, message: string): never {
   throw new EstimateInputError(code, field, message);
+}
+
+/** 100000 → "100 000", as the app writes large figures. */
+function grouped(n: number): string {
+  return String(n).replace(/\B(?=(\d{3})+(?!\d))/g, " ");
 }
 
 function checkReadings(values: unknown, field: "airGrams" | "waterGrams", label: string): number[] {
@@ -43,11 +85,14 @@ function checkReadings(values: unknown, field: "airGrams" | "waterGrams", label:
   for (const v of values) {
     if (typeof v !== "number" || !Number.isFinite(v)) fail("reading_not_finite", field, `Every ${label} reading must be a number.`);
     if (v <= 0) fail("reading_not_positive", field, `Every ${label} reading must be more than zero.`);
+    if (v > MAX_READING_GRAMS) {
+      fail("reading_implausible", field, `The ${label} reading ${v} g is more than a specimen scale weighs (at most ${grouped(MAX_READING_GRAMS)} g). Check the number and its unit.`);
+    }
   }
   return values as number[];
 }
 
-/** Mean, and standard deviation of the mean (GUM type A), of repeat readings. */
+/** Mean, standard deviation of the mean (GUM type A) and spread of repeat readings. */
 export function meanAndSpread(values: number[]): { mean: number; sdMean: number; spread: number } {
   let sum = 0;
   for (const v of values) sum += v;
@@ -65,32 +110,46 @@ export function meanAndSpread(values: number[]): { mean: number; sdMean: number;
   return { mean, sdMean: sd / Math.sqrt(values.length), spread: max - min };
 }
 
-/** A reading's mean with extremes ± the larger of half a scale step and half the spread. */
-function readingQuantity(values: number[], resolution: number): Quantity {
-  const { mean, sdMean, spread } = meanAndSpread(values);
-  const half = Math.max(resolution / 2, spread / 2);
-  // Type B: rectangular over one scale step (u = r/√12); type A: sd of the mean.
-  const u = Math.sqrt((resolution * resolution) / 12 + sdMean * sdMean);
-  return { value: mean, lo: mean - half, hi: mean + half, u };
+/**
+ * A reading's mean, with extremes ± the larger of the scale's bound (its accuracy, at least
+ * half a step) and half the repeats' spread. Uncertainty: type B rectangular over ± bound,
+ * type A the standard deviation of the mean (JCGM 100:2008, 4.3.7 and 4.2.3).
+ */
+function readingQuantity(readings: number[], resolution: number, accuracy: number): Reading {
+  const { mean, sdMean, spread } = meanAndSpread(readings);
+  const bound = Math.max(accuracy, resolution / 2);
+  const half = Math.max(bound, spread / 2);
+  const uScale = bound / SQRT3;
+  return { value: mean, lo: mean - half, hi: mean + half, u: Math.sqrt(uScale * uScale + sdMean * sdMean), readings, bound, uScale, uRepeat: sdMean };
 }
 
 function rectangular(value: number, lo: number, hi: number): Quantity {
   return { value, lo, hi, u: (hi - lo) / (2 * SQRT3) };
 }
 
-function checkRange(
+/**
+ * A value and its optional range. Given a range, the quantity is rectangular over it and
+ * centred on it: a value given off the centre is noted and the centre used.
+ */
+function rangedQuantity(
+  given: number | undefined,
   range: [number, number] | undefined,
-  value: number,
-  field: keyof SpecimenInput,
+  quantity: NotCentred["quantity"],
+  rangeField: keyof SpecimenInput,
   label: string,
-): [number, number] | undefined {
+  notCentred: NotCentred[],
+): Quantity | undefined {
   if (range === undefined) return undefined;
   const [lo, hi] = range;
-  if (!Number.isFinite(lo) || !Number.isFinite(hi) || lo > hi) {
-    fail("range_invalid", field, `The ${label} range must be two numbers, low first.`);
+  if (typeof lo !== "number" || typeof hi !== "number" || !Number.isFinite(lo) || !Number.isFinite(hi) || lo > hi) {
+    fail("range_invalid", rangeField, `The ${label} range must be two numbers, low first.`);
   }
-  if (value < lo || value > hi) fail("range_excludes_value", field, `The ${label} range must include the ${label} itself.`);
-  return [lo, hi];
+  const centre = (lo + hi) / 2;
+  if (given === undefined) return rectangular(centre, lo, hi);
+  if (given < lo || given > hi) fail("range_excludes_value", rangeField, `The ${label} range must include the ${label} itself.`);
+  if (Math.abs(given - centre) <= CENTRE_TOLERANCE * Math.abs(centre)) return rectangular(given, lo, hi);
+  notCentred.push({ quantity, given, used: centre });
+  return rectangular(centre, lo, hi);
 }
 
 export function resolveInput(input: SpecimenInput): ResolvedInput {
@@ -101,12 +160,16 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
   const waterReadings = checkReadings(input.waterGrams, "waterGrams", "in-water");
 
   const resolution = input.scaleResolutionGrams ?? DEFAULTS.scaleResolutionGrams;
-  if (!Number.isFinite(resolution) || resolution <= 0 || resolution > 10) {
-    fail("resolution_invalid", "scaleResolutionGrams", "Scale resolution must be more than 0 and at most 10 g.");
+  if (!Number.isFinite(resolution) || resolution <= 0 || resolution > MAX_STEP_GRAMS) {
+    fail("resolution_invalid", "scaleResolutionGrams", `Scale step must be more than 0 and at most ${MAX_STEP_GRAMS} g.`);
+  }
+  const accuracy = input.scaleAccuracyGrams ?? defaultScaleAccuracy(resolution);
+  if (!Number.isFinite(accuracy) || accuracy < 0 || accuracy > MAX_STEP_GRAMS) {
+    fail("accuracy_invalid", "scaleAccuracyGrams", `Scale accuracy must be between 0 and ${MAX_STEP_GRAMS} g.`);
   }
 
-  const air = readingQuantity(airReadings, resolution);
-  const water = readingQuantity(waterReadings, resolution);
+  const air = readingQuantity(airReadings, resolution, accuracy);
+  const water = readingQuantity(waterReadings, resolution, accuracy);
   if (water.value >= air.value) {
     fail(
       "water_not_below_air",
@@ -125,44 +188,59 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
   if (!Number.isFinite(tol) || tol < 0 || tol > 20) {
     fail("tolerance_invalid", "waterTempToleranceC", "Temperature tolerance must be between 0 and 20 °C.");
   }
-  const tempC = rectangular(t, Math.max(WATER_TEMP_MIN_C, t - tol), Math.min(WATER_TEMP_MAX_C, t + tol));
+  // Narrowed alike on both sides where the water-density formula ends (0 and 40 °C), so the
+  // reading stays the centre of its range.
+  const tolInDomain = Math.min(tol, t - WATER_TEMP_MIN_C, WATER_TEMP_MAX_C - t);
+  const tempC = rectangular(t, t - tolInDomain, t + tolInDomain);
 
-  const f = input.finenessPermille ?? DEFAULTS.finenessPermille;
-  if (!Number.isFinite(f) || f <= 0 || f > 1000) {
+  const notCentred: NotCentred[] = [];
+  const f = input.finenessPermille;
+  if (f !== undefined && (!Number.isFinite(f) || f <= 0 || f > 1000)) {
     fail("fineness_out_of_range", "finenessPermille", "Gold fineness must be more than 0 and at most 1000 parts per thousand.");
   }
-  const fRange = checkRange(input.finenessRangePermille, f, "finenessRangePermille", "fineness") ?? [f, f];
-  if (fRange[0] <= 0 || fRange[1] > 1000) {
+  const fineness =
+    rangedQuantity(f, input.finenessRangePermille, "finenessPermille", "finenessRangePermille", "fineness", notCentred) ??
+    rectangular(f ?? DEFAULTS.finenessPermille, f ?? DEFAULTS.finenessPermille, f ?? DEFAULTS.finenessPermille);
+  if (fineness.lo <= 0 || fineness.hi > 1000) {
     fail("fineness_out_of_range", "finenessRangePermille", "The fineness range must lie above 0 and at most 1000.");
   }
 
-  const h = input.hostDensity ?? DEFAULTS.hostDensity;
-  if (!Number.isFinite(h) || h <= 1 || h >= 10) {
-    fail("host_density_invalid", "hostDensity", "Host rock density must be above 1 and below 10 g/cm³.");
-  }
-  const hRange = checkRange(input.hostDensityRange, h, "hostDensityRange", "host density") ?? [
-    h * (1 - DEFAULTS.hostRelativeSpan),
-    h * (1 + DEFAULTS.hostRelativeSpan),
-  ];
-  if (hRange[0] <= 1) fail("host_density_invalid", "hostDensityRange", "Host rock density must be above 1 g/cm³.");
-
   const goldDensity = input.goldDensity;
-  if (goldDensity !== undefined) {
-    if (!Number.isFinite(goldDensity) || goldDensity <= hRange[1] || goldDensity > GOLD_DENSITY) {
-      fail("gold_density_invalid", "goldDensity", `Gold density must be above the host rock's and at most ${GOLD_DENSITY} g/cm³.`);
-    }
+  if (goldDensity !== undefined && (!Number.isFinite(goldDensity) || goldDensity <= 1 || goldDensity > GOLD_DENSITY)) {
+    fail("gold_density_invalid", "goldDensity", `Gold density must be above 1 and at most ${GOLD_DENSITY} g/cm³ (pure gold).`);
+  }
+
+  const h = input.hostDensity;
+  if (h !== undefined && (!Number.isFinite(h) || h <= 1)) {
+    fail("host_density_invalid", "hostDensity", "Host rock density must be above 1 g/cm³.");
+  }
+  const hostField = input.hostDensityRange ? "hostDensityRange" : "hostDensity";
+  const hValue = h ?? DEFAULTS.hostDensity;
+  const host =
+    rangedQuantity(h, input.hostDensityRange, "hostDensity", "hostDensityRange", "host density", notCentred) ??
+    rectangular(hValue, hValue * (1 - DEFAULTS.hostRelativeSpan), hValue * (1 + DEFAULTS.hostRelativeSpan));
+  if (host.lo <= 1) fail("host_density_invalid", hostField, "Host rock density must be above 1 g/cm³.");
+  // Two materials of one density cannot be told apart by weighing: the host's highest must stay
+  // below the alloy's lowest (at the lowest fineness).
+  const alloyLowest = goldDensity ?? goldAlloyDensity(fineness.lo);
+  if (host.hi >= alloyLowest) {
+    fail(
+      "host_not_below_gold",
+      hostField,
+      `The host rock's highest density (${host.hi} g/cm³) must be below the gold alloy's lowest (${alloyLowest.toFixed(2)} g/cm³): the weighing cannot tell two materials of the same density apart.`,
+    );
   }
 
   return {
-    settings: { method: input.method, goldDensity, airCorrection: input.airBuoyancyCorrection === true },
+    settings: { method: input.method, goldDensity, airCorrection: input.airBuoyancyCorrection !== false },
     resolution,
+    accuracy,
     air,
     water,
     tempC,
-    host: rectangular(h, hRange[0], hRange[1]),
-    fineness: rectangular(f, fRange[0], fRange[1]),
-    airReadings,
-    waterReadings,
+    host,
+    fineness,
+    notCentred,
   };
 }
 

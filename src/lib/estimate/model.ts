@@ -5,6 +5,8 @@ import { waterDensity } from "./water";
 /** OIML D 28: conventional weighing in air at 1.2 kg/m³ against reference weights of 8000 kg/m³. */
 export const AIR_DENSITY = 0.0012;
 export const REFERENCE_WEIGHT_DENSITY = 8.0;
+/** A scale adjusted with those weights shows m_c = (m − ρa·V) / (1 − ρa/ρref) (OIML D 28). */
+const CONVENTIONAL = 1 - AIR_DENSITY / REFERENCE_WEIGHT_DENSITY;
 
 /** One point of the input space: every uncertain quantity fixed to a value. */
 export type ModelPoint = {
@@ -17,12 +19,16 @@ export type ModelPoint = {
 
 export type ModelSettings = { method: WeighMethod; goldDensity?: number; airCorrection: boolean };
 
-export type ModelResult = {
-  density: number;
-  volume: number;
-  mass: number;
+/** The specimen as weighed: true mass (g), volume (cm³) and density (g/cm³). */
+export type Weighed = { mass: number; volume: number; density: number };
+
+export type ModelResult = Weighed & {
   alloyDensity: number;
+  /** The mixture formula as it stands: below 0 means lighter than the host, above mass denser than the alloy. */
+  uncapped: number;
+  /** Gold alloy held to [0, mass]. */
   alloy: number;
+  /** Fine gold in the held alloy. */
   fine: number;
 };
 
@@ -32,52 +38,44 @@ export function displacedGrams(method: WeighMethod, air: number, water: number):
 }
 
 /**
- * The two-component mixture (the classical hydrostatic rule for a compound of two
- * substances whose volumes add): m_g = m·ρg·(ρs − ρh) / (ρs·(ρg − ρh)), clamped to
- * [0, m] so that a reading outside the two densities gives "none" or "all of it".
+ * The specimen's true volume, mass and density from its two readings. With the air's
+ * buoyancy (OIML D 28): the hanging loss of weight, or the vessel's gain, is
+ * (ρw − ρa)·V in conventional grams times (1 − ρa/ρref), and the dry reading is
+ * (m − ρa·V) likewise; without it, the textbook V = displaced/ρw and m = the dry reading.
  */
-export function evaluateModel(p: ModelPoint, s: ModelSettings, out?: ModelResult): ModelResult {
-  return evaluateMixture(p, s, waterDensity(p.tempC), s.goldDensity ?? goldAlloyDensity(p.fineness), out);
-}
-
-/** The model with water and alloy densities given (the range search computes each once per corner set). */
-export function evaluateMixture(p: Omit<ModelPoint, "tempC">, s: ModelSettings, rhoW: number, alloyDensity: number, out?: ModelResult): ModelResult {
-  const specimen = weighedSpecimen(p.air, p.water, s, rhoW, SCRATCH);
-  const density = specimen.density;
-  const mass = specimen.mass;
-  const alloy = alloyInMixture(mass, density, p.host, alloyDensity);
-  const fine = (alloy * p.fineness) / 1000;
-  // `out`: the range search and Monte Carlo reuse one result object (no allocation per point).
-  if (!out) return { density, volume: mass / density, mass, alloyDensity, alloy, fine };
-  out.density = density;
-  out.volume = mass / density;
-  out.mass = mass;
-  out.alloyDensity = alloyDensity;
-  out.alloy = alloy;
-  out.fine = fine;
-  return out;
-}
-
-const SCRATCH = { density: 0, mass: 0 };
-
-/** The specimen's density and true mass from its two readings (the first half of the model). */
-export function weighedSpecimen(air: number, water: number, s: ModelSettings, rhoW: number, out: { density: number; mass: number }) {
+export function weighSpecimen(air: number, water: number, s: ModelSettings, rhoW: number): Weighed {
   const displaced = displacedGrams(s.method, air, water);
-  if (s.airCorrection) {
-    // Density-kit form with air buoyancy: ρs = A·(ρw − ρa)/(A − B) + ρa; true mass from the
-    // conventional value (OIML D 28): m = A·(1 − ρa/ρref)/(1 − ρa/ρs).
-    out.density = displaced > 0 ? (air * (rhoW - AIR_DENSITY)) / displaced + AIR_DENSITY : Infinity;
-    out.mass = (air * (1 - AIR_DENSITY / REFERENCE_WEIGHT_DENSITY)) / (1 - AIR_DENSITY / out.density);
-  } else {
-    out.density = displaced > 0 ? (air * rhoW) / displaced : Infinity;
-    out.mass = air;
+  if (!s.airCorrection) {
+    const volume = displaced / rhoW;
+    return { mass: air, volume, density: volume > 0 ? air / volume : Infinity };
   }
-  return out;
+  const volume = (CONVENTIONAL * displaced) / (rhoW - AIR_DENSITY);
+  const mass = CONVENTIONAL * air + AIR_DENSITY * volume;
+  return { mass, volume, density: volume > 0 ? mass / volume : Infinity };
 }
 
-/** Mass of gold alloy in the two-component mixture, clamped to [0, mass] (the second half). */
-export function alloyInMixture(mass: number, density: number, host: number, alloyDensity: number): number {
-  if (density <= host) return 0;
-  if (density >= alloyDensity) return mass;
-  return (mass * alloyDensity * (density - host)) / (density * (alloyDensity - host));
+/**
+ * The two-component mixture (the classical hydrostatic rule for a compound of two substances
+ * whose volumes add): m_g = m·ρg·(ρs − ρh) / (ρs·(ρg − ρh)), written as ρg·(m − ρh·V)/(ρg − ρh),
+ * which is linear in the readings. Not held to [0, m]: the range search and the uncertainty
+ * need it as it stands.
+ */
+export function mixtureAlloy(w: Weighed, host: number, alloyDensity: number): number {
+  return (alloyDensity * (w.mass - host * w.volume)) / (alloyDensity - host);
+}
+
+/** The alloy held to what a specimen can hold: none, or all of it. */
+export function holdToSpecimen(alloy: number, mass: number): number {
+  if (alloy < 0) return 0;
+  if (alloy > mass) return mass;
+  return alloy;
+}
+
+/** The model at one point of the input space. */
+export function evaluateModel(p: ModelPoint, s: ModelSettings): ModelResult {
+  const w = weighSpecimen(p.air, p.water, s, waterDensity(p.tempC));
+  const alloyDensity = s.goldDensity ?? goldAlloyDensity(p.fineness);
+  const uncapped = mixtureAlloy(w, p.host, alloyDensity);
+  const alloy = holdToSpecimen(uncapped, w.mass);
+  return { mass: w.mass, volume: w.volume, density: w.density, alloyDensity, uncapped, alloy, fine: (alloy * p.fineness) / 1000 };
 }

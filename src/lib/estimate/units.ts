@@ -34,11 +34,5 @@ export function toGrams(value: number, unit: MassUnit): number {
   return value * GRAMS_PER_UNIT[unit];
 }
 
-const DECIMALS: Record<MassUnit, number> = { g: 3, ozt: 4, dwt: 3, gr: 1 };
-
-export function formatMass(grams: number, unit: MassUnit): string {
-  return `${convertMass(grams, unit).toFixed(DECIMALS[unit])} ${unit}`;
-}
-
 export const celsiusToFahrenheit = (c: number) => (c * 9) / 5 + 32;
 export const fahrenheitToCelsius = (f: number) => ((f - 32) * 5) / 9;

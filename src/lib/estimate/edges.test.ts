@@ -1,0 +1,103 @@
+import { describe, expect, it } from "vitest";
+import { estimateSpecimen, EstimateInputError, type SpecimenInput } from "./index";
+import { composeSpecimen, roundToStep } from "./test-specimen";
+import { seededRandom } from "./uncertainty";
+
+const codes = (i: SpecimenInput) => estimateSpecimen(i).warnings.map((w) => w.code);
+
+function refusal(input: SpecimenInput): EstimateInputError | undefined {
+  try {
+    estimateSpecimen(input);
+  } catch (error) {
+    if (error instanceof EstimateInputError) return error;
+    throw error;
+  }
+  return undefined;
+}
+
+describe("pure gold is not refused because of scale rounding", () => {
+  // A 999.9 coin of one troy ounce (31.1034768 g, NIST SP 811 B.8) weighed as a setup check on
+  // a 0.01 g pocket scale, hung under water, at 16–24 °C. Coins differ by a few centigrams,
+  // so the rounding falls anywhere within a step.
+  const rand = seededRandom(11);
+  const coins = Array.from({ length: 200 }, () => {
+    const tempC = 16 + rand() * 8;
+    const s = composeSpecimen({ goldGrams: 31.1034768 + (rand() - 0.5) * 0.06, fineness: 999.9, hostGrams: 0, hostDensity: 2.65, tempC });
+    return { method: "hanging", airGrams: [roundToStep(s.air, 0.01)], waterGrams: [roundToStep(s.hangingWater, 0.01)], scaleResolutionGrams: 0.01, finenessPermille: 999.9, waterTempC: tempC } satisfies SpecimenInput;
+  });
+
+  it("never refuses a 999.9 coin, and finds nearly all of it gold", () => {
+    const refused = coins.filter((c) => refusal(c) !== undefined);
+    expect(refused.length).toBe(0);
+    for (const c of coins) {
+      const e = estimateSpecimen(c);
+      expect(e.goldMassPercent).toBeGreaterThan(99);
+      expect(e.range.goldAlloyGrams[1] / e.goldAlloyGrams).toBeGreaterThanOrEqual(1);
+    }
+  });
+
+  it("says so when the readings make it denser than pure gold within their error", () => {
+    const over = coins.map((c) => estimateSpecimen(c)).filter((e) => e.specimenDensity > 19.32);
+    expect(over.length).toBeGreaterThan(0);
+    for (const e of over) {
+      expect(e.goldMassPercent).toBe(100);
+      const w = e.warnings.find((x) => x.code === "denser_than_gold_within_error");
+      expect(w).toBeDefined();
+      expect(w!.params).toMatchObject({ goldDensity: 19.32 });
+    }
+  });
+
+  it("still refuses readings that even at their lowest make the specimen denser than gold", () => {
+    // 100.00 g in air and 95.00 g in water: 19.96 g/cm³, and even 100.02/95.02 ± 0.02 g stays above 19.32.
+    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [95] })).toMatchObject({ code: "denser_than_gold", field: "waterGrams" });
+    // The same density from a 0.1 g scale cannot be told from gold: accepted, all gold.
+    const coarse = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [95], scaleResolutionGrams: 0.1 });
+    expect(coarse.goldMassPercent).toBe(100);
+  });
+});
+
+describe("the no-gold clamp", () => {
+  // 100.00 g in air, 62.20 g hung in water, 20 °C: 2.641 g/cm³ against quartz 2.62–2.68.
+  const clamped: SpecimenInput = { method: "hanging", airGrams: [100], waterGrams: [62.2], hostDensity: 2.65, hostDensityRange: [2.62, 2.68] };
+
+  it("keeps a standard uncertainty that reflects the gold the range allows", () => {
+    const e = estimateSpecimen(clamped);
+    expect(e.goldAlloyGrams).toBe(0);
+    expect(e.range.goldAlloyGrams[1]).toBeGreaterThan(0.3);
+    expect(e.standardUncertainty.goldAlloyGrams).toBeGreaterThan(0.2 * e.range.goldAlloyGrams[1]);
+    expect(e.standardUncertainty.fineGoldGrams).toBeGreaterThan(0.2 * e.range.fineGoldGrams[1]);
+    expect(codes(clamped)).toContain("no_gold_detectable");
+  });
+
+  it("says the host assumption is probably wrong when the specimen is lighter than its lowest", () => {
+    // 2.55 g/cm³: lighter than any quartz; vugs, feldspar or weathered rock, not "no gold".
+    const e = estimateSpecimen({ ...clamped, waterGrams: [60.85] });
+    expect(e.specimenDensity).toBeLessThan(2.62);
+    const w = e.warnings.find((x) => x.code === "lighter_than_host");
+    expect(w?.params).toMatchObject({ hostLow: 2.62 });
+    expect(e.warnings.map((x) => x.code)).not.toContain("no_gold_detectable");
+  });
+});
+
+describe("the host density's bound is physical", () => {
+  // Our own worked example after the classical crown of gold and silver: 800 g of pure gold
+  // (CRC Handbook 19.32 g/cm³) alloyed by volume with 200 g of silver (10.49–10.50, CRC
+  // Handbook [memory]), taken as gold in a silver "host".
+  it("separates gold from a silver host (denser than 10 g/cm³)", () => {
+    const s = composeSpecimen({ goldGrams: 800, fineness: 1000, hostGrams: 200, hostDensity: 10.495 });
+    const e = estimateSpecimen({
+      method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], hostDensity: 10.495, hostDensityRange: [10.49, 10.5],
+      finenessPermille: 1000, scaleResolutionGrams: 1e-9, waterTempToleranceC: 0,
+    });
+    expect(e.goldAlloyGrams).toBeCloseTo(800, 6);
+    expect(e.range.goldAlloyGrams[0]).toBeLessThan(800);
+    expect(e.range.goldAlloyGrams[1]).toBeGreaterThan(800);
+  });
+
+  it("refuses a host whose highest density reaches the alloy's at the lowest fineness", () => {
+    // 100 ‰ gold: 1/(0.1/19.32 + 0.9/10.49) = 10.99 g/cm³, below the host's 11.
+    const input: SpecimenInput = { method: "hanging", airGrams: [100], waterGrams: [88], hostDensity: 7.5, hostDensityRange: [4, 11], finenessPermille: 200, finenessRangePermille: [100, 300] };
+    expect(refusal(input)).toMatchObject({ code: "host_not_below_gold", field: "hostDensityRange" });
+    expect(refusal({ ...input, hostDensityRange: [4, 10.9], hostDensity: 7.45 })).toBeUndefined();
+  });
+});
