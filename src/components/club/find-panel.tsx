@@ -2,7 +2,10 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { KIND_LABELS } from "@/lib/entities/constants";
-import type { SpecimenEstimate, SpecimenInput } from "@/lib/estimate/types";
+import { engineLabel } from "@/components/weigh/engine-label";
+import { DEFAULTS } from "@/lib/estimate/input";
+import type { SpecimenInput } from "@/lib/estimate/types";
+import type { ReportedEstimate } from "@/lib/entities/weigh-in";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { formatDecimal, toDms } from "@/lib/geo";
 import { api, ApiError } from "./api";
@@ -10,11 +13,44 @@ import { api, ApiError } from "./api";
 type FindDetail = {
   find: { id: string; memberName: string | null; claimName: string | null; kind: keyof typeof KIND_LABELS; weightGrams: number | null; depthCm: number | null; method: string; notes: string; lat: number | null; lon: number | null; accuracyM: number | null; foundAt: number; positionShared: boolean };
   photos: { id: string }[];
-  weighIns: { id: string; weighedAt: number; input: SpecimenInput; deviceEstimate: SpecimenEstimate; serverEstimate: SpecimenEstimate; engineVersion: string; mismatch: boolean }[];
+  weighIns: { id: string; weighedAt: number; input: SpecimenInput; deviceEstimate: ReportedEstimate; serverEstimate: ReportedEstimate; engineVersion: string; mismatch: boolean }[];
   reviews: { id: string; action: "verify" | "query" | "note"; note: string; createdAt: number; officerName: string | null }[];
 };
 
 const ACTION = { verify: "Verified", query: "Queried", note: "Note" } as const;
+
+/**
+ * One weigh-in as the officer reads it: the readings, the server's recomputation with the
+ * engine that made it, and the member's device figure where it differs (with its engine).
+ */
+function WeighInLines({ w }: { w: FindDetail["weighIns"][number] }) {
+  const server = w.serverEstimate;
+  const device = w.deviceEstimate;
+  const u = server.standardUncertainty.fineGoldGrams;
+  // Engines from 2.0.0 on say what they assumed; older ones left the defaults implicit.
+  const host = server.assumptions?.hostDensity ?? w.input.hostDensity ?? DEFAULTS.hostDensity;
+  const fineness = server.assumptions?.finenessPermille ?? w.input.finenessPermille ?? DEFAULTS.finenessPermille;
+  const temp = server.assumptions?.waterTempC ?? w.input.waterTempC ?? DEFAULTS.waterTempC;
+  return (
+    <>
+      <p>
+        {formatWhen(w.weighedAt)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C · host {host.toFixed(2)} ·
+        fineness {Math.round(fineness)} ‰
+      </p>
+      <p className="figure font-bold">
+        Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine ± {formatGrams(u, "g", u)} (at worst {formatGrams(server.range.fineGoldGrams[0], "g", u)} –{" "}
+        {formatGrams(server.range.fineGoldGrams[1], "g", u)}), {engineLabel(w.engineVersion)}
+      </p>
+      {w.mismatch && (
+        <p className="font-bold text-rust">
+          {device.engineVersion === w.engineVersion
+            ? `The member's device computed ${formatGrams(device.fineGoldGrams, "g", u)} with the same engine: check its app.`
+            : `The member's device computed ${formatGrams(device.fineGoldGrams, "g", u)}, ${engineLabel(device.engineVersion)}.`}
+        </p>
+      )}
+    </>
+  );
+}
 
 /** A find opened from the ledger: everything about it, and the officer's verify / query / note. */
 export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) {
@@ -83,14 +119,7 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
             {data.weighIns.length === 0 && <p className="text-sm text-ink-soft">None.</p>}
             {data.weighIns.map((w) => (
               <div key={w.id} className="border-b border-rule py-2 text-sm">
-                <p>
-                  {formatWhen(w.weighedAt)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {w.input.waterTempC ?? 20} °C · host{" "}
-                  {w.input.hostDensity ?? 2.65} · fineness {w.input.finenessPermille ?? 1000} ‰
-                </p>
-                <p className="figure font-bold">
-                  Server: {formatGrams(w.serverEstimate.fineGoldGrams)} fine ({formatGrams(w.serverEstimate.range.fineGoldGrams[0])} – {formatGrams(w.serverEstimate.range.fineGoldGrams[1])}), engine {w.engineVersion}
-                </p>
-                {w.mismatch && <p className="font-bold text-rust">The member&apos;s device computed {formatGrams(w.deviceEstimate.fineGoldGrams)}: check its app version.</p>}
+                <WeighInLines w={w} />
               </div>
             ))}
           </section>

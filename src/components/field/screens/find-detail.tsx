@@ -12,6 +12,7 @@ import { requestSync } from "@/client/sync/scheduler";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { claimAt } from "@/lib/geo";
+import { engineLabel } from "@/components/weigh/engine-label";
 import { LocationLine } from "../location-line";
 import { Skeleton } from "../skeleton";
 
@@ -143,8 +144,12 @@ export function FindDetailScreen() {
                 {formatWhen(w.weighedAt)} · {w.input.method} · {w.input.waterTempC ?? 20} °C
               </span>
               <span className="figure font-bold">
-                ≈ {formatGrams(w.deviceEstimate.fineGoldGrams, settings.massUnit)} fine ({formatGrams(w.deviceEstimate.range.fineGoldGrams[0], settings.massUnit)} –{" "}
-                {formatGrams(w.deviceEstimate.range.fineGoldGrams[1], settings.massUnit)})
+                ≈ {formatGrams(w.deviceEstimate.fineGoldGrams, settings.massUnit, w.deviceEstimate.standardUncertainty.fineGoldGrams)} fine (at worst{" "}
+                {formatGrams(w.deviceEstimate.range.fineGoldGrams[0], settings.massUnit, w.deviceEstimate.standardUncertainty.fineGoldGrams)} –{" "}
+                {formatGrams(w.deviceEstimate.range.fineGoldGrams[1], settings.massUnit, w.deviceEstimate.standardUncertainty.fineGoldGrams)})
+              </span>
+              <span className="w-full text-xs text-ink-soft" data-testid="weigh-in-engine">
+                {engineLabel(w.deviceEstimate.engineVersion)}
               </span>
               <button
                 type="button"
