@@ -1,6 +1,7 @@
 import Database from "better-sqlite3";
 import { v7 as uuidv7 } from "uuid";
 import { beforeEach, describe, expect, it, vi } from "vitest";
+import { ENGINE_VERSION } from "@/lib/estimate/version";
 import type { Db } from "@/server/db";
 import { databaseChecksum, MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, seededDatabase, sessionCookie } from "../support/test-db";
 import { applyChanges, newFind, newOuting, newWeighIn, pull, pullAll, push } from "../support/sync-client";
@@ -265,6 +266,24 @@ describe("weigh-ins", () => {
     expect(byId[honest.id]).toMatchObject({ mismatch: 0, v: honest.deviceEstimate.engineVersion, g: honest.deviceEstimate.fineGoldGrams });
     expect(byId[odd.id].mismatch).toBe(1);
     expect(byId[odd.id].g).toBe(honest.deviceEstimate.fineGoldGrams);
+  });
+
+  it("keep an older engine's device figure with its version beside the server's, made under the current one", async () => {
+    const f = newFind();
+    const w = newWeighIn(f.id);
+    // As an engine 1.0.0 device sends it: a sentence in each warning, no assumptions.
+    const { assumptions: _a, ...rest } = w.deviceEstimate;
+    const older = { ...rest, engineVersion: "1.0.0", warnings: [{ code: "water_reading_drifts", message: "The in-water readings drift one way." }] };
+    const res = await push(member, uuidv7(), [
+      { id: 1, name: "find.put", args: f },
+      { id: 2, name: "weighIn.put", args: { ...w, deviceEstimate: older } },
+    ]);
+    expect(res.body.results?.map((r: { status: string }) => r.status)).toEqual(["applied", "applied"]);
+    const row = db.$client.prepare("select engine_version v, mismatch, device_estimate d, server_estimate s from weigh_ins where id = ?").get(w.id) as { v: string; mismatch: number; d: string; s: string };
+    expect(row.v).toBe(ENGINE_VERSION);
+    expect(JSON.parse(row.s).engineVersion).toBe(ENGINE_VERSION);
+    expect(JSON.parse(row.d).engineVersion).toBe("1.0.0");
+    expect(row.mismatch).toBe(1);
   });
 
   it("go with their find when it comes in the same push, and not after it was deleted in that push", async () => {

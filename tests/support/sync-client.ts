@@ -75,6 +75,6 @@ export const newFind = (over: Partial<Find> = {}): Find => ({
 });
 
 export function newWeighIn(findId: string) {
-  const input = { method: "hanging" as const, airGrams: [42.5], waterGrams: [26.1], finenessPermille: 850, finenessRangePermille: [700, 950] as [number, number] };
+  const input = { method: "hanging" as const, airGrams: [42.5], waterGrams: [26.1], finenessPermille: 825, finenessRangePermille: [700, 950] as [number, number] };
   return { id: uuidv7(), findId, input, deviceEstimate: estimateSpecimen(input), weighedAt: Date.UTC(2026, 6, 1, 18) };
 }

@@ -3,6 +3,7 @@ import { count, eq } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { estimateSpecimen, goldAlloyDensity, waterDensity, type SpecimenInput } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
+import { AIR_DENSITY, REFERENCE_WEIGHT_DENSITY } from "@/lib/estimate/model";
 import { seededRandom } from "@/lib/estimate/uncertainty";
 import type { Db } from "../db";
 import * as t from "../db/schema";
@@ -126,7 +127,12 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
   return { seeded: true, members: DEMO_PEOPLE.length, finds, weighIns };
 }
 
-/** Readings a 0.01 g pocket scale would give for a quartz specimen holding a little gold. */
+/**
+ * Readings a 0.01 g pocket scale would give for a quartz specimen holding a little gold: three
+ * repeats each, as a scale shows them in air (OIML D 28 conventional values), weighed with the
+ * air-buoyancy correction on. Draws as many random numbers as it always did, so the rest of the
+ * demo club stays the same.
+ */
 function specimenReadings(totalGrams: number, rand: () => number): SpecimenInput {
   const host = HOST_PRESETS[0];
   const natural = FINENESS_PRESETS[0];
@@ -135,17 +141,21 @@ function specimenReadings(totalGrams: number, rand: () => number): SpecimenInput
   const gold = totalGrams * (0.01 + rand() * rand() * 0.3);
   const volume = gold / goldAlloyDensity(fineness) + (totalGrams - gold) / hostDensity;
   const waterTempC = Math.round(14 + rand() * 12);
-  const displaced = volume * waterDensity(waterTempC);
+  const conventional = 1 - AIR_DENSITY / REFERENCE_WEIGHT_DENSITY;
+  const air = (totalGrams - AIR_DENSITY * volume) / conventional;
+  const water = (totalGrams - waterDensity(waterTempC) * volume) / conventional;
+  const wobble = rand();
   return {
     method: "hanging",
-    airGrams: [round2(totalGrams), round2(totalGrams + (rand() < 0.5 ? 0 : 0.01))],
-    waterGrams: [round2(totalGrams - displaced)],
+    airGrams: [round2(air), round2(air + (wobble < 0.5 ? 0 : 0.01)), round2(air)],
+    waterGrams: [round2(water), round2(water + (wobble < 0.25 || wobble > 0.75 ? 0.01 : 0)), round2(water)],
     scaleResolutionGrams: 0.01,
     waterTempC,
     hostDensity: host.density,
     hostDensityRange: host.range,
     finenessPermille: natural.fineness,
     finenessRangePermille: natural.range,
+    airBuoyancyCorrection: true,
   };
 }
 

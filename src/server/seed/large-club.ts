@@ -1,6 +1,7 @@
 import "server-only";
 import { v7 as uuidv7 } from "uuid";
 import { estimateSpecimen } from "@/lib/estimate";
+import { FINENESS_PRESETS } from "@/lib/estimate/presets";
 import { seededRandom } from "@/lib/estimate/uncertainty";
 import type { Db } from "../db";
 import { refreshAllFigures } from "../club/figures";
@@ -23,7 +24,8 @@ export function seedLargeClub(db: Db, size: LargeClubSize = LARGE_CLUB, password
   const memberIds = ids(size.members, () => now - 900 * 86_400_000);
   const claimIds = ids(size.claims, () => now - 800 * 86_400_000);
   const estimates = [0.5, 0.9, 1.4, 2.2].map((f) => {
-    const input = { method: "hanging" as const, airGrams: [100], waterGrams: [62.5 + f], finenessPermille: 850, finenessRangePermille: [700, 950] as [number, number] };
+    const natural = FINENESS_PRESETS[0];
+    const input = { method: "hanging" as const, airGrams: [100], waterGrams: [62.5 + f], finenessPermille: natural.fineness, finenessRangePermille: natural.range, airBuoyancyCorrection: true };
     return { input: JSON.stringify(input), estimate: estimateSpecimen(input) };
   });
   let seq = (sqlite.prepare("select coalesce(max(value), 0) v from sequences where name = 'change'").get() as { v: number }).v;

@@ -141,8 +141,11 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
     } catch (error) {
       throw new RejectError("estimate_input", (error as Error).message, `input.${(error as { field?: string }).field ?? ""}`);
     }
-    // The server's recomputation stands; a device that disagrees is recorded, not hidden. A
-    // device figure equal to the server's is valid by that equality; any other is checked.
+    // The server's recomputation stands, under the current ENGINE_VERSION and kept with it; a
+    // device that disagrees is recorded, not hidden, and keeps its own engine's version. An
+    // estimate is numbers and codes (warnings are { code, params }, worded by the UI), so
+    // identity is every number to the bit and every code. A device figure equal to the
+    // server's is valid by that equality; any other is checked (older engines' too).
     const mismatch = !sameValue(server, w.deviceEstimate);
     let deviceEstimate: unknown = server;
     if (mismatch) {
