@@ -68,11 +68,15 @@ export async function offlineOpen(browser: Browser, baseUrl: string) {
   report("offline open of Today (service worker cache, CPU 4× slower)", { value: offline, unit: "ms to interactive", ratio: offline.map((o, i) => o / online[i]), ratioLabel: "× the online open", goal: "≤ 1200 ms (median)", pass: summary(offline).median <= 1200 });
 }
 
+/** A session cookie as signing in would set it, with its session row in the database. */
+export async function memberCookie(m: { id: string; email: string }): Promise<string> {
+  const { openSession } = await import("../src/server/auth/sessions");
+  return `authjs.session-token=${await encode({ token: { sub: m.id, email: m.email, sv: 0, sid: openSession(m.id) }, secret: process.env.AUTH_SECRET!, salt: "authjs.session-token" })}`;
+}
+
 /** 50 members pushing 100-change batches at once on loopback. */
 export async function concurrency(baseUrl: string, members: { id: string; email: string }[], countFinds: (ids: string[]) => number) {
-  const secret = process.env.AUTH_SECRET!;
-  const { openSession } = await import("../src/server/auth/sessions");
-  const cookies = await Promise.all(members.map(async (m) => `authjs.session-token=${await encode({ token: { sub: m.id, email: m.email, sv: 0, sid: openSession(m.id) }, secret, salt: "authjs.session-token" })}`));
+  const cookies = await Promise.all(members.map(memberCookie));
   // One push first, not counted: it loads the route's module, as any running server has.
   await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie: cookies[0], origin: baseUrl }, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }] }) });
   // Three rounds, each with fresh devices; the bodies are made before the clock starts, so

@@ -7,7 +7,8 @@ import path from "node:path";
 import { v7 as uuidv7 } from "uuid";
 import { buildApp, startApp } from "../scripts/lib/app-server";
 import { launchBrowser } from "../tests/e2e/support/browser";
-import { concurrency, deviceLists, estimateBrowser, offlineOpen, pageWeight, photoBytes } from "./browser-figures";
+import { concurrency, deviceLists, estimateBrowser, memberCookie, offlineOpen, pageWeight, photoBytes } from "./browser-figures";
+import { bystander, seedHeavyMembers } from "./hostile-figures";
 import { estimateNode, ledger, syncIngest } from "./node-figures";
 
 // npm run bench: every figure on one run of this machine, each beside its baseline measured in
@@ -27,7 +28,8 @@ const freePort = () =>
     });
   });
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-bench-"));
-const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: path.join(dir, "bench.db"), AUTH_SECRET: crypto.randomBytes(32).toString("base64url"), LODEBOOK_PHOTO_DIR: path.join(dir, "photos"), LODEBOOK_LOG: "warn", SMTP_PORT: "1" };
+// One trusted proxy: the hostile sign-in burst comes from many addresses, as through a proxy.
+const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: path.join(dir, "bench.db"), AUTH_SECRET: crypto.randomBytes(32).toString("base64url"), LODEBOOK_PHOTO_DIR: path.join(dir, "photos"), LODEBOOK_LOG: "error", SMTP_PORT: "1", LODEBOOK_TRUSTED_PROXIES: "1" };
 Object.assign(process.env, env);
 const { closeDb, getDb } = await import("../src/server/db");
 const { hashPassword } = await import("../src/server/auth/password");
@@ -37,6 +39,7 @@ seedDemoClub(getDb(), { passwordHashes: { officer: await hashPassword(DEMO_PASSW
 const benchMembers = Array.from({ length: 50 }, (_, i) => ({ id: uuidv7(), email: `bench${i}@quillmarsh.example` }));
 const insert = getDb().$client.prepare("insert into members (id, email, name, role, active) values (?, ?, ?, 'member', 1)");
 for (const m of benchMembers) insert.run(m.id, m.email, m.email);
+const heavyIds = seedHeavyMembers(getDb().$client, 4, 3000);
 closeDb();
 
 if (!fs.existsSync(".next/BUILD_ID") || process.env.LODEBOOK_BENCH_BUILD === "1") await buildApp(env);
@@ -50,6 +53,7 @@ try {
     db.close();
     return n;
   });
+  await bystander(app.url, { id: benchMembers[0].id, cookie: await memberCookie(benchMembers[0]) }, await Promise.all(heavyIds.map(async (id) => ({ id, cookie: await memberCookie({ id, email: "" }) }))));
   await estimateBrowser(browser, app.url);
   await photoBytes(browser, app.url);
   await offlineOpen(browser, app.url);

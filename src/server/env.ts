@@ -49,7 +49,7 @@ const envSchema = z.object({
 export type ServerEnv = z.infer<typeof envSchema>;
 
 /** Empty strings count as unset, as shells and .env files often leave them. */
-function present(source: NodeJS.ProcessEnv): Record<string, string> {
+function present(source: Readonly<Record<string, string | undefined>>): Record<string, string> {
   const out: Record<string, string> = {};
   for (const key of Object.keys(envSchema.shape)) {
     const value = source[key];
@@ -60,7 +60,7 @@ function present(source: NodeJS.ProcessEnv): Record<string, string> {
 
 export class EnvError extends Error {}
 
-export function serverEnv(source: NodeJS.ProcessEnv = process.env): ServerEnv {
+export function serverEnv(source: Readonly<Record<string, string | undefined>> = process.env): ServerEnv {
   const parsed = envSchema.safeParse(present(source));
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`);

@@ -1,0 +1,122 @@
+import crypto from "node:crypto";
+import fs from "node:fs";
+import http from "node:http";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { startApp } from "../../scripts/lib/app-server";
+import { startMailCatcher } from "../../scripts/lib/mail-catcher";
+import { waitForMail } from "./support/pages";
+
+// A server of its own (same build, own database and mail), so these tests can run its
+// per-address limits out without touching the server the other browser tests use.
+let baseUrl: string;
+let mailDir: string;
+let stop: () => Promise<void>;
+const MEMBER = "ines@quillmarsh.example";
+
+const freePort = () =>
+  new Promise<number>((resolve) => {
+    const s = net.createServer().listen(0, "127.0.0.1", () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+
+beforeAll(async () => {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-door-"));
+  const [appPort, smtpPort] = [await freePort(), await freePort()];
+  mailDir = path.join(dir, "mail");
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    DATABASE_URL: path.join(dir, "door.db"),
+    AUTH_SECRET: crypto.randomBytes(32).toString("base64url"),
+    LODEBOOK_MAIL_DIR: mailDir,
+    LODEBOOK_PHOTO_DIR: path.join(dir, "photos"),
+    SMTP_PORT: String(smtpPort),
+    LODEBOOK_ORIGIN: `http://localhost:${appPort}`,
+    LODEBOOK_TRUSTED_PROXIES: "0",
+    LODEBOOK_LOG: "error",
+  };
+  const saved = { ...process.env };
+  Object.assign(process.env, env);
+  const { getDb, closeDb } = await import("../../src/server/db");
+  const { hashPassword } = await import("../../src/server/auth/password");
+  const { seedDemoClub, DEMO_PASSWORDS } = await import("../../src/server/seed/demo-club");
+  closeDb();
+  seedDemoClub(getDb(), { passwordHashes: { officer: await hashPassword(DEMO_PASSWORDS.officer), member: await hashPassword(DEMO_PASSWORDS.member) } });
+  closeDb();
+  process.env = saved;
+  const mail = await startMailCatcher({ port: smtpPort, dir: mailDir });
+  const app = await startApp({ port: appPort, env, quiet: true });
+  baseUrl = app.url;
+  stop = async () => {
+    await app.stop();
+    await mail.close();
+    fs.rmSync(dir, { recursive: true, force: true });
+  };
+});
+afterAll(() => stop?.());
+
+/** A raw request, so Host and every other header are exactly what a hostile client sends. */
+function raw(method: string, pathname: string, headers: Record<string, string>, body = ""): Promise<{ status: number; headers: http.IncomingHttpHeaders; text: string }> {
+  const url = new URL(baseUrl);
+  return new Promise((resolve, reject) => {
+    const r = http.request({ host: "127.0.0.1", port: url.port, method, path: pathname, headers: { ...headers, ...(body ? { "content-length": String(Buffer.byteLength(body)) } : {}) } }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on("data", (c) => chunks.push(c));
+      res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text: Buffer.concat(chunks).toString() }));
+    });
+    r.on("error", reject);
+    r.end(body);
+  });
+}
+
+async function csrf(host: string) {
+  const res = await raw("GET", "/api/auth/csrf", { host });
+  const cookie = (res.headers["set-cookie"] ?? []).map((c) => c.split(";")[0]).join("; ");
+  return { cookie, token: (JSON.parse(res.text) as { csrfToken: string }).csrfToken };
+}
+
+describe("the front door (RELIABILITY 32–34)", () => {
+  it("a sign-in link asked for under a stranger's Host and forwarding headers points at the configured origin", async () => {
+    const hostile = { host: "evil.example", "x-forwarded-host": "evil.example", "x-forwarded-proto": "https" };
+    const { cookie, token } = await csrf("evil.example");
+    const res = await raw("POST", "/api/auth/signin/nodemailer", { ...hostile, cookie, "content-type": "application/x-www-form-urlencoded" }, new URLSearchParams({ email: MEMBER, csrfToken: token, callbackUrl: "https://evil.example/x" }).toString());
+    expect(res.status).toBe(302);
+    expect(res.headers.location ?? "").not.toContain("evil.example");
+    const mail = await waitForMail(mailDir, MEMBER);
+    const links = mail.text.match(/https?:\/\/\S+/g) ?? [];
+    expect(links.length).toBeGreaterThan(0);
+    for (const link of links) {
+      expect(new URL(link).origin).toBe(baseUrl);
+      expect(link).not.toContain("evil.example");
+    }
+  });
+
+  it("a declared body over 8 MB is refused at the door", async () => {
+    const url = new URL(baseUrl);
+    const status = await new Promise<number>((resolve, reject) => {
+      const r = http.request({ host: "127.0.0.1", port: url.port, method: "POST", path: "/api/sync/push", headers: { "content-type": "application/json", "content-length": String(50 * 1024 * 1024) } }, (res) => {
+        res.resume();
+        resolve(res.statusCode ?? 0);
+      });
+      r.on("error", reject);
+      r.write("{");
+    });
+    expect(status).toBe(413);
+  });
+
+  it("a forged X-Forwarded-For does not give a caller fresh addresses: the socket's address is limited", async () => {
+    const { cookie, token } = await csrf("localhost");
+    const statuses: number[] = [];
+    for (let i = 0; i < 31; i++) {
+      const body = new URLSearchParams({ email: `nobody${i}@quillmarsh.example`, password: "guess", csrfToken: token }).toString();
+      const res = await raw("POST", "/api/auth/callback/credentials", { host: "localhost", cookie, "content-type": "application/x-www-form-urlencoded", "x-forwarded-for": `203.0.113.${i}`, "x-real-ip": `203.0.113.${i}` }, body);
+      statuses.push(res.status);
+    }
+    expect(statuses.slice(0, 30)).not.toContain(429);
+    expect(statuses[30]).toBe(429);
+  });
+});
