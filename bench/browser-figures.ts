@@ -5,6 +5,7 @@ import { v7 as uuidv7 } from "uuid";
 import { encode } from "next-auth/jwt";
 import type { Browser, Page } from "playwright-core";
 import { PROTOCOL_VERSION } from "../src/lib/sync/protocol";
+import { engineScript } from "../tests/support/engine-script";
 import { percentile, repeat, report, summary } from "./stats";
 
 const MEMBER_SCREENS = ["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/weigh"];
@@ -145,8 +146,9 @@ export async function photoBytes(browser: Browser, baseUrl: string) {
 export async function estimateBrowser(browser: Browser, baseUrl: string) {
   const page = await (await browser.newContext()).newPage();
   await page.goto(`${baseUrl}/weigh`);
-  await page.waitForFunction(() => "lodebookEngine" in globalThis);
-  const input = { method: "hanging", airGrams: [100, 100.01], waterGrams: [62.72], finenessPermille: 850, finenessRangePermille: [700, 950] };
+  // The engine's source bundled for the page (the app leaves no hook on globalThis).
+  await page.evaluate(await engineScript());
+  const input = { method: "hanging", airGrams: [100, 100.01], waterGrams: [62.72], finenessPermille: 825, finenessRangePermille: [700, 950] };
   const result = await page.evaluate((i) => {
     const e = (globalThis as unknown as { lodebookEngine: { estimateSpecimen: (x: unknown) => unknown; estimateSpecimenMonteCarlo: (x: unknown, n: number, s: number) => unknown } }).lodebookEngine;
     const mc: number[] = [];

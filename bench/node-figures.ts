@@ -25,7 +25,7 @@ function freshDb(name: string) {
 
 function mutationsFor(n: number) {
   const muts: { id: number; name: string; args: Record<string, unknown> }[] = [];
-  const input = { method: "hanging" as const, airGrams: [100], waterGrams: [63.1], finenessPermille: 850, finenessRangePermille: [700, 950] as [number, number] };
+  const input = { method: "hanging" as const, airGrams: [100], waterGrams: [63.1], finenessPermille: 825, finenessRangePermille: [700, 950] as [number, number] };
   const deviceEstimate = estimateSpecimen(input);
   for (let i = 0; muts.length < n; i++) {
     const find = { id: uuidv7(), outingId: null, claimId: null, kind: "specimen", weightGrams: 100, depthCm: null, method: "detecting", notes: "", lat: 41.8, lon: -117.6, accuracyM: 5, locationSource: "device", foundAt: 1780000000000 + i };
@@ -122,7 +122,7 @@ function timed(work: () => unknown): number {
 
 /** The plain estimate's cost per call, and a 10 000-sample Monte Carlo, in Node. */
 export async function estimateNode() {
-  const input = { method: "hanging" as const, airGrams: [100, 100.01], waterGrams: [62.72], finenessPermille: 850, finenessRangePermille: [700, 950] as [number, number] };
+  const input = { method: "hanging" as const, airGrams: [100, 100.01], waterGrams: [62.72], finenessPermille: 825, finenessRangePermille: [700, 950] as [number, number] };
   const perCall = await repeat(5, () => {
     const t = performance.now();
     for (let i = 0; i < 2000; i++) estimateSpecimen(input);

@@ -19,8 +19,9 @@ export class WeighPage {
       [water, /Hung under water|Vessel reading/],
     ] as const) {
       const group = this.page.getByRole("group", { name });
+      // The flow starts with three rows for repeats; more are added as needed.
       for (let i = 0; i < list.length; i++) {
-        if (i > 0) await group.getByRole("button", { name: "Add a repeat reading" }).click();
+        if (i >= (await group.getByRole("textbox").count())) await group.getByRole("button", { name: "Add a repeat reading" }).click();
         await group.getByRole("textbox").nth(i).fill(list[i]);
       }
     }
