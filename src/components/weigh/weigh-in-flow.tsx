@@ -18,8 +18,8 @@ type Props = {
 type Outcome = {
   input: SpecimenInput;
   estimate?: SpecimenEstimate;
-  /** Fine gold with the air-buoyancy correction minus without it, for these readings. */
-  airEffectGrams?: number;
+  /** Fine gold for these readings with and without the air-buoyancy correction. */
+  airEffect?: AirEffect;
   errors: Partial<Record<WeighField, string>>;
 };
 
@@ -38,15 +38,17 @@ function compute(values: WeighFormValues): Outcome {
   if (!complete) return { input, errors };
   try {
     const estimate = estimateSpecimen(input);
-    return { input, errors, estimate, airEffectGrams: airBuoyancyEffect(input, estimate) };
+    return { input, errors, estimate, airEffect: airBuoyancyEffect(input, estimate) };
   } catch (error) {
     if (error instanceof EstimateInputError) return { input, errors: { ...errors, [ENGINE_FIELD_TO_FORM[error.field] ?? "water"]: error.message } };
     throw error;
   }
 }
 
-/** What the air-buoyancy correction changes for these readings: the estimate with it minus without it. */
-function airBuoyancyEffect(input: SpecimenInput, estimate: SpecimenEstimate): number | undefined {
+type AirEffect = { correctedGrams: number; textbookGrams: number };
+
+/** What the air-buoyancy correction changes for these readings: fine gold with it and without it. */
+function airBuoyancyEffect(input: SpecimenInput, estimate: SpecimenEstimate): AirEffect | undefined {
   const on = estimate.assumptions.airBuoyancyCorrection;
   let other: SpecimenEstimate;
   try {
@@ -56,10 +58,12 @@ function airBuoyancyEffect(input: SpecimenInput, estimate: SpecimenEstimate): nu
     if (error instanceof EstimateInputError) return undefined;
     throw error;
   }
-  return on ? estimate.fineGoldGrams - other.fineGoldGrams : other.fineGoldGrams - estimate.fineGoldGrams;
+  const [corrected, textbook] = on ? [estimate, other] : [other, estimate];
+  return { correctedGrams: corrected.fineGoldGrams, textbookGrams: textbook.fineGoldGrams };
 }
 
-function airEffectText(effectGrams: number, textbookGrams: number, unit: MassUnit): string {
+function airEffectText({ correctedGrams, textbookGrams }: AirEffect, unit: MassUnit): string {
+  const effectGrams = correctedGrams - textbookGrams;
   const sign = effectGrams > 0 ? "+" : effectGrams < 0 ? "−" : "±";
   const percent = textbookGrams > 0 ? ` (${sign}${Math.abs((effectGrams / textbookGrams) * 100).toFixed(1)} %)` : "";
   return `For these readings it changes the fine gold by ${sign}${formatGrams(Math.abs(effectGrams), unit, Math.abs(effectGrams) / 10)}${percent}.`;
@@ -78,9 +82,6 @@ export function WeighInFlow({ initial, onSave }: Props) {
   const e = outcome.errors;
   const step = parseNumber(values.resolution);
   const accuracyHint = step !== undefined && step > 0 ? `± ${Number(convertMass(defaultScaleAccuracy(toGrams(step, unit)), unit).toPrecision(2))}` : "";
-  const textbookFine = outcome.estimate && outcome.airEffectGrams !== undefined
-    ? (outcome.estimate.assumptions.airBuoyancyCorrection ? outcome.estimate.fineGoldGrams - outcome.airEffectGrams : outcome.estimate.fineGoldGrams)
-    : undefined;
 
   return (
     <div className="grid gap-4 lg:grid-cols-[1fr_minmax(320px,420px)]">
@@ -234,7 +235,7 @@ export function WeighInFlow({ initial, onSave }: Props) {
             In air the scale reads a little light, by the weight of the air the specimen pushes aside, while the host densities are
             true densities. Left off, you get the textbook figure, which always makes the specimen look denser and so flatters the
             gold: a fraction of a per cent on a rich piece, several per cent at low grade.
-            {outcome.airEffectGrams !== undefined && textbookFine !== undefined && ` ${airEffectText(outcome.airEffectGrams, textbookFine, resultUnit)}`}
+            {outcome.airEffect && ` ${airEffectText(outcome.airEffect, resultUnit)}`}
           </p>
         </div>
       </form>
