@@ -1,7 +1,7 @@
 "use client";
 import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { defaultScaleAccuracy, estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
+import { DEFAULTS, defaultScaleAccuracy, estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import { MASS_UNIT_LABELS, MASS_UNITS, toGrams, convertMass, type MassUnit } from "@/lib/estimate/units";
 import { formatGrams } from "@/lib/format";
@@ -194,7 +194,7 @@ export function WeighInFlow({ initial, onSave }: Props) {
               </label>
               <label className="flex flex-col text-sm">
                 <span className="font-bold">give or take</span>
-                <input inputMode="decimal" className="field-input figure" placeholder="± 2 %" {...register("hostSpread")} />
+                <input inputMode="decimal" className="field-input figure" placeholder={`± ${DEFAULTS.hostRelativeSpan * 100} %`} {...register("hostSpread")} />
               </label>
             </div>
           )}
