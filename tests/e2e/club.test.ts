@@ -21,7 +21,7 @@ describe("the club console", () => {
     const signIn = new SignInPage(page, baseUrl);
     await signIn.open();
     await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
-    await page.getByRole("heading", { name: /Good day/ }).waitFor();
+    await page.getByRole("heading", { name: /Club console/ }).waitFor();
     await page.goto(`${baseUrl}/club/ledger`);
     const filters = page.getByRole("form", { name: "Ledger filters" });
     await filters.getByLabel("Claim").selectOption({ label: target.claimName });

@@ -29,7 +29,8 @@ describe("the field logbook with no signal", () => {
     await context.setOffline(true);
     await page.goto(`${baseUrl}/`);
     await page.getByRole("heading", { name: /Good day/ }).waitFor();
-    expect(await page.getByTestId("sync-status").getAttribute("data-kind")).toBe("offline");
+    // The status learns of the lost signal from the browser's event, just after the first paint.
+    await page.locator('[data-testid="sync-status"][data-kind="offline"]').waitFor();
 
     await page.getByLabel("Claim").selectOption({ label: larkspur.name });
     await page.getByRole("button", { name: "Start an outing" }).click();

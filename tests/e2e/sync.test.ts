@@ -117,8 +117,8 @@ describe("camp sync between two devices of one member and the club", () => {
     const signIn = new SignInPage(officer, baseUrl);
     await signIn.open();
     await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
-    await officer.getByRole("heading", { name: /Good day/ }).waitFor();
-    await officer.goto(`${baseUrl}/club`);
+    // Officers land on the console.
+    await officer.getByRole("heading", { name: /Club console/ }).waitFor();
     const total = Number(await officer.getByTestId("club-total-finds").textContent());
     const db2 = server();
     const seasonStart = Date.UTC(new Date().getUTCFullYear(), 0, 1);

@@ -161,10 +161,11 @@ describe("conflicts between one member's devices (RELIABILITY 10, 11, 15)", () =
   it("15: a device clock a year off changes neither order nor results", async () => {
     const client = uuidv7();
     const f = newFind();
-    vi.spyOn(Date, "now").mockReturnValue(Date.UTC(2027, 6, 1));
-    await push(member, client, [{ id: 1, name: "find.put", args: { ...f, foundAt: Date.UTC(2025, 0, 1) } }]);
-    vi.restoreAllMocks();
-    await push(member, client, [{ id: 2, name: "find.put", args: { ...f, weightGrams: 50 } }]);
+    // The device's clock is a year ahead, so every time it writes is too; the server's own clock
+    // (sessions, change numbers) is right. Arrival order decides, not the device's times.
+    const yearAhead = Date.now() + 365 * 86_400_000;
+    await push(member, client, [{ id: 1, name: "find.put", args: { ...f, foundAt: yearAhead } }]);
+    await push(member, client, [{ id: 2, name: "find.put", args: { ...f, foundAt: yearAhead - 86_400_000, weightGrams: 50 } }]);
     expect((db.$client.prepare("select weight_grams w from finds where id = ?").get(f.id) as { w: number }).w).toBe(50);
   });
 });
