@@ -33,7 +33,7 @@ function afterSignIn(from: unknown): string {
   return asked === "/" ? "/signed-in" : asked;
 }
 
-export const signInWithPassword = defineAction({ public: true }, passwordForm, (input) =>
+export const signInWithPassword = defineAction({ public: true }, passwordForm, async (input) =>
   withSignInScope(async (scope): Promise<ActionState | void> => {
     try {
       await signIn("credentials", { email: input.email, password: input.password, redirectTo: afterSignIn(input.from) });
@@ -47,7 +47,7 @@ export const signInWithPassword = defineAction({ public: true }, passwordForm, (
       await keepDeviceCookies(scope);
       throw error;
     }
-  }),
+  }, clientAddress(await headers())),
 );
 
 const linkForm = z.object({ email: z.email("Enter your e-mail address.").max(254), from: z.string().max(500).optional() });
@@ -60,10 +60,11 @@ export const sendSignInLink = defineAction({ public: true }, linkForm, async (in
     throw error;
   }
   try {
-    // Unknown addresses are refused by the signIn callback, and per-account limits skip the
-    // mail silently: the member sees the same answer either way, so the form cannot be used
-    // to learn who belongs to the club.
-    await signIn("nodemailer", { email: input.email.trim().toLowerCase(), redirectTo: afterSignIn(input.from), redirect: false });
+    // Unknown addresses and per-account limits skip the mail silently in the signIn callback
+    // (counted against this caller's address): the answer is the same either way, so the form
+    // cannot be used to learn who belongs to the club.
+    const address = clientAddress(await headers());
+    await withSignInScope(() => signIn("nodemailer", { email: input.email.trim().toLowerCase(), redirectTo: afterSignIn(input.from), redirect: false }), address);
   } catch (error) {
     if (!(error instanceof AuthError)) throw error;
   }

@@ -36,7 +36,14 @@ function readCookie(header: string | null, name: string): string | undefined {
   if (!header) return undefined;
   for (const part of header.split(";")) {
     const eqAt = part.indexOf("=");
-    if (eqAt > 0 && part.slice(0, eqAt).trim() === name) return decodeURIComponent(part.slice(eqAt + 1).trim());
+    if (eqAt > 0 && part.slice(0, eqAt).trim() === name) {
+      // A cookie a client made up may not be valid percent-encoding: that is no session, not a 500.
+      try {
+        return decodeURIComponent(part.slice(eqAt + 1).trim());
+      } catch {
+        return undefined;
+      }
+    }
   }
   return undefined;
 }

@@ -15,6 +15,7 @@ import { mailFrom, sendMail, smtpSettings } from "../mail";
 import { signInLinkMessage } from "../mail/messages";
 import { siteLink } from "../site-link";
 import { hashPassword, isLegacyHash, verifyPassword } from "./password";
+import { loadActor } from "./actor";
 import { authSecret } from "./secret";
 import { endSession, openSession } from "./sessions";
 import { attemptFailed, attemptSucceeded, attemptUnavailable, beginAttempt, mayMailSignInLink } from "./sign-in-guard";
@@ -46,7 +47,7 @@ async function authorizePassword(raw: unknown, request: Request) {
   try {
     ok = await verifyPassword(parsed.data.password, row?.passwordHash);
   } catch (error) {
-    if (error instanceof AppError) attemptUnavailable(error.message);
+    if (error instanceof AppError) attemptUnavailable(attempt, error.message);
     throw error;
   }
   if (!ok || !row || !row.active) {
@@ -61,6 +62,9 @@ async function authorizePassword(raw: unknown, request: Request) {
   }
   return { id: row.id, email: row.email, name: row.name };
 }
+
+/** Where Auth.js sends the browser after a sign-in e-mail was asked for (its own verify-request step). */
+const CHECK_MAIL = "/api/auth/verify-request?provider=nodemailer&type=email";
 
 function config(): NextAuthConfig {
   const db = getDb();
@@ -88,11 +92,11 @@ function config(): NextAuthConfig {
         from: mailFrom(),
         maxAge: 30 * 60,
         async sendVerificationRequest({ identifier, url, request }) {
+          // The origin and the mail limits were checked in the signIn callback, before the token was stored.
           if (!siteOrigin()) {
             logger.warn({ code: "unavailable:origin" }, MISSING_ORIGIN_MESSAGE);
             return;
           }
-          if (!(await mayMailSignInLink(identifier, request))) return;
           // Rebuilt on the configured origin whatever Auth.js was given, with a same-site return path.
           const given = new URL(url);
           const callbackUrl = safeReturnPath(given.searchParams.get("callbackUrl")?.replace(/^https?:\/\/[^/]+/, ""));
@@ -103,9 +107,15 @@ function config(): NextAuthConfig {
     ],
     callbacks: {
       // Only active members may sign in, whichever way; nobody is created by signing in.
-      signIn({ user }) {
+      async signIn({ user, email }) {
         const row = user.email ? activeMemberByEmail(user.email) : undefined;
-        return !!row?.active;
+        if (!email?.verificationRequest) return !!row?.active;
+        // Asking for a sign-in e-mail: a stranger, a member past the mail limits, and a club
+        // with no origin configured get exactly the answer a member gets (the "check your
+        // mail" page), but no token is stored and nothing is sent. Refusing instead would
+        // answer with an error page, telling anyone who is a member.
+        const send = !!row?.active && !!siteOrigin() && (await mayMailSignInLink(row.email));
+        return send || CHECK_MAIL;
       },
       // Only paths on this site, resolved against the configured origin.
       redirect({ url, baseUrl }) {
@@ -119,8 +129,11 @@ function config(): NextAuthConfig {
           token.sub = row?.id;
           token.sv = row?.sv;
           token.sid = row ? openSession(row.id) : undefined;
+          return token;
         }
-        return token;
+        // Auth.js's own session endpoint renews the cookie through here: a session signed out
+        // (its row gone), ended by a role change or a deactivation is over there too.
+        return loadActor(token) ? token : null;
       },
       session({ session, token }) {
         if (token.sub) session.user.id = token.sub;

@@ -89,14 +89,16 @@ function unknownWaitS(email: string, now: number): number {
 
 /** What one sign-in request learned, for the handler or action that set it going. */
 export type SignInScope = {
+  /** The caller's address as the front door settled it, for limits counted inside Auth.js's callbacks. */
+  address: string;
   setCookies: { name: string; value: string; maxAgeS: number }[];
   /** Set when the attempt was held back rather than wrong: the caller answers 429 or 503. */
   refused?: { status: 429 | 503; message: string; retryAfterS: number };
 };
 const scope = new AsyncLocalStorage<SignInScope>();
 
-export function withSignInScope<T>(work: (s: SignInScope) => Promise<T>): Promise<T> {
-  const s: SignInScope = { setCookies: [] };
+export function withSignInScope<T>(work: (s: SignInScope) => Promise<T>, address = "unknown"): Promise<T> {
+  const s: SignInScope = { address, setCookies: [] };
   return scope.run(s, () => work(s));
 }
 
@@ -107,7 +109,12 @@ export class SignInLimited extends CredentialsSignin {
 
 export type Attempt = { email: string; device: string | null; now: number };
 
-/** Before the password is checked: the address's limit, then the account's delay for unknown browsers. */
+/**
+ * Before the password is checked: the address's limit, then the account's delay for unknown
+ * browsers. The attempt is counted as a failure here, before the (slow) password check, and
+ * cleared if it succeeds: counted only after the check, a burst sent at once would all pass
+ * the delay before the first failure was recorded.
+ */
 export async function beginAttempt(email: string, request: Request, now = Date.now()): Promise<Attempt> {
   try {
     await spend([["signInPerAddress", clientAddress(request)]]);
@@ -120,7 +127,20 @@ export async function beginAttempt(email: string, request: Request, now = Date.n
     const wait = unknownWaitS(email, now);
     if (wait > 0) limited(wait, email, "account");
   }
-  return { email, device, now };
+  const attempt = { email, device, now };
+  countFailure(attempt);
+  return attempt;
+}
+
+function countFailure(a: Attempt, by = 1): void {
+  if (a.device) {
+    const c = deviceCounts.get(a.device);
+    const fresh = !c || a.now - c.since >= SIGN_IN_POLICY.deviceWindowS * 1000;
+    remember(deviceCounts, a.device, fresh ? { failures: Math.max(0, by), since: a.now } : { failures: Math.max(0, c.failures + by), since: c.since });
+    return;
+  }
+  const d = unknownDelays.get(a.email);
+  remember(unknownDelays, a.email, { failures: Math.max(0, (d?.failures ?? 0) + by), lastAt: by > 0 ? a.now : (d?.lastAt ?? a.now) });
 }
 
 function limited(retryAfterS: number, email: string, by: string): never {
@@ -134,23 +154,16 @@ function waitWords(s: number): string {
   return s < 90 ? `${s} seconds` : `${Math.ceil(s / 60)} minutes`;
 }
 
-/** The server could not check the password now (hashing queue full): not a wrong password. */
-export function attemptUnavailable(message: string): never {
+/** The server could not check the password now (hashing queue full): not a wrong password, so not counted. */
+export function attemptUnavailable(a: Attempt, message: string): never {
+  countFailure(a, -1);
   const s = scope.getStore();
   if (s) s.refused = { status: 503, message, retryAfterS: 5 };
   throw new SignInLimited();
 }
 
-export function attemptFailed(a: Attempt): void {
-  if (a.device) {
-    const c = deviceCounts.get(a.device);
-    const fresh = !c || a.now - c.since >= SIGN_IN_POLICY.deviceWindowS * 1000;
-    remember(deviceCounts, a.device, fresh ? { failures: 1, since: a.now } : { failures: c.failures + 1, since: c.since });
-    return;
-  }
-  const d = unknownDelays.get(a.email);
-  remember(unknownDelays, a.email, { failures: (d?.failures ?? 0) + 1, lastAt: a.now });
-}
+/** A wrong password: already counted when the attempt began (see beginAttempt). */
+export function attemptFailed(_a: Attempt): void {}
 
 /** A success clears the account's delay and gives this browser a fresh device cookie. */
 export function attemptSucceeded(a: Attempt): void {
@@ -161,11 +174,12 @@ export function attemptSucceeded(a: Attempt): void {
 
 /**
  * Sign-in e-mails: counted where the address is known for sure (Auth.js's own identifier),
- * per account and address, per account, and per address. Over a limit nothing is sent and
- * the answer stays the same, so the form cannot tell who belongs to the club.
+ * per account and address, per account, and per address, before any token is stored. Over a
+ * limit nothing is stored or sent and the answer stays the same, so the form cannot tell who
+ * belongs to the club. The caller's address comes from the sign-in scope.
  */
-export async function mayMailSignInLink(email: string, request: Request): Promise<boolean> {
-  const address = clientAddress(request);
+export async function mayMailSignInLink(email: string): Promise<boolean> {
+  const address = scope.getStore()?.address ?? "unknown";
   try {
     await spend([
       ["signInMailPerAddress", address],
