@@ -27,14 +27,29 @@ function startsWith(seg: Buffer, signature: string): boolean {
 }
 
 /**
- * Application segments kept by their signature alone, none of which can carry a position:
- * the JFIF header, an ICC colour profile, and Adobe's colour-transform flag.
+ * Application segments kept, none of which can carry a position: the JFIF header and Adobe's
+ * colour-transform flag cut to their fixed fields (a JFIF thumbnail, or anything written after
+ * the fields, is dropped), and an ICC colour profile. Null: drop the segment.
  */
-function keepApplication(marker: number, payload: Buffer): boolean {
-  if (marker === 0xe0) return startsWith(payload, "JFIF\0");
-  if (marker === 0xe2) return startsWith(payload, "ICC_PROFILE\0");
-  if (marker === 0xee) return startsWith(payload, "Adobe");
-  return false;
+function keptApplication(marker: number, payload: Buffer): Buffer | null {
+  if (marker === 0xe0 && startsWith(payload, "JFIF\0") && payload.length >= JFIF_FIELDS) {
+    const fields = Buffer.from(payload.subarray(0, JFIF_FIELDS));
+    fields[12] = 0; // thumbnail width
+    fields[13] = 0; // thumbnail height
+    return fields;
+  }
+  if (marker === 0xee && startsWith(payload, "Adobe") && payload.length >= ADOBE_FIELDS) return payload.subarray(0, ADOBE_FIELDS);
+  if (marker === 0xe2 && startsWith(payload, "ICC_PROFILE\0")) return payload;
+  return null;
+}
+/** "JFIF\0", version, units, densities, thumbnail size: 14 bytes. "Adobe", version, two flags, transform: 12. */
+const JFIF_FIELDS = 14;
+const ADOBE_FIELDS = 12;
+
+function withLength(marker: number, payload: Buffer): Buffer {
+  const head = Buffer.from([0xff, marker, 0, 0]);
+  head.writeUInt16BE(payload.length + 2, 2);
+  return Buffer.concat([head, payload]);
 }
 
 /**
@@ -72,8 +87,11 @@ function walkJpeg(buf: Buffer): { width: number; height: number; stripped: Buffe
       height = payload.readUInt16BE(1);
       width = payload.readUInt16BE(3);
     }
-    const keep = isPictureSegment(marker) || (marker >= 0xe0 && marker <= 0xef && keepApplication(marker, payload));
-    if (keep) out.push(Buffer.concat([Buffer.from([0xff, marker]), segment.subarray(2)]));
+    if (isPictureSegment(marker)) out.push(Buffer.concat([Buffer.from([0xff, marker]), segment.subarray(2)]));
+    else if (marker >= 0xe0 && marker <= 0xef) {
+      const kept = keptApplication(marker, payload);
+      if (kept) out.push(withLength(marker, kept));
+    }
     if (marker === SOS) {
       if (width === 0) return null; // scan data before any frame header
       // Entropy-coded data runs to the next marker that is not a stuffed zero or a restart.

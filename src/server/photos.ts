@@ -50,14 +50,27 @@ export async function receivePhoto(actor: Actor, id: string, req: Request): Prom
     .from(photos)
     .where(and(eq(photos.memberId, actor.id), isNotNull(photos.storageKey)))
     .get()!.total;
-  if (used + bytes.length > memberPhotoQuotaBytes()) {
+  // Uploads still being written count too: checked and recorded only after storage answers,
+  // a burst sent at once would all pass the check against the same total.
+  const writing = uploading.get(actor.id) ?? 0;
+  if (used + writing + bytes.length > memberPhotoQuotaBytes()) {
     throw new AppError("too_large:quota", "Your photo space on the club's server is full (deleted photos count until their keeping time ends). Ask an officer.");
   }
-  const key = `p/${id}`;
-  await photoStorage().put(key, bytes, "image/jpeg");
-  getDb().update(photos).set({ storageKey: key, storedBytes: bytes.length, uploadedAt: Date.now(), width: size.width, height: size.height }).where(eq(photos.id, id)).run();
+  uploading.set(actor.id, writing + bytes.length);
+  try {
+    const key = `p/${id}`;
+    await photoStorage().put(key, bytes, "image/jpeg");
+    getDb().update(photos).set({ storageKey: key, storedBytes: bytes.length, uploadedAt: Date.now(), width: size.width, height: size.height }).where(eq(photos.id, id)).run();
+  } finally {
+    const left = (uploading.get(actor.id) ?? 0) - bytes.length;
+    if (left > 0) uploading.set(actor.id, left);
+    else uploading.delete(actor.id);
+  }
   return { stored: true, sha256 };
 }
+
+/** Bytes of each member's uploads on their way to storage, not yet recorded in the database. */
+const uploading = new Map<string, number>();
 
 /** The photo as served: owner or officer only, with no EXIF. */
 export async function servePhoto(actor: Actor, id: string): Promise<Buffer> {

@@ -1,15 +1,21 @@
+import crypto from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { GET as authGet } from "@/app/api/auth/[...nextauth]/route";
 import { GET as getMe } from "@/app/api/me/route";
+import { GET as getPhoto, PUT as putPhoto } from "@/app/api/photos/[id]/route";
+import jpeg from "jpeg-js";
+import { v7 as uuidv7 } from "uuid";
 import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
 import { resetLimits } from "@/server/limits";
 import { startMailCatcher } from "../../scripts/lib/mail-catcher";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
-import { MEMBER_EMAIL, memberByEmail, OTHER_MEMBER_EMAIL, req, seededDatabase } from "../support/test-db";
+import { makeJpeg } from "../support/jpeg";
+import { newFind, push } from "../support/sync-client";
+import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
 
 // Attack review of issue 14 (RELIABILITY 32–37): each case is what a stranger or a hostile
 // member would try; the expectation is the safe behaviour.
@@ -110,5 +116,72 @@ describe("class 5: sessions end on the server on every path", () => {
       const res = await getMe(req("/api/me", { cookie }), none);
       expect(res.status).toBe(401);
     }
+  });
+});
+
+describe("class 6: uploads", () => {
+  let photoDir: string;
+  let member: string;
+  const sha = (b: Buffer) => crypto.createHash("sha256").update(b).digest("hex");
+  const ctx = (id: string) => ({ params: Promise.resolve({ id }) });
+  beforeEach(async () => {
+    photoDir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-attack-photos-"));
+    vi.stubEnv("LODEBOOK_PHOTO_DIR", photoDir);
+    member = await sessionCookie(memberByEmail(db, OTHER_MEMBER_EMAIL));
+  });
+  afterEach(() => fs.rmSync(photoDir, { recursive: true, force: true }));
+
+  async function recordPhotos(all: Buffer[]) {
+    const find = newFind();
+    const records = all.map((bytes) => ({ id: uuidv7(), findId: find.id, sha256: sha(bytes), contentType: "image/jpeg", bytes: bytes.length, width: 10, height: 10, takenAt: null, lat: null, lon: null }));
+    const res = await push(member, uuidv7(), [{ id: 1, name: "find.put", args: find }, ...records.map((args, i) => ({ id: i + 2, name: "photo.put", args }))]);
+    expect(res.body.results.every((r) => r.status === "applied")).toBe(true);
+    return records;
+  }
+  const upload = (id: string, bytes: Buffer) => putPhoto(req("/x", { method: "PUT", cookie: member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(bytes) }), ctx(id));
+  const storedBytes = () =>
+    (db.$client.prepare("select coalesce(sum(stored_bytes), 0) as n from photos where member_id = ? and storage_key is not null").get(memberByEmail(db, OTHER_MEMBER_EMAIL).id) as { n: number }).n;
+
+  it("uploads sent all at once cannot store past the quota together", async () => {
+    const used = storedBytes();
+    const photos = Array.from({ length: 8 }, (_, i) => makeJpeg({ width: 96 + i, height: 96, quality: 95 }));
+    const each = Math.max(...photos.map((p) => p.length));
+    // Room for two photos, not eight.
+    const quota = used + each * 2 + 100;
+    vi.stubEnv("LODEBOOK_PHOTO_QUOTA_MB", String(quota / 1024 / 1024));
+    const records = await recordPhotos(photos);
+    const answers = await Promise.all(records.map((r, i) => upload(r.id, photos[i])));
+    expect(answers.filter((a) => a.status === 201).length).toBeLessThanOrEqual(2);
+    expect(storedBytes()).toBeLessThanOrEqual(quota);
+  });
+
+  const APP0 = 0xe0;
+  const APP14 = 0xee;
+  function segment(marker: number, payload: Buffer): Buffer {
+    const head = Buffer.from([0xff, marker, 0, 0]);
+    head.writeUInt16BE(payload.length + 2, 2);
+    return Buffer.concat([head, payload]);
+  }
+  const xmp = '<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="41,48.074N" exif:GPSLongitude="117,36.7407W"/></rdf:RDF></x:xmpmeta>';
+  // A JFIF header (version 1.1, no density, no thumbnail) with a position after it; an Adobe flag with one after it.
+  const jfifTail = () => segment(APP0, Buffer.concat([Buffer.from("JFIF\0", "latin1"), Buffer.from([1, 1, 0, 0, 1, 0, 1, 0, 0]), Buffer.from(xmp, "latin1")]));
+  const adobeTail = () => segment(APP14, Buffer.concat([Buffer.from("Adobe", "latin1"), Buffer.from([0, 100, 0, 0, 0, 0, 1]), Buffer.from(xmp, "latin1")]));
+
+  it.each([
+    ["a position tucked after the JFIF header", jfifTail],
+    ["a position tucked after Adobe's colour flag", adobeTail],
+  ])("served copies carry no location: %s", async (_name, extra) => {
+    const base = makeJpeg({ width: 64, height: 48 });
+    const bytes = Buffer.concat([base.subarray(0, 2), extra(), base.subarray(2)]);
+    const [record] = await recordPhotos([bytes]);
+    expect((await upload(record.id, bytes)).status).toBe(201);
+    const officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
+    const res = await getPhoto(req("/x", { cookie: officer }), ctx(record.id));
+    expect(res.status).toBe(200);
+    const served = Buffer.from(await res.arrayBuffer());
+    const text = served.toString("latin1");
+    for (const needle of ["xmpmeta", "GPS", "41,48", "117,36"]) expect(text.includes(needle), needle).toBe(false);
+    const decoded = jpeg.decode(served);
+    expect([decoded.width, decoded.height]).toEqual([64, 48]);
   });
 });
