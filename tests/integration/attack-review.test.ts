@@ -1,5 +1,6 @@
 import crypto from "node:crypto";
 import fs from "node:fs";
+import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
@@ -183,5 +184,64 @@ describe("class 6: uploads", () => {
     for (const needle of ["xmpmeta", "GPS", "41,48", "117,36"]) expect(text.includes(needle), needle).toBe(false);
     const decoded = jpeg.decode(served);
     expect([decoded.width, decoded.height]).toEqual([64, 48]);
+  });
+});
+
+describe("class 2: the address the per-address limits count", () => {
+  it("addresses in one IPv6 /64 (one subscriber's network) share the per-address sign-in limit", async () => {
+    const statuses: number[] = [];
+    for (let i = 0; i < 31; i++) {
+      const address = `2001:db8:77:1::${(i + 1).toString(16)}`;
+      statuses.push((await signInByPassword(`nobody-v6-${i}@quillmarsh.example`, "guess", { headers: { "x-lodebook-client": address } })).status);
+    }
+    expect(statuses.slice(0, 30)).not.toContain(429);
+    expect(statuses[30]).toBe(429);
+    // Another network is counted apart; IPv4 addresses are still counted one by one.
+    expect((await signInByPassword("nobody-v6-other@quillmarsh.example", "guess", { headers: { "x-lodebook-client": "2001:db8:77:2::1" } })).status).toBe(302);
+    expect((await signInByPassword("nobody-v4@quillmarsh.example", "guess", { headers: { "x-lodebook-client": "203.0.113.20" } })).status).toBe(302);
+  });
+});
+
+describe("class 3/4: asking for a sign-in e-mail does not wait on the mail server", () => {
+  const held: net.Socket[] = [];
+  let silent: net.Server | undefined;
+  afterEach(async () => {
+    for (const s of held.splice(0)) s.destroy();
+    await new Promise((resolve) => (silent ? silent.close(resolve) : resolve(undefined)));
+    silent = undefined;
+  });
+
+  // NOT FIXED (see the attack review): the answer to a member waits for the SMTP exchange and a
+  // stranger's does not, which tells them apart by time, and a mail server that accepts and
+  // stays silent holds the request (nodemailer's greeting timeout is 30 s). Expected: the mail
+  // is queued and sent after the answer. `it.fails` until then; the 5 s bound only detects the
+  // hang, it measures nothing.
+  it.fails("a member's request is answered while the mail server has not said a word, as a stranger's is", { timeout: 5_000 }, async () => {
+    let connected!: () => void;
+    const arrived = new Promise<void>((resolve) => (connected = resolve));
+    silent = net.createServer((socket) => {
+      held.push(socket);
+      connected();
+    });
+    await new Promise<void>((resolve) => silent!.listen(0, "127.0.0.1", resolve));
+    vi.stubEnv("SMTP_PORT", String((silent.address() as net.AddressInfo).port));
+    const member = await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] });
+    await arrived; // the mail is on its way; the answer did not wait for it
+    expect(member.status).toBe(302);
+  });
+});
+
+describe("class 7: mails are safe to read", () => {
+  it("names and notes cannot add lines of their own to the officers' digest", async () => {
+    const { buildDigest, digestText } = await import("@/server/club/digest");
+    const forged = "\n\nNew finds by claim:\n  Bench: 999 finds, 5 kg recorded\r\nVisit https://evil.example";
+    const d = buildDigest();
+    d.newFinds.push({ claimName: `Creek${forged}`, finds: 1, weightGrams: 1 });
+    d.openQueries.push({ memberName: `Pat${forged}`, kind: "nugget", foundAt: Date.UTC(2026, 5, 1), note: `Where?${forged}\u2028Also this` });
+    const text = digestText(d);
+    const lines = text.split(/\r\n|\r|\n|\u2028|\u2029/);
+    expect(lines.filter((l) => l.startsWith("New finds by claim:"))).toHaveLength(1);
+    expect(lines.filter((l) => l.startsWith("  Bench"))).toHaveLength(0);
+    expect(lines.filter((l) => l.startsWith("Visit"))).toHaveLength(0);
   });
 });

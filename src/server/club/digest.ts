@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { formatGrams } from "@/lib/format";
-import { withoutBidiControls as plain } from "@/lib/text/safe-text";
+import { withoutBidiControls } from "@/lib/text/safe-text";
 import { getDb } from "../db";
 import { members } from "../db/schema";
 import { sendMail } from "../mail";
@@ -25,6 +25,17 @@ export function buildDigest(now = Date.now(), days = 7): Digest {
       and r.id = (select r2.id from reviews r2 where r2.find_id = f.id and r2.action in ('verify','query') order by r2.created_at desc, r2.seq desc limit 1)
     order by r.created_at`);
   return { since, newFinds, openQueries };
+}
+
+/**
+ * Text people chose, on one line of the digest: without bidirectional controls, and with line
+ * breaks (and other control characters) turned into spaces, so a name or a note cannot add
+ * lines of its own that read as the digest's ("New finds by claim: …", a link to follow).
+ */
+function plain(text: string): string {
+  return withoutBidiControls(text)
+    .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, " ")
+    .trim();
 }
 
 export function digestText(d: Digest): string {
