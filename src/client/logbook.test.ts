@@ -13,6 +13,7 @@ const find = (over: Partial<Parameters<typeof saveFind>[1]> = {}) => ({
   claimId: null,
   kind: "nugget" as const,
   weightGrams: 1.23,
+  purity: null,
   depthCm: null,
   method: "detecting" as const,
   notes: "",

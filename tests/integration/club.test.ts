@@ -36,6 +36,18 @@ beforeAll(async () => {
 
 const sql = <T,>(q: string, ...args: unknown[]) => db.$client.prepare(q).get(...args) as T;
 
+/**
+ * A find's fine gold worked out by hand in SQL, from the records themselves rather than the
+ * figures kept on the find (issue 15's rule): the latest weigh-in's estimate; for other kinds
+ * than specimens, the member's recorded purity, else the claim's fineness, else the club's
+ * 825 ‰ (FINENESS_PRESETS "natural") off any claim; a specimen never weighed has none.
+ */
+const FINE_BY_HAND = `coalesce(
+  (select w.fine_gold_grams from weigh_ins w where w.find_id = f.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1),
+  case when f.kind = 'specimen' or f.weight_grams is null then null
+       when f.purity is not null then f.weight_grams * f.purity / 1000.0
+       else f.weight_grams * coalesce((select c.fineness from claims c where c.id = f.claim_id), 825) / 1000.0 end)`;
+
 describe("the club ledger", () => {
   const ledger = async (qs: string) => {
     const res = await getLedger(req(`/api/club/ledger?${qs}`, { cookie: officer }), none);
@@ -56,7 +68,7 @@ describe("the club ledger", () => {
       const body = await ledger(`${qs}&pageSize=5`);
       const plain = sql<{ n: number; w: number | null; fine: number | null }>(
         `select count(*) n, sum(f.weight_grams) w,
-                sum((select w.fine_gold_grams from weigh_ins w where w.find_id = f.id and w.deleted_at is null order by w.weighed_at desc limit 1)) fine
+                sum(${FINE_BY_HAND}) fine
          from finds f where f.deleted_at is null and ${where}`,
         ...args,
       );
@@ -138,7 +150,7 @@ describe("the club ledger", () => {
     const { months } = (await res.json()) as { months: { finds: number; weightGrams: number; fineGrams: number }[] };
     const plain = sql<{ n: number; w: number; fine: number }>(
       `select count(*) n, sum(f.weight_grams) w,
-              sum((select w.fine_gold_grams from weigh_ins w where w.find_id = f.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1)) fine
+              sum(${FINE_BY_HAND}) fine
        from finds f where f.deleted_at is null and f.found_at >= ? and f.found_at < ?`,
       Date.UTC(2026, 0, 1),
       Date.UTC(2027, 0, 1),

@@ -60,6 +60,7 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
         "PATCH /api/club/members/[id]",
         "POST /api/auth/[...nextauth]",
         "POST /api/club/claims",
+        "POST /api/club/claims/[id]/refigure",
         "POST /api/club/finds/[id]/reviews",
         "POST /api/club/invitations",
         "POST /api/club/invitations/[id]",
@@ -67,6 +68,7 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
         "POST /api/estimate",
         "POST /api/sync/push",
         "PUT /api/club/claims/[id]",
+        "PUT /api/club/claims/[id]/profile",
         "PUT /api/photos/[id]",
       ]
     `);

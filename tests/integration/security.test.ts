@@ -85,6 +85,11 @@ const MATRIX: Record<string, Row> = {
   "GET /api/club/claims": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "POST /api/club/claims": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { name: `Matrix ${uuidv7()}`, kind: "placer" }) }) },
   "PUT /api/club/claims/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("PUT", { name: "Larkspur Bench", kind: "placer" }) }) },
+  "PUT /api/club/claims/[id]/profile": {
+    expect: OFFICER_ONLY(200),
+    request: () => ({ id: fixture.claim, init: json("PUT", { finenessLow: 700, finenessHigh: 950, finenessSource: "Club preset", hostDensityLow: 2.62, hostDensityHigh: 2.68, hostDensitySource: "Club preset" }) }),
+  },
+  "POST /api/club/claims/[id]/refigure": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("POST", { season: 2026 }) }) },
   "GET /api/club/prices": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "POST /api/club/prices": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { effectiveOn: "2026-12-01", pricePerTroyOunce: 2600, currency: "USD" }) }) },
   "GET /api/club/invitations": { expect: OFFICER_ONLY(200), request: () => ({}) },
@@ -137,6 +142,7 @@ describe("hostile input (RELIABILITY 31)", () => {
     ["POST /api/club/prices", "/api/club/prices", undefined],
     ["POST /api/club/invitations", "/api/club/invitations", undefined],
     ["PATCH /api/club/members/[id]", "/api/club/members/[id]", "member"],
+    ["PUT /api/club/claims/[id]/profile", "/api/club/claims/[id]/profile", "claim"],
   ];
   const handler = async (key: string) => {
     const h = discoverHandlers().find((x) => x.key === key)!;
@@ -153,7 +159,7 @@ describe("hostile input (RELIABILITY 31)", () => {
   it.each(jsonEndpoints)("%s answers generated bad bodies with 4xx and field errors, and changes nothing", async (key, route, idKind) => {
     const h = await handler(key);
     const before = databaseChecksum(db);
-    const id = idKind === "find" ? fixture.find : idKind === "member" ? fixture.bystander : "x";
+    const id = idKind === "find" ? fixture.find : idKind === "member" ? fixture.bystander : idKind === "claim" ? fixture.claim : "x";
     await fc.assert(
       fc.asyncProperty(badBody, async (body) => {
         const method = key.split(" ")[0];

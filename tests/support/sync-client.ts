@@ -63,6 +63,7 @@ export const newFind = (over: Partial<Find> = {}): Find => ({
   claimId: null,
   kind: "specimen",
   weightGrams: 42.5,
+  purity: null,
   depthCm: 20,
   method: "detecting",
   notes: "",

@@ -28,6 +28,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
     values: {
       kind: find.kind,
       weight: find.weightGrams == null ? "" : String(Number(convertMass(find.weightGrams, unit).toFixed(4))),
+      purity: find.purity == null ? "" : String(find.purity),
       depthCm: find.depthCm == null ? "" : String(find.depthCm),
       method: find.method,
       claimId: find.claimId ?? "",
@@ -54,6 +55,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
         claimId: v.claimId || null,
         kind: v.kind,
         weightGrams: weight === undefined ? null : toGrams(weight, unit),
+        purity: parseNumber(v.purity) ?? null,
         depthCm: parseNumber(v.depthCm) ?? null,
         method: v.method,
         notes: v.notes,
@@ -88,6 +90,14 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
           <span className="field-label">Weight ({unit})</span>
           <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.weight} {...register("weight")} />
           <FieldError messages={e.weight?.message ? [e.weight.message] : undefined} />
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Purity if known (‰)</span>
+          <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.purity} aria-describedby="purity-hint" {...register("purity")} />
+          <span id="purity-hint" className="text-sm text-ink-soft">
+            From a buyer&apos;s test or an assay; otherwise the claim&apos;s fineness is used.
+          </span>
+          <FieldError messages={e.purity?.message ? [e.purity.message] : undefined} />
         </label>
         <label className="flex flex-col">
           <span className="field-label">Depth (cm)</span>

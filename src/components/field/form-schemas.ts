@@ -16,6 +16,7 @@ export const findFormSchema = z
   .object({
     kind: z.enum(FIND_KINDS, { error: "Choose what you found." }),
     weight: optionalNumber("The weight must be a number above zero, or empty.", (n) => n > 0),
+    purity: optionalNumber("Purity is parts per thousand gold, above 0 and at most 1000, or empty.", (n) => n > 0 && n <= 1000),
     depthCm: optionalNumber("The depth must be a number of centimetres, or empty.", (n) => n >= 0 && n <= 10_000),
     method: methodSchema,
     claimId: z.string(),

@@ -15,6 +15,27 @@ export const claimInputSchema = z
   })
   .strict();
 
+/**
+ * A claim's gold profile as an officer sets it: each quantity as its range, whose middle is its
+ * value (the estimate takes every assumption as spread evenly over its range), and a source.
+ */
+export const claimProfileInputSchema = z
+  .object({
+    finenessLow: z.number({ error: "Fineness, lowest: a number of ‰." }).min(1, "Fineness is more than 0 ‰.").max(1000, "Fineness is at most 1000 ‰."),
+    finenessHigh: z.number({ error: "Fineness, highest: a number of ‰." }).min(1, "Fineness is more than 0 ‰.").max(1000, "Fineness is at most 1000 ‰."),
+    finenessSource: z.string().trim().min(3, "Say where the fineness comes from (an assay, a melt, a preset).").max(300, "At most 300 characters."),
+    hostDensityLow: z.number({ error: "Host density, lowest: a number of g/cm³." }).min(1.5, "Host rock is denser than 1.5 g/cm³.").max(8, "Host rock is at most 8 g/cm³."),
+    hostDensityHigh: z.number({ error: "Host density, highest: a number of g/cm³." }).min(1.5, "Host rock is denser than 1.5 g/cm³.").max(8, "Host rock is at most 8 g/cm³."),
+    hostDensitySource: z.string().trim().min(3, "Say where the host density comes from (barren-rock weigh-ins, a preset).").max(300, "At most 300 characters."),
+  })
+  .strict()
+  .refine((p) => p.finenessLow <= p.finenessHigh, { message: "The lowest fineness must not be above the highest.", path: ["finenessLow"] })
+  // At most 8 g/cm³ (galena, the densest common gangue, is about 7.6 [memory]): always below
+  // silver's 10.49, so the estimate can tell host from alloy at any fineness.
+  .refine((p) => p.hostDensityLow <= p.hostDensityHigh, { message: "The lowest host density must not be above the highest.", path: ["hostDensityLow"] });
+
+export const refigureInputSchema = z.object({ season: z.number().int().min(2000).max(2100) }).strict();
+
 export const reviewInputSchema = z
   .object({
     action: z.enum(["verify", "query", "note"], { error: "Choose verify, query or note." }),

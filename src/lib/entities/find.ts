@@ -16,6 +16,8 @@ export const findSchema = z
     claimId: idSchema.nullable(),
     kind: z.enum(FIND_KINDS, { error: "Choose what you found." }),
     weightGrams: z.number().positive("The weight must be more than zero.").max(100_000, "At most 100 kg.").nullable(),
+    /** The gold's fineness in ‰ when the member knows it (a buyer's test, an earlier assay). */
+    purity: z.number().min(1, "Purity is in parts per thousand, more than 0.").max(1000, "Purity is at most 1000 ‰ (pure gold).").nullable().default(null),
     depthCm: z.number().min(0, "Depth cannot be negative.").max(10_000, "At most 100 m.").nullable(),
     method: methodSchema,
     notes: shortText(4000),

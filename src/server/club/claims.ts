@@ -3,19 +3,32 @@ import { asc, eq } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import type { z } from "zod";
 import { boundaryFromCorners, readBoundary } from "@/lib/club/geometry";
-import type { claimInputSchema } from "@/lib/club/schemas";
+import type { claimInputSchema, claimProfileInputSchema } from "@/lib/club/schemas";
+import { seasonBounds } from "@/lib/season";
 import type { Actor } from "../auth/actor";
 import { audit } from "../audit";
 import { getDb } from "../db";
 import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
+import { refigureFineness } from "./figures";
 
 type ClaimInput = z.infer<typeof claimInputSchema>;
 
+const PROFILE_COLUMNS = {
+  fineness: t.claims.fineness,
+  finenessLow: t.claims.finenessLow,
+  finenessHigh: t.claims.finenessHigh,
+  finenessSource: t.claims.finenessSource,
+  hostDensity: t.claims.hostDensity,
+  hostDensityLow: t.claims.hostDensityLow,
+  hostDensityHigh: t.claims.hostDensityHigh,
+  hostDensitySource: t.claims.hostDensitySource,
+};
+
 export function listClaims() {
   return getDb()
-    .select({ id: t.claims.id, name: t.claims.name, kind: t.claims.kind, agencyRef: t.claims.agencyRef, boundary: t.claims.boundary, rules: t.claims.rules, active: t.claims.active, updatedAt: t.claims.updatedAt })
+    .select({ id: t.claims.id, name: t.claims.name, kind: t.claims.kind, agencyRef: t.claims.agencyRef, boundary: t.claims.boundary, rules: t.claims.rules, active: t.claims.active, updatedAt: t.claims.updatedAt, ...PROFILE_COLUMNS })
     .from(t.claims)
     .orderBy(asc(t.claims.name))
     .all();
@@ -51,5 +64,43 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
     tx.insert(t.claims).values({ id: newId, ...values, boundary: boundary ?? null, seq: nextSeq(db.$client) }).run();
     audit(tx, { actorId: actor.id, action: "claim.create", entity: "claim", entityId: newId, after: values });
     return { id: newId };
+  });
+}
+
+/**
+ * Sets a claim's gold profile (values are the middles of their ranges). Devices receive it at
+ * their next sync; finds figured before keep the fineness they were figured with. Audited.
+ */
+export function saveClaimProfile(actor: Actor, id: string, input: z.infer<typeof claimProfileInputSchema>) {
+  const db = getDb();
+  return db.transaction((tx) => {
+    const before = tx.select(PROFILE_COLUMNS).from(t.claims).where(eq(t.claims.id, id)).get();
+    if (!before) throw new AppError("not_found:claim", "No such claim.");
+    const after = {
+      fineness: (input.finenessLow + input.finenessHigh) / 2,
+      finenessLow: input.finenessLow,
+      finenessHigh: input.finenessHigh,
+      finenessSource: input.finenessSource,
+      hostDensity: (input.hostDensityLow + input.hostDensityHigh) / 2,
+      hostDensityLow: input.hostDensityLow,
+      hostDensityHigh: input.hostDensityHigh,
+      hostDensitySource: input.hostDensitySource,
+    };
+    tx.update(t.claims).set({ ...after, updatedAt: Date.now(), seq: nextSeq(db.$client) }).where(eq(t.claims.id, id)).run();
+    audit(tx, { actorId: actor.id, action: "claim.profile", entity: "claim", entityId: id, before, after });
+    return after;
+  });
+}
+
+/** Re-figures a season's finds on the claim with its fineness as it stands now. Audited with the count. */
+export function refigureSeason(actor: Actor, id: string, season: number) {
+  const db = getDb();
+  return db.transaction((tx) => {
+    const claim = tx.select({ id: t.claims.id, ...PROFILE_COLUMNS }).from(t.claims).where(eq(t.claims.id, id)).get();
+    if (!claim) throw new AppError("not_found:claim", "No such claim.");
+    const { start, end } = seasonBounds(season);
+    const finds = refigureFineness(db.$client, { claimId: id, start, end });
+    audit(tx, { actorId: actor.id, action: "claim.refigure", entity: "claim", entityId: id, after: { season, finds, fineness: claim.fineness, finenessLow: claim.finenessLow, finenessHigh: claim.finenessHigh } });
+    return { finds };
   });
 }

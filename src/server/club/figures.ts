@@ -1,14 +1,16 @@
 import "server-only";
+import { CLUB_FINENESS } from "@/lib/figures/claim-profile";
 import { statement, type Sqlite } from "../db/rows";
 
-// The ledger's figures are kept on each find row (the latest weigh-in's server estimate, the
-// latest verify or query) so that totals over a large club are one pass over an index.
+// The ledger's inputs are kept on each find row (the latest weigh-in's server estimate, the
+// latest verify or query) so that totals over a large club are one pass over an index; the
+// fine-gold figure itself is derived from them by SQLite (db/fine-figure.ts).
 // Refreshed wherever those change: push, reviews, seeding.
 
 const WEIGH_IN_FIGURES = `
-  (latest_alloy_grams, latest_fine_grams, latest_fine_low, latest_fine_high) = (
+  (latest_alloy_grams, weighed_fine, weighed_low, weighed_high, weighed_air) = (
     select w.gold_alloy_grams, w.fine_gold_grams,
-      json_extract(w.server_estimate, '$.range.fineGoldGrams[0]'), json_extract(w.server_estimate, '$.range.fineGoldGrams[1]')
+      json_extract(w.server_estimate, '$.range.fineGoldGrams[0]'), json_extract(w.server_estimate, '$.range.fineGoldGrams[1]'), w.air_grams
     from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1)`;
 
 const REVIEW_STATE = `
@@ -25,13 +27,36 @@ export function refreshWeighInFigures(sqlite: Sqlite, findId: string): void {
  * later (the same order as WEIGH_IN_FIGURES), without reading the JSON back. An edited or
  * deleted weigh-in can hand the place to another, so those use refreshWeighInFigures.
  */
-export function weighInAdded(sqlite: Sqlite, w: { id: string; findId: string; weighedAt: number; alloyGrams: number; fineGrams: number; fineRange: readonly [number, number] }): void {
+export function weighInAdded(sqlite: Sqlite, w: { id: string; findId: string; weighedAt: number; alloyGrams: number; fineGrams: number; fineRange: readonly [number, number]; airGrams: number }): void {
   statement(
     sqlite,
-    `update finds set latest_alloy_grams = ?, latest_fine_grams = ?, latest_fine_low = ?, latest_fine_high = ?
+    `update finds set latest_alloy_grams = ?, weighed_fine = ?, weighed_low = ?, weighed_high = ?, weighed_air = ?
      where id = ? and not exists (select 1 from weigh_ins w where w.find_id = finds.id and w.deleted_at is null
        and (w.weighed_at > ? or (w.weighed_at = ? and w.id > ?)))`,
-  ).run(w.alloyGrams, w.fineGrams, w.fineRange[0], w.fineRange[1], w.findId, w.weighedAt, w.weighedAt, w.id);
+  ).run(w.alloyGrams, w.fineGrams, w.fineRange[0], w.fineRange[1], w.airGrams, w.findId, w.weighedAt, w.weighedAt, w.id);
+}
+
+/** The fineness a find is figured with: its claim's profile now, or the club's off any claim. */
+export function finenessFor(sqlite: Sqlite, claimId: string | null): FinenessUsed {
+  if (claimId) {
+    const row = statement(sqlite, "select fineness, fineness_low, fineness_high from claims where id = ?").raw().get(claimId) as [number, number, number] | undefined;
+    if (row) return { finenessUsed: row[0], finenessUsedLow: row[1], finenessUsedHigh: row[2], finenessUsedBasis: "claim_fineness" };
+  }
+  return { finenessUsed: CLUB_FINENESS.value, finenessUsedLow: CLUB_FINENESS.low, finenessUsedHigh: CLUB_FINENESS.high, finenessUsedBasis: "club_fineness" };
+}
+
+export type FinenessUsed = { finenessUsed: number; finenessUsedLow: number; finenessUsedHigh: number; finenessUsedBasis: "claim_fineness" | "club_fineness" };
+
+/**
+ * Re-figures finds with their claims' fineness as it stands now (an officer's choice after
+ * accepting a new fineness): one statement over the chosen finds.
+ */
+export function refigureFineness(sqlite: Sqlite, where: { claimId: string; start: number; end: number }): number {
+  return statement(
+    sqlite,
+    `update finds set fineness_used = c.fineness, fineness_used_low = c.fineness_low, fineness_used_high = c.fineness_high, fineness_used_basis = 'claim_fineness'
+     from claims c where c.id = finds.claim_id and finds.claim_id = ? and finds.found_at >= ? and finds.found_at < ? and finds.deleted_at is null`,
+  ).run(where.claimId, where.start, where.end).changes;
 }
 
 /** After an officer's review of the find. */
@@ -41,4 +66,12 @@ export function refreshReviewState(sqlite: Sqlite, findId: string): void {
 
 export function refreshAllFigures(sqlite: Sqlite): void {
   sqlite.prepare(`update finds set ${WEIGH_IN_FIGURES}, ${REVIEW_STATE}`).run();
+  // Finds written straight to the table (seeding) are figured with their claims' fineness now.
+  sqlite
+    .prepare(
+      `update finds set fineness_used = coalesce(c.fineness, ?), fineness_used_low = coalesce(c.fineness_low, ?), fineness_used_high = coalesce(c.fineness_high, ?),
+         fineness_used_basis = case when c.id is null then 'club_fineness' else 'claim_fineness' end
+       from finds f2 left join claims c on c.id = f2.claim_id where f2.id = finds.id and finds.fineness_used_basis is null`,
+    )
+    .run(CLUB_FINENESS.value, CLUB_FINENESS.low, CLUB_FINENESS.high);
 }

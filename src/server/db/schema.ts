@@ -1,6 +1,9 @@
 import { sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { index, integer, primaryKey, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { FINE_BASES } from "../../lib/figures/fine-basis";
+import { CLAIM_PROFILE_DEFAULTS } from "../../lib/figures/claim-profile";
+import { FINE_FIGURE } from "./fine-figure";
 
 // Time stamps are milliseconds since the epoch, set by the server. Syncable tables carry
 // `seq`, the value of the change sequence at their last write: pull cursors compare it,
@@ -82,6 +85,16 @@ export const claims = sqliteTable("claims", {
   boundary: text("boundary", { mode: "json" }).$type<GeoJsonPolygon>(),
   rules: text("rules").notNull().default(""),
   active: integer("active", { mode: "boolean" }).notNull().default(true),
+  // The claim gold profile: its gold's fineness (‰) and its host rock's density (g/cm³), each
+  // with its range and where it came from. New claims start from the club's presets.
+  fineness: real("fineness").notNull().default(CLAIM_PROFILE_DEFAULTS.fineness),
+  finenessLow: real("fineness_low").notNull().default(CLAIM_PROFILE_DEFAULTS.finenessLow),
+  finenessHigh: real("fineness_high").notNull().default(CLAIM_PROFILE_DEFAULTS.finenessHigh),
+  finenessSource: text("fineness_source").notNull().default(CLAIM_PROFILE_DEFAULTS.finenessSource),
+  hostDensity: real("host_density").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensity),
+  hostDensityLow: real("host_density_low").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensityLow),
+  hostDensityHigh: real("host_density_high").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensityHigh),
+  hostDensitySource: text("host_density_source").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensitySource),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
   seq: seq(),
@@ -126,12 +139,34 @@ export const finds = sqliteTable("finds", {
   accuracyM: real("accuracy_m"),
   locationSource: text("location_source", { enum: ["device", "photo", "map", "typed"] }),
   foundAt: integer("found_at").notNull(),
-  // The ledger's figures, kept on the row by the server (latest weigh-in, latest verify or
-  // query) so totals over a large club are one pass over an index; never sent by devices.
+  /** The member's own figure for the gold's fineness (‰), when they know it. */
+  purity: real("purity"),
+  // The ledger's figures, kept on the row by the server so totals over a large club are one
+  // pass over an index; never sent by devices. Inputs first: the latest weigh-in's estimate,
+  // the latest assay, and the fineness the find was figured with (its claim's, or the club's
+  // when off-claim, as it stood then: accepting a new fineness changes later figures only,
+  // unless an officer re-figures a season).
   latestAlloyGrams: real("latest_alloy_grams"),
-  latestFineGrams: real("latest_fine_grams"),
-  latestFineLow: real("latest_fine_low"),
-  latestFineHigh: real("latest_fine_high"),
+  weighedFine: real("weighed_fine"),
+  weighedLow: real("weighed_low"),
+  weighedHigh: real("weighed_high"),
+  /** Mean in-air reading of the latest weigh-in, to compare with the recorded weight. */
+  weighedAir: real("weighed_air"),
+  assayFine: real("assay_fine"),
+  assayLow: real("assay_low"),
+  assayHigh: real("assay_high"),
+  finenessUsed: real("fineness_used"),
+  finenessUsedLow: real("fineness_used_low"),
+  finenessUsedHigh: real("fineness_used_high"),
+  finenessUsedBasis: text("fineness_used_basis", { enum: ["claim_fineness", "club_fineness"] }),
+  // Then the figure itself, derived by SQLite from the inputs above (one rule, FINE_FIGURE):
+  // always equal to a recomputation, whatever order the inputs changed in.
+  fineBasis: text("fine_basis", { enum: FINE_BASES }).generatedAlwaysAs(FINE_FIGURE.basis, { mode: "virtual" }),
+  latestFineGrams: real("latest_fine_grams").generatedAlwaysAs(FINE_FIGURE.fine, { mode: "virtual" }),
+  latestFineLow: real("latest_fine_low").generatedAlwaysAs(FINE_FIGURE.low, { mode: "virtual" }),
+  latestFineHigh: real("latest_fine_high").generatedAlwaysAs(FINE_FIGURE.high, { mode: "virtual" }),
+  /** The latest weigh-in's air reading is more than a tenth off the find's recorded weight. */
+  weighMismatch: integer("weigh_mismatch", { mode: "boolean" }).generatedAlwaysAs(FINE_FIGURE.weighMismatch, { mode: "virtual" }),
   reviewState: text("review_state", { enum: ["new", "verified", "queried"] }).notNull().default("new"),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
@@ -185,6 +220,8 @@ export const weighIns = sqliteTable("weigh_ins", {
   engineVersion: text("engine_version"),
   fineGoldGrams: real("fine_gold_grams"),
   goldAlloyGrams: real("gold_alloy_grams"),
+  /** Mean of the in-air readings (g), to compare with the find's recorded weight. */
+  airGrams: real("air_grams"),
   /** True when the device's figures differ from the server's recomputation. */
   mismatch: integer("mismatch", { mode: "boolean" }).notNull().default(false),
   weighedAt: integer("weighed_at").notNull(),

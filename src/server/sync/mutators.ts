@@ -10,7 +10,7 @@ import type { Actor } from "../auth/actor";
 import { insertRow, selectRow, statement, updateRow, type Sqlite } from "../db/rows";
 import * as t from "../db/schema";
 import { logger } from "../log";
-import { refreshWeighInFigures, weighInAdded } from "../club/figures";
+import { finenessFor, refreshWeighInFigures, weighInAdded, type FinenessUsed } from "../club/figures";
 import { RejectError } from "./reject";
 
 // Server mutators are plain synchronous functions over the push's one SQLite transaction,
@@ -20,7 +20,7 @@ import { RejectError } from "./reject";
  * the finds and outings this push has written and not deleted (the member's own, alive), so a
  * weigh-in or photo sent with its find needs no lookup of it.
  */
-export type PushTx = { db: Sqlite; seq: () => number; written: Set<string>; resendFindsOf: Set<string> };
+export type PushTx = { db: Sqlite; seq: () => number; written: Set<string>; resendFindsOf: Set<string>; fineness: Map<string | null, FinenessUsed> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = "outing" | "find" | "photo" | "weighIn";
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
@@ -85,6 +85,13 @@ function markDeleted(tx: PushTx, entity: Entity, id: string) {
   statement(tx.db, `update ${TABLE_NAME[entity]} set deleted_at = ?, seq = ? where id = ?`).run(Date.now(), tx.seq(), id);
 }
 
+/** A claim's fineness, read once per push. */
+function finenessOf(tx: PushTx, claimId: string | null): FinenessUsed {
+  let f = tx.fineness.get(claimId);
+  if (!f) tx.fineness.set(claimId, (f = finenessFor(tx.db, claimId)));
+  return f;
+}
+
 /** A delete's check; its write, or nothing when the record never reached the server. */
 function tombstone(tx: PushTx, entity: Entity, id: string, actor: Actor, after?: () => void): Write {
   const existing = loadForWrite(tx, entity, id, actor);
@@ -110,10 +117,24 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
   },
   "outing.delete": (tx, actor, { id }: { id: string }) => tombstone(tx, "outing", id, actor),
   "find.put": (tx, actor, f: Find) => {
-    const existing = loadForWrite(tx, "find", f.id, actor, f);
+    const existing = loadForWrite(tx, "find", f.id, actor, f) as (Owned & { claimId: string | null; finenessUsedBasis: string | null }) | undefined;
     requireClaim(tx, f.claimId);
     if (f.outingId) requireOwnedParent(tx, "outing", f.outingId, actor, "outingId");
-    return () => upsert(tx, "find", existing, f, actor);
+    return () => {
+      // A find is figured with its claim's fineness as it stands when it arrives or moves to
+      // another claim; later changes of the claim's fineness leave it as it was (fine-figure.ts).
+      const refigure = !existing || existing.claimId !== f.claimId || existing.finenessUsedBasis === null;
+      const fineness = refigure ? finenessOf(tx, f.claimId) : undefined;
+      upsert(tx, "find", existing, f, actor, {
+        memberId: actor.id,
+        seq: tx.seq(),
+        updatedAt: Date.now(),
+        finenessUsed: fineness?.finenessUsed,
+        finenessUsedLow: fineness?.finenessUsedLow,
+        finenessUsedHigh: fineness?.finenessUsedHigh,
+        finenessUsedBasis: fineness?.finenessUsedBasis,
+      });
+    };
   },
   "find.delete": (tx, actor, { id }: { id: string }) =>
     tombstone(tx, "find", id, actor, () => {
@@ -154,11 +175,15 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
       logger.warn({ code: "estimate_mismatch", weighIn: w.id, device: reported.data.engineVersion, server: server.engineVersion }, "device estimate differs");
       deviceEstimate = reported.data;
     }
+    const airGrams = w.input.airGrams.reduce((a, b) => a + b, 0) / w.input.airGrams.length;
     return () => {
-      const fields = { deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, mismatch, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() };
+      const fields = { deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, airGrams, mismatch, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() };
       upsert(tx, "weighIn", existing, w, actor, fields);
+      // A weigh-in moved to another find leaves its first find's figures to be worked out again.
+      const movedFrom = (existing as (Owned & { findId?: string }) | undefined)?.findId;
+      if (movedFrom && movedFrom !== w.findId) refreshWeighInFigures(tx.db, movedFrom);
       if (existing) refreshWeighInFigures(tx.db, w.findId);
-      else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams });
+      else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams, airGrams });
     };
   },
   "weighIn.delete": (tx, actor, { id }: { id: string }) =>

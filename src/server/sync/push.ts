@@ -37,7 +37,7 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
   }
   if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
   const seq = sequenceBlock(sqlite);
-  const pushTx = { db: sqlite, seq: seq.next, written: new Set<string>(), resendFindsOf: new Set<string>() };
+  const pushTx = { db: sqlite, seq: seq.next, written: new Set<string>(), resendFindsOf: new Set<string>(), fineness: new Map() };
   let last = client?.lastMutationId ?? 0;
   const results: MutationResult[] = [];
   for (const m of push.mutations) {

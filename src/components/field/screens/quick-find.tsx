@@ -44,6 +44,7 @@ export function QuickFindScreen() {
         claimId: claim?.id ?? outing?.claimId ?? null,
         kind: kind!,
         weightGrams: w === undefined ? null : toGrams(w, unit),
+        purity: null,
         depthCm: null,
         method: outing?.method ?? "detecting",
         notes: "",
