@@ -12,6 +12,7 @@ import { v7 as uuidv7 } from "uuid";
 import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
 import { resetLimits } from "@/server/limits";
+import { safeReturnPath } from "@/lib/web/return-path";
 import { startMailCatcher } from "../../scripts/lib/mail-catcher";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
 import { makeJpeg } from "../support/jpeg";
@@ -243,5 +244,24 @@ describe("class 7: mails are safe to read", () => {
     expect(lines.filter((l) => l.startsWith("New finds by claim:"))).toHaveLength(1);
     expect(lines.filter((l) => l.startsWith("  Bench"))).toHaveLength(0);
     expect(lines.filter((l) => l.startsWith("Visit"))).toHaveLength(0);
+  });
+});
+
+describe("class 1/5: return paths stay on this origin", () => {
+  // The sign-in page redirects a signed-in visitor to safeReturnPath(from) as it is.
+  it.each(["/.//evil.example", "/..//evil.example", "/a/..//evil.example", "/%2e//evil.example", "/x/%2E%2E//evil.example/path?q=1"])("%s does not leave the site", (from) => {
+    const path = safeReturnPath(from, ORIGIN);
+    expect(path.startsWith("/") && !path.startsWith("//")).toBe(true);
+    // As a browser resolves a Location header against the page it is on.
+    expect(new URL(path, `${ORIGIN}/sign-in`).origin).toBe(ORIGIN);
+    expect(safeReturnPath(from)).toBe(path);
+  });
+
+  it("Auth.js's redirect after signing in keeps such a path on this origin too", async () => {
+    const res = await postAuth("/api/auth/callback/credentials", { form: [["email", OTHER_MEMBER_EMAIL], ["password", MEMBER_PASSWORD], ["callbackUrl", "/.//evil.example"]] });
+    expect(res.status).toBe(302);
+    const location = res.headers.get("location")!;
+    expect(new URL(location, ORIGIN).origin).toBe(ORIGIN);
+    expect(new URL(location, ORIGIN).pathname.startsWith("//")).toBe(false);
   });
 });

@@ -18,5 +18,8 @@ export function safeReturnPath(from: unknown, origin: string = PROBE_ORIGIN): st
     return "/";
   }
   if (url.origin !== new URL(origin).origin) return "/";
+  // Dot segments collapse while parsing ("/.//evil.example", "/a/%2e%2e//evil.example"): a
+  // path that comes out starting with "//" would be read by a browser as another host.
+  if (url.pathname.startsWith("//")) return "/";
   return `${url.pathname}${url.search}${url.hash}`;
 }
