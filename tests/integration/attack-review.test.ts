@@ -15,6 +15,7 @@ import { resetLimits } from "@/server/limits";
 import { safeReturnPath } from "@/lib/web/return-path";
 import { startMailCatcher } from "../../scripts/lib/mail-catcher";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
+import { NO_TOTALS } from "@/lib/club/totals";
 import { makeJpeg } from "../support/jpeg";
 import { newFind, push } from "../support/sync-client";
 import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
@@ -237,7 +238,7 @@ describe("class 7: mails are safe to read", () => {
     const { buildDigest, digestText } = await import("@/server/club/digest");
     const forged = "\n\nNew finds by claim:\n  Bench: 999 finds, 5 kg recorded\r\nVisit https://evil.example";
     const d = buildDigest();
-    d.newFinds.push({ claimName: `Creek${forged}`, finds: 1, weightGrams: 1 });
+    d.newFinds.push({ claimName: `Creek${forged}`, totals: { ...NO_TOTALS, finds: 1, weightGrams: 1 } });
     d.openQueries.push({ memberName: `Pat${forged}`, kind: "nugget", foundAt: Date.UTC(2026, 5, 1), note: `Where?${forged}\u2028Also this` });
     const text = digestText(d);
     const lines = text.split(/\r\n|\r|\n|\u2028|\u2029/);

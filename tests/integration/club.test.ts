@@ -288,7 +288,10 @@ describe("the weekly digest", () => {
   it("lists new finds by claim and the open queries", async () => {
     const { buildDigest, digestText } = await import("@/server/club/digest");
     const d = buildDigest(Date.now() + 1000, 3650);
-    expect(d.newFinds.reduce((n, f) => n + f.finds, 0)).toBe(sql<{ n: number }>("select count(*) n from finds where deleted_at is null").n);
+    expect(d.newFinds.reduce((n, f) => n + f.totals.finds, 0)).toBe(sql<{ n: number }>("select count(*) n from finds where deleted_at is null").n);
+    // Fine gold in the digest is the same figure as everywhere else, worked out by hand here.
+    const fine = sql<{ fine: number }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null`).fine;
+    expect(d.newFinds.reduce((n, f) => n + f.totals.fineGrams, 0)).toBeCloseTo(fine, 6);
     const open = sql<{ n: number }>(
       "select count(*) n from finds f where (select r.action from reviews r where r.find_id = f.id and r.action in ('verify','query') order by r.created_at desc, r.seq desc limit 1) = 'query'",
     ).n;

@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { FIND_KINDS } from "../entities/find";
+import type { FineBasis } from "../figures/fine-basis";
+import type { Totals } from "./totals";
 
 export const REVIEW_STATES = ["new", "verified", "queried"] as const;
 export const LEDGER_SORTS = ["foundAt", "weight", "fine", "member", "claim", "kind"] as const;
@@ -42,14 +44,17 @@ export type LedgerRow = {
   fineGrams: number | null;
   fineLow: number | null;
   fineHigh: number | null;
+  fineBasis: FineBasis | null;
+  weighMismatch: boolean;
   price: number | null;
   currency: string | null;
   value: number | null;
   state: (typeof REVIEW_STATES)[number];
 };
 
-export type LedgerSummary = { finds: number; weightGrams: number; fineGrams: number; value: number; currency: string | null };
+/** The totals (one module: ./totals) and their value at the reference price, low to high. */
+export type LedgerSummary = Totals & { value: number; valueLow: number; valueHigh: number; currency: string | null };
 export type LedgerPage = { rows: LedgerRow[]; total: number; summary: LedgerSummary; page: number; pageSize: number };
 
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "price", "currency", "value", "state"] as const;
+export const LEDGER_CSV_COLUMNS = ["id", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "price", "currency", "value", "state"] as const;

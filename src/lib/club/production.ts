@@ -1,1 +1,3 @@
-export type MonthlyProduction = { month: string; claimId: string | null; claimName: string | null; finds: number; weightGrams: number; fineGrams: number };
+import type { Totals } from "./totals";
+
+export type MonthlyProduction = Totals & { month: string; claimId: string | null; claimName: string | null };

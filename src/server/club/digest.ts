@@ -2,22 +2,26 @@ import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { formatGrams } from "@/lib/format";
 import { withoutBidiControls } from "@/lib/text/safe-text";
+import type { Totals } from "@/lib/club/totals";
 import { getDb } from "../db";
 import { members } from "../db/schema";
 import { sendMail } from "../mail";
+import { totalsBy } from "./totals";
 
 const DAY = 86_400_000;
 
-export type Digest = { since: number; newFinds: { claimName: string | null; finds: number; weightGrams: number }[]; openQueries: { memberName: string | null; kind: string; foundAt: number; note: string }[] };
+export type Digest = { since: number; newFinds: { claimName: string | null; totals: Totals }[]; openQueries: { memberName: string | null; kind: string; foundAt: number; note: string }[] };
 
 /** What officers should know about the past week: new finds by claim, and queries still open. */
 export function buildDigest(now = Date.now(), days = 7): Digest {
   const db = getDb();
   const since = now - days * DAY;
-  const newFinds = db.all<Digest["newFinds"][number]>(sql`
-    select c.name as claimName, count(*) as finds, coalesce(sum(f.weight_grams), 0) as weightGrams
-    from finds f left join claims c on c.id = f.claim_id
-    where f.deleted_at is null and f.created_at >= ${since} group by f.claim_id order by c.name`);
+  const newFinds = totalsBy<{ k0: string | null; k1: string | null }>(sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.created_at >= ${since}`, [
+    sql`f.claim_id`,
+    sql`c.name`,
+  ])
+    .map((r) => ({ claimName: r.k1, totals: r.totals }))
+    .sort((a, b) => (a.claimName ?? "\uffff").localeCompare(b.claimName ?? "\uffff"));
   const openQueries = db.all<Digest["openQueries"][number]>(sql`
     select m.name as memberName, f.kind, f.found_at as foundAt, r.note
     from reviews r join finds f on f.id = r.find_id join members m on m.id = f.member_id
@@ -41,7 +45,10 @@ function plain(text: string): string {
 export function digestText(d: Digest): string {
   const lines = [`Lodebook — the club's week since ${new Date(d.since).toISOString().slice(0, 10)}`, "", "New finds by claim:"];
   if (d.newFinds.length === 0) lines.push("  none");
-  for (const f of d.newFinds) lines.push(`  ${f.claimName ? plain(f.claimName) : "off-claim"}: ${f.finds} finds, ${formatGrams(f.weightGrams)} recorded`);
+  for (const f of d.newFinds) {
+    const t = f.totals;
+    lines.push(`  ${f.claimName ? plain(f.claimName) : "off-claim"}: ${t.finds} find${t.finds === 1 ? "" : "s"}, ${formatGrams(t.fineGrams)} fine gold estimated (at worst ${formatGrams(t.fineLow)} to ${formatGrams(t.fineHigh)}), ${formatGrams(t.weightGrams)} recorded`);
+  }
   lines.push("", "Queries still open:");
   if (d.openQueries.length === 0) lines.push("  none");
   for (const q of d.openQueries) lines.push(`  ${q.memberName ? plain(q.memberName) : "?"} — ${q.kind} of ${new Date(q.foundAt).toISOString().slice(0, 10)}: ${plain(q.note)}`);

@@ -1,10 +1,12 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import { TROY_OUNCE_GRAMS } from "@/lib/estimate/units";
-import type { LedgerPage, LedgerQuery, LedgerRow } from "@/lib/club/ledger";
+import type { LedgerPage, LedgerQuery, LedgerRow, LedgerSummary } from "@/lib/club/ledger";
+import { addTotals, NO_TOTALS } from "@/lib/club/totals";
 import { seasonBounds } from "@/lib/season";
 import { getDb } from "../db";
 import { listPrices } from "./prices";
+import { totalsBy } from "./totals";
 
 // The latest weigh-in's figures and the review state are kept on each find row (see
 // figures.ts). The reference price in force on a find's day comes from the price periods:
@@ -68,24 +70,45 @@ function priceSpans(mode: LedgerQuery["price"]): Span[] {
  * covering ledger index (the bare aggregate's plan): the value is each period's fine gold
  * times its price, with no price lookup or product per row.
  */
-function ledgerSummary(q: LedgerQuery, spans: Span[]): LedgerPage["summary"] {
+function ledgerSummary(q: LedgerQuery, spans: Span[]): LedgerSummary {
+  return groupedSummaries(q, spans, [])[0]?.summary ?? { ...NO_TOTALS, value: 0, valueLow: 0, valueHigh: 0, currency: null };
+}
+
+/**
+ * Totals per group (member, claim, or none) as one aggregate per price period over the
+ * covering ledger index, each period's fine gold valued at its price.
+ */
+function groupedSummaries(q: LedgerQuery, spans: Span[], keys: SQL[]): { key: unknown[]; summary: LedgerSummary }[] {
   const bounds = timeBounds(q);
-  const summary: LedgerPage["summary"] = { finds: 0, weightGrams: 0, fineGrams: 0, value: 0, currency: null };
+  const groups = new Map<string, { key: unknown[]; summary: LedgerSummary }>();
   for (const span of spans) {
     const start = Math.max(span.start, bounds.start);
     const end = Math.min(span.end, bounds.end);
     if (start >= end) continue;
-    const part = getDb().get<{ finds: number; weight: number | null; fine: number | null }>(
-      sql`select count(*) as finds, sum(f.weight_grams) as weight, sum(f.latest_fine_grams) as fine from finds f where ${where(q, { start, end })}`,
-    );
-    if (part.finds === 0) continue;
-    summary.finds += part.finds;
-    summary.weightGrams += part.weight ?? 0;
-    summary.fineGrams += part.fine ?? 0;
-    if (span.price !== null) summary.value += ((part.fine ?? 0) * span.price) / TROY_OUNCE_GRAMS;
-    if (span.currency !== null && (summary.currency === null || span.currency > summary.currency)) summary.currency = span.currency;
+    for (const part of totalsBy<Record<string, unknown>>(sql`from finds f where ${where(q, { start, end })}`, keys)) {
+      if (part.totals.finds === 0) continue;
+      const key = keys.map((_, i) => part[`k${i}`]);
+      const id = JSON.stringify(key);
+      const g = groups.get(id) ?? { key, summary: { ...NO_TOTALS, value: 0, valueLow: 0, valueHigh: 0, currency: null } };
+      const t = part.totals;
+      g.summary = { ...g.summary, ...addTotals(g.summary, t) };
+      if (span.price !== null) {
+        g.summary.value += (t.fineGrams * span.price) / TROY_OUNCE_GRAMS;
+        g.summary.valueLow += (t.fineLow * span.price) / TROY_OUNCE_GRAMS;
+        g.summary.valueHigh += (t.fineHigh * span.price) / TROY_OUNCE_GRAMS;
+      }
+      if (span.currency !== null && (g.summary.currency === null || span.currency > g.summary.currency)) g.summary.currency = span.currency;
+      groups.set(id, g);
+    }
   }
-  return summary;
+  return [...groups.values()];
+}
+
+/** Subtotals per member or per claim, for the report. */
+export function ledgerSubtotals(q: LedgerQuery, by: "member" | "claim"): { id: string | null; summary: LedgerSummary }[] {
+  return getDb().transaction(() =>
+    groupedSummaries(q, priceSpans(q.price), [by === "member" ? sql`f.member_id` : sql`f.claim_id`]).map((g) => ({ id: g.key[0] as string | null, summary: g.summary })),
+  );
 }
 
 const ORDER: Record<LedgerQuery["sort"], string> = {
@@ -100,9 +123,9 @@ const ORDER: Record<LedgerQuery["sort"], string> = {
 const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName, f.claim_id as claimId, c.name as claimName,
   f.found_at as foundAt, f.kind, f.method, f.weight_grams as weightGrams,
   f.latest_alloy_grams as alloyGrams, f.latest_fine_grams as fineGrams, f.latest_fine_low as fineLow, f.latest_fine_high as fineHigh,
-  f.review_state as state`);
+  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.review_state as state`);
 
-type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value">;
+type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch"> & { weighMismatch: number | boolean };
 
 const MEMBER_JOIN = "join members m on m.id = f.member_id";
 const CLAIM_JOIN = "left join claims c on c.id = f.claim_id";
@@ -123,7 +146,7 @@ function withPrices(list: UnpricedRow[], spans: Span[]): LedgerRow[] {
       else hi = mid - 1;
     }
     const { price, currency } = spans[lo];
-    return { ...r, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+    return { ...r, weighMismatch: !!r.weighMismatch, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
   });
 }
 

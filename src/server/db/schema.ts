@@ -174,7 +174,8 @@ export const finds = sqliteTable("finds", {
   seq: seq(),
 }, (t) => [
   index("finds_member_seq").on(t.memberId, t.seq),
-  index("finds_ledger").on(t.foundAt, t.deletedAt, t.claimId, t.memberId, t.kind, t.reviewState, t.weightGrams, t.latestFineGrams),
+  // Covers every filter and every total (TOTAL_COLUMNS), so ledger totals never read the table.
+  index("finds_ledger").on(t.foundAt, t.deletedAt, t.claimId, t.memberId, t.kind, t.reviewState, t.weightGrams, t.latestFineGrams, t.latestFineLow, t.latestFineHigh, t.fineBasis, t.weighMismatch),
   index("finds_seq").on(t.seq),
   index("finds_claim_found").on(t.claimId, t.foundAt),
   index("finds_found").on(t.foundAt),

@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import { ClaimsMap } from "@/components/club/claims-map";
 import { ProductionChart } from "@/components/club/production-chart";
+import { addTotals, NO_TOTALS } from "@/lib/club/totals";
+import { gramsToPennyweights } from "@/lib/estimate/units";
 import { formatGrams } from "@/lib/format";
 import { currentSeason } from "@/lib/season";
 import { requirePageActor } from "@/server/auth/current";
@@ -18,10 +20,10 @@ export default async function ClubConsolePage() {
   const labels = Object.fromEntries(
     claims.map((c) => {
       const t = byClaim.find((b) => b.claimId === c.id);
-      return [c.id, `${c.name}: ${t ? formatGrams(t.weightGrams) : "0 g"}`];
+      return [c.id, `${c.name}: ${t ? formatGrams(t.totals.fineGrams) : "0 g"} fine`];
     }),
   );
-  const total = byClaim.reduce((t, c) => ({ finds: t.finds + c.finds, weight: t.weight + c.weightGrams, fine: t.fine + c.fineGoldGrams }), { finds: 0, weight: 0, fine: 0 });
+  const total = byClaim.reduce((t, c) => addTotals(t, c.totals), NO_TOTALS);
 
   return (
     <div className="flex flex-col gap-6">
@@ -38,8 +40,9 @@ export default async function ClubConsolePage() {
               <th className="py-2 pr-3">Kind</th>
               <th className="py-2 pr-3 text-right">Finds</th>
               <th className="py-2 pr-3 text-right">Members</th>
-              <th className="py-2 pr-3 text-right">Recorded weight</th>
-              <th className="py-2 text-right">Fine gold (est.)</th>
+              <th className="py-2 pr-3 text-right">Fine gold (est.)</th>
+              <th className="py-2 pr-3 text-right">at worst</th>
+              <th className="py-2 text-right">Recorded weight</th>
             </tr>
           </thead>
           <tbody>
@@ -47,10 +50,13 @@ export default async function ClubConsolePage() {
               <tr key={c.claimId ?? "none"} className="border-b border-rule">
                 <td className="py-2 pr-3 font-bold">{c.claimName ?? "Off-claim"}</td>
                 <td className="py-2 pr-3 capitalize">{c.kind ?? "—"}</td>
-                <td className="figure py-2 pr-3 text-right">{c.finds}</td>
+                <td className="figure py-2 pr-3 text-right">{c.totals.finds}</td>
                 <td className="figure py-2 pr-3 text-right">{c.members}</td>
-                <td className="figure py-2 pr-3 text-right">{formatGrams(c.weightGrams)}</td>
-                <td className="figure py-2 text-right">{c.weighedFinds > 0 ? formatGrams(c.fineGoldGrams) : "not weighed"}</td>
+                <td className="figure py-2 pr-3 text-right">{formatGrams(c.totals.fineGrams)}</td>
+                <td className="figure py-2 pr-3 text-right text-sm">
+                  {formatGrams(c.totals.fineLow)} – {formatGrams(c.totals.fineHigh)}
+                </td>
+                <td className="figure py-2 text-right">{formatGrams(c.totals.weightGrams)}</td>
               </tr>
             ))}
           </tbody>
@@ -59,14 +65,24 @@ export default async function ClubConsolePage() {
               <td className="py-2 pr-3" colSpan={2}>
                 Club total
               </td>
-              <td className="figure py-2 pr-3 text-right" data-testid="club-total-finds">{total.finds}</td>
+              <td className="figure py-2 pr-3 text-right" data-testid="club-total-finds">
+                {total.finds}
+              </td>
               <td />
-              <td className="figure py-2 pr-3 text-right">{formatGrams(total.weight)}</td>
-              <td className="figure py-2 text-right">{formatGrams(total.fine)}</td>
+              <td className="figure py-2 pr-3 text-right">
+                {formatGrams(total.fineGrams)} · {gramsToPennyweights(total.fineGrams).toFixed(1)} dwt
+              </td>
+              <td className="figure py-2 pr-3 text-right text-sm">
+                {formatGrams(total.fineLow)} – {formatGrams(total.fineHigh)}
+              </td>
+              <td className="figure py-2 text-right">{formatGrams(total.weightGrams)}</td>
             </tr>
           </tfoot>
         </table>
-        <p className="mt-3 text-sm text-ink-soft">Fine gold comes from members&apos; specimen weigh-ins: an estimate, not an assay.</p>
+        <p className="mt-3 text-sm text-ink-soft">
+          Fine gold is estimated for every find: specimens from their weigh-ins, other gold from its weight at the purity the member recorded or the
+          claim&apos;s fineness. &ldquo;At worst&rdquo; is the range over those assumptions. An estimate is not an assay.
+        </p>
       </section>
 
       <div className="grid gap-4 xl:grid-cols-2">

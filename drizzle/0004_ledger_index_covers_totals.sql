@@ -1,0 +1,2 @@
+DROP INDEX `finds_ledger`;--> statement-breakpoint
+CREATE INDEX `finds_ledger` ON `finds` (`found_at`,`deleted_at`,`claim_id`,`member_id`,`kind`,`review_state`,`weight_grams`,`latest_fine_grams`,`latest_fine_low`,`latest_fine_high`,`fine_basis`,`weigh_mismatch`);
