@@ -21,6 +21,14 @@ await app.prepare();
 const handle = app.getRequestHandler();
 
 const server = http.createServer((req, res) => {
+  // Only origin-form targets ("/path"): an absolute target ("GET http://evil.example/x") would
+  // have Next build its redirects on a host the client chose (RFC 9112 §3.2.2 lets proxies send
+  // it; nothing in front of this server needs to).
+  if (!req.url?.startsWith("/")) {
+    res.writeHead(400, { "content-type": "application/json", connection: "close" });
+    res.end(JSON.stringify({ error: { code: "bad_request:target", message: "Ask for a path on this server." } }));
+    return;
+  }
   settleForwardingHeaders(req, trustedProxies);
   const declared = Number(req.headers["content-length"] ?? 0);
   if (declared > MAX_DECLARED_BODY_BYTES) {

@@ -95,6 +95,14 @@ describe("the front door (RELIABILITY 32–34)", () => {
     }
   });
 
+  it("a request for an absolute URL (a host of the client's choosing) is refused, not redirected there", async () => {
+    for (const target of ["http://evil.example/club", "https://evil.example/sign-in", "evil.example:443"]) {
+      const res = await raw("GET", target, { host: "localhost" });
+      expect(res.status, target).toBe(400);
+      expect(res.headers.location ?? "").not.toContain("evil.example");
+    }
+  });
+
   it("a declared body over 8 MB is refused at the door", async () => {
     const url = new URL(baseUrl);
     const status = await new Promise<number>((resolve, reject) => {

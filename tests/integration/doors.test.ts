@@ -8,6 +8,7 @@ import { GET as getMe } from "@/app/api/me/route";
 import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
 import { resetLimits } from "@/server/limits";
+import { mailSettled } from "@/server/mail";
 import { startMailCatcher } from "../../scripts/lib/mail-catcher";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
 import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
@@ -21,7 +22,9 @@ let db: Db;
 let mailDir: string;
 let catcher: { close: () => Promise<void> };
 
-function caughtMail(): { to: string[]; subject: string; text: string }[] {
+/** What the catcher holds once every mail the server handed off has been sent. */
+async function caughtMail(): Promise<{ to: string[]; subject: string; text: string }[]> {
+  await mailSettled();
   return fs
     .readdirSync(mailDir)
     .sort()
@@ -43,11 +46,13 @@ afterAll(async () => {
   await catcher.close();
   fs.rmSync(mailDir, { recursive: true, force: true });
 });
-beforeEach(() => {
+beforeEach(async () => {
   vi.stubEnv("LODEBOOK_ORIGIN", ORIGIN);
   vi.stubEnv("AUTH_URL", "");
   resetLimits();
   resetSignInGuard();
+  // Mail from the test before is sent after its answers: let it land before clearing.
+  await mailSettled();
   clearMail();
 });
 afterEach(() => {
@@ -62,7 +67,7 @@ describe("every link the server mails comes from the configured origin (RELIABIL
   it("a sign-in link asked for with a hostile Host and forwarding headers points at the club's origin", async () => {
     const res = await postAuth("http://evil.example/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL], ["callbackUrl", "https://evil.example/steal"]] }, { headers: HOSTILE_HEADERS });
     expect(res.status).toBe(302);
-    const mails = caughtMail();
+    const mails = await caughtMail();
     expect(mails).toHaveLength(1);
     const found = links(mails[0].text);
     expect(found.length).toBeGreaterThan(0);
@@ -79,7 +84,7 @@ describe("every link the server mails comes from the configured origin (RELIABIL
   it("the same through a JSON body and a doubled e-mail field", async () => {
     await postAuth("http://evil.example/api/auth/signin/nodemailer", { json: { email: MEMBER_EMAIL } }, { headers: HOSTILE_HEADERS });
     await postAuth("http://evil.example/api/auth/signin/nodemailer", { form: [["email", OTHER_MEMBER_EMAIL], ["email", MEMBER_EMAIL]] }, { headers: HOSTILE_HEADERS });
-    const all = caughtMail().flatMap((m) => links(m.text));
+    const all = (await caughtMail()).flatMap((m) => links(m.text));
     expect(all.length).toBeGreaterThan(0);
     for (const link of all) expect(new URL(link).origin).toBe(ORIGIN);
   });
@@ -91,7 +96,7 @@ describe("every link the server mails comes from the configured origin (RELIABIL
       none,
     );
     expect(res.status).toBe(201);
-    const [mail] = caughtMail();
+    const [mail] = await caughtMail();
     const link = links(mail.text)[0] ?? "";
     expect(new URL(link).origin).toBe(ORIGIN);
     expect(new URL(link).pathname).toBe("/join");
@@ -107,7 +112,7 @@ describe("every link the server mails comes from the configured origin (RELIABIL
     expect((await res.json()).error.message).toMatch(/LODEBOOK_ORIGIN/);
     expect(db.$client.prepare("select count(*) as n from invitations").get()).toEqual(before);
     await postAuth("http://localhost:3000/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] });
-    expect(caughtMail()).toHaveLength(0);
+    expect(await caughtMail()).toHaveLength(0);
   });
 });
 
@@ -211,11 +216,26 @@ describe("sign-in limits (RELIABILITY 29, 33)", () => {
       const res = await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] });
       answers.push(`${res.status} ${new URL(res.headers.get("location")!, ORIGIN).pathname}`);
     }
-    expect(caughtMail()).toHaveLength(3);
+    expect(await caughtMail()).toHaveLength(3);
     // Limited or not, known or not: the same answer.
     const unknown = await postAuth("/api/auth/signin/nodemailer", { form: [["email", "stranger@quillmarsh.example"]] });
     expect(new Set(answers).size).toBe(1);
     expect(unknown.status).toBe(302);
+  });
+});
+
+describe("the mail limits cannot be spent against a member (RELIABILITY 33)", () => {
+  it("strangers using up an account's hourly sign-in mails do not stop the member's own browser", async () => {
+    const phone = new CookieJar();
+    expect(signedIn(await signInByPassword(MEMBER_EMAIL, MEMBER_PASSWORD, { jar: phone }))).toBe(true);
+    // From many addresses, past the account's hourly count.
+    for (let i = 0; i < 8; i++) await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] }, { headers: { "x-lodebook-client": `203.0.113.${i}` } });
+    const before = (await caughtMail()).length;
+    expect(before).toBe(6);
+    await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] }, { headers: { "x-lodebook-client": "203.0.113.99" } });
+    expect((await caughtMail()).length).toBe(before);
+    await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] }, { jar: phone, headers: { "x-lodebook-client": "198.51.100.4" } });
+    expect((await caughtMail()).length).toBe(before + 1);
   });
 });
 

@@ -11,7 +11,13 @@ import { spend } from "../limits";
 const joinForm = z
   .object({
     token: z.string().min(20, "This link is incomplete.").max(100),
-    name: z.string().trim().min(1, "Tell the club your name.").max(120),
+    name: z
+      .string()
+      .trim()
+      .min(1, "Tell the club your name.")
+      .max(120, "At most 120 characters.")
+      // A name is shown in mail, reports and exports: no line breaks, no invisible controls.
+      .refine((n) => !/[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u2028-\u202e\u2066-\u2069]/.test(n), "Use letters, spaces and punctuation only."),
     password: z.string().min(10, "Use at least 10 characters.").max(200),
     confirm: z.string(),
   })

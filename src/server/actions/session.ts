@@ -47,7 +47,7 @@ export const signInWithPassword = defineAction({ public: true }, passwordForm, a
       await keepDeviceCookies(scope);
       throw error;
     }
-  }, clientAddress(await headers())),
+  }, await headers()),
 );
 
 const linkForm = z.object({ email: z.email("Enter your e-mail address.").max(254), from: z.string().max(500).optional() });
@@ -63,8 +63,7 @@ export const sendSignInLink = defineAction({ public: true }, linkForm, async (in
     // Unknown addresses and per-account limits skip the mail silently in the signIn callback
     // (counted against this caller's address): the answer is the same either way, so the form
     // cannot be used to learn who belongs to the club.
-    const address = clientAddress(await headers());
-    await withSignInScope(() => signIn("nodemailer", { email: input.email.trim().toLowerCase(), redirectTo: afterSignIn(input.from), redirect: false }), address);
+    await withSignInScope(() => signIn("nodemailer", { email: input.email.trim().toLowerCase(), redirectTo: afterSignIn(input.from), redirect: false }), await headers());
   } catch (error) {
     if (!(error instanceof AuthError)) throw error;
   }

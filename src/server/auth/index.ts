@@ -11,7 +11,7 @@ import { accounts, authSessions, members, verificationTokens } from "../db/schem
 import { MISSING_ORIGIN_MESSAGE, serverEnv, siteOrigin } from "../env";
 import { AppError } from "../errors";
 import { logger } from "../log";
-import { mailFrom, sendMail, smtpSettings } from "../mail";
+import { mailFrom, sendMailLater, smtpSettings } from "../mail";
 import { signInLinkMessage } from "../mail/messages";
 import { siteLink } from "../site-link";
 import { hashPassword, isLegacyHash, verifyPassword } from "./password";
@@ -91,7 +91,7 @@ function config(): NextAuthConfig {
         server: smtpSettings(),
         from: mailFrom(),
         maxAge: 30 * 60,
-        async sendVerificationRequest({ identifier, url, request }) {
+        async sendVerificationRequest({ identifier, url }) {
           // The origin and the mail limits were checked in the signIn callback, before the token was stored.
           if (!siteOrigin()) {
             logger.warn({ code: "unavailable:origin" }, MISSING_ORIGIN_MESSAGE);
@@ -101,7 +101,7 @@ function config(): NextAuthConfig {
           const given = new URL(url);
           const callbackUrl = safeReturnPath(given.searchParams.get("callbackUrl")?.replace(/^https?:\/\/[^/]+/, ""));
           given.searchParams.set("callbackUrl", callbackUrl);
-          await sendMail({ to: identifier, ...signInLinkMessage(siteLink(`${given.pathname}${given.search}`)) });
+          sendMailLater({ to: identifier, ...signInLinkMessage(siteLink(`${given.pathname}${given.search}`)) }, "sign-in link");
         },
       }),
     ],

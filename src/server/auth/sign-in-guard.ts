@@ -36,9 +36,26 @@ const unknownDelays = new Map<string, Delay>();
 type DeviceCount = { failures: number; since: number };
 const deviceCounts = new Map<string, DeviceCount>();
 
-function remember<K, V>(map: Map<K, V>, key: K, value: V) {
+/**
+ * Keeps a count, dropping the oldest one that no longer holds anything back when full, so a
+ * flood of other accounts cannot flush a delay that is still running. Only when every one of
+ * the oldest is still active does the oldest go.
+ */
+function remember<K, V>(map: Map<K, V>, key: K, value: V, active: (v: V) => boolean) {
   map.delete(key);
-  if (map.size >= MAX_TRACKED) map.delete(map.keys().next().value as K);
+  if (map.size >= MAX_TRACKED) {
+    let victim: K | undefined;
+    let looked = 0;
+    for (const [k, v] of map) {
+      victim ??= k;
+      if (!active(v)) {
+        victim = k;
+        break;
+      }
+      if (++looked >= 256) break;
+    }
+    map.delete(victim as K);
+  }
   map.set(key, value);
 }
 
@@ -91,14 +108,16 @@ function unknownWaitS(email: string, now: number): number {
 export type SignInScope = {
   /** The caller's address as the front door settled it, for limits counted inside Auth.js's callbacks. */
   address: string;
+  /** The request's headers (its cookies), for checks made inside Auth.js's callbacks. */
+  headers: Headers;
   setCookies: { name: string; value: string; maxAgeS: number }[];
   /** Set when the attempt was held back rather than wrong: the caller answers 429 or 503. */
   refused?: { status: 429 | 503; message: string; retryAfterS: number };
 };
 const scope = new AsyncLocalStorage<SignInScope>();
 
-export function withSignInScope<T>(work: (s: SignInScope) => Promise<T>, address = "unknown"): Promise<T> {
-  const s: SignInScope = { address, setCookies: [] };
+export function withSignInScope<T>(work: (s: SignInScope) => Promise<T>, headers: Headers = new Headers()): Promise<T> {
+  const s: SignInScope = { address: clientAddress(headers), headers, setCookies: [] };
   return scope.run(s, () => work(s));
 }
 
@@ -136,11 +155,11 @@ function countFailure(a: Attempt, by = 1): void {
   if (a.device) {
     const c = deviceCounts.get(a.device);
     const fresh = !c || a.now - c.since >= SIGN_IN_POLICY.deviceWindowS * 1000;
-    remember(deviceCounts, a.device, fresh ? { failures: Math.max(0, by), since: a.now } : { failures: Math.max(0, c.failures + by), since: c.since });
+    remember(deviceCounts, a.device, fresh ? { failures: Math.max(0, by), since: a.now } : { failures: Math.max(0, c.failures + by), since: c.since }, (v) => Date.now() - v.since < SIGN_IN_POLICY.deviceWindowS * 1000);
     return;
   }
   const d = unknownDelays.get(a.email);
-  remember(unknownDelays, a.email, { failures: Math.max(0, (d?.failures ?? 0) + by), lastAt: by > 0 ? a.now : (d?.lastAt ?? a.now) });
+  remember(unknownDelays, a.email, { failures: Math.max(0, (d?.failures ?? 0) + by), lastAt: by > 0 ? a.now : (d?.lastAt ?? a.now) }, (v) => v.failures > 0 && Date.now() - v.lastAt < SIGN_IN_POLICY.forgetAfterS * 1000);
 }
 
 function limited(retryAfterS: number, email: string, by: string): never {
@@ -179,11 +198,15 @@ export function attemptSucceeded(a: Attempt): void {
  * belongs to the club. The caller's address comes from the sign-in scope.
  */
 export async function mayMailSignInLink(email: string): Promise<boolean> {
-  const address = scope.getStore()?.address ?? "unknown";
+  const s = scope.getStore();
+  const address = s?.address ?? "unknown";
+  // The member's own browser (device cookie) is not held by the per-account hourly count, which
+  // a stranger could otherwise spend to keep the member's links from coming.
+  const known = s ? knownDevice(email, s.headers, Date.now()) !== null : false;
   try {
     await spend([
       ["signInMailPerAddress", address],
-      ["signInMailPerAccount", email],
+      ...(known ? [] : ([["signInMailPerAccount", email]] as ["signInMailPerAccount", string][])),
       ["signInMailPerAccountAddress", `${email}|${address}`],
     ]);
     return true;

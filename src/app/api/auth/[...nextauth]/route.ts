@@ -2,7 +2,6 @@ import { NextRequest } from "next/server";
 import { handlers } from "@/server/auth";
 import { withSignInScope } from "@/server/auth/sign-in-guard";
 import { AppError } from "@/server/errors";
-import { clientAddress } from "@/server/client-address";
 import { siteOrigin } from "@/server/env";
 import { readBodyLimited, route } from "@/server/http";
 
@@ -30,5 +29,5 @@ export const POST = route(async (req) => {
     const secure = siteOrigin()?.startsWith("https:") ? "; Secure" : "";
     for (const c of scope.setCookies) res.headers.append("Set-Cookie", `${c.name}=${c.value}; Path=/; Max-Age=${c.maxAgeS}; HttpOnly; SameSite=Lax${secure}`);
     return res;
-  }, clientAddress(req));
+  }, req.headers);
 });
