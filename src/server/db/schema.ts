@@ -262,6 +262,18 @@ export const syncClients = sqliteTable("sync_clients", {
   updatedAt: integer("updated_at").notNull().default(now),
 });
 
+/**
+ * A digest of each change applied (or refused) from a client, for its recent mutation ids:
+ * a resend with the same content is a replay (skipped); different content under a used id
+ * is a second device sharing the client id (a copied profile), answered as a reuse.
+ */
+export const syncMutations = sqliteTable("sync_mutations", {
+  clientId: text("client_id").notNull().references(() => syncClients.id),
+  mutationId: integer("mutation_id").notNull(),
+  /** SHA-256 of the change's name and arguments as sent, base64url, first 16 bytes. */
+  digest: text("digest").notNull(),
+}, (t) => [primaryKey({ columns: [t.clientId, t.mutationId] })]);
+
 /** Named counters; "change" is the server sequence that orders every syncable write. */
 export const sequences = sqliteTable("sequences", {
   name: text("name").primaryKey(),
