@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { AppError, type FieldErrors } from "./errors";
@@ -85,8 +86,11 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
         const retryAfter = error.fields?.retryAfter?.[0];
         return NextResponse.json(error.toJSON(), { status: error.status, headers: { "Cache-Control": "no-store", ...(retryAfter ? { "Retry-After": retryAfter } : {}) } });
       }
-      logger.error({ err: error instanceof Error ? { name: error.name, message: error.message, stack: error.stack } : String(error), path: new URL(req.url).pathname }, "handler failed");
-      return NextResponse.json({ error: { code: "server_error", message: "Something went wrong on the server. Nothing you sent was lost; try again." } }, { status: 500 });
+      // The id goes to the caller and to the log line, so an officer can find the failure a
+      // member reports ("send to the club") without the answer carrying any of its detail.
+      const errorId = randomUUID();
+      logger.error({ errorId, err: error instanceof Error ? { name: error.name, message: error.message, stack: error.stack } : String(error), path: new URL(req.url).pathname }, "handler failed");
+      return NextResponse.json({ error: { code: "server_error", message: "Something went wrong on the server. Nothing you sent was lost; try again.", errorId } }, { status: 500 });
     }
   };
 }

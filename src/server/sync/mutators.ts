@@ -20,7 +20,7 @@ import { RejectError } from "./reject";
  * the finds and outings this push has written and not deleted (the member's own, alive), so a
  * weigh-in or photo sent with its find needs no lookup of it.
  */
-export type PushTx = { db: Sqlite; seq: () => number; written: Set<string>; resendFindsOf: Set<string>; fineness: Map<string | null, FinenessUsed> };
+export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; fineness: Map<string | null, FinenessUsed> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = "outing" | "find" | "photo" | "weighIn";
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
@@ -51,8 +51,13 @@ export function keepHistory(db: Sqlite, entity: string, entityId: string, member
   insertRow(db, t.recordHistory, { entity, entityId, memberId, version });
 }
 
+/**
+ * The parent a change names must be the member's, alive, and of the right kind: a written id of
+ * the other kind falls through to the lookup in this kind's table, which refuses it (a foreign
+ * key failing at the write would be a 5xx on every resend).
+ */
 function requireOwnedParent(tx: PushTx, parent: "find" | "outing", id: string, actor: Actor, field: string) {
-  if (tx.written.has(id)) return;
+  if (tx.written.get(id) === parent) return;
   // Raw rows: an array from the driver costs a fraction of an object built property by property.
   const row = statement(tx.db, `select member_id, deleted_at from ${TABLE_NAME[parent]} where id = ?`).raw().get(id) as [string, number | null] | undefined;
   if (!row || row[0] !== actor.id) throw new RejectError("unknown_parent", `The ${parent} this belongs to is not on the server.`, field);
@@ -77,11 +82,11 @@ function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values:
   } else {
     insertRow(tx.db, table, values as Record<string, unknown>, extra);
   }
-  if (entity === "find" || entity === "outing") tx.written.add((values as { id: string }).id);
+  if (entity === "find" || entity === "outing") tx.written.set((values as { id: string }).id, entity);
 }
 
 function markDeleted(tx: PushTx, entity: Entity, id: string) {
-  tx.written.delete(id);
+  if (tx.written.get(id) === entity) tx.written.delete(id);
   statement(tx.db, `update ${TABLE_NAME[entity]} set deleted_at = ?, seq = ? where id = ?`).run(Date.now(), tx.seq(), id);
 }
 

@@ -1,4 +1,5 @@
 import "server-only";
+import { createHash } from "node:crypto";
 import type { MutationName } from "@/lib/sync/mutations";
 import type { MutationResult, PushRequest, PushResponse } from "@/lib/sync/protocol";
 import type { Actor } from "../auth/actor";
@@ -7,7 +8,7 @@ import { statement, type Sqlite } from "../db/rows";
 import { sequenceBlock } from "../db/sequence";
 import { AppError } from "../errors";
 import { logger } from "../log";
-import { applyMutation, keepHistory, resendFinds } from "./mutators";
+import { applyMutation, keepHistory, resendFinds, type PushTx } from "./mutators";
 import { RejectError } from "./reject";
 
 /** SQLite answers that mean "try again later", not "this change is wrong". */
@@ -18,10 +19,44 @@ export function isTemporaryDbError(error: unknown): boolean {
   return TEMPORARY.has(code) || [...TEMPORARY].some((c) => code.startsWith(`${c}_`));
 }
 
+/** How many recent mutation ids of a client keep their digest (more than one push holds). */
+export const DIGEST_WINDOW = 2 * 1000;
+
+/** A change's fingerprint: its name and its arguments as sent (a resend sends the same JSON). */
+export function mutationDigest(name: string, args: unknown): string {
+  return createHash("sha256").update(name).update("\0").update(JSON.stringify(args) ?? "").digest("base64url").slice(0, 22);
+}
+
 /**
- * A push's work inside an open transaction: ids already applied are skipped, a gap is refused,
- * a change rejected for good still advances the client's last mutation id, and the id is
- * stored in the same transaction as the writes (exactly once).
+ * Ids at or below the client's last: a replay when each one's content is what was applied under
+ * it (or its digest has left the window), else a second device sharing this client id. That
+ * push is refused whole, naming the replays (done) and the reuses (to be sent again under a new
+ * client id): answering "skipped" would drop the second device's changes unseen.
+ */
+function checkReplays(sqlite: Sqlite, clientId: string, seen: PushRequest["mutations"]): MutationResult[] {
+  const reused: string[] = [];
+  const replayed: string[] = [];
+  const read = statement(sqlite, "select digest from sync_mutations where client_id = ? and mutation_id = ?").pluck();
+  for (const m of seen) {
+    const kept = read.get(clientId, m.id) as string | undefined;
+    if (kept !== undefined && kept !== mutationDigest(m.name, m.args)) reused.push(String(m.id));
+    else replayed.push(String(m.id));
+  }
+  if (reused.length > 0) {
+    logger.warn({ code: "conflict:client_reused", clientId, reused: reused.length }, "two devices share one client id");
+    throw new AppError("conflict:client_reused", "Another device is using this device's sync id (a copied browser profile?). This device takes a new one and sends its changes again.", {
+      reused,
+      replayed,
+    });
+  }
+  return seen.map((m) => ({ id: m.id, status: "skipped" }));
+}
+
+/**
+ * A push's work inside an open transaction: ids already applied are skipped (or refused as a
+ * reuse, see checkReplays), a gap is refused, a change rejected for good still advances the
+ * client's last mutation id, and the id is stored in the same transaction as the writes
+ * (exactly once), with each change's digest.
  */
 function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushResponse {
   if (push.asMember !== undefined && push.asMember !== actor.id) {
@@ -37,14 +72,13 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
   }
   if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
   const seq = sequenceBlock(sqlite);
-  const pushTx = { db: sqlite, seq: seq.next, written: new Set<string>(), resendFindsOf: new Set<string>(), fineness: new Map() };
+  const pushTx: PushTx = { db: sqlite, seq: seq.next, written: new Map(), resendFindsOf: new Set<string>(), fineness: new Map() };
   let last = client?.lastMutationId ?? 0;
-  const results: MutationResult[] = [];
+  const seen = push.mutations.filter((m) => m.id <= last);
+  const results: MutationResult[] = seen.length > 0 ? checkReplays(sqlite, push.clientId, seen) : [];
+  const keepDigest = statement(sqlite, "insert or replace into sync_mutations (client_id, mutation_id, digest) values (?, ?, ?)");
   for (const m of push.mutations) {
-    if (m.id <= last) {
-      results.push({ id: m.id, status: "skipped" });
-      continue;
-    }
+    if (m.id <= last) continue;
     if (m.id !== last + 1) {
       if (results.every((r) => r.status === "skipped")) {
         throw new AppError("conflict:mutation_gap", `The server expected change ${last + 1} next, not ${m.id}. Resend from ${last + 1}.`, {
@@ -61,11 +95,13 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
       if (error.keep) keepHistory(sqlite, error.keep.entity, error.keep.entityId, error.keep.memberId, error.keep.version);
       results.push({ id: m.id, status: "rejected", reason: error.reason, field: error.field, message: error.message });
     }
+    keepDigest.run(push.clientId, m.id, mutationDigest(m.name, m.args));
     last = m.id;
   }
   for (const memberId of pushTx.resendFindsOf) resendFinds(pushTx, memberId, seq.reserve);
   if (last !== (client?.lastMutationId ?? 0)) {
     statement(sqlite, "update sync_clients set last_mutation_id = ?, updated_at = ? where id = ?").run(last, Date.now(), push.clientId);
+    statement(sqlite, "delete from sync_mutations where client_id = ? and mutation_id <= ?").run(push.clientId, last - DIGEST_WINDOW);
   }
   seq.store();
   return { lastMutationId: last, results };
