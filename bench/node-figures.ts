@@ -81,10 +81,10 @@ export async function syncIngest() {
 
 /** Ledger summary and first page over the large club (and its other sorts, and the monthly chart), against the bare SQL aggregate. */
 export async function ledger() {
-  const file = path.join(OUT, "large-v2.db");
+  const file = path.join(OUT, "large-v3.db");
   if (!fs.existsSync(file)) {
     console.log("(making the large club once: 500 members, 250 000 finds, 1 000 000 weigh-ins, 37 monthly prices…)");
-    freshDb("large-v2.db");
+    freshDb("large-v3.db");
     seedLargeClub(getDb());
   }
   closeDb();

@@ -1,5 +1,6 @@
 import Dexie, { type EntityTable } from "dexie";
 import type { ClaimView } from "@/lib/entities/claim";
+import type { FineBasis } from "@/lib/figures/fine-basis";
 import type { Find } from "@/lib/entities/find";
 import type { Outing } from "@/lib/entities/outing";
 import type { Photo } from "@/lib/entities/photo";
@@ -10,7 +11,13 @@ import type { MutationName } from "@/lib/sync/mutations";
 type Local = { updatedAt: number };
 
 export type LocalOuting = Outing & Local;
-export type LocalFind = Find & Local;
+/**
+ * The server's fine-gold figure for a find, as of the last pull (never sent up): how it was
+ * reached, its range, and whether its weigh-in disagrees with its weight. A find saved on the
+ * device since has none until camp sync figures it again.
+ */
+export type ServerFigure = { basis: FineBasis | null; fineGrams: number | null; low: number | null; high: number | null; weighMismatch: boolean };
+export type LocalFind = Find & Local & { figure?: ServerFigure | null };
 export type LocalWeighIn = WeighIn & Local;
 /** A photo with its shrunk JPEG and a thumbnail; `uploaded` is 1 once the server holds the bytes. */
 export type LocalPhoto = Photo & Local & { blob: Blob; thumb: Blob; uploaded: 0 | 1 };

@@ -119,8 +119,9 @@ export async function deletePhoto(db: LodebookDb, id: string): Promise<void> {
 }
 
 /** The record as it syncs: without the device-only fields. */
-export function stripLocal<T extends { updatedAt: number }>(record: T): Omit<T, "updatedAt"> {
-  const { updatedAt: _updatedAt, ...rest } = record;
+/** A device record as the server takes it: without the device's own fields. */
+export function stripLocal<T extends { updatedAt: number; figure?: unknown }>(record: T): Omit<T, "updatedAt" | "figure"> {
+  const { updatedAt: _updatedAt, figure: _figure, ...rest } = record;
   return rest;
 }
 

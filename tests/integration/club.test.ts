@@ -176,6 +176,29 @@ describe("the club ledger", () => {
     expect(parsed.data.map((r) => r.id)).toEqual(page.rows.map((r: { id: string }) => r.id));
     expect(parsed.data.map((r) => (r.weightGrams === "" ? null : Number(r.weightGrams)))).toEqual(page.rows.map((r: { weightGrams: number | null }) => r.weightGrams));
   });
+
+  it("fine gold in the CSV and the report's subtotals equals the hand computation, for all three kinds of figure", async () => {
+    const kinds = sql<{ n: number }>("select count(distinct fine_basis) n from finds where deleted_at is null and fine_basis in ('weighed', 'claim_fineness', 'recorded_purity')").n;
+    expect(kinds).toBe(3);
+    const byHand = sql<{ fine: number }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null`).fine;
+    const res = await getCsv(req("/api/club/ledger/csv", { cookie: officer }), none);
+    const rows = Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true }).data;
+    expect(rows.reduce((n, r) => n + (r.fineGrams === "" ? 0 : Number(r.fineGrams)), 0)).toBeCloseTo(byHand, 6);
+    expect(new Set(rows.map((r) => r.fineBasis))).toEqual(new Set(["weighed", "claim_fineness", "recorded_purity"]));
+
+    const { ledgerSubtotals } = await import("@/server/club/ledger");
+    const { ledgerQuerySchema } = await import("@/lib/club/ledger");
+    const q = ledgerQuerySchema.parse({});
+    for (const by of ["member", "claim"] as const) {
+      const groups = ledgerSubtotals(q, by);
+      expect(groups.reduce((n, g) => n + g.summary.fineGrams, 0)).toBeCloseTo(byHand, 6);
+      const column = by === "member" ? "member_id" : "claim_id";
+      for (const g of groups) {
+        const one = sql<{ fine: number | null }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null and f.${column} is ?`, g.id).fine ?? 0;
+        expect(g.summary.fineGrams).toBeCloseTo(one, 6);
+      }
+    }
+  });
 });
 
 describe("reviews", () => {

@@ -5,10 +5,19 @@ import type { LodebookDb } from "../device-db";
 const pick = (value: Record<string, unknown>, keys: readonly string[]): any => Object.fromEntries(keys.map((k) => [k, value[k] ?? null]));
 
 const OUTING_KEYS = ["id", "claimId", "startedAt", "endedAt", "companions", "method", "hours", "conditions", "notes"] as const;
-const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const;
+const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "purity", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const;
 const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const;
 const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt"] as const;
-const CLAIM_KEYS = ["id", "name", "kind", "agencyRef", "boundary", "rules", "active"] as const;
+const CLAIM_KEYS = ["id", "name", "kind", "agencyRef", "boundary", "rules", "active", "fineness", "finenessLow", "finenessHigh", "finenessSource", "hostDensity", "hostDensityLow", "hostDensityHigh", "hostDensitySource"] as const;
+
+/** The server's figure kept beside a pulled find (columns of its own, never pushed back). */
+const figureOf = (v: Record<string, unknown>) => ({
+  basis: (v.fineBasis as string | null) ?? null,
+  fineGrams: (v.latestFineGrams as number | null) ?? null,
+  low: (v.latestFineLow as number | null) ?? null,
+  high: (v.latestFineHigh as number | null) ?? null,
+  weighMismatch: !!v.weighMismatch,
+});
 
 /**
  * Applies one pull page and stores its cursor in the same transaction. A record with a change
@@ -32,7 +41,7 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
           await db.outings.put({ ...pick(v, OUTING_KEYS), updatedAt });
           break;
         case "find":
-          await db.finds.put({ ...pick(v, FIND_KEYS), updatedAt });
+          await db.finds.put({ ...pick(v, FIND_KEYS), updatedAt, figure: figureOf(v) });
           break;
         case "photo": {
           // Bytes of a photo taken on another device are fetched when shown, not here.

@@ -3,7 +3,8 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useMemo, useRef, useState } from "react";
-import { REVIEW_STATES, type LedgerPage, type LedgerRow } from "@/lib/club/ledger";
+import { REVIEW_STATES, type LedgerPage, type LedgerRow, type LedgerSummary } from "@/lib/club/ledger";
+import { FINE_BASIS_LABELS, type FineBasis } from "@/lib/figures/fine-basis";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
 import { formatDay, formatGrams } from "@/lib/format";
@@ -17,6 +18,33 @@ const money = (v: number | null, c: string | null) => (v == null ? "—" : `${v.
 const STATE_LABEL = { new: "New", verified: "Verified", queried: "Queried" } as const;
 
 const SORT_IDS: Record<string, string> = { foundAt: "foundAt", memberName: "member", claimName: "claim", kind: "kind", weightGrams: "weight", fineGrams: "fine" };
+
+/** A find's fine gold, how it was reached, its range, and a flag when its weigh-in disagrees with its weight. */
+function FineCell({ row }: { row: LedgerRow }) {
+  if (row.fineGrams == null) return <span className="text-ink-soft">{row.kind === "specimen" ? "not weighed" : "no weight"}</span>;
+  return (
+    <span className="flex flex-col">
+      <span>{grams(row.fineGrams)}</span>
+      <span className="text-xs text-ink-soft">
+        {row.fineBasis ? FINE_BASIS_LABELS[row.fineBasis] : ""}
+        {row.fineLow !== row.fineHigh ? ` · ${grams(row.fineLow)}–${grams(row.fineHigh)}` : ""}
+      </span>
+      {row.weighMismatch && (
+        <span className="text-xs font-bold text-rust" data-testid="weigh-mismatch">
+          weigh-in ≠ recorded weight
+        </span>
+      )}
+    </span>
+  );
+}
+
+/** "12 by claim fineness, 5 weighed specimens…", and the finds with no figure. */
+function basisSummary(s: LedgerSummary): string {
+  const parts = (Object.entries(s.byBasis) as [FineBasis, number][]).map(([b, n]) => `${n} by ${FINE_BASIS_LABELS[b]}`);
+  const none = s.finds - s.figured;
+  if (none > 0) parts.push(`${none} without a figure (specimens not weighed, no weight)`);
+  return parts.length ? `Fine gold: ${parts.join(", ")}` : "No finds";
+}
 
 /** The officers' club ledger: filtered and paged on the server, totals for everything selected. */
 export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; members: Option[]; seasons: number[] }) {
@@ -57,7 +85,7 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
       col.accessor("weightGrams", { header: "Weight", cell: (c) => grams(c.getValue()) }),
       col.accessor("fineGrams", {
         header: "Fine gold (est.)",
-        cell: (c) => (c.getValue() == null ? "—" : `${grams(c.getValue())} (${grams(c.row.original.fineLow)}–${grams(c.row.original.fineHigh)})`),
+        cell: (c) => <FineCell row={c.row.original} />,
       }),
       col.accessor("value", { header: "Value", enableSorting: false, cell: (c) => money(c.getValue(), c.row.original.currency) }),
       col.accessor("state", { header: "Review", enableSorting: false, cell: (c) => <span data-state={c.getValue()}>{STATE_LABEL[c.getValue()]}</span> }),
@@ -143,14 +171,26 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           </div>
           <div>
             <p className="text-sm text-ink-soft">Fine gold (est.)</p>
-            <p className="figure text-xl font-bold">{formatGrams(s.fineGrams)}</p>
-            <p className="figure text-sm">{gramsToTroyOunces(s.fineGrams).toFixed(3)} ozt</p>
+            <p className="figure text-xl font-bold" data-testid="total-fine">
+              {formatGrams(s.fineGrams)}
+            </p>
+            <p className="figure text-sm">
+              {gramsToTroyOunces(s.fineGrams).toFixed(3)} ozt · {gramsToPennyweights(s.fineGrams).toFixed(2)} dwt
+            </p>
+            <p className="figure text-sm text-ink-soft">
+              at worst {formatGrams(s.fineLow)} – {formatGrams(s.fineHigh)}
+            </p>
           </div>
           <div>
             <p className="text-sm text-ink-soft">Value</p>
             <p className="figure text-xl font-bold">{money(s.value, s.currency)}</p>
+            <p className="figure text-sm text-ink-soft">
+              at worst {money(s.valueLow, s.currency)} – {money(s.valueHigh, s.currency)}
+            </p>
           </div>
-          <p className="col-span-2 self-center text-xs text-ink-soft md:col-span-1">Estimates from weigh-ins, not assays.</p>
+          <p className="col-span-2 self-center text-xs text-ink-soft md:col-span-1" data-testid="ledger-bases">
+            {basisSummary(s)}. {s.mismatched > 0 ? `${s.mismatched} weigh-in${s.mismatched === 1 ? "" : "s"} far from the find's weight. ` : ""}Estimates, not assays.
+          </p>
         </section>
       )}
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PENNYWEIGHT_GRAMS } from "@/lib/estimate/units";
+import { CLAIM_PRESET } from "@/lib/figures/claim-profile";
 import { DEFAULT_WEIGH_FORM, DEFAULT_REPEATS, parseNumber, toSpecimenInput } from "./form-model";
 
 describe("weigh-in form model", () => {
@@ -64,5 +65,17 @@ describe("weigh-in form model", () => {
     expect(assay.input.finenessRangePermille).toEqual([996, 1000]);
     const past = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, finenessPreset: "custom", fineness: "980", finenessSpread: "30" });
     expect(past.errors.fineness).toMatch(/1000/);
+  });
+});
+
+describe("a find's claim gold profile", () => {
+  const claim = { name: "Larkspur Bench", hostDensity: 2.7, hostRange: [2.66, 2.74] as [number, number], fineness: 890, finenessRange: [860, 920] as [number, number] };
+  it("is what the weigh-in takes as host rock and fineness when chosen", () => {
+    const { input } = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, hostPreset: CLAIM_PRESET, finenessPreset: CLAIM_PRESET, air: [{ value: "50" }], water: [{ value: "31" }] }, claim);
+    expect([input.hostDensity, input.hostDensityRange, input.finenessPermille, input.finenessRangePermille]).toEqual([2.7, [2.66, 2.74], 890, [860, 920]]);
+  });
+  it("without a profile, a preset is still a preset", () => {
+    const { input } = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, air: [{ value: "50" }], water: [{ value: "31" }] }, claim);
+    expect(input.hostDensity).toBe(2.65);
   });
 });

@@ -1,6 +1,7 @@
 import { DEFAULTS } from "@/lib/estimate/input";
 import { ASSAY_HALF_RANGE, FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { SpecimenInput } from "@/lib/estimate/types";
+import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-profile";
 import { fahrenheitToCelsius, toGrams, type MassUnit } from "@/lib/estimate/units";
 import { parseNumber } from "@/lib/parse-number";
 
@@ -78,7 +79,7 @@ export const ENGINE_FIELD_TO_FORM: Record<string, WeighField> = {
 export type FormResult = { input: SpecimenInput; errors: Partial<Record<WeighField, string>>; complete: boolean };
 
 /** Turns what was typed into the engine's input, with a message per field that cannot be read. */
-export function toSpecimenInput(v: WeighFormValues): FormResult {
+export function toSpecimenInput(v: WeighFormValues, claim: ClaimGold | null = null): FormResult {
   const errors: FormResult["errors"] = {};
   const unit = v.readingUnit;
   const readings = (list: { value: string }[], field: "air" | "water") => {
@@ -116,7 +117,10 @@ export function toSpecimenInput(v: WeighFormValues): FormResult {
   };
 
   const host = HOST_PRESETS.find((p) => p.id === v.hostPreset);
-  if (host) {
+  if (v.hostPreset === CLAIM_PRESET && claim) {
+    input.hostDensity = claim.hostDensity;
+    input.hostDensityRange = claim.hostRange;
+  } else if (host) {
     input.hostDensity = host.density;
     input.hostDensityRange = host.range;
   } else {
@@ -128,7 +132,10 @@ export function toSpecimenInput(v: WeighFormValues): FormResult {
   }
 
   const preset = FINENESS_PRESETS.find((p) => p.id === v.finenessPreset);
-  if (preset) {
+  if (v.finenessPreset === CLAIM_PRESET && claim) {
+    input.finenessPermille = claim.fineness;
+    input.finenessRangePermille = claim.finenessRange;
+  } else if (preset) {
     input.finenessPermille = preset.fineness;
     input.finenessRangePermille = preset.range;
   } else {

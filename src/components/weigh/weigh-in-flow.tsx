@@ -8,9 +8,12 @@ import { formatGrams } from "@/lib/format";
 import { EstimatePanel } from "./estimate-panel";
 import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseNumber, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
 import { ReadingsField } from "./readings-field";
+import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-profile";
 
 type Props = {
   initial?: Partial<WeighFormValues>;
+  /** The find's claim's gold profile, offered (and chosen first) as the host rock and the fineness. */
+  claim?: ClaimGold | null;
   /** Where the flow is part of a find, the finished weigh-in is handed here. */
   onSave?: (input: SpecimenInput, estimate: SpecimenEstimate) => void | Promise<void>;
 };
@@ -33,8 +36,8 @@ const PRACTICE = [
   "Measure the water's temperature.",
 ];
 
-function compute(values: WeighFormValues): Outcome {
-  const { input, errors, complete } = toSpecimenInput(values);
+function compute(values: WeighFormValues, claim: ClaimGold | null): Outcome {
+  const { input, errors, complete } = toSpecimenInput(values, claim);
   if (!complete) return { input, errors };
   try {
     const estimate = estimateSpecimen(input);
@@ -70,10 +73,11 @@ function airEffectText({ correctedGrams, textbookGrams }: AirEffect, unit: MassU
 }
 
 /** The weigh-in: readings in, the estimate out, recomputed as each number is typed. */
-export function WeighInFlow({ initial, onSave }: Props) {
-  const { register, control, setValue } = useForm<WeighFormValues>({ defaultValues: { ...DEFAULT_WEIGH_FORM, ...initial } });
+export function WeighInFlow({ initial, claim = null, onSave }: Props) {
+  const fromClaim = claim ? { hostPreset: CLAIM_PRESET, finenessPreset: CLAIM_PRESET } : {};
+  const { register, control, setValue } = useForm<WeighFormValues>({ defaultValues: { ...DEFAULT_WEIGH_FORM, ...initial, ...fromClaim } });
   const values = useWatch({ control }) as WeighFormValues;
-  const outcome = useMemo(() => compute(values), [values]);
+  const outcome = useMemo(() => compute(values, claim), [values, claim]);
   const [resultUnit, setResultUnit] = useState<MassUnit>("g");
   const [saving, setSaving] = useState(false);
 
@@ -178,6 +182,11 @@ export function WeighInFlow({ initial, onSave }: Props) {
           <label className="flex flex-col">
             <span className="field-label">Host rock</span>
             <select className="field-input" aria-invalid={!!e.hostDensity} {...register("hostPreset")}>
+              {claim && (
+                <option value={CLAIM_PRESET}>
+                  {claim.name}&apos;s rock — {claim.hostDensity} ({claim.hostRange[0]}–{claim.hostRange[1]}) g/cm³
+                </option>
+              )}
               {HOST_PRESETS.map((p) => (
                 <option key={p.id} value={p.id}>
                   {p.label} — {p.density} ({p.range[0]}–{p.range[1]}) g/cm³
@@ -203,6 +212,11 @@ export function WeighInFlow({ initial, onSave }: Props) {
           <label className="flex flex-col">
             <span className="field-label">Gold fineness</span>
             <select className="field-input" aria-invalid={!!e.fineness} {...register("finenessPreset")}>
+              {claim && (
+                <option value={CLAIM_PRESET}>
+                  {claim.name}&apos;s gold — {claim.fineness} ‰ ({claim.finenessRange[0]}–{claim.finenessRange[1]})
+                </option>
+              )}
               {FINENESS_PRESETS.map((p) => (
                 <option key={p.id} value={p.id}>
                   {p.label} — {p.fineness} ‰ ({p.range[0]}–{p.range[1]})

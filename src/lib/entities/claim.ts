@@ -22,6 +22,15 @@ export const claimViewSchema = z.object({
   boundary: polygonSchema.nullable(),
   rules: z.string(),
   active: z.boolean(),
+  // The claim gold profile (servers before it sent none: the weigh-in then starts from presets).
+  fineness: z.number().optional(),
+  finenessLow: z.number().optional(),
+  finenessHigh: z.number().optional(),
+  finenessSource: z.string().optional(),
+  hostDensity: z.number().optional(),
+  hostDensityLow: z.number().optional(),
+  hostDensityHigh: z.number().optional(),
+  hostDensitySource: z.string().optional(),
 });
 
 export type ClaimView = z.infer<typeof claimViewSchema>;

@@ -16,3 +16,10 @@ export const FINE_BASIS_LABELS: Record<FineBasis, string> = {
 
 /** A find's weigh-in whose air reading is further than this from its recorded weight is flagged. */
 export const WEIGH_MISMATCH = { relative: 0.1, absoluteGrams: 0.05 } as const;
+
+/** The device's own check of the same rule (fine-figure.ts): a weigh-in's air reading far from the find's weight. */
+export function weighMismatch(weightGrams: number | null, airGrams: readonly number[]): boolean {
+  if (weightGrams == null || airGrams.length === 0) return false;
+  const air = airGrams.reduce((a, b) => a + b, 0) / airGrams.length;
+  return Math.abs(air - weightGrams) > Math.max(WEIGH_MISMATCH.relative * weightGrams, WEIGH_MISMATCH.absoluteGrams);
+}

@@ -47,6 +47,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
   const pick = <T,>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
   let finds = 0;
   let weighIns = 0;
+  let nuggets = 0;
 
   db.transaction((tx) => {
     const memberIds = DEMO_PEOPLE.map((p) => {
@@ -58,7 +59,12 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
 
     const claimRows = DEMO_CLAIMS.map((c) => {
       const id = idAt(seasonStart - 20 * DAY);
-      tx.insert(t.claims).values({ id, name: c.name, kind: c.kind, agencyRef: c.agencyRef, rules: c.rules, boundary: claimPolygon(c), active: true, seq: nextSeq(db.$client) }).run();
+      // Each claim's gold profile, as if learned from the club's earlier melts (invented).
+      const [low, high] = c.kind === "lode" ? [760, 880] : [840, 940];
+      tx.insert(t.claims).values({
+        id, name: c.name, kind: c.kind, agencyRef: c.agencyRef, rules: c.rules, boundary: claimPolygon(c), active: true, seq: nextSeq(db.$client),
+        fineness: (low + high) / 2, finenessLow: low, finenessHigh: high, finenessSource: "Demo club: two invented melts of the 2025 season",
+      }).run();
       return { id, ...c };
     });
 
@@ -93,8 +99,10 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
           const dy = (rand() - 0.5) * claim.halfH;
           const findId = idAt(foundAt);
           const weight = kind === "specimen" ? round2(20 + rand() * 180) : kind === "nugget" ? round2(0.3 + rand() * rand() * 12) : round2(0.05 + rand() * 1.5);
+          // Now and then a member knows a nugget's purity (a buyer's acid test); no extra draw.
+          const purity = kind === "nugget" && ++nuggets % 5 === 0 ? 868 : null;
           tx.insert(t.finds).values({
-            id: findId, memberId: member.id, outingId, claimId: claim.id, kind, weightGrams: weight, method,
+            id: findId, memberId: member.id, outingId, claimId: claim.id, kind, weightGrams: weight, purity, method,
             depthCm: method === "detecting" ? Math.round(5 + rand() * 35) : null, notes: "",
             lat: round6(claim.lat + (dx * Math.sin(claim.turn) + dy * Math.cos(claim.turn)) / METRES_PER_DEG_LAT),
             lon: round6(claim.lon + (dx * Math.cos(claim.turn) - dy * Math.sin(claim.turn)) / mPerDegLon),
@@ -107,6 +115,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
             tx.insert(t.weighIns).values({
               id: idAt(foundAt + DAY / 3), memberId: member.id, findId, input, deviceEstimate: estimate, serverEstimate: estimate,
               engineVersion: estimate.engineVersion, fineGoldGrams: estimate.fineGoldGrams, goldAlloyGrams: estimate.goldAlloyGrams,
+              airGrams: input.airGrams.reduce((a, b) => a + b, 0) / input.airGrams.length,
               weighedAt: foundAt + DAY / 3, seq: nextSeq(db.$client),
             }).run();
             weighIns++;

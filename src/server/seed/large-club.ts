@@ -36,7 +36,7 @@ export function seedLargeClub(db: Db, size: LargeClubSize = LARGE_CLUB, password
     "insert into finds (id, member_id, claim_id, kind, weight_grams, method, notes, lat, lon, found_at, seq) values (?, ?, ?, ?, ?, ?, '', ?, ?, ?, ?)",
   );
   const insertWeighIn = sqlite.prepare(
-    "insert into weigh_ins (id, member_id, find_id, input, device_estimate, server_estimate, engine_version, fine_gold_grams, gold_alloy_grams, weighed_at, seq) values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
+    "insert into weigh_ins (id, member_id, find_id, input, device_estimate, server_estimate, engine_version, fine_gold_grams, gold_alloy_grams, air_grams, weighed_at, seq) values (?, ?, ?, ?, ?, ?, ?, ?, ?, 100, ?, ?)",
   );
   const insertPrice = sqlite.prepare("insert into reference_prices (id, effective_on, price_per_troy_ounce, currency, recorded_by, seq) values (?, ?, ?, 'USD', ?, ?)");
   const kinds = ["nugget", "specimen", "flakes", "fines", "crystalline"];

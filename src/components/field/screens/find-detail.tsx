@@ -9,7 +9,11 @@ import type { PositionState } from "@/client/position";
 import { deleteFind, deleteWeighIn, newId, saveFind, saveWeighIn, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
+import type { LocalFind } from "@/client/device-db";
 import { KIND_LABELS } from "@/lib/entities/constants";
+import type { MassUnit } from "@/lib/estimate/units";
+import { FINE_BASIS_LABELS, weighMismatch } from "@/lib/figures/fine-basis";
+import { claimGoldOf } from "@/lib/figures/claim-profile";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { claimAt } from "@/lib/geo";
 import { engineLabel } from "@/components/weigh/engine-label";
@@ -26,6 +30,37 @@ const PhotosBlock = lazy(() => import("../photos-block").then((m) => ({ default:
 const FindForm = lazy(() => import("../find-form").then((m) => ({ default: m.FindForm })));
 
 const REVIEW_LABEL = { verify: "Verified", query: "Queried", note: "Note" } as const;
+
+/** The find's fine gold as the club's server figured it, and a warning when its weigh-in disagrees with its weight. */
+function FineGoldLine({ find, latestAir, unit }: { find: LocalFind; latestAir: number[]; unit: MassUnit }) {
+  const f = find.figure;
+  const mismatch = weighMismatch(find.weightGrams, latestAir);
+  return (
+    <div data-testid="fine-gold" className="flex flex-col gap-1">
+      {f && f.fineGrams != null ? (
+        <p>
+          Fine gold <span className="figure font-bold">≈ {formatGrams(f.fineGrams, unit)}</span>
+          {f.low !== f.high && f.low != null && f.high != null && (
+            <span className="figure">
+              {" "}
+              (at worst {formatGrams(f.low, unit)} – {formatGrams(f.high, unit)})
+            </span>
+          )}
+          {f.basis && <span className="text-ink-soft"> · by {FINE_BASIS_LABELS[f.basis]}</span>}
+        </p>
+      ) : (
+        <p className="text-ink-soft">
+          {find.kind === "specimen" ? "Weigh this specimen for a fine-gold figure." : "Its fine-gold figure comes back with the next camp sync."}
+        </p>
+      )}
+      {mismatch && (
+        <p className="font-bold text-rust" role="note" data-testid="weigh-mismatch">
+          The weigh-in&apos;s air reading is far from this find&apos;s recorded weight. Check the weight or weigh it again.
+        </p>
+      )}
+    </div>
+  );
+}
 
 export function FindDetailScreen() {
   const hash = useHashParams();
@@ -48,6 +83,7 @@ export function FindDetailScreen() {
     setPosition(await (await import("@/client/position")).askPosition());
   };
   const [weighing, setWeighing] = useState(false);
+  const latest = weighIns?.[weighIns.length - 1];
 
   if (find === undefined) return <Skeleton />;
   if (find === null)
@@ -136,6 +172,7 @@ export function FindDetailScreen() {
         <h2 id="weighins-title" className="heading-bar self-start text-lg">
           Weigh-ins
         </h2>
+        <FineGoldLine find={find} latestAir={latest?.input.airGrams ?? []} unit={settings.massUnit} />
         {(weighIns ?? []).length === 0 && <p className="text-ink-soft">Not weighed yet.</p>}
         <ul className="flex flex-col gap-2" data-testid="weigh-ins">
           {(weighIns ?? []).map((w) => (
@@ -167,6 +204,7 @@ export function FindDetailScreen() {
         {weighing ? (
           <Suspense fallback={<Skeleton />}>
             <WeighInFlow
+              claim={claimGoldOf(claims.find((c) => c.id === find.claimId))}
               initial={{ resolution: settings.scaleResolution, hostPreset: settings.hostPreset, finenessPreset: settings.finenessPreset, tempUnit: settings.tempUnit, readingUnit: "g" }}
               onSave={async (input, estimate) => {
                 await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now() });

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { ClaimEditor } from "@/components/club/claim-editor";
+import { ClaimProfileEditor } from "@/components/club/claim-profile-editor";
 import { ClaimsMap } from "@/components/club/claims-map";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
@@ -16,10 +17,11 @@ export default async function ClaimsPage() {
       {claims.map((c) => (
         <details key={c.id} className="sheet">
           <summary className="cursor-pointer font-bold">
-            {c.name} · {c.kind} {c.agencyRef ? `· ${c.agencyRef}` : ""} {c.active ? "" : "· inactive"}
+            {c.name} · {c.kind} {c.agencyRef ? `· ${c.agencyRef}` : ""} {c.active ? "" : "· inactive"} · gold {c.finenessLow}–{c.finenessHigh} ‰
           </summary>
-          <div className="mt-3">
+          <div className="mt-3 flex flex-col gap-3">
             <ClaimEditor claim={{ ...c, boundary: c.boundary ?? null }} />
+            <ClaimProfileEditor claim={c} />
           </div>
         </details>
       ))}
