@@ -34,9 +34,14 @@ export type OutboxEntry = {
   args: unknown;
   entityId: string;
   createdAt: number;
-  state: "pending" | "rejected";
+  /**
+   * "stuck": the server failed on it (a 5xx) every time, alone; set aside so the rest moves,
+   * kept with the server's error id for the member's report to the club.
+   */
+  state: "pending" | "rejected" | "stuck";
   reason?: string;
   field?: string;
+  errorId?: string;
 };
 
 export type LocalPrice = { id: string; effectiveOn: string; pricePerTroyOunce: number; currency: string };

@@ -1,115 +1,126 @@
-import { v7 as uuidv7 } from "uuid";
 import type { LodebookDb, OutboxEntry } from "../device-db";
 import { applyPullPage, beginResync, finishResync } from "./apply-pull";
+import { assignMutationIds, clearServerFault, countServerFault, ensureClient, meta, putBack, recoverFromGap, resetAndResend, setAside, takeNewClientId } from "./recover";
 import type { SyncStatus } from "./status";
-import { fetchPull, sendPush, uploadPhoto } from "./transport";
+import { fetchPull, sendPush, uploadPhoto, type Answer } from "./transport";
+
+export { ensureClient, resetAndResend } from "./recover";
 
 const BATCH = 200;
+/** Server failures of one batch, each after a back-off, before the device looks for the change behind them. */
+export const FAULTS_BEFORE_SET_ASIDE = 3;
 
-async function meta<T>(db: LodebookDb, key: string, fallback: T): Promise<T> {
-  return ((await db.meta.get(key))?.value as T | undefined) ?? fallback;
-}
-
-/** This device's client id for the member, made once; with it, the mutation counter. */
-export async function ensureClient(db: LodebookDb): Promise<string> {
-  return db.transaction("rw", db.meta, async () => {
-    const existing = await meta<string | null>(db, "clientId", null);
-    if (existing) return existing;
-    const id = uuidv7();
-    await db.meta.bulkPut([
-      { key: "clientId", value: id },
-      { key: "nextMutationId", value: 1 },
-    ]);
-    return id;
-  });
-}
-
-/** Gives waiting changes their mutation ids, stored before the first send so a resend reuses them. */
-async function assignMutationIds(db: LodebookDb): Promise<void> {
-  await db.transaction("rw", db.outbox, db.meta, async () => {
-    let next = await meta(db, "nextMutationId", 1);
-    const fresh = await db.outbox.where("state").equals("pending").filter((e) => e.mutationId === undefined).sortBy("id");
-    for (const e of fresh) await db.outbox.update(e.id!, { mutationId: next++ });
-    await db.meta.put({ key: "nextMutationId", value: next });
-  });
-}
+type Report = (s: SyncStatus) => void;
+/** A step's end: on, with its counts, or stopped with the status to show. */
+type Step<T> = ({ ok: true } & T) | { ok: false; status: SyncStatus };
 
 /**
- * Starts over with the server (it was restored from an older backup, or lost track of this
- * device): a new client id, the cursor at 0, and every local record queued again so the
- * server gets what it lacks. Nothing on the device is dropped.
+ * One full sync, in three steps: send waiting changes, upload photos whose records are on the
+ * server, receive what changed. A pull answered `reset` starts over after queueing everything
+ * again (see recover.ts).
  */
-export async function resetAndResend(db: LodebookDb): Promise<void> {
-  await db.transaction("rw", [db.outbox, db.meta, db.outings, db.finds, db.photos, db.weighIns], async () => {
-    const now = Date.now();
-    const entries: OutboxEntry[] = [];
-    const put = (name: OutboxEntry["name"], args: Record<string, unknown>) => {
-      const { updatedAt: _u, blob: _b, thumb: _t, uploaded: _up, ...record } = args;
-      entries.push({ name, args: record, entityId: record.id as string, createdAt: now, state: "pending" });
-    };
-    (await db.outings.toArray()).forEach((o) => put("outing.put", o));
-    (await db.finds.toArray()).forEach((f) => put("find.put", f));
-    (await db.photos.toArray()).filter((p) => p.blob.size > 0).forEach((p) => put("photo.put", p));
-    (await db.weighIns.toArray()).forEach((w) => put("weighIn.put", w));
-    await db.outbox.where("state").equals("pending").delete();
-    await db.outbox.bulkAdd(entries);
-    await db.photos.toCollection().modify((p) => {
-      if (p.blob.size > 0) p.uploaded = 0;
-    });
-    await db.meta.bulkPut([
-      { key: "clientId", value: uuidv7() },
-      { key: "nextMutationId", value: 1 },
-      { key: "cursor", value: 0 },
-    ]);
-  });
+export async function syncOnce(db: LodebookDb, memberId: string, report: Report): Promise<SyncStatus> {
+  await ensureClient(db);
+  const sent = await pushChanges(db, memberId, report);
+  if (!sent.ok) return sent.status;
+  const photos = await uploadPhotos(db, sent.sent, sent.total, report);
+  if (!photos.ok) return photos.status;
+  const received = await pullChanges(db, report, photos.bytesDone, photos.bytesTotal);
+  if (!received.ok) return received.status;
+  if (received.reset) {
+    await resetAndResend(db);
+    return syncOnce(db, memberId, report);
+  }
+  const at = Date.now();
+  await db.meta.put({ key: "lastSyncedAt", value: at });
+  return { kind: "done", at, sent: sent.sent, received: received.received, rejected: sent.rejected };
 }
 
-type Outcome = SyncStatus;
+const pending = (db: LodebookDb) => db.outbox.where("state").equals("pending");
 
-/** One full sync: send waiting changes, upload photos, receive what changed. */
-export async function syncOnce(db: LodebookDb, memberId: string, report: (s: SyncStatus) => void): Promise<Outcome> {
-  const clientId = await ensureClient(db);
+/**
+ * Push: waiting changes in batches, in order. Recovery where the server answers so: a gap
+ * (it has less than this device thought, recoverFromGap), a reused client id (another device
+ * shares it, takeNewClientId), and a server failure that repeats (back off; after
+ * FAULTS_BEFORE_SET_ASIDE, halve the batch until the one change behind it is found, and set
+ * that one aside so the rest moves).
+ */
+async function pushChanges(db: LodebookDb, memberId: string, report: Report): Promise<Step<{ sent: number; rejected: number; total: number }>> {
   await assignMutationIds(db);
-  const total = await db.outbox.where("state").equals("pending").count();
+  const total = await pending(db).count();
   let sent = 0;
   let rejected = 0;
-  const waiting = () => db.outbox.where("state").equals("pending").count();
-
-  // 1. Send.
+  let size = BATCH;
+  let narrowing = false;
+  let setAsideLast: { entry: OutboxEntry; from: number } | undefined;
   for (;;) {
-    const batch = (await db.outbox.where("state").equals("pending").sortBy("id")).filter((e) => e.mutationId !== undefined).slice(0, BATCH);
-    if (batch.length === 0) break;
+    const batch = (await pending(db).sortBy("id")).filter((e) => e.mutationId !== undefined).slice(0, size);
+    if (batch.length === 0) return { ok: true, sent, rejected, total };
     report({ kind: "syncing", phase: "sending", done: sent, total, bytesDone: 0, bytesTotal: 0 });
-    const answer = await sendPush({ clientId: (await meta(db, "clientId", clientId))!, asMember: memberId, mutations: batch.map((e) => ({ id: e.mutationId!, name: e.name, args: e.args })) });
-    if (!answer.ok) {
-      if (answer.kind === "gap" && answer.expected) {
-        // The server is ahead of what this device thought: what lies below its next id is done.
-        const done = batch.filter((e) => e.mutationId! < answer.expected!);
-        if (done.length === 0) {
-          await resetAndResend(db);
-          await assignMutationIds(db);
-        } else await db.outbox.bulkDelete(done.map((e) => e.id!));
+    const clientId = await meta(db, "clientId", "");
+    const answer = await sendPush({ clientId, asMember: memberId, mutations: batch.map((e) => ({ id: e.mutationId!, name: e.name, args: e.args })) });
+    if (answer.ok) {
+      const counts = await settle(db, batch, answer.body.results);
+      sent += counts.sent;
+      rejected += counts.rejected;
+      setAsideLast = undefined;
+      await clearServerFault(db);
+      continue;
+    }
+    if (answer.kind === "gap" && answer.expected) {
+      await recoverFromGap(db, batch, answer.expected);
+      await assignMutationIds(db);
+      continue;
+    }
+    if (answer.kind === "reused") {
+      await takeNewClientId(db, answer.replayed ?? []);
+      continue;
+    }
+    if (answer.kind === "retry" && answer.errorId !== undefined) {
+      if (setAsideLast) {
+        // The push after a set-aside failed too: the server fails on everything now. Undo it and back off.
+        await putBack(db, setAsideLast.entry.id!, setAsideLast.from);
+        return { ok: false, status: failure(answer, await pending(db).count()) };
+      }
+      const faults = await countServerFault(db, batch[0].mutationId!);
+      if (!narrowing && faults < FAULTS_BEFORE_SET_ASIDE) return { ok: false, status: failure(answer, await pending(db).count()) };
+      narrowing = true;
+      if (batch.length > 1) {
+        size = Math.ceil(batch.length / 2);
         continue;
       }
-      return failure(answer.kind, answer.message, await waiting(), answer.retryAfterS);
+      setAsideLast = { entry: batch[0], from: batch[0].mutationId! };
+      await setAside(db, batch[0], answer.errorId);
+      size = BATCH;
+      continue;
     }
-    const byId = new Map(batch.map((e) => [e.mutationId!, e]));
-    await db.transaction("rw", db.outbox, async () => {
-      for (const r of answer.body.results) {
-        const entry = byId.get(r.id);
-        if (!entry) continue;
-        if (r.status === "rejected") {
-          rejected++;
-          await db.outbox.update(entry.id!, { state: "rejected", reason: r.message ?? r.reason, field: r.field });
-        } else {
-          sent++;
-          await db.outbox.delete(entry.id!);
-        }
-      }
-    });
+    return { ok: false, status: failure(answer, await pending(db).count()) };
   }
+}
 
-  // 2. Photos whose records are on the server.
+/** Records the server's answer for each change: done, or refused with its reason (kept, shown). */
+async function settle(db: LodebookDb, batch: OutboxEntry[], results: { id: number; status: string; reason?: string; message?: string; field?: string }[]) {
+  const byId = new Map(batch.map((e) => [e.mutationId!, e]));
+  let sent = 0;
+  let rejected = 0;
+  await db.transaction("rw", db.outbox, async () => {
+    for (const r of results) {
+      const entry = byId.get(r.id);
+      if (!entry) continue;
+      if (r.status === "rejected") {
+        rejected++;
+        await db.outbox.update(entry.id!, { state: "rejected", reason: r.message ?? r.reason, field: r.field });
+      } else {
+        sent++;
+        await db.outbox.delete(entry.id!);
+      }
+    }
+  });
+  return { sent, rejected };
+}
+
+/** Photos whose records are on the server; one refused for good stays on the device. */
+async function uploadPhotos(db: LodebookDb, sent: number, total: number, report: Report): Promise<Step<{ bytesDone: number; bytesTotal: number }>> {
   const photos = (await db.photos.where("uploaded").equals(0).toArray()).filter((p) => p.blob.size > 0);
   const waitingIds = new Set((await db.outbox.toArray()).map((e) => e.entityId));
   const ready = photos.filter((p) => !waitingIds.has(p.id) && !waitingIds.has(p.findId));
@@ -122,21 +133,25 @@ export async function syncOnce(db: LodebookDb, memberId: string, report: (s: Syn
       await db.photos.update(p.id, { uploaded: 1 });
       bytesDone += p.blob.size;
     } else if (answer.kind !== "refused") {
-      return failure(answer.kind, answer.message, await waiting(), answer.retryAfterS);
+      return { ok: false, status: failure(answer, await pending(db).count()) };
     }
   }
+  return { ok: true, bytesDone, bytesTotal };
+}
 
-  // 3. Receive.
+/**
+ * Pull: pages from the stored cursor, each stored with its cursor. A `resync` answer (deletions
+ * this device may have missed were purged) pulls everything from 0 and drops at the end what
+ * did not come (finishResync); a `reset` answer goes back to syncOnce, which resends.
+ */
+async function pullChanges(db: LodebookDb, report: Report, bytesDone: number, bytesTotal: number): Promise<Step<{ received: number; reset: boolean }>> {
   let received = 0;
   for (;;) {
     const cursor = await meta(db, "cursor", 0);
     report({ kind: "syncing", phase: "receiving", done: received, total: received + 1, bytesDone, bytesTotal });
-    const answer = await fetchPull((await meta(db, "clientId", clientId))!, cursor);
-    if (!answer.ok) return failure(answer.kind, answer.message, await waiting(), answer.retryAfterS);
-    if (answer.body.reset) {
-      await resetAndResend(db);
-      return syncOnce(db, memberId, report);
-    }
+    const answer = await fetchPull(await meta(db, "clientId", ""), cursor);
+    if (!answer.ok) return { ok: false, status: failure(answer, await pending(db).count()) };
+    if (answer.body.reset) return { ok: true, received, reset: true };
     if (answer.body.resync) {
       await beginResync(db);
       continue;
@@ -146,13 +161,11 @@ export async function syncOnce(db: LodebookDb, memberId: string, report: (s: Syn
     if (!answer.body.more) break;
   }
   await finishResync(db);
-  const at = Date.now();
-  await db.meta.put({ key: "lastSyncedAt", value: at });
-  return { kind: "done", at, sent, received, rejected };
+  return { ok: true, received, reset: false };
 }
 
-function failure(kind: string, message: string | undefined, waiting: number, retryAfterS?: number): SyncStatus {
-  switch (kind) {
+function failure(answer: Extract<Answer<unknown>, { ok: false }>, waiting: number): SyncStatus {
+  switch (answer.kind) {
     case "offline":
       return { kind: "offline", waiting, rejected: 0, lastSyncedAt: null };
     case "unauthorized":
@@ -162,7 +175,7 @@ function failure(kind: string, message: string | undefined, waiting: number, ret
     case "outdated":
       return { kind: "outdated", waiting };
     default:
-      return { kind: "error", message: message ?? "The club's server did not answer as expected.", retryAt: Date.now() + (retryAfterS ?? 0) * 1000, waiting };
+      // The scheduler sets the time it will really try again (at least retryAt).
+      return { kind: "error", message: answer.message ?? "The club's server did not answer as expected.", retryAt: Date.now() + (answer.retryAfterS ?? 0) * 1000, waiting };
   }
 }
-

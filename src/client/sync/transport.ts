@@ -3,7 +3,17 @@ import { PROTOCOL_VERSION } from "@/lib/sync/version";
 
 export type Answer<T> =
   | { ok: true; body: T }
-  | { ok: false; kind: "offline" | "unauthorized" | "other-member" | "outdated" | "gap" | "retry" | "refused"; expected?: number; message?: string; retryAfterS?: number };
+  | {
+      ok: false;
+      kind: "offline" | "unauthorized" | "other-member" | "outdated" | "gap" | "reused" | "retry" | "refused";
+      expected?: number;
+      message?: string;
+      retryAfterS?: number;
+      /** For "reused": the mutation ids the server holds with this content (done). */
+      replayed?: number[];
+      /** A failure of the server itself (500), with the id its log keeps it under. */
+      errorId?: string;
+    };
 
 async function call<T>(input: string, init?: RequestInit): Promise<Answer<T>> {
   let res: Response;
@@ -13,13 +23,15 @@ async function call<T>(input: string, init?: RequestInit): Promise<Answer<T>> {
     return { ok: false, kind: "offline" };
   }
   if (res.ok) return { ok: true, body: (await res.json()) as T };
-  const body = (await res.json().catch(() => ({}))) as { error?: { code?: string; message?: string; fields?: { expected?: string[] } } };
+  const body = (await res.json().catch(() => ({}))) as { error?: { code?: string; message?: string; errorId?: string; fields?: { expected?: string[]; replayed?: string[] } } };
   const code = body.error?.code ?? "";
   const message = body.error?.message;
   if (res.status === 401) return { ok: false, kind: "unauthorized", message };
   if (res.status === 410) return { ok: false, kind: "outdated", message };
   if (code === "conflict:member") return { ok: false, kind: "other-member", message };
   if (code === "conflict:mutation_gap") return { ok: false, kind: "gap", expected: Number(body.error?.fields?.expected?.[0]), message };
+  if (code === "conflict:client_reused") return { ok: false, kind: "reused", replayed: (body.error?.fields?.replayed ?? []).map(Number), message };
+  if (res.status === 500) return { ok: false, kind: "retry", message, errorId: body.error?.errorId ?? "" };
   if (res.status === 429 || res.status >= 500) return { ok: false, kind: "retry", message, retryAfterS: Number(res.headers.get("retry-after")) || undefined };
   return { ok: false, kind: "refused", message };
 }

@@ -1,0 +1,15 @@
+import { describe, expect, it } from "vitest";
+import { findSchema } from "./find";
+import { RECORD_KEYS } from "./keys";
+import { outingSchema } from "./outing";
+import { photoSchema } from "./photo";
+import { weighInSchema } from "./weigh-in";
+
+describe("the sync key lists", () => {
+  it("name exactly each entity schema's fields", () => {
+    const schemas = { outing: outingSchema, find: findSchema, photo: photoSchema, weighIn: weighInSchema };
+    for (const [entity, schema] of Object.entries(schemas)) {
+      expect([...RECORD_KEYS[entity as keyof typeof schemas]].sort(), entity).toEqual(Object.keys(schema.shape).sort());
+    }
+  });
+});
