@@ -92,6 +92,9 @@ const MATRIX: Record<string, Row> = {
   "POST /api/club/claims/[id]/refigure": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("POST", { season: 2026 }) }) },
   "GET /api/club/prices": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "POST /api/club/prices": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { effectiveOn: "2026-12-01", pricePerTroyOunce: 2600, currency: "USD" }) }) },
+  "POST /api/club/prices/[id]": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: json("POST", { action: "withdraw", note: "entered twice" }) }) },
+  "GET /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({}) },
+  "PUT /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({ init: json("PUT", { name: "Quillmarsh Gulch Prospectors", currency: "USD", timeZone: "America/Los_Angeles" }) }) },
   "GET /api/club/invitations": { expect: OFFICER_ONLY(200), request: () => ({}) },
   // No mail relay in this test: the invitation is kept and the officer is told to resend (503).
   "POST /api/club/invitations": { expect: OFFICER_ONLY([201, 503]), request: () => ({ init: json("POST", { email: `m${Date.now()}@quillmarsh.example` }) }) },
@@ -143,6 +146,8 @@ describe("hostile input (RELIABILITY 31)", () => {
     ["POST /api/club/invitations", "/api/club/invitations", undefined],
     ["PATCH /api/club/members/[id]", "/api/club/members/[id]", "member"],
     ["PUT /api/club/claims/[id]/profile", "/api/club/claims/[id]/profile", "claim"],
+    ["PUT /api/club/settings", "/api/club/settings", undefined],
+    ["POST /api/club/prices/[id]", "/api/club/prices/[id]", undefined],
   ];
   const handler = async (key: string) => {
     const h = discoverHandlers().find((x) => x.key === key)!;

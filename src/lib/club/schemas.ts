@@ -46,11 +46,40 @@ export const reviewInputSchema = z
 
 export const priceInputSchema = z
   .object({
-    effectiveOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD."),
-    pricePerTroyOunce: z.number({ error: "Enter the price as a number." }).positive("The price must be above zero.").max(1_000_000, "That price is implausible."),
+    effectiveOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
+    pricePerTroyOunce: z.number({ error: "Enter the price as a number." }).positive("The price must be more than 0.").max(1_000_000, "That price is implausible: at most 1 000 000 an ounce."),
     currency: z.string().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, like USD."),
+    note: z.string().trim().max(300, "At most 300 characters.").default(""),
+    /** Set when the officer has seen the warning about a jump of more than half from the price then in force. */
+    confirmJump: z.boolean().default(false),
   })
   .strict();
+
+export const priceChangeSchema = z.discriminatedUnion(
+  "action",
+  [
+    z.object({ action: z.literal("withdraw"), note: z.string().trim().min(3, "Say why the price is withdrawn.").max(300, "At most 300 characters.") }).strict(),
+    z.object({ action: z.literal("replace"), price: priceInputSchema }).strict(),
+  ],
+  { error: "Choose withdraw or replace." },
+);
+
+export const clubSettingsSchema = z
+  .object({
+    name: z.string().trim().min(2, "Give the club's name.").max(120, "At most 120 characters."),
+    currency: z.string().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, like USD."),
+    timeZone: z.string().refine(isTimeZone, "Choose a time zone from the list (IANA names, like America/Los_Angeles)."),
+  })
+  .strict();
+
+function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat("en", { timeZone: zone });
+    return zone.length <= 64;
+  } catch {
+    return false;
+  }
+}
 
 export const invitationInputSchema = z.object({ email: z.email("Enter an e-mail address.").max(254), role: z.enum(ROLES).default("member") }).strict();
 

@@ -5,7 +5,7 @@ import type { LedgerPage, LedgerQuery, LedgerRow, LedgerSummary } from "@/lib/cl
 import { addTotals, NO_TOTALS } from "@/lib/club/totals";
 import { seasonBounds } from "@/lib/season";
 import { getDb } from "../db";
-import { listPrices } from "./prices";
+import { pricesInForce } from "./prices";
 import { totalsBy } from "./totals";
 
 // The latest weigh-in's figures and the review state are kept on each find row (see
@@ -54,7 +54,7 @@ type Span = { price: number | null; currency: string | null; start: number; end:
  * puts every find under the latest price.
  */
 function priceSpans(mode: LedgerQuery["price"]): Span[] {
-  const prices = listPrices()
+  const prices = pricesInForce()
     .reverse()
     .map((p) => ({ price: p.pricePerTroyOunce, currency: p.currency, start: Date.parse(`${p.effectiveOn}T00:00:00Z`) }));
   if (prices.length === 0) return [{ price: null, currency: null, start: NEVER, end: FOREVER }];

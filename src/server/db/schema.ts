@@ -244,14 +244,31 @@ export const reviews = sqliteTable("reviews", {
 
 export const referencePrices = sqliteTable("reference_prices", {
   id: text("id").primaryKey(),
-  /** ISO date (YYYY-MM-DD) from which this price is in force. */
+  /** ISO date (YYYY-MM-DD, the club's own calendar) from which this price is in force. */
   effectiveOn: text("effective_on").notNull(),
   pricePerTroyOunce: real("price_per_troy_ounce").notNull(),
   currency: text("currency").notNull(),
   recordedBy: text("recorded_by").references(() => members.id),
+  /** A wrong price is withdrawn (kept, audited), never edited or deleted. */
+  withdrawnAt: integer("withdrawn_at"),
+  withdrawnBy: text("withdrawn_by").references(() => members.id),
+  /** The entry this one corrects, when it was entered as a replacement. */
+  replaces: text("replaces"),
+  note: text("note").notNull().default(""),
   createdAt: createdAt(),
   seq: seq(),
 }, (t) => [index("reference_prices_effective").on(t.effectiveOn)]);
+
+/** The club itself: one row. Its name heads reports; its currency and calendar hold everywhere. */
+export const clubSettings = sqliteTable("club_settings", {
+  id: integer("id").primaryKey(),
+  name: text("name").notNull().default("Our prospecting club"),
+  /** ISO 4217 code; every reference price is in it. */
+  currency: text("currency").notNull().default("USD"),
+  /** IANA time zone: the club's days, seasons and the day a price takes effect. */
+  timeZone: text("time_zone").notNull().default("UTC"),
+  updatedAt: integer("updated_at").notNull().default(now),
+});
 
 export const syncClients = sqliteTable("sync_clients", {
   id: text("id").primaryKey(),

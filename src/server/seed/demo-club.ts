@@ -9,7 +9,7 @@ import type { Db } from "../db";
 import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { refreshAllFigures } from "../club/figures";
-import { DEMO_CLAIMS, DEMO_PASSWORDS, DEMO_PEOPLE } from "./people";
+import { DEMO_CLAIMS, DEMO_CLUB, DEMO_PASSWORDS, DEMO_PEOPLE } from "./people";
 
 const DAY = 86_400_000;
 const METRES_PER_DEG_LAT = 111_320;
@@ -56,6 +56,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
       return { id, role: p.role };
     });
     const officers = memberIds.filter((m) => m.role === "officer");
+    tx.insert(t.clubSettings).values({ id: 1, name: DEMO_CLUB, currency: "USD", timeZone: "UTC" }).onConflictDoUpdate({ target: t.clubSettings.id, set: { name: DEMO_CLUB } }).run();
 
     const claimRows = DEMO_CLAIMS.map((c) => {
       const id = idAt(seasonStart - 20 * DAY);

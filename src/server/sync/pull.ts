@@ -43,7 +43,8 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
     const hidden = opts.scope === "club" ? positionsHiddenFor(tx, actor) : new Set<string>();
     const changes: PullChange[] = [
       ...changesOf("claim", tx.select().from(t.claims).where(after(t.claims)).orderBy(asc(t.claims.seq)).limit(take).all() as unknown as Row[]),
-      ...changesOf("price", tx.select().from(t.referencePrices).where(after(t.referencePrices)).orderBy(asc(t.referencePrices.seq)).limit(take).all() as unknown as Row[]),
+      // A withdrawn price leaves devices as a deletion; the history stays on the server.
+      ...changesOf("price", tx.select().from(t.referencePrices).where(after(t.referencePrices)).orderBy(asc(t.referencePrices.seq)).limit(take).all().map((p) => ({ ...p, deletedAt: p.withdrawnAt })) as unknown as Row[]),
       ...changesOf("outing", page(t.outings)),
       ...changesOf("find", page(t.finds), (r) => (hidden.has(r.memberId as string) ? { ...publicRecord(r), lat: null, lon: null, accuracyM: null } : publicRecord(r))),
       // `stored`: whether the bytes are here, so a device re-sends them if not (a cut upload, a restored server).

@@ -16,7 +16,7 @@ export default async function ClubLayout({ children }: { children: React.ReactNo
             ["/club/ledger", "Club ledger"],
             ["/club/claims", "Claims"],
             ["/club/members", "Members"],
-            ["/club/prices", "Reference price"],
+            ["/club/prices", "Club and price"],
           ].map(([href, label]) => (
             <Link key={href} href={href} className="btn justify-start">
               {label}

@@ -36,7 +36,7 @@ function FineGoldLine({ find, latestAir, unit }: { find: LocalFind; latestAir: n
   const f = find.figure;
   const mismatch = weighMismatch(find.weightGrams, latestAir);
   return (
-    <div data-testid="fine-gold" className="flex flex-col gap-1">
+    <div data-testid="find-fine-gold" className="flex flex-col gap-1">
       {f && f.fineGrams != null ? (
         <p>
           Fine gold <span className="figure font-bold">≈ {formatGrams(f.fineGrams, unit)}</span>

@@ -9,6 +9,7 @@ import { withoutBidiControls as plain } from "@/lib/text/safe-text";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
 import { ledgerPage, ledgerRows, ledgerSubtotals } from "@/server/club/ledger";
+import { clubSettings } from "@/server/club/settings";
 import { listMembers } from "@/server/queries/members";
 
 export const metadata: Metadata = { title: "Production report" };
@@ -31,6 +32,7 @@ export default async function ReportPage({ searchParams }: Props) {
   const { summary } = ledgerPage({ ...q, page: 1, pageSize: 1 });
   const rows = ledgerRows(q, REPORT_ROWS);
   const claims = listClaims();
+  const club = clubSettings();
   const members = listMembers();
   const claim = q.claimId ? claims.find((c) => c.id === q.claimId) : undefined;
   const member = q.memberId ? members.find((m) => m.id === q.memberId) : undefined;
@@ -45,6 +47,7 @@ export default async function ReportPage({ searchParams }: Props) {
     <article className="report flex flex-col gap-4 bg-sheet p-6 print:p-0" data-testid="report">
       <header className="flex items-start justify-between gap-4">
         <div>
+          <p className="font-bold">{plain(club.name)}</p>
           <h1 className="text-2xl font-bold">
             Production report — {claim ? claimLabel.get(claim.id) : member ? memberName.get(member.id) : "whole club"}
           </h1>

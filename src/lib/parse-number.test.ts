@@ -1,0 +1,50 @@
+import { describe, expect, it } from "vitest";
+import { decimalMarkOf, parseNumber } from "./parse-number";
+
+// [typed, where "." is the decimal mark, where "," is, where the locale is unknown]
+const TABLE: [string, number | undefined, number | undefined, number | undefined][] = [
+  ["", undefined, undefined, undefined],
+  ["12.5", 12.5, 12.5, 12.5],
+  ["12,5", 12.5, 12.5, 12.5],
+  ["35,1", 35.1, 35.1, 35.1],
+  ["0,125", 0.125, 0.125, 0.125], // a leading 0 is never a thousands group
+  ["2,495", 2495, 2.495, NaN],
+  ["2.495", 2.495, 2495, NaN],
+  ["2,400", 2400, 2.4, NaN],
+  ["1,234,567", 1234567, NaN, 1234567],
+  ["1.234.567", NaN, 1234567, 1234567],
+  ["2,495.50", 2495.5, 2495.5, 2495.5],
+  ["2.495,50", 2495.5, 2495.5, 2495.5],
+  ["2 495", 2495, 2495, 2495],
+  ["2\u00a0495,5", 2495.5, 2495.5, 2495.5],
+  ["2'495.5", 2495.5, 2495.5, 2495.5],
+  ["-3.25", -3.25, -3.25, -3.25],
+  ["+7", 7, 7, 7],
+  [".5", 0.5, 0.5, 0.5],
+  ["1e-3", 0.001, 0.001, 0.001],
+  ["1e30", 1e30, 1e30, 1e30],
+  ["12,34,5", NaN, NaN, NaN],
+  ["1,2.3", NaN, NaN, NaN],
+  ["12 34", NaN, NaN, NaN],
+  ["abc", NaN, NaN, NaN],
+  ["1..2", NaN, NaN, NaN],
+  [",", NaN, NaN, NaN],
+  ["-", NaN, NaN, NaN],
+  ["12g", NaN, NaN, NaN],
+];
+
+describe("numbers as people type them (issues 15 and 19; common practice of en and de keyboards)", () => {
+  it.each(TABLE)("%j reads as %s / %s / %s", (typed, point, comma, unknown) => {
+    const check = (got: number | undefined, want: number | undefined) => (want === undefined ? expect(got).toBeUndefined() : Number.isNaN(want) ? expect(got).toBeNaN() : expect(got).toBeCloseTo(want, 12));
+    check(parseNumber(typed, "."), point);
+    check(parseNumber(typed, ","), comma);
+    check(parseNumber(typed), unknown);
+  });
+
+  it("learns the decimal mark from the locale's own formatting (CLDR through Intl)", () => {
+    expect(decimalMarkOf("en-US")).toBe(".");
+    expect(decimalMarkOf("de-DE")).toBe(",");
+    expect(decimalMarkOf("fr-FR")).toBe(",");
+    expect(decimalMarkOf("en-AU")).toBe(".");
+  });
+});
