@@ -1,5 +1,5 @@
 import type { LodebookDb } from "../device-db";
-import { syncStatus } from "./status";
+import { syncStatus, type SyncStatus } from "./status";
 
 const PERIOD_MS = 5 * 60_000;
 const MAX_BACKOFF_MS = 5 * 60_000;
@@ -8,6 +8,20 @@ const MAX_BACKOFF_MS = 5 * 60_000;
 export function backoffMs(attempt: number, random = Math.random): number {
   const base = Math.min(MAX_BACKOFF_MS, 2000 * 2 ** attempt);
   return Math.round(base * (0.5 + random() * 0.5));
+}
+
+/**
+ * What follows a sync's outcome: the delay before trying again (an error: the back-off, or the
+ * server's Retry-After when longer) and the status to show, whose retryAt is that same moment.
+ * Offline waits for the online event, counting toward the back-off.
+ */
+export function afterOutcome(outcome: SyncStatus, attempt: number, now = Date.now(), random = Math.random): { status: SyncStatus; waitMs: number | null; attempt: number } {
+  if (outcome.kind === "error") {
+    const waitMs = Math.max(backoffMs(attempt, random), outcome.retryAt - now);
+    return { status: { ...outcome, retryAt: now + waitMs }, waitMs, attempt: attempt + 1 };
+  }
+  if (outcome.kind === "offline") return { status: outcome, waitMs: null, attempt: attempt + 1 };
+  return { status: outcome, waitMs: null, attempt: 0 };
 }
 
 // The engine (push, pull, photo upload) is loaded with the first sync, not with the screen:
@@ -40,13 +54,11 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     try {
       const work = async () => {
         const { syncOnce } = await loadEngine();
-        const outcome = await syncOnce(db, memberId, (s) => syncStatus.set(s));
-        syncStatus.set(outcome);
+        const next = afterOutcome(await syncOnce(db, memberId, (s) => syncStatus.set(s)), attempt);
+        syncStatus.set(next.status);
+        attempt = next.attempt;
         clearTimeout(retryTimer);
-        if (outcome.kind === "error" || outcome.kind === "offline") {
-          const wait = Math.max(backoffMs(attempt++), outcome.kind === "error" ? outcome.retryAt - Date.now() : 0);
-          if (outcome.kind === "error") retryTimer = setTimeout(run, wait);
-        } else attempt = 0;
+        if (next.waitMs !== null) retryTimer = setTimeout(run, next.waitMs);
       };
       if (typeof navigator !== "undefined" && navigator.locks) {
         await navigator.locks.request(`lodebook-sync-${memberId}`, { ifAvailable: true }, async (lock) => {
@@ -54,8 +66,10 @@ export function startSync(db: LodebookDb, memberId: string): Running {
         });
       } else await work();
     } catch (error) {
-      syncStatus.set({ kind: "error", message: error instanceof Error ? error.message : String(error), retryAt: Date.now() + backoffMs(attempt), waiting: 0 });
-      retryTimer = setTimeout(run, backoffMs(attempt++));
+      const next = afterOutcome({ kind: "error", message: error instanceof Error ? error.message : String(error), retryAt: 0, waiting: 0 }, attempt);
+      syncStatus.set(next.status);
+      attempt = next.attempt;
+      retryTimer = setTimeout(run, next.waitMs!);
     } finally {
       running = false;
       if (again && !stopped) {

@@ -27,12 +27,19 @@ const since = (ms: number) => {
   return min < 1 ? "just now" : min < 60 ? `${min} min ago` : `${Math.round(min / 60)} h ago`;
 };
 
+/** When the scheduler will really try again (its status carries the moment its timer fires). */
+const until = (at: number) => {
+  const s = Math.max(0, Math.round((at - Date.now()) / 1000));
+  return s < 60 ? `in ${s} s` : `in ${Math.round(s / 60)} min`;
+};
+
 /** The one place that says what camp sync is doing, from the one status union. */
 export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compact?: boolean }) {
   const status: SyncStatus = useSyncExternalStore(syncStatus.subscribe, syncStatus.get, syncStatus.get);
   const online = useOnline();
   const waiting = useLiveQuery(() => db.outbox.where("state").equals("pending").count(), [db], 0);
   const rejected = useLiveQuery(() => db.outbox.where("state").equals("rejected").count(), [db], 0);
+  const stuck = useLiveQuery(() => db.outbox.where("state").equals("stuck").count(), [db], 0);
   const photos = useLiveQuery(() => db.photos.where("uploaded").equals(0).count(), [db], 0);
 
   let line: string;
@@ -58,7 +65,7 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
       tone = "text-rust";
       break;
     case "error":
-      line = `Sync stopped: ${status.message} Trying again soon.`;
+      line = `Sync stopped: ${status.message} Trying again ${until(status.retryAt)}.`;
       tone = "text-rust";
       break;
     default:
@@ -81,6 +88,12 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
         {photos > 0 && (
           <>
             , <strong>{photos}</strong> photo{photos === 1 ? "" : "s"}
+          </>
+        )}
+        {stuck > 0 && (
+          <>
+            {" "}
+            · <Link href="/sync" className="font-bold text-rust underline">{stuck} stuck on the server</Link>
           </>
         )}
         {rejected > 0 && (
