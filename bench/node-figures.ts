@@ -9,7 +9,7 @@ import { ledgerPage } from "../src/server/club/ledger";
 import { productionByMonth } from "../src/server/club/production";
 import { closeDb, getDb } from "../src/server/db";
 import { seedLargeClub } from "../src/server/seed/large-club";
-import { applyPush } from "../src/server/sync/push";
+import { applyPushGrouped } from "../src/server/sync/push";
 import { repeat, report, summary } from "./stats";
 
 const OUT = path.resolve("bench/out");
@@ -47,7 +47,8 @@ export async function syncIngest() {
     const muts = mutationsFor(10_000);
     const clientId = uuidv7();
     let t = performance.now();
-    for (let i = 0; i < muts.length; i += 500) applyPush(actor, { protocolVersion: PROTOCOL_VERSION, clientId, mutations: muts.slice(i, i + 500) as never });
+    // Through applyPushGrouped, as the route handler does (group commit, one flush per group).
+    for (let i = 0; i < muts.length; i += 500) await applyPushGrouped(actor, { protocolVersion: PROTOCOL_VERSION, clientId, mutations: muts.slice(i, i + 500) as never });
     if (run > 0) handler.push(performance.now() - t);
     closeDb();
 

@@ -10,47 +10,63 @@ import { closeDb, getDb } from "@/server/db";
 import { MEMBER_EMAIL, memberByEmail, seededDatabase, sessionCookie } from "../support/test-db";
 import { newFind, pull, push } from "../support/sync-client";
 
-/** Runs the push child until killed; resolves with the last batch it acknowledged. */
-function runUntilKilled(file: string, memberId: string, clientId: string, start: number, killAfterMs: number): Promise<number> {
+const STREAMS = 3;
+const findPrefix = (stream: number) => `0190a5f0-0000-7000-800${stream}-%`;
+
+/**
+ * Runs the push child and kills it with SIGKILL once it has acknowledged `killAfter` batches
+ * (an event, not a guessed delay: the next batches are then in flight). Resolves with the last
+ * id each stream had acknowledged.
+ */
+function runUntilKilled(file: string, memberId: string, clientIds: string[], acked: number[], killAfter: number): Promise<number[]> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/support/crash-child.ts", memberId, clientId, String(start)], {
+    const starts = acked.map((n) => n + 1).join(",");
+    const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/support/crash-child.ts", memberId, clientIds.join(","), starts], {
       env: { ...process.env, DATABASE_URL: file, LODEBOOK_LOG: "silent" },
       stdio: ["ignore", "pipe", "pipe"],
     });
-    let acked = start - 1;
+    const last = [...acked];
+    let acks = 0;
     let buffer = "";
     let errors = "";
     child.stdout.on("data", (b: Buffer) => {
       buffer += b.toString();
-      for (const m of buffer.matchAll(/ACK (\d+)\n/g)) acked = Math.max(acked, Number(m[1]));
-      buffer = buffer.slice(buffer.lastIndexOf("\n") + 1);
+      const lines = buffer.split("\n");
+      buffer = lines.pop()!;
+      for (const line of lines) {
+        const m = /^ACK (\d+) (\d+)$/.exec(line);
+        if (!m) continue;
+        last[Number(m[1])] = Math.max(last[Number(m[1])], Number(m[2]));
+        if (++acks === killAfter) child.kill("SIGKILL");
+      }
     });
     child.stderr.on("data", (b: Buffer) => (errors += b.toString()));
-    const timer = setTimeout(() => child.kill("SIGKILL"), killAfterMs);
     child.on("exit", (_code, signal) => {
-      clearTimeout(timer);
       if (signal !== "SIGKILL") reject(new Error(`child ended on its own: ${errors}`));
-      else resolve(acked);
+      else resolve(last);
     });
   });
 }
 
-describe("durability (RELIABILITY 17, 18)", () => {
+describe("durability (RELIABILITY 17, 18, 41)", () => {
   it("17: a push server killed with SIGKILL again and again keeps every acknowledged batch, and the file stays sound", async () => {
     const { db, file } = await seededDatabase();
     const member = memberByEmail(db, MEMBER_EMAIL);
     closeDb(); // the child owns the file now
-    const clientId = uuidv7();
-    let acked = 0;
-    for (const ms of [1800, 2300, 2000, 2600]) acked = await runUntilKilled(file, member.id, clientId, acked + 1, ms);
-    expect(acked).toBeGreaterThan(20);
+    const clientIds = Array.from({ length: STREAMS }, () => uuidv7());
+    let acked = clientIds.map(() => 0);
+    // Kill after a different number of acknowledgements each time, so the kill meets the work at different points.
+    for (const killAfter of [4, 9, 6, 11, 5]) acked = await runUntilKilled(file, member.id, clientIds, acked, killAfter);
+    expect(acked.reduce((a, b) => a + b, 0)).toBeGreaterThanOrEqual(20 * (4 + 9 + 6 + 11 + 5));
     expect(integrityCheck(file)).toBe("ok");
     const check = new Database(file, { readonly: true });
-    const stored = check.prepare("select last_mutation_id l from sync_clients where id = ?").get(clientId) as { l: number };
-    // Acknowledged means committed: the server may hold more than the child reported, never less.
-    expect(stored.l).toBeGreaterThanOrEqual(acked);
-    const finds = (check.prepare("select count(*) n from finds where id like '0190a5f0-0000-7000-8000-%'").get() as { n: number }).n;
-    expect(finds).toBe(stored.l);
+    clientIds.forEach((clientId, stream) => {
+      const stored = check.prepare("select last_mutation_id l from sync_clients where id = ?").get(clientId) as { l: number } | undefined;
+      // Acknowledged means committed: the server may hold more than the child reported, never less.
+      expect(stored?.l ?? 0).toBeGreaterThanOrEqual(acked[stream]);
+      const finds = (check.prepare("select count(*) n from finds where id like ?").get(findPrefix(stream)) as { n: number }).n;
+      expect(finds).toBe(stored?.l ?? 0);
+    });
     check.close();
   }, 60_000);
 

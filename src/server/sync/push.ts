@@ -111,16 +111,6 @@ function unavailable(error: unknown): unknown {
   return isTemporaryDbError(error) ? new AppError("unavailable:database", "The club's server is busy. Nothing was applied; try again shortly.") : error;
 }
 
-/** Applies one push in its own immediate transaction. */
-export function applyPush(actor: Actor, push: PushRequest): PushResponse {
-  const sqlite = getDb().$client;
-  try {
-    return sqlite.transaction(() => applyPushIn(sqlite, actor, push)).immediate();
-  } catch (error) {
-    throw unavailable(error);
-  }
-}
-
 type Job = { actor: Actor; push: PushRequest; resolve: (r: PushResponse) => void; reject: (e: unknown) => void };
 const MAX_GROUP = 64;
 let queue: Job[] = [];
