@@ -38,9 +38,9 @@ export function formatDay(ms: number): string {
   return new Date(ms).toISOString().slice(0, 10);
 }
 
-/** Local date and time, as the member's device shows it. */
-export function formatWhen(ms: number): string {
-  return new Date(ms).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
+/** Date and time in the viewer's locale: on the device's clock, or in a given zone (the club's). */
+export function formatWhen(ms: number, timeZone?: string): string {
+  return new Date(ms).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short", timeZone });
 }
 
 /** For <input type="datetime-local">, in local time. */

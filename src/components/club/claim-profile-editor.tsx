@@ -1,7 +1,6 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { currentSeason } from "@/lib/season";
 import { parseNumber } from "@/lib/parse-number";
 import { api, ApiError } from "./api";
 
@@ -25,7 +24,7 @@ type Field = "finenessLow" | "finenessHigh" | "finenessSource" | "hostDensityLow
  * range (its middle is the value used) with where it came from. Saving changes later figures;
  * re-figuring a season applies it to that season's finds too (audited).
  */
-export function ClaimProfileEditor({ claim }: { claim: ClaimProfile }) {
+export function ClaimProfileEditor({ claim, season }: { claim: ClaimProfile; season: number }) {
   const router = useRouter();
   const [form, setForm] = useState<Record<Field, string>>({
     finenessLow: String(claim.finenessLow),
@@ -37,7 +36,6 @@ export function ClaimProfileEditor({ claim }: { claim: ClaimProfile }) {
   });
   const [errors, setErrors] = useState<Partial<Record<Field, string>>>({});
   const [status, setStatus] = useState<string | null>(null);
-  const season = currentSeason();
 
   const numbers = () => {
     const out: Record<string, number | string> = {};

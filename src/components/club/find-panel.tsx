@@ -11,6 +11,7 @@ import { formatDecimal, toDms } from "@/lib/geo";
 import { api, ApiError } from "./api";
 
 type FindDetail = {
+  timeZone: string;
   find: { id: string; memberName: string | null; claimName: string | null; kind: keyof typeof KIND_LABELS; weightGrams: number | null; depthCm: number | null; method: string; notes: string; lat: number | null; lon: number | null; accuracyM: number | null; foundAt: number; positionShared: boolean };
   photos: { id: string }[];
   weighIns: { id: string; weighedAt: number; input: SpecimenInput; deviceEstimate: ReportedEstimate; serverEstimate: ReportedEstimate; engineVersion: string; mismatch: boolean }[];
@@ -23,7 +24,7 @@ const ACTION = { verify: "Verified", query: "Queried", note: "Note" } as const;
  * One weigh-in as the officer reads it: the readings, the server's recomputation with the
  * engine that made it, and the member's device figure where it differs (with its engine).
  */
-function WeighInLines({ w }: { w: FindDetail["weighIns"][number] }) {
+function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; timeZone: string }) {
   const server = w.serverEstimate;
   const device = w.deviceEstimate;
   const u = server.standardUncertainty.fineGoldGrams;
@@ -34,7 +35,7 @@ function WeighInLines({ w }: { w: FindDetail["weighIns"][number] }) {
   return (
     <>
       <p>
-        {formatWhen(w.weighedAt)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C · host {host.toFixed(2)} ·
+        {formatWhen(w.weighedAt, timeZone)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C · host {host.toFixed(2)} ·
         fineness {Math.round(fineness)} ‰
       </p>
       <p className="figure font-bold">
@@ -80,7 +81,7 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
         <>
           <dl className="grid grid-cols-2 gap-2 text-sm">
             <dt className="text-ink-soft">Found</dt>
-            <dd>{formatWhen(data.find.foundAt)}</dd>
+            <dd>{formatWhen(data.find.foundAt, data.timeZone)}</dd>
             <dt className="text-ink-soft">Claim</dt>
             <dd>{data.find.claimName ?? "off the club's claims"}</dd>
             <dt className="text-ink-soft">Weight</dt>
@@ -119,7 +120,7 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
             {data.weighIns.length === 0 && <p className="text-sm text-ink-soft">None.</p>}
             {data.weighIns.map((w) => (
               <div key={w.id} className="border-b border-rule py-2 text-sm">
-                <WeighInLines w={w} />
+                <WeighInLines w={w} timeZone={data.timeZone} />
               </div>
             ))}
           </section>
@@ -128,7 +129,7 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
             <ul className="text-sm" data-testid="review-history">
               {data.reviews.map((r) => (
                 <li key={r.id}>
-                  <strong>{ACTION[r.action]}</strong> by {r.officerName} · {formatWhen(r.createdAt)} {r.note && `— ${r.note}`}
+                  <strong>{ACTION[r.action]}</strong> by {r.officerName} · {formatWhen(r.createdAt, data.timeZone)} {r.note && `— ${r.note}`}
                 </li>
               ))}
             </ul>

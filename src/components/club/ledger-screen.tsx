@@ -7,7 +7,7 @@ import { REVIEW_STATES, type LedgerPage, type LedgerRow, type LedgerSummary } fr
 import { FINE_BASIS_LABELS, type FineBasis } from "@/lib/figures/fine-basis";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
-import { formatDay, formatGrams } from "@/lib/format";
+import { formatGrams } from "@/lib/format";
 import { api } from "./api";
 import { FindPanel } from "./find-panel";
 
@@ -77,7 +77,7 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
   const sorting: SortingState = [{ id: Object.entries(SORT_IDS).find(([, v]) => v === (params.get("sort") ?? "foundAt"))?.[0] ?? "foundAt", desc: (params.get("dir") ?? "desc") === "desc" }];
   const columns = useMemo(
     () => [
-      col.accessor("foundAt", { header: "Found", cell: (c) => formatDay(c.getValue()) }),
+      col.accessor("foundAt", { header: "Found", cell: (c) => c.row.original.foundOn }),
       col.accessor("memberName", { header: "Member" }),
       col.accessor("claimName", { header: "Claim", cell: (c) => c.getValue() ?? "off-claim" }),
       col.accessor("kind", { header: "Kind", cell: (c) => KIND_LABELS[c.getValue() as keyof typeof KIND_LABELS] }),

@@ -37,6 +37,8 @@ export type LedgerRow = {
   claimId: string | null;
   claimName: string | null;
   foundAt: number;
+  /** The club day it was found on (the club's time zone). */
+  foundOn: string;
   kind: string;
   method: string;
   weightGrams: number | null;
@@ -57,4 +59,4 @@ export type LedgerSummary = Totals & { value: number; valueLow: number; valueHig
 export type LedgerPage = { rows: LedgerRow[]; total: number; summary: LedgerSummary; page: number; pageSize: number };
 
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "price", "currency", "value", "state"] as const;
+export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "price", "currency", "value", "state"] as const;

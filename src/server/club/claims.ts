@@ -12,6 +12,7 @@ import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
 import { refigureFineness } from "./figures";
+import { clubSettings } from "./settings";
 
 type ClaimInput = z.infer<typeof claimInputSchema>;
 
@@ -98,7 +99,7 @@ export function refigureSeason(actor: Actor, id: string, season: number) {
   return db.transaction((tx) => {
     const claim = tx.select({ id: t.claims.id, ...PROFILE_COLUMNS }).from(t.claims).where(eq(t.claims.id, id)).get();
     if (!claim) throw new AppError("not_found:claim", "No such claim.");
-    const { start, end } = seasonBounds(season);
+    const { start, end } = seasonBounds(season, clubSettings().timeZone);
     const finds = refigureFineness(db.$client, { claimId: id, start, end });
     audit(tx, { actorId: actor.id, action: "claim.refigure", entity: "claim", entityId: id, after: { season, finds, fineness: claim.fineness, finenessLow: claim.finenessLow, finenessHigh: claim.finenessHigh } });
     return { finds };

@@ -8,6 +8,7 @@ import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
 import { refreshReviewState } from "./figures";
+import { clubSettings } from "./settings";
 
 /** One find as an officer opens it: photos, position (as the member shares it), every weigh-in and the review history. */
 export function findForOfficer(id: string) {
@@ -27,6 +28,8 @@ export function findForOfficer(id: string) {
   const { sharing, deletedAt: _d, ...rest } = find;
   const position = sharing === "exact" ? { lat: rest.lat, lon: rest.lon, accuracyM: rest.accuracyM } : { lat: null, lon: null, accuracyM: null };
   return {
+    /** The club's zone: the console shows every time on the club's clock. */
+    timeZone: clubSettings().timeZone,
     find: { ...rest, ...position, positionShared: sharing === "exact" },
     photos: db.select({ id: t.photos.id, width: t.photos.width, height: t.photos.height, uploaded: t.photos.uploadedAt }).from(t.photos).where(eq(t.photos.findId, id)).all().filter((p) => p.uploaded),
     weighIns: db

@@ -3,9 +3,10 @@ import { sql, type SQL } from "drizzle-orm";
 import { TROY_OUNCE_GRAMS } from "@/lib/estimate/units";
 import type { LedgerPage, LedgerQuery, LedgerRow, LedgerSummary } from "@/lib/club/ledger";
 import { addTotals, NO_TOTALS } from "@/lib/club/totals";
-import { seasonBounds } from "@/lib/season";
+import { clubDay, currentSeason, dayStart, nextDay, seasonBounds } from "@/lib/time/club-day";
 import { getDb } from "../db";
 import { pricesInForce } from "./prices";
+import { clubSettings } from "./settings";
 import { totalsBy } from "./totals";
 
 // The latest weigh-in's figures and the review state are kept on each find row (see
@@ -28,13 +29,13 @@ function filters(q: LedgerQuery): SQL[] {
 const NEVER = -9e15;
 const FOREVER = 9e15;
 
-/** Season, from and to as one found_at range [start, end). */
-function timeBounds(q: LedgerQuery): { start: number; end: number } {
+/** Season, from and to as one found_at range [start, end), in the club's days. */
+function timeBounds(q: LedgerQuery, tz = clubSettings().timeZone): { start: number; end: number } {
   let start = NEVER;
   let end = FOREVER;
-  if (q.season) ({ start, end } = seasonBounds(q.season));
-  if (q.from) start = Math.max(start, Date.parse(`${q.from}T00:00:00Z`));
-  if (q.to) end = Math.min(end, Date.parse(`${q.to}T00:00:00Z`) + 86_400_000);
+  if (q.season) ({ start, end } = seasonBounds(q.season, tz));
+  if (q.from) start = Math.max(start, dayStart(q.from, tz));
+  if (q.to) end = Math.min(end, dayStart(nextDay(q.to), tz));
   return { start, end };
 }
 
@@ -53,10 +54,11 @@ type Span = { price: number | null; currency: string | null; start: number; end:
  * two on one date, the later entered), and the time before the first has no price; "today"
  * puts every find under the latest price.
  */
-function priceSpans(mode: LedgerQuery["price"]): Span[] {
+function priceSpans(mode: LedgerQuery["price"], tz = clubSettings().timeZone): Span[] {
+  // A price takes effect at the start of its day in the club's time zone.
   const prices = pricesInForce()
     .reverse()
-    .map((p) => ({ price: p.pricePerTroyOunce, currency: p.currency, start: Date.parse(`${p.effectiveOn}T00:00:00Z`) }));
+    .map((p) => ({ price: p.pricePerTroyOunce, currency: p.currency, start: dayStart(p.effectiveOn, tz) }));
   if (prices.length === 0) return [{ price: null, currency: null, start: NEVER, end: FOREVER }];
   if (mode === "today") return [{ ...prices[prices.length - 1], start: NEVER, end: FOREVER }];
   return [
@@ -125,7 +127,7 @@ const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName
   f.latest_alloy_grams as alloyGrams, f.latest_fine_grams as fineGrams, f.latest_fine_low as fineLow, f.latest_fine_high as fineHigh,
   f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.review_state as state`);
 
-type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch"> & { weighMismatch: number | boolean };
+type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "foundOn"> & { weighMismatch: number | boolean };
 
 const MEMBER_JOIN = "join members m on m.id = f.member_id";
 const CLAIM_JOIN = "left join claims c on c.id = f.claim_id";
@@ -136,7 +138,7 @@ function rows(q: LedgerQuery, tail: SQL): UnpricedRow[] {
 }
 
 /** Each row's price in force on its day (a binary search of the periods, which tile all time) and its value. */
-function withPrices(list: UnpricedRow[], spans: Span[]): LedgerRow[] {
+function withPrices(list: UnpricedRow[], spans: Span[], tz = clubSettings().timeZone): LedgerRow[] {
   return list.map((r) => {
     let lo = 0;
     let hi = spans.length - 1;
@@ -146,7 +148,7 @@ function withPrices(list: UnpricedRow[], spans: Span[]): LedgerRow[] {
       else hi = mid - 1;
     }
     const { price, currency } = spans[lo];
-    return { ...r, weighMismatch: !!r.weighMismatch, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
   });
 }
 
@@ -172,9 +174,12 @@ export function ledgerRows(q: LedgerQuery, max = 200_000): LedgerRow[] {
   return getDb().transaction(() => withPrices(rows(q, sql`order by f.found_at, f.id limit ${max}`), priceSpans(q.price)));
 }
 
-/** Seasons that have finds, newest first, for the filters. */
+/** Seasons (of the club's days) from the first find to the last, newest first, for the filters. */
 export function ledgerSeasons(): number[] {
-  return getDb()
-    .all<{ y: string }>(sql`select distinct strftime('%Y', found_at / 1000, 'unixepoch') as y from finds where deleted_at is null order by y desc`)
-    .map((r) => Number(r.y));
+  const span = getDb().get<{ first: number | null; last: number | null }>(sql`select min(found_at) as first, max(found_at) as last from finds where deleted_at is null`);
+  if (span.first === null || span.last === null) return [];
+  const tz = clubSettings().timeZone;
+  const seasons: number[] = [];
+  for (let y = currentSeason(span.last, tz); y >= currentSeason(span.first, tz); y--) seasons.push(y);
+  return seasons;
 }

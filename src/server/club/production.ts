@@ -1,16 +1,21 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { MonthlyProduction } from "@/lib/club/production";
-import { seasonBounds } from "@/lib/season";
+import { seasonMonths } from "@/lib/season";
+import { clubSettings } from "./settings";
 import { totalsBy } from "./totals";
 
-/** Production per month and claim for a season: fine gold (the figures kept on each find) and recorded weight. */
+/**
+ * Production per month (of the club's days) and claim for a season: fine gold from the
+ * figures kept on each find, and recorded weight. One aggregate per month over the index.
+ */
 export function productionByMonth(season: number): MonthlyProduction[] {
-  const { start, end } = seasonBounds(season);
-  return totalsBy<{ k0: string; k1: string | null; k2: string | null }>(
-    sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}`,
-    [sql`strftime('%Y-%m', f.found_at / 1000, 'unixepoch')`, sql`f.claim_id`, sql`c.name`],
-  )
-    .map((r) => ({ month: r.k0, claimId: r.k1, claimName: r.k2, ...r.totals }))
-    .sort((a, b) => a.month.localeCompare(b.month) || (a.claimName ?? "").localeCompare(b.claimName ?? ""));
+  return seasonMonths(season, clubSettings().timeZone).flatMap(({ month, start, end }) =>
+    totalsBy<{ k0: string | null; k1: string | null }>(sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}`, [
+      sql`f.claim_id`,
+      sql`c.name`,
+    ])
+      .map((r) => ({ month, claimId: r.k0, claimName: r.k1, ...r.totals }))
+      .sort((a, b) => (a.claimName ?? "").localeCompare(b.claimName ?? "")),
+  );
 }

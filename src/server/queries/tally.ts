@@ -2,6 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { Totals } from "@/lib/club/totals";
 import { seasonBounds } from "@/lib/season";
+import { clubSettings } from "../club/settings";
 import { totalsBy } from "../club/totals";
 import { getDb } from "../db";
 
@@ -9,7 +10,7 @@ export type ClaimTally = { claimId: string | null; claimName: string | null; kin
 
 /** The club's season per claim (officers only: callers check the capability). */
 export function clubSeasonByClaim(year: number): ClaimTally[] {
-  const { start, end } = seasonBounds(year);
+  const { start, end } = seasonBounds(year, clubSettings().timeZone);
   const inSeason = sql`f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}`;
   const members = new Map(
     getDb()

@@ -4,17 +4,18 @@ import { ProductionChart } from "@/components/club/production-chart";
 import { addTotals, NO_TOTALS } from "@/lib/club/totals";
 import { gramsToPennyweights } from "@/lib/estimate/units";
 import { formatGrams } from "@/lib/format";
-import { currentSeason } from "@/lib/season";
+import { seasonNow } from "@/lib/season";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
 import { productionByMonth } from "@/server/club/production";
+import { clubSettings } from "@/server/club/settings";
 import { clubSeasonByClaim } from "@/server/queries/tally";
 
 export const metadata: Metadata = { title: "Club console" };
 
 export default async function ClubConsolePage() {
   await requirePageActor("viewLedger", "/club");
-  const season = currentSeason();
+  const season = seasonNow(clubSettings().timeZone);
   const byClaim = clubSeasonByClaim(season);
   const claims = listClaims();
   const labels = Object.fromEntries(

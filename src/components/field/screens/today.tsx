@@ -11,7 +11,8 @@ import { KIND_LABELS } from "@/lib/entities/constants";
 import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/constants";
 import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
-import { currentSeason, seasonBounds } from "@/lib/season";
+import { seasonBounds, seasonNow } from "@/lib/season";
+import { deviceTimeZone } from "@/lib/time/club-day";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
 
@@ -20,8 +21,10 @@ export function TodayScreen() {
   const settings = useSettings(db);
   const outing = useCurrentOuting(db);
   const claims = useClaims(db);
-  const season = currentSeason();
-  const { start, end } = seasonBounds(season);
+  // The member's own days, as their phone's clock shows them.
+  const zone = deviceTimeZone();
+  const season = seasonNow(zone);
+  const { start, end } = seasonBounds(season, zone);
   const finds = useLiveQuery(() => db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"), [db, start, end]);
   const first = (member.name ?? member.email).split(" ")[0];
   const claimName = (id: string | null) => claims?.find((c) => c.id === id)?.name ?? "no claim";

@@ -4,12 +4,15 @@ import { ClaimProfileEditor } from "@/components/club/claim-profile-editor";
 import { ClaimsMap } from "@/components/club/claims-map";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
+import { clubSettings } from "@/server/club/settings";
+import { seasonNow } from "@/lib/season";
 
 export const metadata: Metadata = { title: "Claims" };
 
 export default async function ClaimsPage() {
   await requirePageActor("manageClaims", "/club/claims");
   const claims = listClaims();
+  const season = seasonNow(clubSettings().timeZone);
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Claims</h1>
@@ -21,7 +24,7 @@ export default async function ClaimsPage() {
           </summary>
           <div className="mt-3 flex flex-col gap-3">
             <ClaimEditor claim={{ ...c, boundary: c.boundary ?? null }} />
-            <ClaimProfileEditor claim={c} />
+            <ClaimProfileEditor claim={c} season={season} />
           </div>
         </details>
       ))}

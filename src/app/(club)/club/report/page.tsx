@@ -4,7 +4,8 @@ import { ReportFigures, ReportSubtotals, ReportTotals } from "@/components/club/
 import { ledgerQuerySchema } from "@/lib/club/ledger";
 import { KIND_LABELS } from "@/lib/entities/find";
 import { FINE_BASIS_LABELS } from "@/lib/figures/fine-basis";
-import { formatDay, formatGrams } from "@/lib/format";
+import { formatGrams } from "@/lib/format";
+import { clubDay } from "@/lib/time/club-day";
 import { withoutBidiControls as plain } from "@/lib/text/safe-text";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
@@ -38,7 +39,7 @@ export default async function ReportPage({ searchParams }: Props) {
   const member = q.memberId ? members.find((m) => m.id === q.memberId) : undefined;
   const memberName = new Map(members.map((m) => [m.id, plain(m.name ?? m.email)]));
   const claimLabel = new Map(claims.map((c) => [c.id, `${plain(c.name)}${c.agencyRef ? ` (${plain(c.agencyRef)})` : ""}`]));
-  const printedOn = formatDay(new Date().getTime());
+  const printedOn = clubDay(new Date().getTime(), club.timeZone);
   const period = q.season ? `Season ${q.season}` : q.from || q.to ? `${q.from ?? "…"} to ${q.to ?? "…"}` : "All seasons";
   const byMember = ledgerSubtotals(q, "member").map((g) => ({ label: memberName.get(g.id ?? "") ?? "—", summary: g.summary }));
   const byClaim = ledgerSubtotals(q, "claim").map((g) => ({ label: g.id ? (claimLabel.get(g.id) ?? "—") : "Off the club's claims", summary: g.summary }));
@@ -84,7 +85,7 @@ export default async function ReportPage({ searchParams }: Props) {
           <tbody>
             {rows.map((r) => (
               <tr key={r.id} className="border-b border-rule">
-                <td className="figure py-1 pr-2">{formatDay(r.foundAt)}</td>
+                <td className="figure py-1 pr-2">{r.foundOn}</td>
                 <td className="py-1 pr-2">
                   <bdi>{memberName.get(r.memberId) ?? ""}</bdi>
                 </td>
