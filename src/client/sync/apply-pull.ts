@@ -1,18 +1,13 @@
+import { CLAIM_KEYS, pickRecord } from "@/lib/entities/keys";
 import type { PullChange } from "@/lib/sync/protocol";
-import type { LodebookDb } from "../device-db";
+import type { LodebookDb, ServerFigure } from "../device-db";
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- records arrive as JSON; the keys are picked from the shared schemas
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- claims arrive as JSON; the keys are CLAIM_KEYS, held equal to the schema
 const pick = (value: Record<string, unknown>, keys: readonly string[]): any => Object.fromEntries(keys.map((k) => [k, value[k] ?? null]));
 
-const OUTING_KEYS = ["id", "claimId", "startedAt", "endedAt", "companions", "method", "hours", "conditions", "notes"] as const;
-const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "purity", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const;
-const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const;
-const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt"] as const;
-const CLAIM_KEYS = ["id", "name", "kind", "agencyRef", "boundary", "rules", "active", "fineness", "finenessLow", "finenessHigh", "finenessSource", "hostDensity", "hostDensityLow", "hostDensityHigh", "hostDensitySource"] as const;
-
 /** The server's figure kept beside a pulled find (columns of its own, never pushed back). */
-const figureOf = (v: Record<string, unknown>) => ({
-  basis: (v.fineBasis as string | null) ?? null,
+const figureOf = (v: Record<string, unknown>): ServerFigure => ({
+  basis: (v.fineBasis as ServerFigure["basis"]) ?? null,
   fineGrams: (v.latestFineGrams as number | null) ?? null,
   low: (v.latestFineLow as number | null) ?? null,
   high: (v.latestFineHigh as number | null) ?? null,
@@ -38,20 +33,20 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
       const updatedAt = typeof v.updatedAt === "number" ? v.updatedAt : Date.now();
       switch (c.entity) {
         case "outing":
-          await db.outings.put({ ...pick(v, OUTING_KEYS), updatedAt });
+          await db.outings.put({ ...pickRecord("outing", v), updatedAt });
           break;
         case "find":
-          await db.finds.put({ ...pick(v, FIND_KEYS), updatedAt, figure: figureOf(v) });
+          await db.finds.put({ ...pickRecord("find", v), updatedAt, figure: figureOf(v) });
           break;
         case "photo": {
           // Bytes of a photo taken on another device are fetched when shown, not here.
           const local = await db.photos.get(id);
           const uploaded = v.stored === true ? 1 : local && local.blob.size > 0 ? 0 : 1;
-          await db.photos.put({ ...pick(v, PHOTO_KEYS), updatedAt, blob: local?.blob ?? new Blob(), thumb: local?.thumb ?? new Blob(), uploaded });
+          await db.photos.put({ ...pickRecord("photo", v), updatedAt, blob: local?.blob ?? new Blob(), thumb: local?.thumb ?? new Blob(), uploaded });
           break;
         }
         case "weighIn":
-          await db.weighIns.put({ ...pick(v, WEIGH_IN_KEYS), updatedAt });
+          await db.weighIns.put({ ...pickRecord("weighIn", v), updatedAt });
           break;
         case "claim":
           await db.claims.put(pick(v, CLAIM_KEYS) as never);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
+import { claimViewSchema } from "./claim";
 import { findSchema } from "./find";
-import { RECORD_KEYS } from "./keys";
+import { CLAIM_KEYS, RECORD_KEYS } from "./keys";
 import { outingSchema } from "./outing";
 import { photoSchema } from "./photo";
 import { weighInSchema } from "./weigh-in";
@@ -11,5 +12,6 @@ describe("the sync key lists", () => {
     for (const [entity, schema] of Object.entries(schemas)) {
       expect([...RECORD_KEYS[entity as keyof typeof schemas]].sort(), entity).toEqual(Object.keys(schema.shape).sort());
     }
+    expect([...CLAIM_KEYS].sort()).toEqual(Object.keys(claimViewSchema.shape).sort());
   });
 });

@@ -1,3 +1,4 @@
+import type { ClaimView } from "./claim";
 import type { Find } from "./find";
 import type { Outing } from "./outing";
 import type { Photo } from "./photo";
@@ -11,6 +12,25 @@ export const OUTING_KEYS = ["id", "claimId", "startedAt", "endedAt", "companions
 export const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "purity", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const satisfies readonly (keyof Find)[];
 export const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const satisfies readonly (keyof Photo)[];
 export const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt"] as const satisfies readonly (keyof WeighIn)[];
+
+/** A claim as devices keep it (read-only there; officers change claims on the server). */
+export const CLAIM_KEYS = [
+  "id",
+  "name",
+  "kind",
+  "agencyRef",
+  "boundary",
+  "rules",
+  "active",
+  "fineness",
+  "finenessLow",
+  "finenessHigh",
+  "finenessSource",
+  "hostDensity",
+  "hostDensityLow",
+  "hostDensityHigh",
+  "hostDensitySource",
+] as const satisfies readonly (keyof ClaimView)[];
 
 /** A member record's entity as sync names it, with its record type. */
 export type RecordEntities = { outing: Outing; find: Find; photo: Photo; weighIn: WeighIn };

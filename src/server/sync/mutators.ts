@@ -1,11 +1,9 @@
 import "server-only";
 import { z } from "zod";
 import { estimateSpecimen } from "@/lib/estimate";
-import type { Find } from "@/lib/entities/find";
-import type { Outing } from "@/lib/entities/outing";
-import type { Photo } from "@/lib/entities/photo";
-import { reportedEstimateSchema, weighInSchema, type WeighIn } from "@/lib/entities/weigh-in";
-import { MUTATION_ARGS, type MutationName } from "@/lib/sync/mutations";
+import type { RecordEntity } from "@/lib/entities/keys";
+import { reportedEstimateSchema, weighInSchema } from "@/lib/entities/weigh-in";
+import { MUTATION_ARGS, type MutationArgs, type MutationName } from "@/lib/sync/mutations";
 import type { Actor } from "../auth/actor";
 import { insertRow, selectRow, statement, updateRow, type Sqlite } from "../db/rows";
 import * as t from "../db/schema";
@@ -22,7 +20,7 @@ import { RejectError } from "./reject";
  */
 export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; fineness: Map<string | null, FinenessUsed> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
-type Entity = "outing" | "find" | "photo" | "weighIn";
+type Entity = RecordEntity;
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
 
 const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns };
@@ -73,7 +71,7 @@ function requireClaim(tx: PushTx, claimId: string | null) {
  * Upsert by id; the version it replaces goes to history (two devices: arrival order decides).
  * `server` holds the server's own fields of the row beside the device's values.
  */
-function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values: object, actor: Actor, server?: Record<string, unknown>) {
+function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values: { id: string }, actor: Actor, server?: Record<string, unknown>) {
   const table = ENTITY[entity];
   const extra = server ?? (entity === "photo" ? { memberId: actor.id, seq: tx.seq() } : { memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
   if (existing) {
@@ -82,7 +80,7 @@ function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values:
   } else {
     insertRow(tx.db, table, values as Record<string, unknown>, extra);
   }
-  if (entity === "find" || entity === "outing") tx.written.set((values as { id: string }).id, entity);
+  if (entity === "find" || entity === "outing") tx.written.set(values.id, entity);
 }
 
 function markDeleted(tx: PushTx, entity: Entity, id: string) {
@@ -114,14 +112,21 @@ function tombstone(tx: PushTx, entity: Entity, id: string, actor: Actor, after?:
  */
 type Write = () => void;
 
-const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => Write> = {
-  "outing.put": (tx, actor, o: Outing) => {
+/** A weigh-in's arguments with the device's estimate checked after the server's recomputation (see weighIn.put). */
+const weighInArgsSchema = weighInSchema.extend({ deviceEstimate: z.unknown() });
+
+/** Each change's arguments as its mutator gets them: parsed by its schema (a weigh-in's device estimate checked later). */
+type ParsedArgs = { [N in MutationName]: N extends "weighIn.put" ? z.infer<typeof weighInArgsSchema> : MutationArgs<N> };
+type Mutators = { [N in MutationName]: (tx: PushTx, actor: Actor, args: ParsedArgs[N]) => Write };
+
+const MUTATORS: Mutators = {
+  "outing.put": (tx, actor, o) => {
     const existing = loadForWrite(tx, "outing", o.id, actor, o);
     requireClaim(tx, o.claimId);
     return () => upsert(tx, "outing", existing, o, actor);
   },
-  "outing.delete": (tx, actor, { id }: { id: string }) => tombstone(tx, "outing", id, actor),
-  "find.put": (tx, actor, f: Find) => {
+  "outing.delete": (tx, actor, { id }) => tombstone(tx, "outing", id, actor),
+  "find.put": (tx, actor, f) => {
     const existing = loadForWrite(tx, "find", f.id, actor, f) as (Owned & { claimId: string | null; finenessUsedBasis: string | null }) | undefined;
     requireClaim(tx, f.claimId);
     if (f.outingId) requireOwnedParent(tx, "outing", f.outingId, actor, "outingId");
@@ -141,7 +146,7 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
       });
     };
   },
-  "find.delete": (tx, actor, { id }: { id: string }) =>
+  "find.delete": (tx, actor, { id }) =>
     tombstone(tx, "find", id, actor, () => {
       // Its photos and weigh-ins go with it.
       for (const entity of ["photo", "weighIn"] as const) {
@@ -149,7 +154,7 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
         for (const c of children) markDeleted(tx, entity, c.id);
       }
     }),
-  "photo.put": (tx, actor, p: Photo) => {
+  "photo.put": (tx, actor, p) => {
     const existing = loadForWrite(tx, "photo", p.id, actor, p);
     requireOwnedParent(tx, "find", p.findId, actor, "findId");
     if (existing && (existing as unknown as { sha256: string }).sha256 !== p.sha256) {
@@ -157,8 +162,8 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
     }
     return () => upsert(tx, "photo", existing, p, actor);
   },
-  "photo.delete": (tx, actor, { id }: { id: string }) => tombstone(tx, "photo", id, actor),
-  "weighIn.put": (tx, actor, w: WeighIn) => {
+  "photo.delete": (tx, actor, { id }) => tombstone(tx, "photo", id, actor),
+  "weighIn.put": (tx, actor, w) => {
     const existing = loadForWrite(tx, "weighIn", w.id, actor, w);
     requireOwnedParent(tx, "find", w.findId, actor, "findId");
     let server;
@@ -191,12 +196,12 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
       else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams, airGrams });
     };
   },
-  "weighIn.delete": (tx, actor, { id }: { id: string }) =>
+  "weighIn.delete": (tx, actor, { id }) =>
     tombstone(tx, "weighIn", id, actor, () => {
       const row = statement(tx.db, "select find_id as findId from weigh_ins where id = ?").get(id) as { findId: string } | undefined;
       if (row) refreshWeighInFigures(tx.db, row.findId);
     }),
-  "settings.put": (tx, actor, s: { locationSharing: "exact" | "claim" }) => () => {
+  "settings.put": (tx, actor, s) => () => {
     const changed = statement(tx.db, "update members set location_sharing = ? where id = ? and location_sharing <> ?").run(s.locationSharing, actor.id, s.locationSharing).changes;
     // Officers' copies of this member's finds change with the setting: they are re-sent once
     // at the end of the push (resendFinds), however many settings changes it holds.
@@ -204,8 +209,6 @@ const MUTATORS: Record<MutationName, (tx: PushTx, actor: Actor, args: never) => 
   },
 };
 
-/** A weigh-in's arguments with the device's estimate checked after the server's recomputation (see weighIn.put). */
-const weighInArgsSchema = weighInSchema.extend({ deviceEstimate: z.unknown() });
 
 /** Deep equality of JSON values, to the last bit of every number (the device's figures against the server's). */
 function sameValue(a: unknown, b: unknown): boolean {
@@ -235,7 +238,8 @@ function sameValue(a: unknown, b: unknown): boolean {
 export function applyMutation(tx: PushTx, actor: Actor, name: MutationName, rawArgs: unknown): void {
   const parsed = (name === "weighIn.put" ? weighInArgsSchema : MUTATION_ARGS[name]).safeParse(rawArgs);
   if (!parsed.success) throw rejectInvalid(parsed.error);
-  const write = MUTATORS[name](tx, actor, parsed.data as never);
+  // One cast where the name picks the mutator: TypeScript cannot tie parsed.data to that name.
+  const write = (MUTATORS[name] as (tx: PushTx, actor: Actor, args: unknown) => Write)(tx, actor, parsed.data);
   write();
 }
 
