@@ -66,10 +66,12 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
         "POST /api/club/invitations/[id]",
         "POST /api/club/prices",
         "POST /api/club/prices/[id]",
+        "POST /api/club/recoveries",
         "POST /api/estimate",
         "POST /api/sync/push",
         "PUT /api/club/claims/[id]",
         "PUT /api/club/claims/[id]/profile",
+        "PUT /api/club/recoveries/[id]/document",
         "PUT /api/club/settings",
         "PUT /api/photos/[id]",
       ]

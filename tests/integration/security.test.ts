@@ -93,6 +93,10 @@ const MATRIX: Record<string, Row> = {
   "GET /api/club/prices": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "POST /api/club/prices": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { effectiveOn: "2026-12-01", pricePerTroyOunce: 2600, currency: "USD" }) }) },
   "POST /api/club/prices/[id]": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: json("POST", { action: "withdraw", note: "entered twice" }) }) },
+  "GET /api/club/recoveries": { expect: OFFICER_ONLY(200), request: () => ({ url: `/api/club/recoveries?claimId=${fixture.claim}&season=2026` }) },
+  "POST /api/club/recoveries": { expect: OFFICER_ONLY(400), request: () => ({ init: json("POST", { kind: "melt", claimId: fixture.claim, recordedOn: "2026-11-20", fineGrams: 5, findIds: [uuidv7()] }) }) },
+  "PUT /api/club/recoveries/[id]/document": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: { method: "PUT", headers: { "content-type": "application/pdf" }, body: "%PDF-1.4" } }) },
+  "GET /api/club/recoveries/[id]/document": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7() }) },
   "GET /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "PUT /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({ init: json("PUT", { name: "Quillmarsh Gulch Prospectors", currency: "USD", timeZone: "America/Los_Angeles" }) }) },
   "GET /api/club/invitations": { expect: OFFICER_ONLY(200), request: () => ({}) },
@@ -147,6 +151,7 @@ describe("hostile input (RELIABILITY 31)", () => {
     ["PATCH /api/club/members/[id]", "/api/club/members/[id]", "member"],
     ["PUT /api/club/claims/[id]/profile", "/api/club/claims/[id]/profile", "claim"],
     ["PUT /api/club/settings", "/api/club/settings", undefined],
+    ["POST /api/club/recoveries", "/api/club/recoveries", undefined],
     ["POST /api/club/prices/[id]", "/api/club/prices/[id]", undefined],
   ];
   const handler = async (key: string) => {

@@ -87,3 +87,18 @@ export const memberChangeSchema = z
   .object({ role: z.enum(ROLES).optional(), active: z.boolean().optional() })
   .strict()
   .refine((c) => c.role !== undefined || c.active !== undefined, "Change the role or the status.");
+
+/** A melt of a batch of finds or an assay of one, as an officer records it. */
+export const recoveryInputSchema = z
+  .object({
+    kind: z.enum(["melt", "assay"], { error: "Choose melt or assay." }),
+    claimId: z.uuid("Choose the claim.").nullable(),
+    recordedOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
+    fineGrams: z.number({ error: "Enter the fine gold in grams." }).positive("Fine gold must be more than 0 g.").max(1_000_000, "At most 1000 kg."),
+    fineness: z.number({ error: "Enter the fineness in ‰." }).min(1, "Fineness is more than 0 ‰.").max(1000, "Fineness is at most 1000 ‰.").nullable().default(null),
+    findIds: z.array(z.uuid()).min(1, "Choose the finds that went in.").max(5000, "At most 5000 finds in one melt."),
+    note: z.string().trim().max(500, "At most 500 characters.").default(""),
+  })
+  .strict()
+  .refine((r) => r.kind !== "assay" || r.findIds.length === 1, { message: "An assay is of one find.", path: ["findIds"] })
+  .refine((r) => r.kind !== "assay" || r.fineness !== null, { message: "Give the assayed fineness.", path: ["fineness"] });

@@ -259,6 +259,41 @@ export const referencePrices = sqliteTable("reference_prices", {
   seq: seq(),
 }, (t) => [index("reference_prices_effective").on(t.effectiveOn)]);
 
+/**
+ * What was actually recovered: a melt of a batch of finds (the fine gold it gave) or an assay
+ * of one find, with its document. The finds' figures then come from it (basis "assay").
+ */
+export const recoveries = sqliteTable("recoveries", {
+  id: text("id").primaryKey(),
+  kind: text("kind", { enum: ["melt", "assay"] }).notNull(),
+  claimId: text("claim_id").references(() => claims.id),
+  /** The club day of the melt or the assay report. */
+  recordedOn: text("recorded_on").notNull(),
+  /** Fine gold recovered or assayed (g). */
+  fineGrams: real("fine_grams").notNull(),
+  /** Fineness (‰) of the bar or the assayed gold, when the document gives it. */
+  fineness: real("fineness"),
+  /** What the finds' figures said before (g): the estimate this recovery is compared with. */
+  estimatedGrams: real("estimated_grams").notNull(),
+  /** Gross weight of the finds that went in (g), and how much of it was gold without host rock. */
+  grossGrams: real("gross_grams").notNull(),
+  placerGrams: real("placer_grams").notNull(),
+  documentKey: text("document_key"),
+  documentType: text("document_type"),
+  documentName: text("document_name"),
+  note: text("note").notNull().default(""),
+  recordedBy: text("recorded_by").references(() => members.id),
+  createdAt: createdAt(),
+}, (t) => [index("recoveries_claim").on(t.claimId, t.recordedOn)]);
+
+export const recoveryFinds = sqliteTable("recovery_finds", {
+  recoveryId: text("recovery_id").notNull().references(() => recoveries.id),
+  findId: text("find_id").notNull().references(() => finds.id),
+  /** The find's figure before, and its share of what was recovered. */
+  estimatedGrams: real("estimated_grams"),
+  allocatedGrams: real("allocated_grams").notNull(),
+}, (t) => [primaryKey({ columns: [t.recoveryId, t.findId] }), index("recovery_finds_find").on(t.findId)]);
+
 /** The club itself: one row. Its name heads reports; its currency and calendar hold everywhere. */
 export const clubSettings = sqliteTable("club_settings", {
   id: integer("id").primaryKey(),

@@ -24,7 +24,8 @@ const PURGES = [
   `delete from finds where deleted_at is not null and deleted_at < ?
      and not exists (select 1 from photos p where p.find_id = finds.id)
      and not exists (select 1 from weigh_ins w where w.find_id = finds.id)
-     and not exists (select 1 from reviews r where r.find_id = finds.id) returning seq`,
+     and not exists (select 1 from reviews r where r.find_id = finds.id)
+     and not exists (select 1 from recovery_finds rf where rf.find_id = finds.id) returning seq`,
   `delete from outings where deleted_at is not null and deleted_at < ?
      and not exists (select 1 from finds f where f.outing_id = outings.id) returning seq`,
 ];

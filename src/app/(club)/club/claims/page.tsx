@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { ClaimEditor } from "@/components/club/claim-editor";
 import { ClaimProfileEditor } from "@/components/club/claim-profile-editor";
 import { ClaimsMap } from "@/components/club/claims-map";
+import { RecoveredGold } from "@/components/club/recovered-gold";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
 import { clubSettings } from "@/server/club/settings";
@@ -25,6 +26,7 @@ export default async function ClaimsPage() {
           <div className="mt-3 flex flex-col gap-3">
             <ClaimEditor claim={{ ...c, boundary: c.boundary ?? null }} />
             <ClaimProfileEditor claim={c} season={season} />
+            <RecoveredGold claim={c} season={season} />
           </div>
         </details>
       ))}

@@ -1,0 +1,23 @@
+import { z } from "zod";
+import { recoveryInputSchema } from "@/lib/club/schemas";
+import { requireActor } from "@/server/auth/actor";
+import { claimRecoveries, recordRecovery } from "@/server/club/recoveries";
+import { json, parseJsonBody, parseSearchParams, route } from "@/server/http";
+import { requireSameOrigin } from "@/server/origin";
+
+const querySchema = z.object({ claimId: z.uuid("Not a valid claim id."), season: z.coerce.number().int().min(2000).max(2100) }).strict();
+
+/** A claim's melts and assays of a season, estimate against recovered, and the fineness they propose. */
+export const GET = route(async (req) => {
+  const q = parseSearchParams(req, querySchema, "recoveries");
+  await requireActor(req, "manageClaims", "club");
+  return json(claimRecoveries(q.claimId, q.season));
+});
+
+/** Records a melt of a batch of finds, or an assay of one. */
+export const POST = route(async (req) => {
+  requireSameOrigin(req);
+  const actor = await requireActor(req, "manageClaims", "club");
+  const input = await parseJsonBody(req, recoveryInputSchema, "recovery");
+  return json(recordRecovery(actor, input), { status: 201 });
+});
