@@ -30,6 +30,12 @@ function inPolygon(point: [number, number], rings: number[][][]): boolean {
   return pointInRing(point, rings[0]) && !rings.slice(1).some((hole) => pointInRing(point, hole));
 }
 
+/** Whether a point lies within a claim's boundary (holes excepted). */
+export function inBoundary(lat: number, lon: number, boundary: Polygon): boolean {
+  const point: [number, number] = [lon, lat];
+  return boundary.type === "Polygon" ? inPolygon(point, boundary.coordinates) : boundary.coordinates.some((p) => inPolygon(point, p));
+}
+
 /**
  * The claim whose boundary holds the point, if any (boundaries are the club's drawing, not a
  * survey: a point on a corner line may fall either side, well inside a GPS fix's error).

@@ -79,7 +79,19 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
     () => [
       col.accessor("foundAt", { header: "Found", cell: (c) => c.row.original.foundOn }),
       col.accessor("memberName", { header: "Member" }),
-      col.accessor("claimName", { header: "Claim", cell: (c) => c.getValue() ?? "off-claim" }),
+      col.accessor("claimName", {
+        header: "Claim",
+        cell: (c) => (
+          <span className="flex flex-col">
+            <span>{c.getValue() ?? "off-claim"}</span>
+            {c.row.original.outsideClaim && (
+              <span className="text-xs font-bold text-rust" data-testid="outside-claim">
+                position outside it
+              </span>
+            )}
+          </span>
+        ),
+      }),
       col.accessor("kind", { header: "Kind", cell: (c) => KIND_LABELS[c.getValue() as keyof typeof KIND_LABELS] }),
       col.accessor("method", { header: "Method", enableSorting: false }),
       col.accessor("weightGrams", { header: "Weight", cell: (c) => grams(c.getValue()) }),

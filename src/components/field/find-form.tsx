@@ -1,6 +1,6 @@
 "use client";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { LocalFind } from "@/client/device-db";
 import type { MemberSettings } from "@/client/settings";
 import { FieldError } from "@/components/field-error";
@@ -9,6 +9,7 @@ import type { ClaimView } from "@/lib/entities/claim";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import type { Find } from "@/lib/entities/find";
 import { convertMass, toGrams } from "@/lib/estimate/units";
+import { claimAt } from "@/lib/geo";
 import { toLocalInput } from "@/lib/format";
 import type { FindFormValues } from "./form-schemas";
 import { lazyZodResolver } from "./lazy-resolver";
@@ -18,10 +19,42 @@ type FormValues = FindFormValues;
 
 type Props = { find: LocalFind; claims: ClaimView[]; settings: MemberSettings; onSave: (find: Find) => Promise<void> };
 
+/**
+ * When the position typed lies in another claim than the one chosen, says so and offers the
+ * switch; when it lies outside the chosen claim and every other, says that (boundaries are the
+ * club's drawing, so this is a prompt, not a refusal).
+ */
+function ClaimCheck({ lat, lon, claimId, claims, onSwitch }: { lat: string; lon: string; claimId: string; claims: ClaimView[]; onSwitch: (id: string) => void }) {
+  const la = parseNumber(lat ?? "");
+  const lo = parseNumber(lon ?? "");
+  if (la === undefined || lo === undefined || Number.isNaN(la) || Number.isNaN(lo) || Math.abs(la) > 90 || Math.abs(lo) > 180) return null;
+  const at = claimAt(la, lo, claims);
+  const chosen = claims.find((c) => c.id === claimId);
+  if (at && at.id !== claimId) {
+    return (
+      <p className="col-span-2 rounded-md border-2 border-caution p-2 text-sm" role="status" data-testid="claim-check">
+        This position is inside <strong>{at.name}</strong>
+        {chosen ? `, not ${chosen.name}` : ""}.{" "}
+        <button type="button" className="btn ml-1 px-2 text-sm" onClick={() => onSwitch(at.id)}>
+          Record it on {at.name}
+        </button>
+      </p>
+    );
+  }
+  if (!at && chosen?.boundary) {
+    return (
+      <p className="col-span-2 rounded-md border-2 border-caution p-2 text-sm" role="status" data-testid="claim-check">
+        This position is outside {chosen.name}&apos;s boundary. Check the position or the claim.
+      </p>
+    );
+  }
+  return null;
+}
+
 /** Everything about a find, editable; the shared find schema checks it again on save. */
 export function FindForm({ find, claims, settings, onSave }: Props) {
   const unit = settings.massUnit;
-  const { register, handleSubmit, formState, setError } = useForm<FormValues>({
+  const { register, handleSubmit, formState, setError, control, setValue } = useForm<FormValues>({
     resolver: lazyZodResolver(async () => (await import("./form-schemas")).findFormSchema),
     // A sync can update the record while the member types: keep what they have changed.
     resetOptions: { keepDirtyValues: true },
@@ -39,6 +72,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
     },
   });
   const e = formState.errors;
+  const [typedLat, typedLon, chosenClaim] = useWatch({ control, name: ["lat", "lon", "claimId"] });
   // Not formState.isSubmitSuccessful: saving changes the record, and new values reset the form.
   const [saved, setSaved] = useState(false);
 
@@ -117,6 +151,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
             <ClaimOptions claims={claims} />
           </select>
         </label>
+        <ClaimCheck lat={typedLat} lon={typedLon} claimId={chosenClaim} claims={claims} onSwitch={(id) => setValue("claimId", id, { shouldDirty: true })} />
         <label className="col-span-2 flex flex-col">
           <span className="field-label">Found</span>
           <input type="datetime-local" className="field-input" aria-invalid={!!e.foundAt} {...register("foundAt")} />

@@ -48,6 +48,8 @@ export type LedgerRow = {
   fineHigh: number | null;
   fineBasis: FineBasis | null;
   weighMismatch: boolean;
+  /** Its position lies outside the boundary of its claim. */
+  outsideClaim: boolean;
   price: number | null;
   currency: string | null;
   value: number | null;
@@ -59,4 +61,4 @@ export type LedgerSummary = Totals & { value: number; valueLow: number; valueHig
 export type LedgerPage = { rows: LedgerRow[]; total: number; summary: LedgerSummary; page: number; pageSize: number };
 
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "price", "currency", "value", "state"] as const;
+export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "outsideClaim", "price", "currency", "value", "state"] as const;

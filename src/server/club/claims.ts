@@ -9,6 +9,7 @@ import type { Actor } from "../auth/actor";
 import { audit } from "../audit";
 import { getDb } from "../db";
 import * as t from "../db/schema";
+import { refreshOutsideClaim } from "../db/outside-claim";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
 import { refigureFineness } from "./figures";
@@ -58,6 +59,7 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
       const before = tx.select().from(t.claims).where(eq(t.claims.id, id)).get();
       if (!before) throw new AppError("not_found:claim", "No such claim.");
       tx.update(t.claims).set({ ...values, updatedAt: Date.now(), seq: nextSeq(db.$client) }).where(eq(t.claims.id, id)).run();
+      if (boundary !== undefined) refreshOutsideClaim(db.$client, id);
       audit(tx, { actorId: actor.id, action: "claim.update", entity: "claim", entityId: id, before, after: values });
       return { id };
     }

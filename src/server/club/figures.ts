@@ -1,5 +1,7 @@
 import "server-only";
+import type { Polygon } from "@/lib/entities/claim";
 import { CLUB_FINENESS } from "@/lib/figures/claim-profile";
+import { refreshOutsideClaim } from "../db/outside-claim";
 import { statement, type Sqlite } from "../db/rows";
 
 // The ledger's inputs are kept on each find row (the latest weigh-in's server estimate, the
@@ -36,14 +38,19 @@ export function weighInAdded(sqlite: Sqlite, w: { id: string; findId: string; we
   ).run(w.alloyGrams, w.fineGrams, w.fineRange[0], w.fineRange[1], w.airGrams, w.findId, w.weighedAt, w.weighedAt, w.id);
 }
 
-/** The fineness a find is figured with: its claim's profile now, or the club's off any claim. */
-export function finenessFor(sqlite: Sqlite, claimId: string | null): FinenessUsed {
+/**
+ * What a find takes from its claim as it arrives: the fineness it is figured with (the claim's
+ * profile now, or the club's off any claim) and the boundary its position is checked against.
+ */
+export function claimFacts(sqlite: Sqlite, claimId: string | null): ClaimFacts {
   if (claimId) {
-    const row = statement(sqlite, "select fineness, fineness_low, fineness_high from claims where id = ?").raw().get(claimId) as [number, number, number] | undefined;
-    if (row) return { finenessUsed: row[0], finenessUsedLow: row[1], finenessUsedHigh: row[2], finenessUsedBasis: "claim_fineness" };
+    const row = statement(sqlite, "select fineness, fineness_low, fineness_high, boundary from claims where id = ?").raw().get(claimId) as [number, number, number, string | null] | undefined;
+    if (row) return { finenessUsed: row[0], finenessUsedLow: row[1], finenessUsedHigh: row[2], finenessUsedBasis: "claim_fineness", boundary: row[3] ? (JSON.parse(row[3]) as Polygon) : null };
   }
-  return { finenessUsed: CLUB_FINENESS.value, finenessUsedLow: CLUB_FINENESS.low, finenessUsedHigh: CLUB_FINENESS.high, finenessUsedBasis: "club_fineness" };
+  return { finenessUsed: CLUB_FINENESS.value, finenessUsedLow: CLUB_FINENESS.low, finenessUsedHigh: CLUB_FINENESS.high, finenessUsedBasis: "club_fineness", boundary: null };
 }
+
+export type ClaimFacts = FinenessUsed & { boundary: Polygon | null };
 
 export type FinenessUsed = { finenessUsed: number; finenessUsedLow: number; finenessUsedHigh: number; finenessUsedBasis: "claim_fineness" | "club_fineness" };
 
@@ -65,6 +72,7 @@ export function refreshReviewState(sqlite: Sqlite, findId: string): void {
 }
 
 export function refreshAllFigures(sqlite: Sqlite): void {
+  refreshOutsideClaim(sqlite);
   sqlite.prepare(`update finds set ${WEIGH_IN_FIGURES}, ${REVIEW_STATE}`).run();
   // Finds written straight to the table (seeding) are figured with their claims' fineness now.
   sqlite

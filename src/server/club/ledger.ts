@@ -125,9 +125,9 @@ const ORDER: Record<LedgerQuery["sort"], string> = {
 const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName, f.claim_id as claimId, c.name as claimName,
   f.found_at as foundAt, f.kind, f.method, f.weight_grams as weightGrams,
   f.latest_alloy_grams as alloyGrams, f.latest_fine_grams as fineGrams, f.latest_fine_low as fineLow, f.latest_fine_high as fineHigh,
-  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.review_state as state`);
+  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.outside_claim as outsideClaim, f.review_state as state`);
 
-type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "foundOn"> & { weighMismatch: number | boolean };
+type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "outsideClaim" | "foundOn"> & { weighMismatch: number | boolean; outsideClaim: number | boolean };
 
 const MEMBER_JOIN = "join members m on m.id = f.member_id";
 const CLAIM_JOIN = "left join claims c on c.id = f.claim_id";
@@ -148,7 +148,7 @@ function withPrices(list: UnpricedRow[], spans: Span[], tz = clubSettings().time
       else hi = mid - 1;
     }
     const { price, currency } = spans[lo];
-    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, outsideClaim: !!r.outsideClaim, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
   });
 }
 

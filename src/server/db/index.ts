@@ -5,6 +5,7 @@ import { drizzle, type BetterSQLite3Database } from "drizzle-orm/better-sqlite3"
 import { migrate } from "drizzle-orm/better-sqlite3/migrator";
 import fs from "node:fs";
 import path from "node:path";
+import { backfillOutsideClaim } from "./outside-claim";
 import * as schema from "./schema";
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
@@ -32,6 +33,7 @@ export function openDatabase(file = databasePath()): Db {
   sqlite.pragma("temp_store = MEMORY");
   const db = drizzle(sqlite, { schema }) as Db;
   migrate(db, { migrationsFolder: migrationsFolder() });
+  backfillOutsideClaim(sqlite);
   return db;
 }
 

@@ -165,6 +165,8 @@ export const finds = sqliteTable("finds", {
   latestFineGrams: real("latest_fine_grams").generatedAlwaysAs(FINE_FIGURE.fine, { mode: "virtual" }),
   latestFineLow: real("latest_fine_low").generatedAlwaysAs(FINE_FIGURE.low, { mode: "virtual" }),
   latestFineHigh: real("latest_fine_high").generatedAlwaysAs(FINE_FIGURE.high, { mode: "virtual" }),
+  /** The find's position lies outside the boundary of the claim it is recorded on (set as it arrives). */
+  outsideClaim: integer("outside_claim", { mode: "boolean" }).notNull().default(false),
   /** The latest weigh-in's air reading is more than a tenth off the find's recorded weight. */
   weighMismatch: integer("weigh_mismatch", { mode: "boolean" }).generatedAlwaysAs(FINE_FIGURE.weighMismatch, { mode: "virtual" }),
   reviewState: text("review_state", { enum: ["new", "verified", "queried"] }).notNull().default("new"),

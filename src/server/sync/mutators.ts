@@ -8,7 +8,8 @@ import type { Actor } from "../auth/actor";
 import { insertRow, selectRow, statement, updateRow, type Sqlite } from "../db/rows";
 import * as t from "../db/schema";
 import { logger } from "../log";
-import { finenessFor, refreshWeighInFigures, weighInAdded, type FinenessUsed } from "../club/figures";
+import { inBoundary } from "@/lib/geo";
+import { claimFacts, refreshWeighInFigures, weighInAdded, type ClaimFacts } from "../club/figures";
 import { RejectError } from "./reject";
 
 // Server mutators are plain synchronous functions over the push's one SQLite transaction,
@@ -18,7 +19,7 @@ import { RejectError } from "./reject";
  * the finds and outings this push has written and not deleted (the member's own, alive), so a
  * weigh-in or photo sent with its find needs no lookup of it.
  */
-export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; fineness: Map<string | null, FinenessUsed> };
+export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; claims: Map<string | null, ClaimFacts> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = RecordEntity;
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
@@ -88,10 +89,10 @@ function markDeleted(tx: PushTx, entity: Entity, id: string) {
   statement(tx.db, `update ${TABLE_NAME[entity]} set deleted_at = ?, seq = ? where id = ?`).run(Date.now(), tx.seq(), id);
 }
 
-/** A claim's fineness, read once per push. */
-function finenessOf(tx: PushTx, claimId: string | null): FinenessUsed {
-  let f = tx.fineness.get(claimId);
-  if (!f) tx.fineness.set(claimId, (f = finenessFor(tx.db, claimId)));
+/** A claim's fineness and boundary, read once per push. */
+function claimFactsOf(tx: PushTx, claimId: string | null): ClaimFacts {
+  let f = tx.claims.get(claimId);
+  if (!f) tx.claims.set(claimId, (f = claimFacts(tx.db, claimId)));
   return f;
 }
 
@@ -134,11 +135,15 @@ const MUTATORS: Mutators = {
       // A find is figured with its claim's fineness as it stands when it arrives or moves to
       // another claim; later changes of the claim's fineness leave it as it was (fine-figure.ts).
       const refigure = !existing || existing.claimId !== f.claimId || existing.finenessUsedBasis === null;
-      const fineness = refigure ? finenessOf(tx, f.claimId) : undefined;
+      const facts = claimFactsOf(tx, f.claimId);
+      const fineness = refigure ? facts : undefined;
+      // The ledger flags a position outside the boundary of the claim the find is recorded on.
+      const outsideClaim = facts.boundary !== null && f.lat !== null && f.lon !== null && !inBoundary(f.lat, f.lon, facts.boundary);
       upsert(tx, "find", existing, f, actor, {
         memberId: actor.id,
         seq: tx.seq(),
         updatedAt: Date.now(),
+        outsideClaim,
         finenessUsed: fineness?.finenessUsed,
         finenessUsedLow: fineness?.finenessUsedLow,
         finenessUsedHigh: fineness?.finenessUsedHigh,

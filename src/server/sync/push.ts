@@ -72,7 +72,7 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
   }
   if (!client) statement(sqlite, "insert into sync_clients (id, member_id, last_mutation_id) values (?, ?, 0)").run(push.clientId, actor.id);
   const seq = sequenceBlock(sqlite);
-  const pushTx: PushTx = { db: sqlite, seq: seq.next, written: new Map(), resendFindsOf: new Set<string>(), fineness: new Map() };
+  const pushTx: PushTx = { db: sqlite, seq: seq.next, written: new Map(), resendFindsOf: new Set<string>(), claims: new Map() };
   let last = client?.lastMutationId ?? 0;
   const seen = push.mutations.filter((m) => m.id <= last);
   const results: MutationResult[] = seen.length > 0 ? checkReplays(sqlite, push.clientId, seen) : [];

@@ -98,6 +98,7 @@ export default async function ReportPage({ searchParams }: Props) {
                 <td className="py-1 pr-2">
                   {r.fineBasis ? FINE_BASIS_LABELS[r.fineBasis] : r.kind === "specimen" ? "not weighed" : "no weight"}
                   {r.weighMismatch ? " · weigh-in ≠ weight" : ""}
+                  {r.outsideClaim ? " · position outside its claim" : ""}
                 </td>
                 <td className="figure py-1 pr-2 text-right">{r.value != null ? r.value.toFixed(2) : "—"}</td>
                 <td className="py-1">{r.state}</td>

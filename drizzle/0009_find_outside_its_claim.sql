@@ -1,0 +1,1 @@
+ALTER TABLE `finds` ADD `outside_claim` integer DEFAULT false NOT NULL;
