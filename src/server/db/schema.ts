@@ -167,6 +167,12 @@ export const finds = sqliteTable("finds", {
   latestFineHigh: real("latest_fine_high").generatedAlwaysAs(FINE_FIGURE.high, { mode: "virtual" }),
   /** The find's position lies outside the boundary of the claim it is recorded on (set as it arrives). */
   outsideClaim: integer("outside_claim", { mode: "boolean" }).notNull().default(false),
+  /**
+   * The latest weigh-in was made on a scale whose latest setup check passed (the server's
+   * verdict); false when its scale's check failed, was never made, or no scale was named;
+   * null when the find has no weigh-in. Kept with the weighed_* figures (club/figures.ts).
+   */
+  weighedScaleChecked: integer("weighed_scale_checked", { mode: "boolean" }),
   /** The latest weigh-in's air reading is more than a tenth off the find's recorded weight. */
   weighMismatch: integer("weigh_mismatch", { mode: "boolean" }).generatedAlwaysAs(FINE_FIGURE.weighMismatch, { mode: "virtual" }),
   reviewState: text("review_state", { enum: ["new", "verified", "queried"] }).notNull().default("new"),
@@ -227,12 +233,59 @@ export const weighIns = sqliteTable("weigh_ins", {
   airGrams: real("air_grams"),
   /** True when the device's figures differ from the server's recomputation. */
   mismatch: integer("mismatch", { mode: "boolean" }).notNull().default(false),
+  /** The member's scale profile it was weighed on, and that scale's latest setup check then. */
+  scaleId: text("scale_id"),
+  scaleCheck: text("scale_check", { mode: "json" }).$type<Record<string, unknown>>(),
+  /** The server's verdict on that check (recomputed with the engine); null when none was named. */
+  scaleCheckPassed: integer("scale_check_passed", { mode: "boolean" }),
   weighedAt: integer("weighed_at").notNull(),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
   deletedAt: integer("deleted_at"),
   seq: seq(),
 }, (t) => [index("weigh_ins_find").on(t.findId, t.weighedAt), index("weigh_ins_member_seq").on(t.memberId, t.seq)]);
+
+/**
+ * A member's scale profile: its display step, its stated accuracy (null: the engine's default
+ * for the step) and the history of its setup checks, as the device recorded them.
+ */
+export const scales = sqliteTable("scales", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  name: text("name").notNull(),
+  stepGrams: real("step_grams").notNull(),
+  accuracyGrams: real("accuracy_grams"),
+  checks: text("checks", { mode: "json" }).notNull().$type<Record<string, unknown>[]>(),
+  /** The server's verdict on the latest check, recomputed with the engine; null when never checked. */
+  latestCheckPassed: integer("latest_check_passed", { mode: "boolean" }),
+  latestCheckedAt: integer("latest_checked_at"),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [index("scales_member_seq").on(t.memberId, t.seq), index("scales_seq").on(t.seq)]);
+
+/**
+ * A barren-rock weigh-in: a piece of gold-free vein rock from a claim, weighed to learn the
+ * claim's host density. No find; the density is the server's recomputation with the engine.
+ */
+export const barrenRocks = sqliteTable("barren_rocks", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  claimId: text("claim_id").notNull().references(() => claims.id),
+  input: text("input", { mode: "json" }).notNull().$type<Record<string, unknown>>(),
+  deviceDensity: real("device_density"),
+  density: real("density").notNull(),
+  scaleId: text("scale_id"),
+  scaleCheck: text("scale_check", { mode: "json" }).$type<Record<string, unknown>>(),
+  scaleCheckPassed: integer("scale_check_passed", { mode: "boolean" }),
+  notes: text("notes").notNull().default(""),
+  weighedAt: integer("weighed_at").notNull(),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [index("barren_rocks_claim").on(t.claimId, t.weighedAt), index("barren_rocks_member_seq").on(t.memberId, t.seq), index("barren_rocks_seq").on(t.seq)]);
 
 export const reviews = sqliteTable("reviews", {
   id: text("id").primaryKey(),
@@ -360,3 +413,5 @@ export type Claim = typeof claims.$inferSelect;
 export type Find = typeof finds.$inferSelect;
 export type Outing = typeof outings.$inferSelect;
 export type WeighIn = typeof weighIns.$inferSelect;
+export type Scale = typeof scales.$inferSelect;
+export type BarrenRock = typeof barrenRocks.$inferSelect;
