@@ -9,6 +9,7 @@ import { buildApp, startApp } from "../scripts/lib/app-server";
 import { launchBrowser } from "../tests/e2e/support/browser";
 import { concurrency, deviceLists, estimateBrowser, memberCookie, offlineOpen, pageWeight, photoBytes } from "./browser-figures";
 import { bystander, seedHeavyMembers } from "./hostile-figures";
+import { claimOutline, printableReport } from "./report-figures";
 import { estimateNode, ledger, syncIngest } from "./node-figures";
 
 // npm run bench: every figure on one run of this machine, each beside its baseline measured in
@@ -19,6 +20,7 @@ console.log(`Lodebook bench · ${new Date().toISOString()} · Node ${process.ver
 await syncIngest();
 await estimateNode();
 await ledger();
+claimOutline();
 
 const freePort = () =>
   new Promise<number>((resolve) => {
@@ -54,6 +56,9 @@ try {
     return n;
   });
   await bystander(app.url, { id: benchMembers[0].id, cookie: await memberCookie(benchMembers[0]) }, await Promise.all(heavyIds.map(async (id) => ({ id, cookie: await memberCookie({ id, email: "" }) }))));
+  const officer = getDb().$client.prepare("select id, email from members where role = 'officer' limit 1").get() as { id: string; email: string };
+  const finds = (getDb().$client.prepare("select count(*) n from finds").get() as { n: number }).n;
+  await printableReport(app.url, await memberCookie(officer), finds);
   await estimateBrowser(browser, app.url);
   await photoBytes(browser, app.url);
   await offlineOpen(browser, app.url);
