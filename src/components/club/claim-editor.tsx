@@ -2,7 +2,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useDropzone } from "react-dropzone";
-import { readBoundary } from "@/lib/club/geometry";
+import { MAX_CLAIM_FILE_BYTES, MAX_CLAIM_POSITIONS, readBoundary } from "@/lib/club/geometry";
 import type { Polygon } from "@/lib/entities/claim";
 import { api, ApiError } from "./api";
 
@@ -15,14 +15,15 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
   const [boundary, setBoundary] = useState<Polygon | null | undefined>(undefined);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<string | null>(null);
+  const [overlap, setOverlap] = useState<string | null>(null);
 
   const { getRootProps, getInputProps } = useDropzone({
     accept: { "application/geo+json": [".geojson", ".json"], "application/json": [".json"] },
     maxFiles: 1,
-    maxSize: 2_000_000,
+    maxSize: MAX_CLAIM_FILE_BYTES,
     onDrop: async (files) => {
       const file = files[0];
-      if (!file) return setErrors({ boundary: "Drop one .geojson file of at most 2 MB." });
+      if (!file) return setErrors({ boundary: `Drop one .geojson file of at most ${MAX_CLAIM_FILE_BYTES / 1_000_000} MB and ${MAX_CLAIM_POSITIONS} positions.` });
       let parsed: unknown;
       try {
         parsed = JSON.parse(await file.text());
@@ -37,14 +38,26 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
     },
   });
 
-  async function save() {
+  async function save(acceptOverlap = false) {
     setErrors({});
+    setOverlap(null);
     try {
-      const body = { name: form.name, kind: form.kind, agencyRef: form.agencyRef || null, rules: form.rules, active: form.active, ...(boundary !== undefined ? { boundary } : {}), ...(form.corners.trim() ? { corners: form.corners } : {}) };
+      const body = {
+        name: form.name,
+        kind: form.kind,
+        agencyRef: form.agencyRef || null,
+        rules: form.rules,
+        active: form.active,
+        acceptOverlap,
+        ...(boundary !== undefined ? { boundary } : {}),
+        ...(form.corners.trim() ? { corners: form.corners } : {}),
+      };
       await api(claim ? `/api/club/claims/${claim.id}` : "/api/club/claims", { method: claim ? "PUT" : "POST", body });
       setStatus("Saved. Members' devices get it at their next sync.");
       router.refresh();
     } catch (error) {
+      // What was typed stays in the form; only the messages change.
+      if (error instanceof ApiError && error.status === 409 && error.fields.boundary) return setOverlap(error.message);
       if (error instanceof ApiError) setErrors(Object.fromEntries(Object.entries(error.fields).map(([k, v]) => [k, v[0]])));
       setStatus(error instanceof Error ? error.message : String(error));
     }
@@ -71,7 +84,7 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
       </label>
       <label className="flex min-h-touch items-center gap-2">
         <input type="checkbox" className="h-5 w-5" checked={form.active} onChange={(e) => setForm({ ...form, active: e.target.checked })} />
-        Active (members may work it)
+        Active (offered for new finds; a retired claim is kept for its history)
       </label>
       <label className="flex flex-col md:col-span-2">
         <span className="field-label">Rules for members</span>
@@ -96,6 +109,14 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
         </button>
         {status && <span role="status">{status}</span>}
       </div>
+      {overlap && (
+        <div role="alert" className="rounded-md border-2 border-rust p-2 md:col-span-2">
+          <p>{overlap}</p>
+          <button type="button" className="btn mt-2" onClick={() => void save(true)}>
+            The overlap is right: save it
+          </button>
+        </div>
+      )}
       <p className="text-xs text-ink-soft md:col-span-2">A boundary drawn here is the club&apos;s working outline, not a survey. The land agency&apos;s records decide.</p>
     </form>
   );

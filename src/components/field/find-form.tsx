@@ -148,7 +148,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
           <span className="field-label">Claim</span>
           <select className="field-input" {...register("claimId")}>
             <option value="">Off the club&apos;s claims</option>
-            <ClaimOptions claims={claims} />
+            <ClaimOptions claims={claims} current={find.claimId} />
           </select>
         </label>
         <ClaimCheck lat={typedLat} lon={typedLon} claimId={chosenClaim} claims={claims} onSwitch={(id) => setValue("claimId", id, { shouldDirty: true })} />

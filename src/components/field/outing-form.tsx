@@ -57,7 +57,7 @@ export function OutingForm({ outing, claims, onSave }: Props) {
         <span className="field-label">Claim</span>
         <select className="field-input" {...register("claimId")}>
           <option value="">Off the club&apos;s claims</option>
-          <ClaimOptions claims={claims} />
+          <ClaimOptions claims={claims} current={outing.claimId} />
         </select>
       </label>
       <label className="flex flex-col">

@@ -40,3 +40,19 @@ describe("outline size (RELIABILITY 34: bounded work per request)", () => {
     expect(!refused.ok && refused.message).toMatch(/20001 positions; at most 2000/);
   });
 });
+
+describe("refusals that name the problem (issue 18)", () => {
+  it.each([
+    [{ type: "Point", coordinates: [-117.6, 41.8] }, /not a point/],
+    [{ type: "LineString", coordinates: [[-117.6, 41.8], [-117.5, 41.8]] }, /closed area/],
+    [{ type: "Polygon", coordinates: [] }, /empty/],
+    [{ type: "Polygon", coordinates: [[[41.8, -117.62], [41.8, -117.61], [41.81, -117.61], [41.8, -117.62]]] }, /swapped/],
+    [{ type: "Polygon", coordinates: [[[-217.6, 41.8], [-117.61, 41.8], [-117.61, 41.81], [-217.6, 41.8]]] }, /out of range/],
+    [{ type: "Feature", geometry: null }, /no GeoJSON geometry/],
+    [{ type: "Polygon", coordinates: [[["a", "b"]]] }, /pairs of numbers/],
+  ])("%j", (input, message) => {
+    const r = readBoundary(input);
+    expect(r.ok).toBe(false);
+    expect(!r.ok && r.message).toMatch(message);
+  });
+});

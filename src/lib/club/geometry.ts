@@ -8,6 +8,10 @@ import { polygonSchema, type Polygon } from "../entities/claim";
  */
 export const MAX_CLAIM_POSITIONS = 2000;
 
+/** The largest GeoJSON file the claim editor takes; the server's limit on a claim's body is this plus room for its other fields. */
+export const MAX_CLAIM_FILE_BYTES = 1_000_000;
+export const MAX_CLAIM_BODY_BYTES = MAX_CLAIM_FILE_BYTES + 64_000;
+
 export type GeometryResult = { ok: true; polygon: Polygon } | { ok: false; message: string };
 
 const same = (a: number[], b: number[]) => a[0] === b[0] && a[1] === b[1];
@@ -22,6 +26,42 @@ function checkRings(rings: number[][][], where: string): string | null {
   return null;
 }
 
+const AREA_TYPES = new Set(["Polygon", "MultiPolygon"]);
+
+/** Every position of a geometry's coordinates, however deeply nested. */
+function positionsOf(coordinates: unknown): unknown[][] {
+  if (!Array.isArray(coordinates)) return [];
+  if (coordinates.length > 0 && !Array.isArray(coordinates[0])) return [coordinates];
+  return coordinates.flatMap(positionsOf);
+}
+
+/**
+ * What is wrong with a geometry, in words an officer can act on, before the shape check:
+ * a point or a line where an area is needed, no coordinates at all, positions out of range,
+ * or latitude and longitude in each other's place (GeoJSON puts longitude first).
+ */
+function describeShape(g: { type?: string } | null): string | null {
+  if (!g || typeof g !== "object" || typeof g.type !== "string") return "That file holds no GeoJSON geometry.";
+  const type = g.type;
+  if (!AREA_TYPES.has(type)) {
+    if (type === "Point" || type === "MultiPoint") return `That is a ${type}: a claim needs an area (a Polygon), not a point. Draw its outline.`;
+    if (type === "LineString" || type === "MultiLineString") return `That is a ${type}: a claim needs a closed area (a Polygon). Close the line into an outline.`;
+    if (type === "GeometryCollection") return "That is a GeometryCollection: give the claim's outline alone, as one Polygon or MultiPolygon.";
+    return `"${type}" is not a GeoJSON area: give a Polygon or MultiPolygon.`;
+  }
+  const positions = positionsOf((g as { coordinates?: unknown }).coordinates);
+  if (positions.length === 0) return "That outline is empty: it has no positions.";
+  const numeric = positions.filter((p) => p.length >= 2 && typeof p[0] === "number" && typeof p[1] === "number") as number[][];
+  if (numeric.length !== positions.length) return "Some positions are not pairs of numbers.";
+  const outOfRange = numeric.find(([lon, lat]) => Math.abs(lon) > 180 || Math.abs(lat) > 90);
+  if (outOfRange) {
+    const [lon, lat] = outOfRange;
+    if (Math.abs(lat) > 90 && Math.abs(lat) <= 180 && Math.abs(lon) <= 90) return `A position reads ${lon}, ${lat}: latitude and longitude seem swapped (GeoJSON puts longitude first).`;
+    return `A position (${lon}, ${lat}) is out of range: longitude is within ±180 and latitude within ±90.`;
+  }
+  return null;
+}
+
 /**
  * A claim boundary from GeoJSON: a Polygon or MultiPolygon, bare or in a Feature or a
  * FeatureCollection of one. Refuses unclosed or too-short rings and self-intersections.
@@ -32,6 +72,8 @@ export function readBoundary(input: unknown): GeometryResult {
     if (!Array.isArray(g.features) || g.features.length !== 1) return { ok: false, message: "The file must hold exactly one claim outline (one feature)." };
     g = g.features[0]?.geometry as typeof g;
   } else if (g?.type === "Feature") g = g.geometry as typeof g;
+  const shapeProblem = describeShape(g);
+  if (shapeProblem) return { ok: false, message: shapeProblem };
   const parsed = polygonSchema.safeParse(g);
   if (!parsed.success) return { ok: false, message: "That is not a GeoJSON Polygon or MultiPolygon with [longitude, latitude] positions." };
   const polygon = parsed.data;

@@ -12,6 +12,8 @@ export const claimInputSchema = z
     boundary: z.unknown().optional(),
     /** Corners as "latitude, longitude" lines, an alternative to `boundary`. */
     corners: z.string().max(20_000).optional(),
+    /** Set once the officer has seen which claims the outline overlaps, and means it. */
+    acceptOverlap: z.boolean().default(false),
   })
   .strict();
 

@@ -1,5 +1,8 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { area } from "@turf/area";
+import { feature, featureCollection } from "@turf/helpers";
+import { intersect } from "@turf/intersect";
+import { and, asc, eq, ne, sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import type { z } from "zod";
 import { boundaryFromCorners, readBoundary } from "@/lib/club/geometry";
@@ -49,11 +52,38 @@ function boundaryOf(input: ClaimInput): t.GeoJsonPolygon | null | undefined {
   return r.polygon;
 }
 
-/** Creates or edits a claim; devices receive it at their next sync. Audited with before and after. */
+/** Square metres where two outlines overlap (0 when they only touch along an edge). */
+function overlapArea(a: t.GeoJsonPolygon, b: t.GeoJsonPolygon): number {
+  const shared = intersect(featureCollection([feature(a), feature(b)]));
+  return shared ? area(shared) : 0;
+}
+
+/**
+ * Creates or edits a claim; devices receive it at their next sync. Audited with before and
+ * after. Two claims may not share a name; an outline overlapping another active claim is
+ * saved only once the officer has seen the overlap named (acceptOverlap).
+ */
 export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
   const boundary = boundaryOf(input);
   const db = getDb();
   return db.transaction((tx) => {
+    const sameName = tx
+      .select({ id: t.claims.id })
+      .from(t.claims)
+      .where(and(sql`lower(trim(${t.claims.name})) = lower(trim(${input.name}))`, id ? ne(t.claims.id, id) : undefined))
+      .get();
+    if (sameName) throw new AppError("conflict:claim", `The club already has a claim named ${input.name.trim()}. Give this one another name.`, { name: ["already a claim of that name"] });
+    if (boundary && !input.acceptOverlap) {
+      const others = tx.select({ id: t.claims.id, name: t.claims.name, boundary: t.claims.boundary }).from(t.claims).where(eq(t.claims.active, true)).all();
+      const overlaps = others
+        .filter((o) => o.id !== id && o.boundary)
+        .map((o) => ({ name: o.name, m2: overlapArea(boundary, o.boundary!) }))
+        .filter((o) => o.m2 >= 1);
+      if (overlaps.length) {
+        const list = overlaps.map((o) => `${o.name} (about ${Math.round(o.m2).toLocaleString("en-US")} m²)`).join(", ");
+        throw new AppError("conflict:claim_overlap", `This outline overlaps ${list}. Check the corners; save again to accept the overlap.`, { boundary: [`overlaps ${list}`] });
+      }
+    }
     const values = { name: input.name, kind: input.kind, agencyRef: input.agencyRef, rules: input.rules, active: input.active, ...(boundary !== undefined ? { boundary } : {}) };
     if (id) {
       const before = tx.select().from(t.claims).where(eq(t.claims.id, id)).get();

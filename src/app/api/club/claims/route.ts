@@ -1,3 +1,4 @@
+import { MAX_CLAIM_BODY_BYTES } from "@/lib/club/geometry";
 import { claimInputSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { listClaims, saveClaim } from "@/server/club/claims";
@@ -11,7 +12,7 @@ export const GET = route(async (req) => {
 
 export const POST = route(async (req) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, claimInputSchema, "claim");
+  const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   const actor = await requireActor(req, "manageClaims", "club");
   return json(saveClaim(actor, null, input), { status: 201 });
 });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { MAX_CLAIM_BODY_BYTES } from "@/lib/club/geometry";
 import { claimInputSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { saveClaim } from "@/server/club/claims";
@@ -10,7 +11,7 @@ type Ctx = { params: Promise<{ id: string }> };
 
 export const PUT = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, claimInputSchema, "claim");
+  const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   const actor = await requireActor(req, "manageClaims", "club");
   const id = z.uuid().safeParse((await ctx.params).id);
   if (!id.success) throw new AppError("not_found:claim", "No such claim.");
