@@ -110,13 +110,18 @@ describe("the club ledger", () => {
 
   it("pages through every sort in the sort's order, each find once", async () => {
     const total = sql<{ n: number }>("select count(*) n from finds where deleted_at is null").n;
-    const key: Record<string, (r: { weightGrams: number | null; fineGrams: number | null; memberName: string | null; claimName: string | null; foundAt: number; kind: string }) => number | string | null> = {
+    type Row = { weightGrams: number | null; fineGrams: number | null; value: number | null; memberName: string | null; claimName: string | null; foundAt: number; kind: string; method: string; state: string };
+    const key: Record<string, (r: Row) => number | string | null> = {
       foundAt: (r) => r.foundAt,
       weight: (r) => r.weightGrams,
       fine: (r) => r.fineGrams,
+      // The value each row shows is the key its sort must follow (to the cent: the sort works on the product before rounding).
+      value: (r) => (r.value === null ? null : Math.round(r.value * 1e6) / 1e6),
       member: (r) => r.memberName,
       claim: (r) => r.claimName,
       kind: (r) => r.kind,
+      method: (r) => r.method,
+      state: (r) => r.state,
     };
     for (const [sort, of] of Object.entries(key)) {
       for (const dir of ["asc", "desc"]) {

@@ -17,7 +17,7 @@ const grams = (g: number | null) => (g == null ? "—" : formatGrams(g));
 const money = (v: number | null, c: string | null) => (v == null ? "—" : `${v.toFixed(2)} ${c ?? ""}`);
 const STATE_LABEL = { new: "New", verified: "Verified", queried: "Queried" } as const;
 
-const SORT_IDS: Record<string, string> = { foundAt: "foundAt", memberName: "member", claimName: "claim", kind: "kind", weightGrams: "weight", fineGrams: "fine" };
+const SORT_IDS: Record<string, string> = { foundAt: "foundAt", memberName: "member", claimName: "claim", kind: "kind", method: "method", weightGrams: "weight", fineGrams: "fine", value: "value", state: "state" };
 
 /** A find's fine gold, how it was reached, its range, and a flag when its weigh-in disagrees with its weight. */
 function FineCell({ row }: { row: LedgerRow }) {
@@ -93,14 +93,14 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
         ),
       }),
       col.accessor("kind", { header: "Kind", cell: (c) => KIND_LABELS[c.getValue() as keyof typeof KIND_LABELS] }),
-      col.accessor("method", { header: "Method", enableSorting: false }),
+      col.accessor("method", { header: "Method" }),
       col.accessor("weightGrams", { header: "Weight", cell: (c) => grams(c.getValue()) }),
       col.accessor("fineGrams", {
         header: "Fine gold (est.)",
         cell: (c) => <FineCell row={c.row.original} />,
       }),
-      col.accessor("value", { header: "Value", enableSorting: false, cell: (c) => money(c.getValue(), c.row.original.currency) }),
-      col.accessor("state", { header: "Review", enableSorting: false, cell: (c) => <span data-state={c.getValue()}>{STATE_LABEL[c.getValue()]}</span> }),
+      col.accessor("value", { header: "Value", cell: (c) => money(c.getValue(), c.row.original.currency) }),
+      col.accessor("state", { header: "Review", cell: (c) => <span data-state={c.getValue()}>{STATE_LABEL[c.getValue()]}</span> }),
     ],
     [],
   );

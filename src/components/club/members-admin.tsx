@@ -13,13 +13,15 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
   const router = useRouter();
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [invite, setInvite] = useState({ email: "", role: "member" as Role });
-  const act = async (fn: () => Promise<unknown>, done: string) => {
+  const act = async (fn: () => Promise<unknown>, done: string): Promise<boolean> => {
     try {
       await fn();
       setMessage({ ok: true, text: done });
       router.refresh();
+      return true;
     } catch (error) {
       setMessage({ ok: false, text: error instanceof ApiError ? (Object.values(error.fields)[0]?.[0] ?? error.message) : String(error) });
+      return false;
     }
   };
   const open = invitations;
@@ -53,7 +55,11 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
                   <label className="sr-only" htmlFor={`role-${m.id}`}>
                     Role of {m.name ?? m.email}
                   </label>
-                  <select id={`role-${m.id}`} className="field-input w-auto" value={m.role} onChange={(e) => act(() => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { role: e.target.value } }), "Role changed; their old sessions have ended.")}>
+                  <select id={`role-${m.id}`} className="field-input w-auto" value={m.role} onChange={(e) => {
+                      const role = e.target.value as Role;
+                      if (!window.confirm(`Make ${m.name ?? m.email} ${ROLE_LABELS[role].toLowerCase()}? They are signed out on every device at once and sign in again with the new role.`)) return;
+                      void act(() => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { role } }), "Role changed; their old sessions have ended.");
+                    }}>
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
                         {ROLE_LABELS[r]}
@@ -67,7 +73,10 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
                     <button
                       type="button"
                       className="btn ml-2 px-2 text-sm"
-                      onClick={() => act(() => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { active: !m.active } }), m.active ? "Deactivated: their records stay, their sessions have ended." : "Active again.")}
+                      onClick={() => {
+                        if (m.active && !window.confirm(`Deactivate ${m.name ?? m.email}? They are signed out on every device at once and cannot sign in; their records stay in the club's ledger. Changes still on their phone are not sent until they are active again.`)) return;
+                        void act(() => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { active: !m.active } }), m.active ? "Deactivated: their records stay, their sessions have ended." : "Active again.");
+                      }}
                     >
                       {m.active ? "Deactivate" : "Reactivate"}
                     </button>
@@ -87,7 +96,8 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
           className="flex flex-wrap items-end gap-2"
           onSubmit={(e) => {
             e.preventDefault();
-            void act(() => api("/api/club/invitations", { method: "POST", body: invite }), `Invitation sent to ${invite.email}.`).then(() => setInvite({ email: "", role: "member" }));
+            // Cleared only once sent: a refusal keeps what was typed.
+            void act(() => api("/api/club/invitations", { method: "POST", body: invite }), `Invitation sent to ${invite.email}.`).then((sent) => sent && setInvite({ email: "", role: "member" }));
           }}
         >
           <label className="flex flex-col">

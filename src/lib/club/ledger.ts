@@ -4,7 +4,7 @@ import type { FineBasis } from "../figures/fine-basis";
 import type { Totals } from "./totals";
 
 export const REVIEW_STATES = ["new", "verified", "queried"] as const;
-export const LEDGER_SORTS = ["foundAt", "weight", "fine", "member", "claim", "kind"] as const;
+export const LEDGER_SORTS = ["foundAt", "weight", "fine", "value", "member", "claim", "kind", "method", "state"] as const;
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.");
 const optionalId = z.string().uuid("Not a valid id.").optional().or(z.literal("").transform(() => undefined));

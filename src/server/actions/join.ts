@@ -3,7 +3,8 @@ import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { z } from "zod";
 import { defineAction } from "../action";
-import { acceptInvitation } from "../club/members";
+import { acceptInvitation, openInvitation } from "../club/members";
+import { clubSettings } from "../club/settings";
 import { clientAddress } from "../client-address";
 import { AppError } from "../errors";
 import { spend } from "../limits";
@@ -33,4 +34,22 @@ export const joinClub = defineAction({ public: true }, joinForm, async (input) =
     throw error;
   }
   redirect("/sign-in?joined=1");
+});
+
+/**
+ * Before the person fills in the form: is this link still good? Public like joining, counted
+ * against the same per-address limit, and it says no more than open or not (and the club's
+ * name), so it cannot be used to learn addresses.
+ */
+export const invitationState = defineAction({ public: true }, z.object({ token: z.string().min(1).max(100) }), async (input) => {
+  try {
+    await spend([["joinPerAddress", clientAddress(await headers())]]);
+  } catch (error) {
+    if (error instanceof AppError) return { ok: false, message: error.message };
+    throw error;
+  }
+  const open = input.token.length >= 20 && openInvitation(input.token) !== null;
+  return open
+    ? { ok: true, message: `Welcome to ${clubSettings().name}.` }
+    : { ok: false, message: "This invitation link has been used, withdrawn or has run out. Ask an officer for a new one." };
 });

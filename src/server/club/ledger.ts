@@ -113,13 +113,26 @@ export function ledgerSubtotals(q: LedgerQuery, by: "member" | "claim"): { id: s
   );
 }
 
-const ORDER: Record<LedgerQuery["sort"], string> = {
+/**
+ * A find's value as a sort key: its fine gold times the price of its period, chosen by the
+ * same periods the values are worked out with (numbers only, never text, in the SQL).
+ */
+function valueKey(spans: Span[]): string {
+  const priced = spans.filter((s) => s.price !== null);
+  if (priced.length === 0) return "null";
+  const cases = priced.map((s) => `when f.found_at >= ${Number(s.start)} and f.found_at < ${Number(s.end)} then ${Number(s.price)}`).join(" ");
+  return `f.latest_fine_grams * (case ${cases} else null end)`;
+}
+
+const ORDER: Record<Exclude<LedgerQuery["sort"], "value">, string> = {
   foundAt: "f.found_at",
   weight: "f.weight_grams",
   fine: "f.latest_fine_grams",
   member: "m.name",
   claim: "c.name",
   kind: "f.kind",
+  method: "f.method",
+  state: "f.review_state",
 };
 
 const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName, f.claim_id as claimId, c.name as claimName,
@@ -162,7 +175,8 @@ export function ledgerPage(q: LedgerQuery): LedgerPage {
     // The page is chosen on sort keys alone (for most sorts, from the covering ledger index),
     // then only its rows are read whole: a sort of whole joined rows took 0.25 s on a large
     // club's season. Ties go newest first, then by the row's place in the table (stable).
-    const order = sql.raw(`order by ${ORDER[q.sort]} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.found_at desc, f.rowid`);
+    const key = q.sort === "value" ? valueKey(spans) : ORDER[q.sort];
+    const order = sql.raw(`order by ${key} ${q.dir === "asc" ? "asc" : "desc"} nulls last, f.found_at desc, f.rowid`);
     const chosen = sql`(select f.rowid as rid from finds f ${sql.raw(SORT_JOIN[q.sort] ?? "")} where ${where(q)} ${order} limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}) page`;
     const list = getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS} from ${chosen} join finds f on f.rowid = page.rid ${ROW_JOINS} ${order}`);
     return { rows: withPrices(list, spans), total: summary.finds, summary, page: q.page, pageSize: q.pageSize };

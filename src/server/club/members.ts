@@ -14,6 +14,7 @@ import { logger } from "../log";
 import { sendMail } from "../mail";
 import { invitationMessage } from "../mail/messages";
 import { siteLink } from "../site-link";
+import { clubSettings } from "./settings";
 
 const INVITATION_DAYS = 14;
 const GONE_MESSAGE = "This invitation link has been used, withdrawn or has run out. Ask an officer for a new one.";
@@ -34,7 +35,7 @@ export function listInvitations() {
 }
 
 async function mailInvitation(email: string, token: string, inviter: string) {
-  await sendMail({ to: email, ...invitationMessage(siteLink(`/join#token=${token}`), inviter, INVITATION_DAYS) });
+  await sendMail({ to: email, ...invitationMessage(siteLink(`/join#token=${token}`), inviter, INVITATION_DAYS, clubSettings().name) });
 }
 
 /** Invites someone by e-mail: the link sets their password, once, within 14 days. */

@@ -9,9 +9,10 @@ export function signInLinkMessage(url: string) {
   };
 }
 
-export function invitationMessage(url: string, inviter: string, days: number) {
+export function invitationMessage(url: string, inviter: string, days: number, club: string) {
+  const clubName = withoutBidiControls(club).replace(/[\r\n]+/g, " ");
   return {
-    subject: "You are invited to your club's Lodebook",
-    text: `${withoutBidiControls(inviter)} invites you to keep your prospecting log in Lodebook, with your club.\n\nOpen this link to choose your password. It works once, for ${days} days:\n\n${url}\n\nIf you were not expecting this, ignore it.`,
+    subject: `You are invited to ${clubName}'s Lodebook`,
+    text: `${withoutBidiControls(inviter)} invites you to keep your prospecting log in Lodebook, with ${clubName}.\n\nOpen this link to choose your password. It works once, for ${days} days:\n\n${url}\n\nIf you were not expecting this, ignore it.`,
   };
 }

@@ -5,6 +5,24 @@ import { caughtMailDir, listCaughtMail } from "@/server/mail/caught";
 
 export const metadata: Metadata = { title: "Caught mail" };
 
+/** A message's text with its web addresses as links (http and https only). */
+function Linked({ text }: { text: string }) {
+  const parts = text.split(/(https?:\/\/[^\s<>"]+)/g);
+  return (
+    <>
+      {parts.map((part, i) =>
+        i % 2 === 1 ? (
+          <a key={i} href={part} className="font-bold underline" rel="noreferrer">
+            {part}
+          </a>
+        ) : (
+          part
+        ),
+      )}
+    </>
+  );
+}
+
 /** Development and demo only: what the local mail catcher received. Absent in production. */
 export default async function CaughtMailPage() {
   await requirePageActor("readCaughtMail", "/club/mail");
@@ -21,7 +39,9 @@ export default async function CaughtMailPage() {
           <p className="text-sm text-ink-soft">
             To {m.to.join(", ")} · {m.at}
           </p>
-          <pre className="mt-2 whitespace-pre-wrap break-all font-sans text-sm">{m.text}</pre>
+          <pre className="mt-2 whitespace-pre-wrap break-all font-sans text-sm">
+            <Linked text={m.text} />
+          </pre>
         </article>
       ))}
     </div>
