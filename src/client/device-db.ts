@@ -3,7 +3,9 @@ import type { ClaimView } from "@/lib/entities/claim";
 import type { FineBasis } from "@/lib/figures/fine-basis";
 import type { Find } from "@/lib/entities/find";
 import type { Outing } from "@/lib/entities/outing";
+import type { BarrenRock } from "@/lib/entities/barren-rock";
 import type { Photo } from "@/lib/entities/photo";
+import type { Scale } from "@/lib/entities/scale";
 import type { WeighIn } from "@/lib/entities/weigh-in";
 import type { MutationName } from "@/lib/sync/mutations";
 
@@ -19,6 +21,8 @@ export type LocalOuting = Outing & Local;
 export type ServerFigure = { basis: FineBasis | null; fineGrams: number | null; low: number | null; high: number | null; weighMismatch: boolean };
 export type LocalFind = Find & Local & { figure?: ServerFigure | null };
 export type LocalWeighIn = WeighIn & Local;
+export type LocalScale = Scale & Local;
+export type LocalBarrenRock = BarrenRock & Local;
 /** A photo with its shrunk JPEG and a thumbnail; `uploaded` is 1 once the server holds the bytes. */
 export type LocalPhoto = Photo & Local & { blob: Blob; thumb: Blob; uploaded: 0 | 1 };
 export type LocalReview = { id: string; findId: string; action: "verify" | "query" | "note"; note: string; officerName: string | null; createdAt: number };
@@ -54,6 +58,8 @@ export class LodebookDb extends Dexie {
   finds!: EntityTable<LocalFind, "id">;
   photos!: EntityTable<LocalPhoto, "id">;
   weighIns!: EntityTable<LocalWeighIn, "id">;
+  scales!: EntityTable<LocalScale, "id">;
+  barrenRocks!: EntityTable<LocalBarrenRock, "id">;
   claims!: EntityTable<ClaimView, "id">;
   reviews!: EntityTable<LocalReview, "id">;
   prices!: EntityTable<LocalPrice, "id">;
@@ -101,10 +107,23 @@ export class LodebookDb extends Dexie {
           e.state ??= "pending";
         });
       });
+    // Version 3: the member's scale profiles (with their setup checks) and barren-rock
+    // weigh-ins by claim; weigh-ins made before name no scale.
+    this.version(3)
+      .stores({
+        scales: "id",
+        barrenRocks: "id, claimId, weighedAt",
+      })
+      .upgrade(async (tx) => {
+        await tx.table("weighIns").toCollection().modify((w: Partial<LocalWeighIn>) => {
+          w.scaleId ??= null;
+          w.scaleCheck ??= null;
+        });
+      });
   }
 }
 
-export const DB_VERSION = 2;
+export const DB_VERSION = 3;
 
 let onNewerSchema = () => {
   if (typeof window !== "undefined") window.location.reload();

@@ -1,8 +1,9 @@
 import Dexie from "dexie";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { makeJpeg } from "../../tests/support/jpeg";
-import { closeMemberDbs, databaseNameFor, LodebookDb, memberDb } from "./device-db";
-import { LocalValidationError, newId, saveFind, startOuting } from "./logbook";
+import { closeMemberDbs, databaseNameFor, DB_VERSION, LodebookDb, memberDb } from "./device-db";
+import { addSetupCheck, LocalValidationError, newId, saveFind, saveScale, startOuting } from "./logbook";
+import { judgeSetupCheck } from "@/lib/estimate/setup-check";
 import { readPhotoMeta } from "./photos";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import { DEFAULT_SETTINGS, readSettings, saveSettings } from "./settings";
@@ -81,7 +82,7 @@ describe("device database", () => {
     expect(a.name).not.toBe(b.name);
   });
 
-  it("upgrades a version 1 database to version 2 and keeps its data", async () => {
+  it("upgrades a version 1 database to the current version and keeps its data", async () => {
     const name = databaseNameFor(`upgrade-${Date.now()}`);
     const v1 = new Dexie(name);
     v1.version(1).stores({ outings: "id, startedAt", finds: "id, foundAt, outingId, kind", photos: "id, findId", weighIns: "id, findId", claims: "id", settings: "key", outbox: "++id" });
@@ -89,15 +90,31 @@ describe("device database", () => {
     await v1.table("finds").add({ ...f, updatedAt: 1 });
     await v1.table("photos").add({ id: "p1", findId: f.id });
     await v1.table("outbox").add({ name: "find.put", args: f, entityId: f.id, createdAt: 1 });
+    await v1.table("weighIns").add({ id: "w1", findId: f.id });
     v1.close();
 
     const v2 = new LodebookDb(name);
     await v2.open();
-    expect(v2.verno).toBe(2);
+    expect(v2.verno).toBe(DB_VERSION);
+    // Weigh-ins from before scale profiles name no scale.
+    expect(await v2.weighIns.get("w1")).toMatchObject({ scaleId: null, scaleCheck: null });
+    expect(await v2.scales.count()).toBe(0);
     expect(await v2.finds.get(f.id)).toMatchObject({ weightGrams: 1.23 });
     expect(await v2.photos.where("uploaded").equals(0).count()).toBe(1);
     expect(await v2.outbox.where("state").equals("pending").count()).toBe(1);
     v2.close();
+  });
+
+  it("keeps a scale's setup checks with it, each saved with the scale for camp sync", async () => {
+    const db = freshDb();
+    const scale = await saveScale(db, { id: newId(), name: "Pocket", stepGrams: 0.01, accuracyGrams: null, checks: [] });
+    const input = { method: "hanging" as const, airGrams: [50], waterGrams: [44.42] };
+    const reference = { kind: "copper" as const, label: "Copper", density: 8.96, uncertainty: 0.02 };
+    await addSetupCheck(db, scale.id, { id: newId(), checkedAt: Date.UTC(2026, 6, 1), reference, input, result: judgeSetupCheck(input, reference) });
+    expect((await db.scales.get(scale.id))!.checks).toHaveLength(1);
+    const queued = await db.outbox.toArray();
+    expect(queued.map((e) => e.name)).toEqual(["scale.put", "scale.put"]);
+    expect((queued[1].args as { checks: unknown[] }).checks).toHaveLength(1);
   });
 
   it("keeps settings on the device and queues only the location sharing for the server", async () => {

@@ -1,6 +1,8 @@
 import { v7 as uuidv7 } from "uuid";
+import type { BarrenRock } from "@/lib/entities/barren-rock";
 import type { Find } from "@/lib/entities/find";
 import type { Outing } from "@/lib/entities/outing";
+import type { Scale, SetupCheck } from "@/lib/entities/scale";
 import type { WeighIn } from "@/lib/entities/weigh-in";
 import type { MutationArgs, MutationName } from "@/lib/sync/mutations";
 import type { LodebookDb, OutboxEntry } from "./device-db";
@@ -107,6 +109,48 @@ export async function deleteWeighIn(db: LodebookDb, id: string): Promise<void> {
   await db.transaction("rw", db.weighIns, db.outbox, async () => {
     await db.weighIns.delete(id);
     await enqueue(db, "weighIn.delete", { id }, id);
+  });
+}
+
+export async function saveScale(db: LodebookDb, scale: Scale): Promise<Scale> {
+  const value = (await loadValidation()).checkRecord("scale", scale);
+  await db.transaction("rw", db.scales, db.outbox, async () => {
+    await db.scales.put({ ...value, updatedAt: Date.now() });
+    await enqueue(db, "scale.put", value, value.id);
+  });
+  return value;
+}
+
+/** A setup check joins its scale's history; the scale goes to the club with it. */
+export async function addSetupCheck(db: LodebookDb, scaleId: string, check: SetupCheck): Promise<Scale> {
+  const scale = await db.scales.get(scaleId);
+  if (!scale) throw new Error("That scale is not on this device.");
+  return saveScale(db, { ...stripLocal(scale), checks: [...scale.checks, check] });
+}
+
+/** The scale goes; weigh-ins made on it keep its id and the check they recorded. */
+export async function deleteScale(db: LodebookDb, id: string): Promise<void> {
+  await loadValidation();
+  await db.transaction("rw", db.scales, db.outbox, async () => {
+    await db.scales.delete(id);
+    await enqueue(db, "scale.delete", { id }, id);
+  });
+}
+
+export async function saveBarrenRock(db: LodebookDb, piece: BarrenRock): Promise<BarrenRock> {
+  const value = (await loadValidation()).checkRecord("barrenRock", piece);
+  await db.transaction("rw", db.barrenRocks, db.outbox, async () => {
+    await db.barrenRocks.put({ ...value, updatedAt: Date.now() });
+    await enqueue(db, "barrenRock.put", value, value.id);
+  });
+  return value;
+}
+
+export async function deleteBarrenRock(db: LodebookDb, id: string): Promise<void> {
+  await loadValidation();
+  await db.transaction("rw", db.barrenRocks, db.outbox, async () => {
+    await db.barrenRocks.delete(id);
+    await enqueue(db, "barrenRock.delete", { id }, id);
   });
 }
 

@@ -1,6 +1,8 @@
 import { z } from "zod";
+import { barrenRockSchema } from "@/lib/entities/barren-rock";
 import { findSchema } from "@/lib/entities/find";
 import { outingSchema } from "@/lib/entities/outing";
+import { scaleSchema } from "@/lib/entities/scale";
 import { weighInSchema } from "@/lib/entities/weigh-in";
 import { MUTATION_ARGS, type MutationName } from "@/lib/sync/mutations";
 import { LocalValidationError } from "./local-validation-error";
@@ -19,7 +21,7 @@ function check<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
   return parsed.data;
 }
 
-const RECORDS = { outing: outingSchema, find: findSchema, weighIn: weighInSchema };
+const RECORDS = { outing: outingSchema, find: findSchema, weighIn: weighInSchema, scale: scaleSchema, barrenRock: barrenRockSchema };
 
 export function checkRecord<K extends keyof typeof RECORDS>(kind: K, value: unknown): z.infer<(typeof RECORDS)[K]> {
   return check(RECORDS[kind], value) as z.infer<(typeof RECORDS)[K]>;

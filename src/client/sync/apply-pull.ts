@@ -19,13 +19,13 @@ const figureOf = (v: Record<string, unknown>): ServerFigure => ({
  * still waiting on this device is left as the device has it: that change goes up next.
  */
 export async function applyPullPage(db: LodebookDb, changes: PullChange[], cursor: number, lastMutationId: number): Promise<void> {
-  await db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
+  await db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
     const pendingIds = new Set((await db.outbox.where("state").equals("pending").toArray()).map((e) => e.entityId));
     for (const c of changes) {
       const id = c.op === "put" ? (c.value.id as string) : c.id;
       if (pendingIds.has(id)) continue;
       if (c.op === "del") {
-        const table = { outing: db.outings, find: db.finds, photo: db.photos, weighIn: db.weighIns, claim: db.claims, review: db.reviews, price: db.prices, settings: undefined }[c.entity];
+        const table = { outing: db.outings, find: db.finds, photo: db.photos, weighIn: db.weighIns, scale: db.scales, barrenRock: db.barrenRocks, claim: db.claims, review: db.reviews, price: db.prices, settings: undefined }[c.entity];
         await table?.delete(id);
         continue;
       }
@@ -47,6 +47,12 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
         }
         case "weighIn":
           await db.weighIns.put({ ...pickRecord("weighIn", v), updatedAt });
+          break;
+        case "scale":
+          await db.scales.put({ ...pickRecord("scale", v), updatedAt });
+          break;
+        case "barrenRock":
+          await db.barrenRocks.put({ ...pickRecord("barrenRock", v), updatedAt });
           break;
         case "claim":
           await db.claims.put(pick(v, CLAIM_KEYS) as never);
@@ -87,7 +93,7 @@ export async function beginResync(db: LodebookDb): Promise<void> {
  * whose bytes have not gone up yet (those stay, and go up or are refused with a reason).
  */
 export async function finishResync(db: LodebookDb): Promise<number> {
-  return db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
+  return db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
     const marks = (await db.meta.get("resync"))?.value as string[] | undefined;
     if (!marks) return 0;
     const seen = new Set(marks);
@@ -98,6 +104,8 @@ export async function finishResync(db: LodebookDb): Promise<number> {
       ["find", db.finds],
       ["photo", db.photos],
       ["weighIn", db.weighIns],
+      ["scale", db.scales],
+      ["barrenRock", db.barrenRocks],
       ["claim", db.claims],
       ["review", db.reviews],
       ["price", db.prices],

@@ -56,7 +56,7 @@ async function renumberFrom(db: LodebookDb, from: number): Promise<void> {
  * the device is dropped.
  */
 export async function resetAndResend(db: LodebookDb): Promise<void> {
-  await db.transaction("rw", [db.outbox, db.meta, db.outings, db.finds, db.photos, db.weighIns], async () => {
+  await db.transaction("rw", [db.outbox, db.meta, db.outings, db.finds, db.photos, db.scales, db.weighIns, db.barrenRocks], async () => {
     const now = Date.now();
     const puts: OutboxEntry[] = [];
     const queue = (entity: RecordEntity, record: { id: string } & object) =>
@@ -64,7 +64,10 @@ export async function resetAndResend(db: LodebookDb): Promise<void> {
     (await db.outings.toArray()).forEach((o) => queue("outing", o));
     (await db.finds.toArray()).forEach((f) => queue("find", f));
     (await db.photos.toArray()).filter((p) => p.blob.size > 0).forEach((p) => queue("photo", p));
+    // Scales before the weigh-ins and barren rock that name them.
+    (await db.scales.toArray()).forEach((s) => queue("scale", s));
     (await db.weighIns.toArray()).forEach((w) => queue("weighIn", w));
+    (await db.barrenRocks.toArray()).forEach((b) => queue("barrenRock", b));
     const waiting = await db.outbox.where("state").equals("pending").sortBy("id");
     // A record's waiting put is the record as queued above (or, gone from the device, one a waiting delete undoes).
     const kept = waiting.filter((e) => e.name === "settings.put" || !e.name.endsWith(".put")).map(({ id: _id, mutationId: _m, ...e }) => e);

@@ -1,7 +1,9 @@
+import type { BarrenRock } from "./barren-rock";
 import type { ClaimView } from "./claim";
 import type { Find } from "./find";
 import type { Outing } from "./outing";
 import type { Photo } from "./photo";
+import type { Scale } from "./scale";
 import type { WeighIn } from "./weigh-in";
 
 // The fields of each member record as it syncs, listed once and without zod, so the sync
@@ -11,7 +13,9 @@ import type { WeighIn } from "./weigh-in";
 export const OUTING_KEYS = ["id", "claimId", "startedAt", "endedAt", "companions", "method", "hours", "conditions", "notes"] as const satisfies readonly (keyof Outing)[];
 export const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "purity", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const satisfies readonly (keyof Find)[];
 export const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const satisfies readonly (keyof Photo)[];
-export const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt"] as const satisfies readonly (keyof WeighIn)[];
+export const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt", "scaleId", "scaleCheck"] as const satisfies readonly (keyof WeighIn)[];
+export const SCALE_KEYS = ["id", "name", "stepGrams", "accuracyGrams", "checks"] as const satisfies readonly (keyof Scale)[];
+export const BARREN_ROCK_KEYS = ["id", "claimId", "input", "deviceDensity", "weighedAt", "scaleId", "scaleCheck", "notes"] as const satisfies readonly (keyof BarrenRock)[];
 
 /** A claim as devices keep it (read-only there; officers change claims on the server). */
 export const CLAIM_KEYS = [
@@ -33,7 +37,7 @@ export const CLAIM_KEYS = [
 ] as const satisfies readonly (keyof ClaimView)[];
 
 /** A member record's entity as sync names it, with its record type. */
-export type RecordEntities = { outing: Outing; find: Find; photo: Photo; weighIn: WeighIn };
+export type RecordEntities = { outing: Outing; find: Find; photo: Photo; weighIn: WeighIn; scale: Scale; barrenRock: BarrenRock };
 export type RecordEntity = keyof RecordEntities;
 
 export const RECORD_KEYS: { [E in RecordEntity]: readonly (keyof RecordEntities[E])[] } = {
@@ -41,6 +45,8 @@ export const RECORD_KEYS: { [E in RecordEntity]: readonly (keyof RecordEntities[
   find: FIND_KEYS,
   photo: PHOTO_KEYS,
   weighIn: WEIGH_IN_KEYS,
+  scale: SCALE_KEYS,
+  barrenRock: BARREN_ROCK_KEYS,
 };
 
 /** The record as it syncs: exactly its entity's fields (a missing one as null), nothing a device or server adds. */

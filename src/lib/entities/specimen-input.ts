@@ -29,3 +29,17 @@ export const specimenInputSchema = z
   .strict();
 
 export type SpecimenInputData = z.infer<typeof specimenInputSchema>;
+
+/** What a density measurement records (a setup check, a barren-rock piece): the rig and the readings. */
+export const densityInputSchema = specimenInputSchema.pick({
+  method: true,
+  airGrams: true,
+  waterGrams: true,
+  scaleResolutionGrams: true,
+  scaleAccuracyGrams: true,
+  waterTempC: true,
+  waterTempToleranceC: true,
+  airBuoyancyCorrection: true,
+});
+
+export type DensityInputData = z.infer<typeof densityInputSchema>;

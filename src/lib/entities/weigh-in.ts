@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { idSchema, timestampSchema } from "./common";
+import { scaleCheckRefSchema } from "./scale";
 import { specimenInputSchema } from "./specimen-input";
 
 const pairSchema = z.tuple([z.number(), z.number()]);
@@ -64,6 +65,9 @@ export const weighInSchema = z
     input: specimenInputSchema,
     deviceEstimate: reportedEstimateSchema,
     weighedAt: timestampSchema,
+    /** The member's scale profile it was weighed on, and that scale's latest setup check then. */
+    scaleId: idSchema.nullable().default(null),
+    scaleCheck: scaleCheckRefSchema.nullable().default(null),
   })
   .strict();
 

@@ -1,8 +1,10 @@
 import { z } from "zod";
 import { idSchema } from "../entities/common";
+import { barrenRockSchema } from "../entities/barren-rock";
 import { findSchema } from "../entities/find";
 import { outingSchema } from "../entities/outing";
 import { photoSchema } from "../entities/photo";
+import { scaleSchema } from "../entities/scale";
 import { weighInSchema } from "../entities/weigh-in";
 
 /** Member settings the club's server needs to know (the rest stay on the device). */
@@ -21,6 +23,10 @@ export const MUTATION_ARGS = {
   "photo.delete": z.object({ id: idSchema }).strict(),
   "weighIn.put": weighInSchema,
   "weighIn.delete": z.object({ id: idSchema }).strict(),
+  "scale.put": scaleSchema,
+  "scale.delete": z.object({ id: idSchema }).strict(),
+  "barrenRock.put": barrenRockSchema,
+  "barrenRock.delete": z.object({ id: idSchema }).strict(),
   "settings.put": memberSettingsSchema,
 } as const;
 

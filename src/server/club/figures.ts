@@ -10,9 +10,10 @@ import { statement, type Sqlite } from "../db/rows";
 // Refreshed wherever those change: push, reviews, seeding.
 
 const WEIGH_IN_FIGURES = `
-  (latest_alloy_grams, weighed_fine, weighed_low, weighed_high, weighed_air) = (
+  (latest_alloy_grams, weighed_fine, weighed_low, weighed_high, weighed_air, weighed_scale_checked) = (
     select w.gold_alloy_grams, w.fine_gold_grams,
-      json_extract(w.server_estimate, '$.range.fineGoldGrams[0]'), json_extract(w.server_estimate, '$.range.fineGoldGrams[1]'), w.air_grams
+      json_extract(w.server_estimate, '$.range.fineGoldGrams[0]'), json_extract(w.server_estimate, '$.range.fineGoldGrams[1]'), w.air_grams,
+      coalesce(w.scale_check_passed, 0)
     from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1)`;
 
 const REVIEW_STATE = `
@@ -29,13 +30,16 @@ export function refreshWeighInFigures(sqlite: Sqlite, findId: string): void {
  * later (the same order as WEIGH_IN_FIGURES), without reading the JSON back. An edited or
  * deleted weigh-in can hand the place to another, so those use refreshWeighInFigures.
  */
-export function weighInAdded(sqlite: Sqlite, w: { id: string; findId: string; weighedAt: number; alloyGrams: number; fineGrams: number; fineRange: readonly [number, number]; airGrams: number }): void {
+export function weighInAdded(
+  sqlite: Sqlite,
+  w: { id: string; findId: string; weighedAt: number; alloyGrams: number; fineGrams: number; fineRange: readonly [number, number]; airGrams: number; scaleChecked: boolean },
+): void {
   statement(
     sqlite,
-    `update finds set latest_alloy_grams = ?, weighed_fine = ?, weighed_low = ?, weighed_high = ?, weighed_air = ?
+    `update finds set latest_alloy_grams = ?, weighed_fine = ?, weighed_low = ?, weighed_high = ?, weighed_air = ?, weighed_scale_checked = ?
      where id = ? and not exists (select 1 from weigh_ins w where w.find_id = finds.id and w.deleted_at is null
        and (w.weighed_at > ? or (w.weighed_at = ? and w.id > ?)))`,
-  ).run(w.alloyGrams, w.fineGrams, w.fineRange[0], w.fineRange[1], w.airGrams, w.findId, w.weighedAt, w.weighedAt, w.id);
+  ).run(w.alloyGrams, w.fineGrams, w.fineRange[0], w.fineRange[1], w.airGrams, w.scaleChecked ? 1 : 0, w.findId, w.weighedAt, w.weighedAt, w.id);
 }
 
 /**

@@ -11,6 +11,7 @@ import { logger } from "../log";
 import { inBoundary } from "@/lib/geo";
 import { claimFacts, refreshWeighInFigures, weighInAdded, type ClaimFacts } from "../club/figures";
 import { RejectError } from "./reject";
+import { judgeChecks, namedCheckVerdict, serverDensity } from "./scale-checks";
 
 // Server mutators are plain synchronous functions over the push's one SQLite transaction,
 // on statements prepared once per connection (see ../db/rows).
@@ -22,10 +23,10 @@ import { RejectError } from "./reject";
 export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; claims: Map<string | null, ClaimFacts> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = RecordEntity;
-type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns;
+type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks;
 
-const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns };
-const TABLE_NAME: Record<Entity, string> = { outing: "outings", find: "finds", photo: "photos", weighIn: "weigh_ins" };
+const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns, scale: t.scales, barrenRock: t.barrenRocks };
+const TABLE_NAME: Record<Entity, string> = { outing: "outings", find: "finds", photo: "photos", weighIn: "weigh_ins", scale: "scales", barrenRock: "barren_rocks" };
 
 /**
  * Loads a member record for a write. Another member's record is refused (and logged);
@@ -191,14 +192,15 @@ const MUTATORS: Mutators = {
       deviceEstimate = reported.data;
     }
     const airGrams = w.input.airGrams.reduce((a, b) => a + b, 0) / w.input.airGrams.length;
+    const scaleCheckPassed = namedCheckVerdict(tx.db, actor.id, w.scaleId, w.scaleCheck);
     return () => {
-      const fields = { deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, airGrams, mismatch, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() };
+      const fields = { deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, airGrams, mismatch, scaleCheckPassed, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() };
       upsert(tx, "weighIn", existing, w, actor, fields);
       // A weigh-in moved to another find leaves its first find's figures to be worked out again.
       const movedFrom = (existing as (Owned & { findId?: string }) | undefined)?.findId;
       if (movedFrom && movedFrom !== w.findId) refreshWeighInFigures(tx.db, movedFrom);
       if (existing) refreshWeighInFigures(tx.db, w.findId);
-      else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams, airGrams });
+      else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams, airGrams, scaleChecked: scaleCheckPassed === true });
     };
   },
   "weighIn.delete": (tx, actor, { id }) =>
@@ -206,6 +208,20 @@ const MUTATORS: Mutators = {
       const row = statement(tx.db, "select find_id as findId from weigh_ins where id = ?").get(id) as { findId: string } | undefined;
       if (row) refreshWeighInFigures(tx.db, row.findId);
     }),
+  "scale.put": (tx, actor, scale) => {
+    const existing = loadForWrite(tx, "scale", scale.id, actor, scale);
+    const standing = judgeChecks(scale.id, scale.checks);
+    return () => upsert(tx, "scale", existing, scale, actor, { ...standing, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
+  },
+  "scale.delete": (tx, actor, { id }) => tombstone(tx, "scale", id, actor),
+  "barrenRock.put": (tx, actor, b) => {
+    const existing = loadForWrite(tx, "barrenRock", b.id, actor, b);
+    if (!statement(tx.db, "select 1 from claims where id = ?").get(b.claimId)) throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
+    const scaleCheckPassed = namedCheckVerdict(tx.db, actor.id, b.scaleId, b.scaleCheck);
+    const density = serverDensity(b.input, b.deviceDensity, b.id);
+    return () => upsert(tx, "barrenRock", existing, b, actor, { density, scaleCheckPassed, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
+  },
+  "barrenRock.delete": (tx, actor, { id }) => tombstone(tx, "barrenRock", id, actor),
   "settings.put": (tx, actor, s) => () => {
     const changed = statement(tx.db, "update members set location_sharing = ? where id = ? and location_sharing <> ?").run(s.locationSharing, actor.id, s.locationSharing).changes;
     // Officers' copies of this member's finds change with the setting: they are re-sent once

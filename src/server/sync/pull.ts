@@ -37,7 +37,7 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
     const take = opts.limit + 1;
     const after = (table: { seq: AnySQLiteColumn }) => gt(table.seq, opts.cursor);
     const mine = (table: { memberId: AnySQLiteColumn }): SQL | undefined => (opts.scope === "club" ? undefined : eq(table.memberId, actor.id));
-    const page = <T extends typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns>(table: T) =>
+    const page = <T extends typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks>(table: T) =>
       tx.select().from(table as typeof t.finds).where(and(after(table), mine(table))).orderBy(asc(table.seq)).limit(take).all() as unknown as Row[];
 
     const hidden = opts.scope === "club" ? positionsHiddenFor(tx, actor) : new Set<string>();
@@ -50,6 +50,8 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
       // `stored`: whether the bytes are here, so a device re-sends them if not (a cut upload, a restored server).
       ...changesOf("photo", page(t.photos), (r) => ({ ...publicRecord(r), stored: r.storageKey != null, ...(hidden.has(r.memberId as string) ? { lat: null, lon: null } : {}) })),
       ...changesOf("weighIn", page(t.weighIns)),
+      ...changesOf("scale", page(t.scales)),
+      ...changesOf("barrenRock", page(t.barrenRocks)),
       ...changesOf("review", reviewsAfter(tx, actor, opts, take)),
     ].sort((a, b) => a.seq - b.seq);
 
