@@ -10,6 +10,8 @@ export { parseNumber };
 /** The weigh-in form as typed: strings, so half-typed numbers never jump about. */
 export type WeighFormValues = {
   method: "hanging" | "buoyancy";
+  /** The member's scale profile the readings are taken on ("" when none is named). */
+  scaleId: string;
   readingUnit: MassUnit;
   air: { value: string }[];
   water: { value: string }[];
@@ -37,6 +39,7 @@ const blankReadings = () => Array.from({ length: DEFAULT_REPEATS }, () => ({ val
 
 export const DEFAULT_WEIGH_FORM: WeighFormValues = {
   method: "hanging",
+  scaleId: "",
   readingUnit: "g",
   air: blankReadings(),
   water: blankReadings(),

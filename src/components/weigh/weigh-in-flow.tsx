@@ -3,19 +3,24 @@ import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { DEFAULTS, defaultScaleAccuracy, estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
-import { MASS_UNIT_LABELS, MASS_UNITS, toGrams, convertMass, type MassUnit } from "@/lib/estimate/units";
+import { toGrams, convertMass, type MassUnit } from "@/lib/estimate/units";
+import type { Scale, ScaleCheckRef } from "@/lib/entities/scale";
+import { checkRefOf } from "@/lib/figures/scale-standing";
 import { formatGrams } from "@/lib/format";
 import { EstimatePanel } from "./estimate-panel";
 import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseNumber, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
-import { ReadingsField } from "./readings-field";
+import { MethodChoice, PracticeList, ReadingsPair, ScaleSettings, WaterTemperature } from "./rig-fields";
+import { FailedCheckNotice, ScalePicker } from "./scale-picker";
 import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-profile";
 
 type Props = {
   initial?: Partial<WeighFormValues>;
   /** The find's claim's gold profile, offered (and chosen first) as the host rock and the fineness. */
   claim?: ClaimGold | null;
-  /** Where the flow is part of a find, the finished weigh-in is handed here. */
-  onSave?: (input: SpecimenInput, estimate: SpecimenEstimate) => void | Promise<void>;
+  /** The member's scale profiles to weigh on (none on the open weigh page). */
+  scales?: Scale[];
+  /** Where the flow is part of a find, the finished weigh-in is handed here, with the scale it was made on. */
+  onSave?: (input: SpecimenInput, estimate: SpecimenEstimate, scale: { scaleId: string | null; scaleCheck: ScaleCheckRef | null }) => void | Promise<void>;
 };
 
 type Outcome = {
@@ -26,15 +31,6 @@ type Outcome = {
   errors: Partial<Record<WeighField, string>>;
 };
 
-const PRACTICE = [
-  "Dry the specimen before the reading in air.",
-  "Wet the line, then tare with it already under water.",
-  "Hang the specimen free of the walls and the bottom.",
-  "Brush off air bubbles clinging to it.",
-  "Soak a porous or vuggy specimen until the in-water reading stops moving, and use the settled reading.",
-  "Take three readings of each weighing: their spread shows in the estimate.",
-  "Measure the water's temperature.",
-];
 
 function compute(values: WeighFormValues, claim: ClaimGold | null): Outcome {
   const { input, errors, complete } = toSpecimenInput(values, claim);
@@ -73,7 +69,7 @@ function airEffectText({ correctedGrams, textbookGrams }: AirEffect, unit: MassU
 }
 
 /** The weigh-in: readings in, the estimate out, recomputed as each number is typed. */
-export function WeighInFlow({ initial, claim = null, onSave }: Props) {
+export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Props) {
   const fromClaim = claim ? { hostPreset: CLAIM_PRESET, finenessPreset: CLAIM_PRESET } : {};
   const { register, control, setValue } = useForm<WeighFormValues>({ defaultValues: { ...DEFAULT_WEIGH_FORM, ...initial, ...fromClaim } });
   const values = useWatch({ control }) as WeighFormValues;
@@ -82,6 +78,7 @@ export function WeighInFlow({ initial, claim = null, onSave }: Props) {
   const [saving, setSaving] = useState(false);
 
   const hanging = values.method === "hanging";
+  const scale = scales.find((x) => x.id === values.scaleId);
   const unit = values.readingUnit;
   const e = outcome.errors;
   const step = parseNumber(values.resolution);
@@ -90,93 +87,16 @@ export function WeighInFlow({ initial, claim = null, onSave }: Props) {
   return (
     <div className="grid gap-4 lg:grid-cols-[1fr_minmax(320px,420px)]">
       <form className="flex flex-col gap-5" onSubmit={(ev) => ev.preventDefault()} noValidate aria-label="Weigh-in">
-        <fieldset className="sheet flex flex-col gap-2">
-          <legend className="sr-only">How is it weighed?</legend>
-          <p className="field-label">How is it weighed?</p>
-          <div className="grid gap-2 sm:grid-cols-2">
-            {(
-              [
-                ["hanging", "Hung from the scale", "The scale carries the line; the reading with the specimen under water is its weight in water."],
-                ["buoyancy", "Vessel on the scale", "The water vessel sits on the tared scale and the specimen hangs into it from a stand; the reading is the water it pushes aside."],
-              ] as const
-            ).map(([value, title, text]) => (
-              <label key={value} className={`flex cursor-pointer gap-3 rounded-md border-2 p-3 ${values.method === value ? "border-ochre" : "border-rule"}`}>
-                <input type="radio" value={value} className="mt-1 h-5 w-5 accent-[var(--ochre)]" {...register("method")} />
-                <span>
-                  <span className="block font-bold">{title}</span>
-                  <span className="block text-sm text-ink-soft">{text}</span>
-                </span>
-              </label>
-            ))}
-          </div>
-        </fieldset>
-
-        <details className="sheet" open>
-          <summary className="cursor-pointer font-bold">Good practice before you read the scale</summary>
-          <ul className="mt-2 list-disc pl-5 text-sm">
-            {PRACTICE.map((p) => (
-              <li key={p}>{p}</li>
-            ))}
-          </ul>
-        </details>
+        <MethodChoice register={register} method={values.method} />
+        <PracticeList />
 
         <div className="sheet flex flex-col gap-4">
-          <div className="flex flex-wrap gap-3">
-            <label className="flex flex-col">
-              <span className="field-label">Scale reads in</span>
-              <select className="field-input w-auto" {...register("readingUnit")}>
-                {MASS_UNITS.map((u) => (
-                  <option key={u} value={u}>
-                    {MASS_UNIT_LABELS[u]}
-                  </option>
-                ))}
-              </select>
-            </label>
-            <label className="flex flex-col">
-              <span className="field-label">Scale step</span>
-              <input inputMode="decimal" className="field-input figure w-28" aria-invalid={!!e.resolution} {...register("resolution")} />
-            </label>
-            <label className="flex flex-col">
-              <span className="field-label">Accuracy ±</span>
-              <input inputMode="decimal" className="field-input figure w-28" placeholder={accuracyHint} aria-invalid={!!e.accuracy} aria-describedby="accuracy-hint" {...register("accuracy")} />
-            </label>
-          </div>
-          <p id="accuracy-hint" className="text-sm text-ink-soft">
-            How far one reading may be off, from your scale&apos;s specification (repeatability and linearity). Left blank: {accuracyHint || "a default"} for this step.
-          </p>
-          {(e.resolution || e.accuracy) && <p className="field-error">{e.resolution ?? e.accuracy}</p>}
-          <ReadingsField name="air" label="Dry, in air" hint="The specimen alone on the scale." unit={unit} error={e.air} control={control} register={register} />
-          <ReadingsField
-            name="water"
-            label={hanging ? "Hung under water" : "Vessel reading with it hung inside"}
-            hint={hanging ? "Tare with the wet line under water first, then hang the specimen from it." : "Tare the vessel with the line already in the water, then lower the specimen in."}
-            unit={unit}
-            error={e.water}
-            control={control}
-            register={register}
-          />
+          {scales.length > 0 && <ScalePicker scales={scales} register={register} setValue={setValue} scaleId={values.scaleId} unit={unit} />}
+          <ScaleSettings register={register} errors={e} accuracyHint={accuracyHint} locked={!!scale} />
+          <ReadingsPair register={register} control={control} errors={e} hanging={hanging} unit={unit} />
         </div>
 
-        <div className="sheet flex flex-col gap-3">
-          <div className="flex flex-wrap items-end gap-3">
-            <label className="flex flex-col">
-              <span className="field-label">Water temperature</span>
-              <input inputMode="decimal" className="field-input figure w-28" aria-invalid={!!e.temp} {...register("temp")} />
-            </label>
-            <label className="flex flex-col">
-              <span className="sr-only">Temperature unit</span>
-              <select className="field-input w-auto" {...register("tempUnit")}>
-                <option value="C">°C</option>
-                <option value="F">°F</option>
-              </select>
-            </label>
-            <label className="flex flex-col">
-              <span className="field-label">give or take</span>
-              <input inputMode="decimal" className="field-input figure w-24" {...register("tempTolerance")} />
-            </label>
-          </div>
-          {(e.temp || e.tempTolerance) && <p className="field-error">{e.temp ?? e.tempTolerance}</p>}
-        </div>
+        <WaterTemperature register={register} errors={e} />
 
         <div className="sheet flex flex-col gap-3">
           <label className="flex flex-col">
@@ -267,6 +187,7 @@ export function WeighInFlow({ initial, claim = null, onSave }: Props) {
         </a>
       )}
       <div id="estimate" className="flex flex-col gap-3 lg:sticky lg:top-4 lg:self-start">
+        {scale && <FailedCheckNotice scale={scale} />}
         {outcome.estimate ? (
           <EstimatePanel estimate={outcome.estimate} unit={resultUnit} onUnitChange={setResultUnit} />
         ) : (
@@ -283,7 +204,7 @@ export function WeighInFlow({ initial, claim = null, onSave }: Props) {
             onClick={async () => {
               setSaving(true);
               try {
-                await onSave(outcome.input, outcome.estimate!);
+                await onSave(outcome.input, outcome.estimate!, { scaleId: scale?.id ?? null, scaleCheck: checkRefOf(scale) });
               } finally {
                 setSaving(false);
               }

@@ -9,7 +9,7 @@ import type { PositionState } from "@/client/position";
 import { deleteFind, deleteWeighIn, newId, saveFind, saveWeighIn, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
-import type { LocalFind } from "@/client/device-db";
+import type { LocalFind, LocalWeighIn } from "@/client/device-db";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import type { MassUnit } from "@/lib/estimate/units";
 import { FINE_BASIS_LABELS, weighMismatch } from "@/lib/figures/fine-basis";
@@ -62,6 +62,21 @@ function FineGoldLine({ find, latestAir, unit }: { find: LocalFind; latestAir: n
   );
 }
 
+/** Which scale a weigh-in was made on, and what its last setup check said then. */
+function ScaleLine({ scaleCheck, scaleName }: { scaleCheck: LocalWeighIn["scaleCheck"]; scaleName: string | null }) {
+  if (!scaleName) return null;
+  if (!scaleCheck) return <span className="w-full text-xs text-ink-soft" data-testid="weigh-in-scale" data-standing="unchecked">On {scaleName}, not checked then.</span>;
+  return scaleCheck.passed ? (
+    <span className="w-full text-xs text-moss" data-testid="weigh-in-scale" data-standing="passed">
+      On {scaleName}, whose setup check passed ({formatWhen(scaleCheck.checkedAt)}).
+    </span>
+  ) : (
+    <span className="w-full text-sm font-bold text-rust" data-testid="weigh-in-scale" data-standing="failed">
+      Made on {scaleName}, whose last setup check ({formatWhen(scaleCheck.checkedAt)}) failed: the rig was off, so this estimate may be too.
+    </span>
+  );
+}
+
 export function FindDetailScreen() {
   const hash = useHashParams();
   const id = hash.get("id") ?? "";
@@ -75,6 +90,7 @@ export function FindDetailScreen() {
   const claims = useClaims(db) ?? [];
   const settings = useSettings(db);
   const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);
+  const scales = useLiveQuery(() => db.scales.toArray(), [db]);
   const reviews = useLiveQuery(() => db.reviews.where("findId").equals(id).sortBy("createdAt"), [db, id]);
   // Asked for when the member taps for it; the position code loads then.
   const [position, setPosition] = useState<PositionState>({ kind: "idle" });
@@ -188,6 +204,7 @@ export function FindDetailScreen() {
               <span className="w-full text-xs text-ink-soft" data-testid="weigh-in-engine">
                 {engineLabel(w.deviceEstimate.engineVersion)}
               </span>
+              <ScaleLine scaleCheck={w.scaleCheck} scaleName={scales?.find((x) => x.id === w.scaleId)?.name ?? (w.scaleId ? "a removed scale" : null)} />
               <button
                 type="button"
                 className="btn px-2 text-sm"
@@ -206,8 +223,9 @@ export function FindDetailScreen() {
             <WeighInFlow
               claim={claimGoldOf(claims.find((c) => c.id === find.claimId))}
               initial={{ resolution: settings.scaleResolution, hostPreset: settings.hostPreset, finenessPreset: settings.finenessPreset, tempUnit: settings.tempUnit, readingUnit: "g" }}
-              onSave={async (input, estimate) => {
-                await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now() });
+              scales={scales ?? []}
+              onSave={async (input, estimate, scale) => {
+                await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now(), ...scale });
                 setWeighing(false);
                 requestSync();
               }}

@@ -1,4 +1,5 @@
 "use client";
+import Link from "next/link";
 import { useEffect, useState } from "react";
 import { useSettings } from "@/client/hooks";
 import { useMember } from "@/client/member";
@@ -90,6 +91,14 @@ export function SettingsScreen() {
         ])}
         {select("hostPreset", "Usual host rock", HOST_PRESETS.map((p) => [p.id, p.label]))}
         {select("finenessPreset", "Usual gold", FINENESS_PRESETS.map((p) => [p.id, p.label]))}
+      </section>
+      <section className="sheet flex flex-wrap gap-2" aria-label="Rig and rock">
+        <Link className="btn" href="/scales">
+          Scales and setup checks
+        </Link>
+        <Link className="btn" href="/barren-rock">
+          Barren-rock weigh-ins
+        </Link>
       </section>
       <section className="sheet flex flex-col gap-2" aria-label="Privacy">
         {select("locationSharing", "What officers see of where you found things", [
