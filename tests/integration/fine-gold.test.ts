@@ -179,3 +179,19 @@ describe("figures kept on the find equal a recomputation after any sequence of c
     );
   });
 });
+
+describe("the rule lives in one place", () => {
+  it("the database's triggers are exactly the rule's text in db/fine-figure.ts", async () => {
+    const { figureTriggersSql } = await import("@/server/db/fine-figure");
+    const norm = (s: string) => s.replace(/\s+/g, " ").trim();
+    const inDb = (db.$client.prepare("select sql from sqlite_master where type = 'trigger' and name like 'finds_figure%' order by name").all() as { sql: string }[]).map((r) => norm(r.sql));
+    expect(inDb).toEqual(figureTriggersSql().map(norm).sort());
+  });
+
+  it("the ledger's totals read its covering index, never the table", () => {
+    const plan = db.$client
+      .prepare("explain query plan select count(*), sum(weight_grams), sum(latest_fine_grams), sum(latest_fine_low), sum(latest_fine_high), sum(weigh_mismatch) from finds where deleted_at is null and found_at >= ? and found_at < ?")
+      .all(0, 1) as { detail: string }[];
+    expect(plan.map((p) => p.detail).join(" ")).toMatch(/COVERING INDEX finds_ledger/);
+  });
+});

@@ -3,7 +3,6 @@ import { v7 as uuidv7 } from "uuid";
 import { index, integer, primaryKey, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
 import { FINE_BASES } from "../../lib/figures/fine-basis";
 import { CLAIM_PROFILE_DEFAULTS } from "../../lib/figures/claim-profile";
-import { FINE_FIGURE } from "./fine-figure";
 
 // Time stamps are milliseconds since the epoch, set by the server. Syncable tables carry
 // `seq`, the value of the change sequence at their last write: pull cursors compare it,
@@ -159,12 +158,15 @@ export const finds = sqliteTable("finds", {
   finenessUsedLow: real("fineness_used_low"),
   finenessUsedHigh: real("fineness_used_high"),
   finenessUsedBasis: text("fineness_used_basis", { enum: ["claim_fineness", "club_fineness"] }),
-  // Then the figure itself, derived by SQLite from the inputs above (one rule, FINE_FIGURE):
-  // always equal to a recomputation, whatever order the inputs changed in.
-  fineBasis: text("fine_basis", { enum: FINE_BASES }).generatedAlwaysAs(FINE_FIGURE.basis, { mode: "virtual" }),
-  latestFineGrams: real("latest_fine_grams").generatedAlwaysAs(FINE_FIGURE.fine, { mode: "virtual" }),
-  latestFineLow: real("latest_fine_low").generatedAlwaysAs(FINE_FIGURE.low, { mode: "virtual" }),
-  latestFineHigh: real("latest_fine_high").generatedAlwaysAs(FINE_FIGURE.high, { mode: "virtual" }),
+  // Then the figure itself, worked out by SQLite from the inputs above with one rule
+  // (FINE_FIGURE, db/fine-figure.ts), by triggers on every insert and on every change of an
+  // input, so it always equals a recomputation. Plain columns, not generated ones: SQLite
+  // reads an index on a generated column through the table, and the ledger's totals must come
+  // from its covering index alone.
+  fineBasis: text("fine_basis", { enum: FINE_BASES }),
+  latestFineGrams: real("latest_fine_grams"),
+  latestFineLow: real("latest_fine_low"),
+  latestFineHigh: real("latest_fine_high"),
   /** The find's position lies outside the boundary of the claim it is recorded on (set as it arrives). */
   outsideClaim: integer("outside_claim", { mode: "boolean" }).notNull().default(false),
   /**
@@ -174,7 +176,7 @@ export const finds = sqliteTable("finds", {
    */
   weighedScaleChecked: integer("weighed_scale_checked", { mode: "boolean" }),
   /** The latest weigh-in's air reading is more than a tenth off the find's recorded weight. */
-  weighMismatch: integer("weigh_mismatch", { mode: "boolean" }).generatedAlwaysAs(FINE_FIGURE.weighMismatch, { mode: "virtual" }),
+  weighMismatch: integer("weigh_mismatch", { mode: "boolean" }).notNull().default(false),
   reviewState: text("review_state", { enum: ["new", "verified", "queried"] }).notNull().default("new"),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
