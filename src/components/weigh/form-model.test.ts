@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PENNYWEIGHT_GRAMS } from "@/lib/estimate/units";
-import { CLAIM_PRESET } from "@/lib/figures/claim-profile";
+import { CLAIM_PRESET } from "@/lib/figures/claim-gold";
 import { DEFAULT_WEIGH_FORM, DEFAULT_REPEATS, parseNumber, toSpecimenInput } from "./form-model";
 
 describe("weigh-in form model", () => {

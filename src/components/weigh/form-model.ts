@@ -1,7 +1,7 @@
 import { DEFAULTS } from "@/lib/estimate/input";
 import { ASSAY_HALF_RANGE, FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { SpecimenInput } from "@/lib/estimate/types";
-import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-profile";
+import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-gold";
 import { fahrenheitToCelsius, toGrams, type MassUnit } from "@/lib/estimate/units";
 import { parseNumber } from "@/lib/parse-number";
 

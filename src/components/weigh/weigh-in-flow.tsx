@@ -11,7 +11,7 @@ import { EstimatePanel } from "./estimate-panel";
 import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseNumber, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
 import { MethodChoice, PracticeList, ReadingsPair, ScaleSettings, WaterTemperature } from "./rig-fields";
 import { FailedCheckNotice, ScalePicker } from "./scale-picker";
-import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-profile";
+import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-gold";
 
 type Props = {
   initial?: Partial<WeighFormValues>;

@@ -13,7 +13,7 @@ import type { LocalFind, LocalWeighIn } from "@/client/device-db";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import type { MassUnit } from "@/lib/estimate/units";
 import { FINE_BASIS_LABELS, weighMismatch } from "@/lib/figures/fine-basis";
-import { claimGoldOf } from "@/lib/figures/claim-profile";
+import { claimGoldOf } from "@/lib/figures/claim-gold";
 import { formatGrams, formatWhen } from "@/lib/format";
 import { claimAt } from "@/lib/geo";
 import { engineLabel } from "@/components/weigh/engine-label";

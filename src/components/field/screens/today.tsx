@@ -11,8 +11,7 @@ import { KIND_LABELS } from "@/lib/entities/constants";
 import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/constants";
 import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
-import { seasonBounds, seasonNow } from "@/lib/season";
-import { deviceTimeZone } from "@/lib/time/club-day";
+import { deviceSeasonBounds } from "@/lib/time/device-season";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
 
@@ -22,9 +21,7 @@ export function TodayScreen() {
   const outing = useCurrentOuting(db);
   const claims = useClaims(db);
   // The member's own days, as their phone's clock shows them.
-  const zone = deviceTimeZone();
-  const season = seasonNow(zone);
-  const { start, end } = seasonBounds(season, zone);
+  const { season, start, end } = deviceSeasonBounds();
   const finds = useLiveQuery(() => db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"), [db, start, end]);
   const first = (member.name ?? member.email).split(" ")[0];
   const claimName = (id: string | null) => claims?.find((c) => c.id === id)?.name ?? "no claim";
