@@ -97,6 +97,7 @@ const MATRIX: Record<string, Row> = {
   "POST /api/club/recoveries": { expect: OFFICER_ONLY(400), request: () => ({ init: json("POST", { kind: "melt", claimId: fixture.claim, recordedOn: "2026-11-20", fineGrams: 5, findIds: [uuidv7()] }) }) },
   "PUT /api/club/recoveries/[id]/document": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: { method: "PUT", headers: { "content-type": "application/pdf" }, body: "%PDF-1.4" } }) },
   "GET /api/club/recoveries/[id]/document": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7() }) },
+  "GET /api/club/barren-rock": { expect: OFFICER_ONLY(200), request: () => ({ url: `/api/club/barren-rock?claimId=${fixture.claim}&season=2026` }) },
   "GET /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "PUT /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({ init: json("PUT", { name: "Quillmarsh Gulch Prospectors", currency: "USD", timeZone: "America/Los_Angeles" }) }) },
   "GET /api/club/invitations": { expect: OFFICER_ONLY(200), request: () => ({}) },

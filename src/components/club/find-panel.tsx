@@ -14,7 +14,18 @@ type FindDetail = {
   timeZone: string;
   find: { id: string; memberName: string | null; claimName: string | null; kind: keyof typeof KIND_LABELS; weightGrams: number | null; depthCm: number | null; method: string; notes: string; lat: number | null; lon: number | null; accuracyM: number | null; foundAt: number; positionShared: boolean };
   photos: { id: string }[];
-  weighIns: { id: string; weighedAt: number; input: SpecimenInput; deviceEstimate: ReportedEstimate; serverEstimate: ReportedEstimate; engineVersion: string; mismatch: boolean }[];
+  weighIns: {
+    id: string;
+    weighedAt: number;
+    input: SpecimenInput;
+    deviceEstimate: ReportedEstimate;
+    serverEstimate: ReportedEstimate;
+    engineVersion: string;
+    mismatch: boolean;
+    scaleName: string | null;
+    scaleCheck: { checkedAt: number } | null;
+    scaleCheckPassed: boolean | null;
+  }[];
   reviews: { id: string; action: "verify" | "query" | "note"; note: string; createdAt: number; officerName: string | null }[];
 };
 
@@ -42,6 +53,7 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
         Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine ± {formatGrams(u, "g", u)} (at worst {formatGrams(server.range.fineGoldGrams[0], "g", u)} –{" "}
         {formatGrams(server.range.fineGoldGrams[1], "g", u)}), {engineLabel(w.engineVersion)}
       </p>
+      <ScaleMark w={w} timeZone={timeZone} />
       {w.mismatch && (
         <p className="font-bold text-rust">
           {device.engineVersion === w.engineVersion
@@ -50,6 +62,29 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
         </p>
       )}
     </>
+  );
+}
+
+/** Whether the weigh-in was made on a checked scale: the server's verdict on the scale's latest setup check then. */
+function ScaleMark({ w, timeZone }: { w: FindDetail["weighIns"][number]; timeZone: string }) {
+  const when = w.scaleCheck ? formatWhen(w.scaleCheck.checkedAt, timeZone) : "";
+  const scale = w.scaleName ?? "a scale since removed";
+  if (w.scaleCheckPassed === true)
+    return (
+      <p className="text-moss" data-testid="scale-mark" data-standing="passed">
+        ✓ Checked scale: {scale}, setup check passed {when}.
+      </p>
+    );
+  if (w.scaleCheckPassed === false)
+    return (
+      <p className="font-bold text-rust" data-testid="scale-mark" data-standing="failed">
+        ⚠ Made on {scale}, whose last setup check ({when}) failed: the rig was off, so this estimate may be too.
+      </p>
+    );
+  return (
+    <p className="text-ink-soft" data-testid="scale-mark" data-standing="unchecked">
+      {w.scaleName || w.scaleCheck ? `On ${scale}, not checked then.` : "No scale named; the rig was not checked."}
+    </p>
   );
 }
 

@@ -33,8 +33,14 @@ export function findForOfficer(id: string) {
     find: { ...rest, ...position, positionShared: sharing === "exact" },
     photos: db.select({ id: t.photos.id, width: t.photos.width, height: t.photos.height, uploaded: t.photos.uploadedAt }).from(t.photos).where(eq(t.photos.findId, id)).all().filter((p) => p.uploaded),
     weighIns: db
-      .select({ id: t.weighIns.id, weighedAt: t.weighIns.weighedAt, input: t.weighIns.input, deviceEstimate: t.weighIns.deviceEstimate, serverEstimate: t.weighIns.serverEstimate, engineVersion: t.weighIns.engineVersion, mismatch: t.weighIns.mismatch, deletedAt: t.weighIns.deletedAt })
+      .select({
+        id: t.weighIns.id, weighedAt: t.weighIns.weighedAt, input: t.weighIns.input, deviceEstimate: t.weighIns.deviceEstimate, serverEstimate: t.weighIns.serverEstimate,
+        engineVersion: t.weighIns.engineVersion, mismatch: t.weighIns.mismatch, deletedAt: t.weighIns.deletedAt,
+        // The scale it was made on and the server's verdict on that scale's latest check then.
+        scaleName: t.scales.name, scaleCheck: t.weighIns.scaleCheck, scaleCheckPassed: t.weighIns.scaleCheckPassed,
+      })
       .from(t.weighIns)
+      .leftJoin(t.scales, eq(t.scales.id, t.weighIns.scaleId))
       .where(eq(t.weighIns.findId, id))
       .orderBy(desc(t.weighIns.weighedAt))
       .all()

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { BarrenRock } from "@/components/club/barren-rock";
 import { ClaimEditor } from "@/components/club/claim-editor";
 import { ClaimProfileEditor } from "@/components/club/claim-profile-editor";
 import { ClaimsMap } from "@/components/club/claims-map";
@@ -27,6 +28,7 @@ export default async function ClaimsPage() {
             <ClaimEditor claim={{ ...c, boundary: c.boundary ?? null }} />
             <ClaimProfileEditor claim={c} season={season} />
             <RecoveredGold claim={c} season={season} />
+            <BarrenRock claim={c} season={season} />
           </div>
         </details>
       ))}
