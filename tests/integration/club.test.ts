@@ -182,13 +182,44 @@ describe("the club ledger", () => {
     expect(parsed.data.map((r) => (r.weightGrams === "" ? null : Number(r.weightGrams)))).toEqual(page.rows.map((r: { weightGrams: number | null }) => r.weightGrams));
   });
 
+  it("exports where and how each find was found, positions only where the member shares them, and GeoJSON of claims and finds", async () => {
+    const { GET: getGeoJson } = await import("@/app/api/club/ledger/geojson/route");
+    const hiding = memberByEmail(db, "tobias@quillmarsh.example");
+    db.$client.prepare("update members set location_sharing = 'claim' where id = ?").run(hiding.id);
+    try {
+      const rows = Papa.parse<Record<string, string>>(await (await getCsv(req("/api/club/ledger/csv", { cookie: officer }), none)).text(), { header: true, skipEmptyLines: true }).data;
+      const owner = new Map((db.$client.prepare("select id, member_id m, depth_cm d, outing_id o from finds").all() as { id: string; m: string; d: number | null; o: string | null }[]).map((r) => [r.id, r]));
+      for (const r of rows) {
+        const f = owner.get(r.id)!;
+        if (f.m === hiding.id) expect([r.lat, r.lon]).toEqual(["", ""]);
+        expect(r.depthCm === "" ? null : Number(r.depthCm)).toBe(f.d);
+        expect(r.outingId === "" ? null : r.outingId).toBe(f.o);
+        if (r.lat) expect(r.lat.split(".")[1]?.length ?? 0).toBeLessThanOrEqual(6);
+      }
+      expect(rows.some((r) => r.lat !== "")).toBe(true);
+      const geo = await (await getGeoJson(req("/api/club/ledger/geojson", { cookie: officer }), none)).json();
+      expect(geo.type).toBe("FeatureCollection");
+      const claims = geo.features.filter((f: { properties: { kind: string } }) => f.properties.kind === "claim");
+      const finds = geo.features.filter((f: { properties: { kind: string } }) => f.properties.kind === "find");
+      expect(claims.length).toBe(sql<{ n: number }>("select count(*) n from claims where boundary is not null").n);
+      expect(finds.every((f: { properties: { id: string } }) => owner.get(f.properties.id)!.m !== hiding.id)).toBe(true);
+      expect(finds.length).toBe(rows.filter((r) => r.lat !== "").length);
+      expect(finds[0].geometry.coordinates[0]).toBeLessThan(-100); // longitude first
+    } finally {
+      db.$client.prepare("update members set location_sharing = 'exact' where id = ?").run(hiding.id);
+    }
+  });
+
   it("fine gold in the CSV and the report's subtotals equals the hand computation, for all three kinds of figure", async () => {
     const kinds = sql<{ n: number }>("select count(distinct fine_basis) n from finds where deleted_at is null and fine_basis in ('weighed', 'claim_fineness', 'recorded_purity')").n;
     expect(kinds).toBe(3);
     const byHand = sql<{ fine: number }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null`).fine;
     const res = await getCsv(req("/api/club/ledger/csv", { cookie: officer }), none);
     const rows = Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true }).data;
-    expect(rows.reduce((n, r) => n + (r.fineGrams === "" ? 0 : Number(r.fineGrams)), 0)).toBeCloseTo(byHand, 6);
+    // Each row as exported (to the milligram) is the hand computation of its find, rounded alike.
+    const perFind = new Map((db.$client.prepare(`select f.id, ${FINE_BY_HAND} fine from finds f where f.deleted_at is null`).all() as { id: string; fine: number | null }[]).map((r) => [r.id, r.fine]));
+    for (const r of rows) expect(r.fineGrams === "" ? null : Number(r.fineGrams), r.id).toBe(perFind.get(r.id) == null ? null : Number(perFind.get(r.id)!.toFixed(3)));
+    expect(rows.reduce((n, r) => n + (r.fineGrams === "" ? 0 : Number(r.fineGrams)), 0)).toBeCloseTo(byHand, 1);
     expect(new Set(rows.map((r) => r.fineBasis))).toEqual(new Set(["weighed", "claim_fineness", "recorded_purity"]));
 
     const { ledgerSubtotals } = await import("@/server/club/ledger");

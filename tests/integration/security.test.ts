@@ -80,6 +80,7 @@ const MATRIX: Record<string, Row> = {
   "PATCH /api/club/members/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.bystander, init: json("PATCH", { active: true }) }) },
   "GET /api/club/ledger": { expect: OFFICER_ONLY(200), request: () => ({ url: "/api/club/ledger?pageSize=200" }) },
   "GET /api/club/ledger/csv": { expect: OFFICER_ONLY(200), request: () => ({}) },
+  "GET /api/club/ledger/geojson": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "GET /api/club/finds/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.find }) },
   "POST /api/club/finds/[id]/reviews": { expect: OFFICER_ONLY(201), request: () => ({ id: fixture.find, init: json("POST", { action: "note", note: "looked at it" }) }) },
   "GET /api/club/claims": { expect: OFFICER_ONLY(200), request: () => ({}) },

@@ -143,6 +143,9 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           <a className="btn" href={`/api/club/ledger/csv?${query}`} download>
             Export CSV
           </a>
+          <a className="btn" href={`/api/club/ledger/geojson?${query}`} download>
+            Export GeoJSON
+          </a>
           <a className="btn" href={`/club/report?${query}`}>
             Printable report
           </a>

@@ -60,5 +60,16 @@ export type LedgerRow = {
 export type LedgerSummary = Totals & { value: number; valueLow: number; valueHigh: number; currency: string | null };
 export type LedgerPage = { rows: LedgerRow[]; total: number; summary: LedgerSummary; page: number; pageSize: number };
 
+/** What the export adds to a ledger row: where and how it was found, as the member shares it. */
+export type ExportRow = LedgerRow & {
+  outingId: string | null;
+  outingOn: string | null;
+  depthCm: number | null;
+  notes: string;
+  /** Only where the member shares exact positions with officers. */
+  lat: number | null;
+  lon: number | null;
+};
+
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "outsideClaim", "price", "currency", "value", "state"] as const;
+export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "outingId", "outingOn", "lat", "lon", "depthCm", "notes", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "outsideClaim", "price", "currency", "value", "state"] as const;

@@ -1,7 +1,7 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import { TROY_OUNCE_GRAMS } from "@/lib/estimate/units";
-import type { LedgerPage, LedgerQuery, LedgerRow, LedgerSummary } from "@/lib/club/ledger";
+import type { ExportRow, LedgerPage, LedgerQuery, LedgerRow, LedgerSummary } from "@/lib/club/ledger";
 import { addTotals, NO_TOTALS } from "@/lib/club/totals";
 import { clubDay, currentSeason, dayStart, nextDay, seasonBounds } from "@/lib/time/club-day";
 import { getDb } from "../db";
@@ -180,6 +180,27 @@ export function ledgerPage(q: LedgerQuery): LedgerPage {
     const chosen = sql`(select f.rowid as rid from finds f ${sql.raw(SORT_JOIN[q.sort] ?? "")} where ${where(q)} ${order} limit ${q.pageSize} offset ${(q.page - 1) * q.pageSize}) page`;
     const list = getDb().all<UnpricedRow>(sql`select ${ROW_COLUMNS} from ${chosen} join finds f on f.rowid = page.rid ${ROW_JOINS} ${order}`);
     return { rows: withPrices(list, spans), total: summary.finds, summary, page: q.page, pageSize: q.pageSize };
+  });
+}
+
+const EXPORT_COLUMNS = sql.raw(`f.outing_id as outingId, o.started_at as outingStartedAt, f.depth_cm as depthCm, f.notes,
+  case when m.location_sharing = 'exact' then f.lat end as lat, case when m.location_sharing = 'exact' then f.lon end as lon`);
+
+/**
+ * Every row the filters select with where and how it was found (positions only where the
+ * member shares them), for the CSV and GeoJSON exports (bounded).
+ */
+export function ledgerExportRows(q: LedgerQuery, max = 200_000): ExportRow[] {
+  return getDb().transaction(() => {
+    const tz = clubSettings().timeZone;
+    const list = getDb().all<UnpricedRow & { outingId: string | null; outingStartedAt: number | null; depthCm: number | null; notes: string; lat: number | null; lon: number | null }>(
+      sql`select ${ROW_COLUMNS}, ${EXPORT_COLUMNS} from finds f ${ROW_JOINS} left join outings o on o.id = f.outing_id where ${where(q)} order by f.found_at, f.id limit ${max}`,
+    );
+    const priced = withPrices(list, priceSpans(q.price, tz), tz);
+    return priced.map((r, i) => {
+      const x = list[i];
+      return { ...r, outingId: x.outingId, outingOn: x.outingStartedAt === null ? null : clubDay(x.outingStartedAt, tz), depthCm: x.depthCm, notes: x.notes, lat: x.lat, lon: x.lon };
+    });
   });
 }
 

@@ -1,15 +1,15 @@
 import { LEDGER_CSV_COLUMNS, ledgerQuerySchema } from "@/lib/club/ledger";
+import { exportCells } from "@/lib/club/export-format";
 import { toSafeCsv } from "@/lib/text/safe-text";
 import { requireActor } from "@/server/auth/actor";
-import { ledgerRows } from "@/server/club/ledger";
+import { ledgerExportRows } from "@/server/club/ledger";
 import { parseSearchParams, route } from "@/server/http";
 
-/** The filtered ledger as CSV, every row, not just one page; safe to open in a spreadsheet. */
+/** The filtered ledger as CSV, every row with where and how it was found; safe to open in a spreadsheet. */
 export const GET = route(async (req) => {
   const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   await requireActor(req, "viewLedger", "club");
-  const rows = ledgerRows(query).map((r) => ({ ...r, foundAt: new Date(r.foundAt).toISOString() }));
-  const csv = toSafeCsv(LEDGER_CSV_COLUMNS, rows.map((r) => LEDGER_CSV_COLUMNS.map((c) => r[c])));
+  const csv = toSafeCsv(LEDGER_CSV_COLUMNS, ledgerExportRows(query).map((r) => exportCells(r, LEDGER_CSV_COLUMNS)));
   return new Response(csv, {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
