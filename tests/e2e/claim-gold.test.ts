@@ -56,6 +56,19 @@ describe("a claim's gold learned from a melt, and a member's next weigh-in start
     await page.screenshot({ path: shotPath("claim-melt-proposal-laptop"), fullPage: true });
     await proposal.getByRole("button", { name: "Use the proposed fineness" }).click();
     await details.locator("summary", { hasText: `gold ${range[1]}–${range[2]} ‰` }).waitFor();
+
+    // The claim's landowner agreement, then its statement for the season.
+    const editor = details.getByRole("form", { name: `Edit ${claim.name}` });
+    await editor.getByLabel("Landowner (for the landowner's statement)").fill("Halvorsen Ranch Trust (invented)");
+    await editor.getByLabel("Royalty").selectOption("percent_of_value");
+    await editor.getByLabel("Rate").fill("5");
+    await editor.getByRole("button", { name: "Save the claim" }).click();
+    await editor.getByRole("status").filter({ hasText: /Saved/ }).waitFor();
+    await page.goto(`${baseUrl}/club/report?claimId=${claim.id}&season=${new Date().getUTCFullYear()}&form=landowner`);
+    const statement = page.getByTestId("landowner-statement");
+    await statement.getByText("To Halvorsen Ranch Trust (invented)").waitFor();
+    expect(await statement.getByTestId("royalty").textContent()).toMatch(/5 % of the value at the club's reference price: [\d.]+ USD/);
+    await page.screenshot({ path: shotPath("landowner-statement-laptop"), fullPage: true });
     await context.close();
 
     // The member's phone: sync, open a find on that claim, and start a weigh-in.

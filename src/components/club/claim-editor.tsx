@@ -3,15 +3,37 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useDropzone } from "react-dropzone";
 import { MAX_CLAIM_FILE_BYTES, MAX_CLAIM_POSITIONS, readBoundary } from "@/lib/club/geometry";
+import { decimalMarkOf, parseNumber } from "@/lib/parse-number";
 import type { Polygon } from "@/lib/entities/claim";
 import { api, ApiError } from "./api";
 
-export type EditableClaim = { id: string; name: string; kind: "placer" | "lode"; agencyRef: string | null; rules: string; active: boolean; boundary: Polygon | null };
+export type EditableClaim = {
+  id: string;
+  name: string;
+  kind: "placer" | "lode";
+  agencyRef: string | null;
+  rules: string;
+  active: boolean;
+  boundary: Polygon | null;
+  landowner: string | null;
+  royaltyKind: "percent_of_value" | "grams_per_troy_ounce" | null;
+  royaltyRate: number | null;
+};
 
 /** Create or edit a claim: details, and a boundary from a GeoJSON file or typed corners. */
 export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
   const router = useRouter();
-  const [form, setForm] = useState({ name: claim?.name ?? "", kind: claim?.kind ?? "placer", agencyRef: claim?.agencyRef ?? "", rules: claim?.rules ?? "", active: claim?.active ?? true, corners: "" });
+  const [form, setForm] = useState({
+    name: claim?.name ?? "",
+    kind: claim?.kind ?? "placer",
+    agencyRef: claim?.agencyRef ?? "",
+    rules: claim?.rules ?? "",
+    active: claim?.active ?? true,
+    corners: "",
+    landowner: claim?.landowner ?? "",
+    royaltyKind: claim?.royaltyKind ?? "",
+    royaltyRate: claim?.royaltyRate == null ? "" : String(claim.royaltyRate),
+  });
   const [boundary, setBoundary] = useState<Polygon | null | undefined>(undefined);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [status, setStatus] = useState<string | null>(null);
@@ -49,6 +71,9 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
         rules: form.rules,
         active: form.active,
         acceptOverlap,
+        landowner: form.landowner.trim() || null,
+        royaltyKind: form.royaltyKind || null,
+        royaltyRate: form.royaltyRate.trim() === "" ? null : (parseNumber(form.royaltyRate, decimalMarkOf(navigator.language)) ?? null),
         ...(boundary !== undefined ? { boundary } : {}),
         ...(form.corners.trim() ? { corners: form.corners } : {}),
       };
@@ -86,6 +111,26 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
         <input type="checkbox" className="h-5 w-5" checked={form.active} onChange={(e) => setForm({ ...form, active: e.target.checked })} />
         Active (offered for new finds; a retired claim is kept for its history)
       </label>
+      <label className="flex flex-col">
+        <span className="field-label">Landowner (for the landowner&apos;s statement)</span>
+        <input className="field-input" value={form.landowner} onChange={(e) => setForm({ ...form, landowner: e.target.value })} aria-invalid={!!errors.landowner} />
+        {errors.landowner && <span className="field-error">{errors.landowner}</span>}
+      </label>
+      <div className="grid grid-cols-2 gap-2">
+        <label className="flex flex-col">
+          <span className="field-label">Royalty</span>
+          <select className="field-input" value={form.royaltyKind} onChange={(e) => setForm({ ...form, royaltyKind: e.target.value as typeof form.royaltyKind })}>
+            <option value="">None</option>
+            <option value="percent_of_value">% of the value</option>
+            <option value="grams_per_troy_ounce">g per troy ounce</option>
+          </select>
+        </label>
+        <label className="flex flex-col">
+          <span className="field-label">Rate</span>
+          <input inputMode="decimal" className="field-input figure" value={form.royaltyRate} onChange={(e) => setForm({ ...form, royaltyRate: e.target.value })} aria-invalid={!!errors.royaltyRate} />
+          {errors.royaltyRate && <span className="field-error">{errors.royaltyRate}</span>}
+        </label>
+      </div>
       <label className="flex flex-col md:col-span-2">
         <span className="field-label">Rules for members</span>
         <textarea rows={3} className="field-input" value={form.rules} onChange={(e) => setForm({ ...form, rules: e.target.value })} />

@@ -149,6 +149,11 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           <a className="btn" href={`/club/report?${query}`}>
             Printable report
           </a>
+          {params.get("claimId") && (
+            <a className="btn" href={`/club/report?${query}&form=landowner`}>
+              Landowner&apos;s statement
+            </a>
+          )}
         </div>
       </div>
       <form className="sheet grid grid-cols-2 gap-2 md:grid-cols-4 xl:grid-cols-8" aria-label="Ledger filters" onSubmit={(e) => e.preventDefault()}>

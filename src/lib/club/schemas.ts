@@ -14,8 +14,13 @@ export const claimInputSchema = z
     corners: z.string().max(20_000).optional(),
     /** Set once the officer has seen which claims the outline overlaps, and means it. */
     acceptOverlap: z.boolean().default(false),
+    landowner: z.string().trim().max(200, "At most 200 characters.").nullable().default(null),
+    royaltyKind: z.enum(["percent_of_value", "grams_per_troy_ounce"], { error: "Choose a share of the value or grams per troy ounce." }).nullable().default(null),
+    royaltyRate: z.number({ error: "Give the royalty as a number." }).min(0, "A royalty cannot be negative.").max(100, "At most 100.").nullable().default(null),
   })
-  .strict();
+  .strict()
+  .refine((c) => (c.royaltyKind === null) === (c.royaltyRate === null), { message: "Give both the kind of royalty and its rate, or neither.", path: ["royaltyRate"] })
+  .refine((c) => c.royaltyKind !== "grams_per_troy_ounce" || (c.royaltyRate ?? 0) <= 31.1034768, { message: "At most 31.1 g per troy ounce (all of it).", path: ["royaltyRate"] });
 
 /**
  * A claim's gold profile as an officer sets it: each quantity as its range, whose middle is its

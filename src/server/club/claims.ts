@@ -33,7 +33,20 @@ const PROFILE_COLUMNS = {
 
 export function listClaims() {
   return getDb()
-    .select({ id: t.claims.id, name: t.claims.name, kind: t.claims.kind, agencyRef: t.claims.agencyRef, boundary: t.claims.boundary, rules: t.claims.rules, active: t.claims.active, updatedAt: t.claims.updatedAt, ...PROFILE_COLUMNS })
+    .select({
+      id: t.claims.id,
+      name: t.claims.name,
+      kind: t.claims.kind,
+      agencyRef: t.claims.agencyRef,
+      boundary: t.claims.boundary,
+      rules: t.claims.rules,
+      active: t.claims.active,
+      updatedAt: t.claims.updatedAt,
+      landowner: t.claims.landowner,
+      royaltyKind: t.claims.royaltyKind,
+      royaltyRate: t.claims.royaltyRate,
+      ...PROFILE_COLUMNS,
+    })
     .from(t.claims)
     .orderBy(asc(t.claims.name))
     .all();
@@ -84,7 +97,17 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
         throw new AppError("conflict:claim_overlap", `This outline overlaps ${list}. Check the corners; save again to accept the overlap.`, { boundary: [`overlaps ${list}`] });
       }
     }
-    const values = { name: input.name, kind: input.kind, agencyRef: input.agencyRef, rules: input.rules, active: input.active, ...(boundary !== undefined ? { boundary } : {}) };
+    const values = {
+      name: input.name,
+      kind: input.kind,
+      agencyRef: input.agencyRef,
+      rules: input.rules,
+      active: input.active,
+      landowner: input.landowner,
+      royaltyKind: input.royaltyKind,
+      royaltyRate: input.royaltyRate,
+      ...(boundary !== undefined ? { boundary } : {}),
+    };
     if (id) {
       const before = tx.select().from(t.claims).where(eq(t.claims.id, id)).get();
       if (!before) throw new AppError("not_found:claim", "No such claim.");

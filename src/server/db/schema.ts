@@ -94,6 +94,11 @@ export const claims = sqliteTable("claims", {
   hostDensityLow: real("host_density_low").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensityLow),
   hostDensityHigh: real("host_density_high").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensityHigh),
   hostDensitySource: text("host_density_source").notNull().default(CLAIM_PROFILE_DEFAULTS.hostDensitySource),
+  // The landowner's agreement, when the claim's land has one: to whom, and the royalty it sets
+  // (a share of the value, or grams owed per troy ounce of fine gold).
+  landowner: text("landowner"),
+  royaltyKind: text("royalty_kind", { enum: ["percent_of_value", "grams_per_troy_ounce"] }),
+  royaltyRate: real("royalty_rate"),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
   seq: seq(),

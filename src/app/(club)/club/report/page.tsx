@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { PrintButton } from "@/components/club/print-button";
+import { LandownerStatement } from "@/components/club/landowner-statement";
 import { ReportFigures, ReportSubtotals, ReportTotals } from "@/components/club/report-parts";
 import { ledgerQuerySchema } from "@/lib/club/ledger";
 import { KIND_LABELS } from "@/lib/entities/find";
@@ -27,7 +28,8 @@ const REPORT_ROWS = 5000;
  */
 export default async function ReportPage({ searchParams }: Props) {
   await requirePageActor("viewLedger", "/club/report");
-  const parsed = ledgerQuerySchema.safeParse(await searchParams);
+  const { form, ...filters } = await searchParams;
+  const parsed = ledgerQuerySchema.safeParse(filters);
   if (!parsed.success) return <p className="field-error">These report filters are not valid: {parsed.error.issues[0].message}</p>;
   const q = parsed.data;
   const { summary } = ledgerPage({ ...q, page: 1, pageSize: 1 });
@@ -41,6 +43,10 @@ export default async function ReportPage({ searchParams }: Props) {
   const claimLabel = new Map(claims.map((c) => [c.id, `${plain(c.name)}${c.agencyRef ? ` (${plain(c.agencyRef)})` : ""}`]));
   const printedOn = clubDay(new Date().getTime(), club.timeZone);
   const period = q.season ? `Season ${q.season}` : q.from || q.to ? `${q.from ?? "…"} to ${q.to ?? "…"}` : "All seasons";
+  if (form === "landowner") {
+    if (!claim) return <p className="field-error">Choose a claim in the ledger&apos;s filters for its landowner&apos;s statement.</p>;
+    return <LandownerStatement club={plain(club.name)} claim={claim} claimLabel={claimLabel.get(claim.id) ?? claim.name} period={period} summary={summary} printedOn={printedOn} />;
+  }
   const byMember = ledgerSubtotals(q, "member").map((g) => ({ label: memberName.get(g.id ?? "") ?? "—", summary: g.summary }));
   const byClaim = ledgerSubtotals(q, "claim").map((g) => ({ label: g.id ? (claimLabel.get(g.id) ?? "—") : "Off the club's claims", summary: g.summary }));
 
