@@ -28,12 +28,16 @@ export function CheckVerdict({ result }: { result: SetupCheckResult }) {
   return (
     <section className={`sheet flex flex-col gap-2 border-2 ${result.passed ? "border-moss" : "border-rust"}`} aria-live="polite" data-testid="check-verdict" data-passed={result.passed}>
       <h2 className={`text-lg font-bold ${result.passed ? "text-moss" : "text-rust"}`}>{result.passed ? "The rig reads true" : "The rig is off"}</h2>
-      <p className="figure">
-        Measured <strong data-testid="check-measured">{g3(result.measuredDensity)}</strong> ± {g3(result.measuredUncertainty)} g/cm³ against the reference&apos;s{" "}
-        {g3(result.referenceDensity)} ± {g3(result.referenceUncertainty)}.
+      <p>
+        Measured{" "}
+        <span className="figure">
+          <strong data-testid="check-measured">{g3(result.measuredDensity)}</strong> ± {g3(result.measuredUncertainty)} g/cm³
+        </span>{" "}
+        against the reference&apos;s <span className="figure">{g3(result.referenceDensity)} ± {g3(result.referenceUncertainty)}</span>.
       </p>
-      <p className="figure font-bold" data-testid="check-off">
-        Off by {signed(result.difference, 3)} g/cm³ ({signed(result.differencePercent, 2)} %); expected error ± {g3(result.allowedDifference)} g/cm³.
+      <p className="font-bold" data-testid="check-off">
+        Off by <span className="figure">{signed(result.difference, 3)} g/cm³</span> <span className="figure">({signed(result.differencePercent, 2)} %)</span>; expected error{" "}
+        <span className="figure">± {g3(result.allowedDifference)} g/cm³</span>.
       </p>
       <p className="text-xs text-ink-soft">
         Expected error: {CHECK_COVERAGE} × the combined standard uncertainty of the measured density (from the readings, the scale&apos;s accuracy and the

@@ -35,9 +35,10 @@ function ScaleCard({ scale }: { scale: LocalScale }) {
             {history.map((c) => (
               <li key={c.id} className="border-b border-rule py-1" data-passed={c.result.passed}>
                 {formatWhen(c.checkedAt)} · {c.reference.label} · <strong className={c.result.passed ? "text-moss" : "text-rust"}>{c.result.passed ? "passed" : "failed"}</strong>
+                {" "}
+                · <span className="figure">{c.result.measuredDensity.toFixed(3)}</span> for <span className="figure">{c.reference.density} g/cm³</span>{" "}
                 <span className="figure">
-                  {" "}
-                  · {c.result.measuredDensity.toFixed(3)} for {c.reference.density} g/cm³ ({c.result.differencePercent >= 0 ? "+" : "−"}
+                  ({c.result.differencePercent >= 0 ? "+" : "−"}
                   {Math.abs(c.result.differencePercent).toFixed(2)} %)
                 </span>
               </li>
