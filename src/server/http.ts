@@ -98,3 +98,13 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
 export function json(data: unknown, init?: ResponseInit): Response {
   return NextResponse.json(data, { ...init, headers: { "Cache-Control": "no-store", ...init?.headers } });
 }
+
+/**
+ * A route's [id] as a UUID. A malformed id answers exactly as an unknown one does (404 with the
+ * subject's message), so ids cannot be probed by their shape.
+ */
+export async function routeId(ctx: { params: Promise<{ id: string }> }, subject: string, message: string): Promise<string> {
+  const parsed = z.uuid().safeParse((await ctx.params).id);
+  if (!parsed.success) throw new AppError(`not_found:${subject}`, message);
+  return parsed.data;
+}

@@ -12,9 +12,8 @@ import { v7 as uuidv7 } from "uuid";
 import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
 import { resetLimits } from "@/server/limits";
-import { mailSettled } from "@/server/mail";
 import { safeReturnPath } from "@/lib/web/return-path";
-import { startMailCatcher } from "../../scripts/lib/mail-catcher";
+import { startTestMail } from "../support/mail";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
 import { NO_TOTALS } from "@/lib/club/totals";
 import { makeJpeg } from "../support/jpeg";
@@ -28,40 +27,21 @@ const ORIGIN = "https://club.example";
 const none = { params: Promise.resolve({}) };
 
 let db: Db;
-let mailDir: string;
-let catcher: { close: () => Promise<void> };
+let mail: Awaited<ReturnType<typeof startTestMail>>;
 
-/** What the catcher holds once every mail the server handed off has been sent. */
-async function caughtMail(): Promise<{ to: string[]; subject: string; text: string }[]> {
-  await mailSettled();
-  return fs
-    .readdirSync(mailDir)
-    .sort()
-    .map((f) => JSON.parse(fs.readFileSync(path.join(mailDir, f), "utf8")));
-}
-const clearMail = () => {
-  for (const f of fs.readdirSync(mailDir)) fs.rmSync(path.join(mailDir, f));
-};
+const caughtMail = () => mail.caught();
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
-  mailDir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-attack-mail-"));
-  const port = 20000 + Math.floor(Math.random() * 20000);
-  process.env.SMTP_PORT = String(port);
-  catcher = await startMailCatcher({ port, dir: mailDir });
+  mail = await startTestMail("attack");
 });
-afterAll(async () => {
-  await catcher.close();
-  fs.rmSync(mailDir, { recursive: true, force: true });
-});
+afterAll(() => mail.stop());
 beforeEach(async () => {
   vi.stubEnv("LODEBOOK_ORIGIN", ORIGIN);
   vi.stubEnv("AUTH_URL", "");
   resetLimits();
   resetSignInGuard();
-  // Mail from the test before is sent after its answers: let it land before clearing.
-  await mailSettled();
-  clearMail();
+  await mail.clear();
 });
 afterEach(() => {
   vi.unstubAllEnvs();

@@ -1,15 +1,11 @@
 import crypto from "node:crypto";
-import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { POST as postInvitation } from "@/app/api/club/invitations/route";
 import { GET as getMe } from "@/app/api/me/route";
 import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
 import { resetLimits } from "@/server/limits";
-import { mailSettled } from "@/server/mail";
-import { startMailCatcher } from "../../scripts/lib/mail-catcher";
+import { startTestMail } from "../support/mail";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
 import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
 
@@ -19,41 +15,22 @@ const ORIGIN = "https://club.example";
 const none = { params: Promise.resolve({}) };
 
 let db: Db;
-let mailDir: string;
-let catcher: { close: () => Promise<void> };
+let mail: Awaited<ReturnType<typeof startTestMail>>;
 
-/** What the catcher holds once every mail the server handed off has been sent. */
-async function caughtMail(): Promise<{ to: string[]; subject: string; text: string }[]> {
-  await mailSettled();
-  return fs
-    .readdirSync(mailDir)
-    .sort()
-    .map((f) => JSON.parse(fs.readFileSync(path.join(mailDir, f), "utf8")));
-}
-const clearMail = () => {
-  for (const f of fs.readdirSync(mailDir)) fs.rmSync(path.join(mailDir, f));
-};
+const caughtMail = () => mail.caught();
 const links = (text: string) => text.match(/https?:\/\/[^\s"<>]+/g) ?? [];
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
-  mailDir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-doors-mail-"));
-  const port = 20000 + Math.floor(Math.random() * 20000);
-  process.env.SMTP_PORT = String(port);
-  catcher = await startMailCatcher({ port, dir: mailDir });
+  mail = await startTestMail("doors");
 });
-afterAll(async () => {
-  await catcher.close();
-  fs.rmSync(mailDir, { recursive: true, force: true });
-});
+afterAll(() => mail.stop());
 beforeEach(async () => {
   vi.stubEnv("LODEBOOK_ORIGIN", ORIGIN);
   vi.stubEnv("AUTH_URL", "");
   resetLimits();
   resetSignInGuard();
-  // Mail from the test before is sent after its answers: let it land before clearing.
-  await mailSettled();
-  clearMail();
+  await mail.clear();
 });
 afterEach(() => {
   vi.unstubAllEnvs();

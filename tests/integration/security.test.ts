@@ -17,7 +17,7 @@ type Handler = (req: Request, ctx: unknown) => Response | Promise<Response>;
 
 let db: Db;
 const cookies: Record<Role, string> = { anonymous: "", member: "", other: "", officer: "" };
-const fixture = { photoToUpload: "", photoToRead: "", photoBytes: Buffer.alloc(0) as Buffer, readBytes: Buffer.alloc(0) as Buffer, find: "", invitation: "", claim: "", bystander: "", otherLat: "", memberLat: "" };
+const fixture = { photoToUpload: "", photoToRead: "", photoBytes: Buffer.alloc(0) as Buffer, readBytes: Buffer.alloc(0) as Buffer, find: "", invitation: "", claim: "", claimName: "", bystander: "", otherLat: "", memberLat: "" };
 
 const sha = (b: Buffer) => crypto.createHash("sha256").update(b).digest("hex");
 const json = (method: string, body: unknown) => ({ method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
@@ -47,7 +47,7 @@ beforeAll(async () => {
   const { PUT } = await import("@/app/api/photos/[id]/route");
   expect((await PUT(req("/x", { method: "PUT", cookie: cookies.member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(fixture.readBytes) }), { params: Promise.resolve({ id: fixture.photoToRead }) })).status).toBe(201);
   fixture.find = (db.$client.prepare("select id from finds where member_id = ? limit 1").get(m.id) as { id: string }).id;
-  fixture.claim = (db.$client.prepare("select id from claims limit 1").get() as { id: string }).id;
+  ({ id: fixture.claim, name: fixture.claimName } = db.$client.prepare("select id, name from claims limit 1").get() as { id: string; name: string });
   const other = memberByEmail(db, OTHER_MEMBER_EMAIL);
   const latOf = (id: string) => String((db.$client.prepare("select lat from finds where member_id = ? and lat is not null limit 1").get(id) as { lat: number }).lat);
   fixture.otherLat = latOf(other.id);
@@ -85,7 +85,7 @@ const MATRIX: Record<string, Row> = {
   "POST /api/club/finds/[id]/reviews": { expect: OFFICER_ONLY(201), request: () => ({ id: fixture.find, init: json("POST", { action: "note", note: "looked at it" }) }) },
   "GET /api/club/claims": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "POST /api/club/claims": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { name: `Matrix ${uuidv7()}`, kind: "placer" }) }) },
-  "PUT /api/club/claims/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("PUT", { name: "Larkspur Bench", kind: "placer" }) }) },
+  "PUT /api/club/claims/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("PUT", { name: fixture.claimName, kind: "placer" }) }) },
   "PUT /api/club/claims/[id]/profile": {
     expect: OFFICER_ONLY(200),
     request: () => ({ id: fixture.claim, init: json("PUT", { finenessLow: 700, finenessHigh: 950, finenessSource: "Club preset", hostDensityLow: 2.62, hostDensityHigh: 2.68, hostDensitySource: "Club preset" }) }),

@@ -6,10 +6,10 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { REVIEW_STATES, type LedgerPage, type LedgerRow, type LedgerSummary } from "@/lib/club/ledger";
 import { FINE_BASIS_LABELS, type FineBasis } from "@/lib/figures/fine-basis";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
-import { gramsToPennyweights, gramsToTroyOunces } from "@/lib/estimate/units";
 import { formatGrams } from "@/lib/format";
 import { api } from "./api";
 import { FindPanel } from "./find-panel";
+import { MassTotal } from "./report-parts";
 
 type Option = { id: string; name: string | null };
 const col = createColumnHelper<LedgerRow>();
@@ -184,22 +184,11 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           </div>
           <div>
             <p className="text-sm text-ink-soft">Recorded weight</p>
-            <p className="figure text-xl font-bold">{formatGrams(s.weightGrams)}</p>
-            <p className="figure text-sm">
-              {gramsToTroyOunces(s.weightGrams).toFixed(3)} ozt · {gramsToPennyweights(s.weightGrams).toFixed(2)} dwt
-            </p>
+            <MassTotal grams={s.weightGrams} />
           </div>
           <div>
             <p className="text-sm text-ink-soft">Fine gold (est.)</p>
-            <p className="figure text-xl font-bold" data-testid="total-fine">
-              {formatGrams(s.fineGrams)}
-            </p>
-            <p className="figure text-sm">
-              {gramsToTroyOunces(s.fineGrams).toFixed(3)} ozt · {gramsToPennyweights(s.fineGrams).toFixed(2)} dwt
-            </p>
-            <p className="figure text-sm text-ink-soft">
-              at worst {formatGrams(s.fineLow)} – {formatGrams(s.fineHigh)}
-            </p>
+            <MassTotal grams={s.fineGrams} low={s.fineLow} high={s.fineHigh} testId="total-fine" />
           </div>
           <div>
             <p className="text-sm text-ink-soft">Value</p>

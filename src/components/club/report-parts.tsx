@@ -5,6 +5,25 @@ import { formatGrams } from "@/lib/format";
 
 const money = (v: number, c: string | null) => `${v.toFixed(2)} ${c ?? ""}`.trim();
 
+/** A total mass as every console screen shows it: grams, troy ounces and pennyweights, and its worst cases when it has them. */
+export function MassTotal({ grams, low, high, testId }: { grams: number; low?: number; high?: number; testId?: string }) {
+  return (
+    <>
+      <p className="figure text-xl font-bold" data-testid={testId}>
+        {formatGrams(grams)}
+      </p>
+      <p className="figure text-sm">
+        {gramsToTroyOunces(grams).toFixed(3)} ozt · {gramsToPennyweights(grams).toFixed(2)} dwt
+      </p>
+      {low !== undefined && high !== undefined && (
+        <p className="figure text-sm">
+          at worst {formatGrams(low)} – {formatGrams(high)}
+        </p>
+      )}
+    </>
+  );
+}
+
 /** The report's headline figures. */
 export function ReportTotals({ summary: s, priceToday }: { summary: LedgerSummary; priceToday: boolean }) {
   return (
@@ -15,22 +34,11 @@ export function ReportTotals({ summary: s, priceToday }: { summary: LedgerSummar
       </div>
       <div>
         <p className="text-sm">Fine gold (estimated)</p>
-        <p className="figure text-xl font-bold" data-testid="report-fine">
-          {formatGrams(s.fineGrams)}
-        </p>
-        <p className="figure text-sm">
-          {gramsToTroyOunces(s.fineGrams).toFixed(3)} ozt · {gramsToPennyweights(s.fineGrams).toFixed(2)} dwt
-        </p>
-        <p className="figure text-sm">
-          at worst {formatGrams(s.fineLow)} – {formatGrams(s.fineHigh)}
-        </p>
+        <MassTotal grams={s.fineGrams} low={s.fineLow} high={s.fineHigh} testId="report-fine" />
       </div>
       <div>
         <p className="text-sm">Recorded weight</p>
-        <p className="figure text-xl font-bold">{formatGrams(s.weightGrams)}</p>
-        <p className="figure text-sm">
-          {gramsToTroyOunces(s.weightGrams).toFixed(3)} ozt · {gramsToPennyweights(s.weightGrams).toFixed(2)} dwt
-        </p>
+        <MassTotal grams={s.weightGrams} />
       </div>
       <div>
         <p className="text-sm">Value at {priceToday ? "today's" : "each find's date"} reference price</p>

@@ -1,10 +1,8 @@
-import { z } from "zod";
 import { MAX_CLAIM_BODY_BYTES } from "@/lib/club/geometry";
 import { claimInputSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { saveClaim } from "@/server/club/claims";
-import { AppError } from "@/server/errors";
-import { json, parseJsonBody, route } from "@/server/http";
+import { json, parseJsonBody, route, routeId } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 
 type Ctx = { params: Promise<{ id: string }> };
@@ -13,7 +11,6 @@ export const PUT = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
   const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   const actor = await requireActor(req, "manageClaims", "club");
-  const id = z.uuid().safeParse((await ctx.params).id);
-  if (!id.success) throw new AppError("not_found:claim", "No such claim.");
-  return json(saveClaim(actor, id.data, input));
+  const id = await routeId(ctx, "claim", "No such claim.");
+  return json(saveClaim(actor, id, input));
 });

@@ -1,17 +1,12 @@
 import { z } from "zod";
 import { requireActor } from "@/server/auth/actor";
 import { resendInvitation, revokeInvitation } from "@/server/club/members";
-import { AppError } from "@/server/errors";
-import { json, parseJsonBody, route } from "@/server/http";
+import { json, parseJsonBody, route, routeId } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 
 type Ctx = { params: Promise<{ id: string }> };
 
-async function invitationId(ctx: Ctx) {
-  const id = z.uuid().safeParse((await ctx.params).id);
-  if (!id.success) throw new AppError("not_found:invitation", "No open invitation with that id.");
-  return id.data;
-}
+const invitationId = (ctx: Ctx) => routeId(ctx, "invitation", "No open invitation with that id.");
 
 /** Resend: a fresh link, the old one stops working. */
 export const POST = route<Ctx>(async (req, ctx) => {

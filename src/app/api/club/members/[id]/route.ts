@@ -1,9 +1,7 @@
-import { z } from "zod";
 import { memberChangeSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { changeMember } from "@/server/club/members";
-import { AppError } from "@/server/errors";
-import { json, parseJsonBody, route } from "@/server/http";
+import { json, parseJsonBody, route, routeId } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 
 type Ctx = { params: Promise<{ id: string }> };
@@ -13,7 +11,6 @@ export const PATCH = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
   const change = await parseJsonBody(req, memberChangeSchema, "member");
   const actor = await requireActor(req, "manageMembers", "club");
-  const id = z.uuid().safeParse((await ctx.params).id);
-  if (!id.success) throw new AppError("not_found:member", "No such member.");
-  return json(changeMember(actor, id.data, change));
+  const id = await routeId(ctx, "member", "No such member.");
+  return json(changeMember(actor, id, change));
 });

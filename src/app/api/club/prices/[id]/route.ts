@@ -1,9 +1,7 @@
-import { z } from "zod";
 import { priceChangeSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { replacePrice, withdrawPrice } from "@/server/club/prices";
-import { AppError } from "@/server/errors";
-import { json, parseJsonBody, route } from "@/server/http";
+import { json, parseJsonBody, route, routeId } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 
 type Ctx = { params: Promise<{ id: string }> };
@@ -13,7 +11,6 @@ export const POST = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
   const actor = await requireActor(req, "managePrices", "club");
   const change = await parseJsonBody(req, priceChangeSchema, "price");
-  const id = z.uuid().safeParse((await ctx.params).id);
-  if (!id.success) throw new AppError("not_found:price", "No such price.");
-  return json(change.action === "withdraw" ? withdrawPrice(actor, id.data, change.note) : replacePrice(actor, id.data, change.price));
+  const id = await routeId(ctx, "price", "No such price.");
+  return json(change.action === "withdraw" ? withdrawPrice(actor, id, change.note) : replacePrice(actor, id, change.price));
 });

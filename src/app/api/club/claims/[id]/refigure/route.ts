@@ -1,9 +1,7 @@
-import { z } from "zod";
 import { refigureInputSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { refigureSeason } from "@/server/club/claims";
-import { AppError } from "@/server/errors";
-import { json, parseJsonBody, route } from "@/server/http";
+import { json, parseJsonBody, route, routeId } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 
 type Ctx = { params: Promise<{ id: string }> };
@@ -13,7 +11,6 @@ export const POST = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
   const actor = await requireActor(req, "manageClaims", "club");
   const input = await parseJsonBody(req, refigureInputSchema, "refigure");
-  const id = z.uuid().safeParse((await ctx.params).id);
-  if (!id.success) throw new AppError("not_found:claim", "No such claim.");
-  return json(refigureSeason(actor, id.data, input.season));
+  const id = await routeId(ctx, "claim", "No such claim.");
+  return json(refigureSeason(actor, id, input.season));
 });

@@ -1,19 +1,14 @@
-import { z } from "zod";
 import { requireActor } from "@/server/auth/actor";
 import { attachDocument, documentExtension, documentTypeOf, recoveryRow } from "@/server/club/recoveries";
 import { AppError } from "@/server/errors";
-import { json, readBodyLimited, route } from "@/server/http";
+import { json, readBodyLimited, route, routeId } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 import { photoStorage } from "@/server/storage";
 
 type Ctx = { params: Promise<{ id: string }> };
 const MAX_DOCUMENT_BYTES = 4 * 1024 * 1024;
 
-async function recoveryId(ctx: Ctx) {
-  const id = z.uuid().safeParse((await ctx.params).id);
-  if (!id.success) throw new AppError("not_found:recovery", "No such melt or assay.");
-  return id.data;
-}
+const recoveryId = (ctx: Ctx) => routeId(ctx, "recovery", "No such melt or assay.");
 
 /** The melt's or assay's document (a PDF or a photo of it), kept with it. What it is is read from its bytes. */
 export const PUT = route<Ctx>(async (req, ctx) => {
