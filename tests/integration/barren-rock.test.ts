@@ -157,3 +157,29 @@ describe("weigh-ins on a checked scale", () => {
     expect(refused.body.results[1]).toMatchObject({ status: "rejected", reason: "unknown_parent", field: "scaleId" });
   });
 });
+
+describe("deletions of scales and barren rock", () => {
+  it("are purged after the keeping time, except a scale a weigh-in still names", async () => {
+    const { purgeTombstones } = await import("@/server/sync/tombstones");
+    const named = { id: uuidv7(), name: "Old scale", stepGrams: 0.1, accuracyGrams: null, checks: [] };
+    const unnamed = { ...named, id: uuidv7(), name: "Spare scale" };
+    const f = newFind();
+    const p = piece(textbook(50, 30), Date.UTC(2026, 8, 1));
+    const res = await push(member, uuidv7(), [
+      { id: 1, name: "scale.put", args: named },
+      { id: 2, name: "scale.put", args: unnamed },
+      { id: 3, name: "find.put", args: f },
+      { id: 4, name: "weighIn.put", args: { ...newWeighIn(f.id), scaleId: named.id, scaleCheck: null } },
+      { id: 5, name: "barrenRock.put", args: p },
+      { id: 6, name: "scale.delete", args: { id: named.id } },
+      { id: 7, name: "scale.delete", args: { id: unnamed.id } },
+      { id: 8, name: "barrenRock.delete", args: { id: p.id } },
+    ]);
+    expect(res.body.results.every((r) => r.status === "applied")).toBe(true);
+    purgeTombstones(Date.now() + 1000, 0);
+    const left = (table: string, id: string) => db.$client.prepare(`select count(*) n from ${table} where id = ?`).get(id) as { n: number };
+    expect(left("scales", named.id).n).toBe(1);
+    expect(left("scales", unnamed.id).n).toBe(0);
+    expect(left("barren_rocks", p.id).n).toBe(0);
+  });
+});

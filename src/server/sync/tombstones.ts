@@ -21,6 +21,11 @@ export function tombstoneHorizon(sqlite: Sqlite): number {
 const PURGES = [
   "delete from photos where deleted_at is not null and deleted_at < ? returning seq, storage_key as storageKey",
   "delete from weigh_ins where deleted_at is not null and deleted_at < ? returning seq",
+  "delete from barren_rocks where deleted_at is not null and deleted_at < ? returning seq",
+  // A scale stays while a weigh-in or a piece names it (the find panel shows its name).
+  `delete from scales where deleted_at is not null and deleted_at < ?
+     and not exists (select 1 from weigh_ins w where w.scale_id = scales.id)
+     and not exists (select 1 from barren_rocks b where b.scale_id = scales.id) returning seq`,
   `delete from finds where deleted_at is not null and deleted_at < ?
      and not exists (select 1 from photos p where p.find_id = finds.id)
      and not exists (select 1 from weigh_ins w where w.find_id = finds.id)

@@ -11,6 +11,8 @@ import { formatWhen } from "@/lib/format";
 const ENTITY_LINK: Record<string, (id: string) => string> = {
   find: (id) => `/finds/view#id=${id}`,
   outing: (id) => `/outings/view#id=${id}`,
+  scale: () => "/scales",
+  barrenRock: () => "/barren-rock",
 };
 
 /** Camp sync: what is waiting, what the server refused and why, and a way to fix or let go. */
