@@ -25,6 +25,8 @@ export const members = sqliteTable("members", {
   sessionVersion: integer("session_version").notNull().default(0),
   /** What officers see of this member's find positions. */
   locationSharing: text("location_sharing", { enum: ["exact", "claim"] }).notNull().default("exact"),
+  /** The member asked to be told by e-mail when an officer queries one of their finds. */
+  mailOnQuery: integer("mail_on_query", { mode: "boolean" }).notNull().default(false),
   createdAt: createdAt(),
 });
 
@@ -182,7 +184,11 @@ export const finds = sqliteTable("finds", {
   weighedScaleChecked: integer("weighed_scale_checked", { mode: "boolean" }),
   /** The latest weigh-in's air reading is more than a tenth off the find's recorded weight. */
   weighMismatch: integer("weigh_mismatch", { mode: "boolean" }).notNull().default(false),
-  reviewState: text("review_state", { enum: ["new", "verified", "queried"] }).notNull().default("new"),
+  /**
+   * The query thread's state, from the latest verify or query (club/figures.ts): "answered"
+   * when the member has answered that query.
+   */
+  reviewState: text("review_state", { enum: ["new", "verified", "queried", "answered"] }).notNull().default("new"),
   createdAt: createdAt(),
   updatedAt: integer("updated_at").notNull().default(now),
   deletedAt: integer("deleted_at"),
@@ -304,6 +310,22 @@ export const reviews = sqliteTable("reviews", {
   seq: seq(),
 }, (t) => [index("reviews_find").on(t.findId, t.createdAt), index("reviews_seq").on(t.seq)]);
 
+/**
+ * A member's answer to an officer's query of one of their finds: the member's own record,
+ * written on the device and synced like any other; it names the query it answers.
+ */
+export const answers = sqliteTable("answers", {
+  id: text("id").primaryKey(),
+  memberId: text("member_id").notNull().references(() => members.id),
+  findId: text("find_id").notNull().references(() => finds.id),
+  reviewId: text("review_id").notNull().references(() => reviews.id),
+  note: text("note").notNull(),
+  createdAt: createdAt(),
+  updatedAt: integer("updated_at").notNull().default(now),
+  deletedAt: integer("deleted_at"),
+  seq: seq(),
+}, (t) => [index("answers_find").on(t.findId, t.createdAt), index("answers_review").on(t.reviewId), index("answers_member_seq").on(t.memberId, t.seq), index("answers_seq").on(t.seq)]);
+
 export const referencePrices = sqliteTable("reference_prices", {
   id: text("id").primaryKey(),
   /** ISO date (YYYY-MM-DD, the club's own calendar) from which this price is in force. */
@@ -422,3 +444,4 @@ export type Outing = typeof outings.$inferSelect;
 export type WeighIn = typeof weighIns.$inferSelect;
 export type Scale = typeof scales.$inferSelect;
 export type BarrenRock = typeof barrenRocks.$inferSelect;
+export type Answer = typeof answers.$inferSelect;
