@@ -36,6 +36,15 @@ export function SiteHeader({ actor }: { actor: HeaderPerson | null }) {
               <Link href="/sync" className={linkClass}>
                 Camp sync
               </Link>
+              <Link href="/weigh" className={linkClass}>
+                Weigh
+              </Link>
+              <Link href="/scales" className={linkClass}>
+                Scales
+              </Link>
+              <Link href="/barren-rock" className={linkClass}>
+                Barren rock
+              </Link>
               <Link href="/settings" className={linkClass}>
                 Settings
               </Link>

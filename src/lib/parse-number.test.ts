@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { decimalMarkOf, parseNumber } from "./parse-number";
+import { decimalMarkOf, parseNumber, readNumber } from "./parse-number";
 
 // [typed, where "." is the decimal mark, where "," is, where the locale is unknown]
 const TABLE: [string, number | undefined, number | undefined, number | undefined][] = [
@@ -46,5 +46,26 @@ describe("numbers as people type them (issues 15 and 19; common practice of en a
     expect(decimalMarkOf("de-DE")).toBe(",");
     expect(decimalMarkOf("fr-FR")).toBe(",");
     expect(decimalMarkOf("en-AU")).toBe(".");
+  });
+});
+
+describe("a number field's message names the real problem (issue 19)", () => {
+  const weight = { label: "weight", above: 0, max: 100_000, unit: "g" };
+  it.each([
+    ["", undefined, undefined],
+    ["12,5", 12.5, undefined],
+    ["0", undefined, "The weight must be more than 0 g."],
+    ["-3", undefined, "The weight must be more than 0 g."],
+    ["1e30", undefined, "The weight can be at most 100 000 g."],
+    ["2,400", undefined, "“2,400” could be 2400 or 2.4: write it without a thousands mark."],
+    ["abc", undefined, "Type the weight as a number, like 12.5."],
+  ])("%j", (typed, value, error) => {
+    const r = readNumber(typed, weight, null); // the locale unknown
+    expect(r.value).toBe(value);
+    expect(r.error).toBe(error);
+  });
+  it("reads by the locale's mark where one is known", () => {
+    expect(readNumber("2,400", weight, ".").value).toBe(2400);
+    expect(readNumber("2,400", weight, ",").value).toBe(2.4);
   });
 });

@@ -59,3 +59,33 @@ export function decimalMarkOf(locale?: string): DecimalMark {
   const part = new Intl.NumberFormat(locale).formatToParts(1.5).find((p) => p.type === "decimal");
   return part?.value === "," ? "," : ".";
 }
+
+/** The decimal mark where this code runs: the member's browser (or the server's default locale). */
+export const localDecimalMark = (): DecimalMark => decimalMarkOf();
+
+export type NumberRule = { label: string; min?: number; above?: number; max?: number; unit?: string };
+
+/**
+ * A number field read as people type it, with a message that names the real problem:
+ * "could be 2400 or 2.4", "must be more than 0", "at most 100 000 g" — never just "type a
+ * number" for a number that is out of bounds. Empty gives no value and no message.
+ */
+export function readNumber(text: string, rule: NumberRule, decimal: DecimalMark | null = localDecimalMark()): { value?: number; error?: string } {
+  const n = parseNumber(text, decimal ?? undefined);
+  if (n === undefined) return {};
+  const unit = rule.unit ? ` ${rule.unit}` : "";
+  if (Number.isNaN(n)) {
+    const t = text.trim();
+    if (/^[-+]?\d{1,3}[.,]\d{3}$/.test(t) && parseNumber(t, ".") !== parseNumber(t, ",")) {
+      return { error: `“${t}” could be ${parseNumber(t, ".")} or ${parseNumber(t, ",")}: write it without a thousands mark.` };
+    }
+    return { error: `Type the ${rule.label} as a number, like 12.5.` };
+  }
+  if (rule.above !== undefined && !(n > rule.above)) return { error: `The ${rule.label} must be more than ${rule.above}${unit}.` };
+  if (rule.min !== undefined && n < rule.min) return { error: `The ${rule.label} must be at least ${rule.min}${unit}.` };
+  if (rule.max !== undefined && n > rule.max) return { error: `The ${rule.label} can be at most ${rule.max.toLocaleString("en-US").replace(/,/g, " ")}${unit}.` };
+  return { value: n };
+}
+
+/** A number as the member typed it in a field, read by their browser's decimal mark. */
+export const parseTyped = (text: string): number | undefined => parseNumber(text, localDecimalMark());

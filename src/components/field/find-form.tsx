@@ -4,7 +4,7 @@ import { useForm, useWatch } from "react-hook-form";
 import type { LocalFind } from "@/client/device-db";
 import type { MemberSettings } from "@/client/settings";
 import { FieldError } from "@/components/field-error";
-import { parseNumber } from "@/lib/parse-number";
+import { parseTyped } from "@/lib/parse-number";
 import type { ClaimView } from "@/lib/entities/claim";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import type { Find } from "@/lib/entities/find";
@@ -25,8 +25,8 @@ type Props = { find: LocalFind; claims: ClaimView[]; settings: MemberSettings; o
  * club's drawing, so this is a prompt, not a refusal).
  */
 function ClaimCheck({ lat, lon, claimId, claims, onSwitch }: { lat: string; lon: string; claimId: string; claims: ClaimView[]; onSwitch: (id: string) => void }) {
-  const la = parseNumber(lat ?? "");
-  const lo = parseNumber(lon ?? "");
+  const la = parseTyped(lat ?? "");
+  const lo = parseTyped(lon ?? "");
   if (la === undefined || lo === undefined || Number.isNaN(la) || Number.isNaN(lo) || Math.abs(la) > 90 || Math.abs(lo) > 180) return null;
   const at = claimAt(la, lo, claims);
   const chosen = claims.find((c) => c.id === claimId);
@@ -78,10 +78,10 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
 
   const submit = handleSubmit(async (v) => {
     setSaved(false);
-    const lat = parseNumber(v.lat) ?? null;
-    const lon = parseNumber(v.lon) ?? null;
+    const lat = parseTyped(v.lat) ?? null;
+    const lon = parseTyped(v.lon) ?? null;
     const moved = lat !== find.lat || lon !== find.lon;
-    const weight = parseNumber(v.weight);
+    const weight = parseTyped(v.weight);
     try {
       await onSave({
         id: find.id,
@@ -89,8 +89,8 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
         claimId: v.claimId || null,
         kind: v.kind,
         weightGrams: weight === undefined ? null : toGrams(weight, unit),
-        purity: parseNumber(v.purity) ?? null,
-        depthCm: parseNumber(v.depthCm) ?? null,
+        purity: parseTyped(v.purity) ?? null,
+        depthCm: parseTyped(v.depthCm) ?? null,
         method: v.method,
         notes: v.notes,
         lat,

@@ -1,29 +1,30 @@
 import { z } from "zod";
-import { parseNumber } from "@/lib/parse-number";
+import { parseTyped, readNumber, type NumberRule } from "@/lib/parse-number";
 import { methodSchema } from "@/lib/entities/common";
 import { FIND_KINDS } from "@/lib/entities/constants";
 
 // The field screens' form schemas: fields as typed (strings), checked before the shared entity
 // schema checks the record. Loaded with a form's first check (see ./lazy-resolver).
 
-const optionalNumber = (message: string, ok: (n: number) => boolean) =>
-  z.string().refine((v) => {
-    const n = parseNumber(v);
-    return n === undefined || (!Number.isNaN(n) && ok(n));
-  }, message);
+/** A number field, optional, read as people type it (by the browser's decimal mark), with the real problem named. */
+const optionalNumber = (rule: NumberRule) =>
+  z.string().superRefine((v, ctx) => {
+    const { error } = readNumber(v, rule);
+    if (error) ctx.addIssue({ code: "custom", message: error });
+  });
 
 export const findFormSchema = z
   .object({
     kind: z.enum(FIND_KINDS, { error: "Choose what you found." }),
-    weight: optionalNumber("The weight must be a number above zero, or empty.", (n) => n > 0),
-    purity: optionalNumber("Purity is parts per thousand gold, above 0 and at most 1000, or empty.", (n) => n > 0 && n <= 1000),
-    depthCm: optionalNumber("The depth must be a number of centimetres, or empty.", (n) => n >= 0 && n <= 10_000),
+    weight: optionalNumber({ label: "weight", above: 0 }),
+    purity: optionalNumber({ label: "purity", above: 0, max: 1000, unit: "‰" }),
+    depthCm: optionalNumber({ label: "depth", min: 0, max: 10_000, unit: "cm" }),
     method: methodSchema,
     claimId: z.string(),
     notes: z.string().max(4000, "At most 4000 characters."),
     foundAt: z.string().min(1, "When was it found?"),
-    lat: optionalNumber("Latitude is a number between −90 and 90.", (n) => Math.abs(n) <= 90),
-    lon: optionalNumber("Longitude is a number between −180 and 180.", (n) => Math.abs(n) <= 180),
+    lat: optionalNumber({ label: "latitude", min: -90, max: 90 }),
+    lon: optionalNumber({ label: "longitude", min: -180, max: 180 }),
   })
   .refine((v) => (v.lat.trim() === "") === (v.lon.trim() === ""), { message: "Give both latitude and longitude, or neither.", path: ["lat"] });
 
@@ -34,7 +35,7 @@ export const outingFormSchema = z.object({
   startedAt: z.string().min(1, "When did it start?"),
   endedAt: z.string(),
   hours: z.string().refine((v) => {
-    const n = parseNumber(v);
+    const n = parseTyped(v);
     return n === undefined || (!Number.isNaN(n) && n >= 0 && n <= 240);
   }, "Hours: a number from 0 to 240, or empty."),
   companions: z.string().max(300, "At most 300 characters."),

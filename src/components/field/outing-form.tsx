@@ -2,7 +2,7 @@
 import { useForm } from "react-hook-form";
 import type { LocalOuting } from "@/client/device-db";
 import { FieldError } from "@/components/field-error";
-import { parseNumber } from "@/lib/parse-number";
+import { parseTyped } from "@/lib/parse-number";
 import type { ClaimView } from "@/lib/entities/claim";
 import type { Outing } from "@/lib/entities/outing";
 import { toLocalInput } from "@/lib/format";
@@ -39,7 +39,7 @@ export function OutingForm({ outing, claims, onSave }: Props) {
         method: v.method,
         startedAt: new Date(v.startedAt).getTime(),
         endedAt: v.endedAt ? new Date(v.endedAt).getTime() : null,
-        hours: parseNumber(v.hours) ?? null,
+        hours: parseTyped(v.hours) ?? null,
         companions: v.companions,
         conditions: v.conditions,
         notes: v.notes,

@@ -6,7 +6,7 @@ import { defaultScaleAccuracy } from "@/lib/estimate/input";
 import { measureDensity, type DensityInput } from "@/lib/estimate/setup-check";
 import { convertMass, toGrams } from "@/lib/estimate/units";
 import { checkRefOf } from "@/lib/figures/scale-standing";
-import { parseNumber } from "@/lib/parse-number";
+import { parseTyped } from "@/lib/parse-number";
 import { toDensityInput, withFieldErrors } from "./density-input";
 import { DEFAULT_WEIGH_FORM, emptyReadings, type WeighFormValues } from "./form-model";
 import { MethodChoice, PracticeList, ReadingsPair, ScaleSettings, WaterTemperature } from "./rig-fields";
@@ -30,7 +30,7 @@ export function BarrenRockFlow({ scales, initial, onSave }: { scales: Scale[]; i
   const form = useMemo(() => toDensityInput(values), [values]);
   const outcome = useMemo(() => (form.complete ? withFieldErrors(() => measureDensity(form.input), form.errors) : { errors: form.errors }), [form]);
   const scale = scales.find((s) => s.id === values.scaleId);
-  const step = parseNumber(values.resolution);
+  const step = parseTyped(values.resolution);
   const accuracyHint = step !== undefined && step > 0 ? `± ${Number(convertMass(defaultScaleAccuracy(toGrams(step, values.readingUnit)), values.readingUnit).toPrecision(2))}` : "";
   const e = outcome.errors;
   return (

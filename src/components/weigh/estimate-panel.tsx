@@ -4,7 +4,7 @@ import type { SpecimenEstimate } from "@/lib/estimate/types";
 import { gramsToTroyOunces, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
 import { formatGrams } from "@/lib/format";
 import { DensityPicture } from "./density-picture";
-import { parseNumber } from "./form-model";
+import { parseTyped } from "./form-model";
 import { warningText } from "./warning-text";
 
 type Props = { estimate: SpecimenEstimate; unit: MassUnit; onUnitChange: (u: MassUnit) => void };
@@ -16,7 +16,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
   const u = estimate.standardUncertainty;
   const fine = (g: number) => formatGrams(g, unit, u.fineGoldGrams);
   const alloy = (g: number) => formatGrams(g, unit, u.goldAlloyGrams);
-  const perOz = parseNumber(price);
+  const perOz = parseTyped(price);
   const value = (g: number) => (perOz && perOz > 0 ? `${(gramsToTroyOunces(g) * perOz).toFixed(2)} ${currency}` : "—");
   const [fLo, fHi] = estimate.range.fineGoldGrams;
   const [aLo, aHi] = estimate.range.goldAlloyGrams;

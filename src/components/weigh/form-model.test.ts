@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { PENNYWEIGHT_GRAMS } from "@/lib/estimate/units";
 import { CLAIM_PRESET } from "@/lib/figures/claim-gold";
-import { DEFAULT_WEIGH_FORM, DEFAULT_REPEATS, parseNumber, toSpecimenInput } from "./form-model";
+import { DEFAULT_WEIGH_FORM, DEFAULT_REPEATS, parseTyped as parseNumber, toSpecimenInput } from "./form-model";
 
 describe("weigh-in form model", () => {
   it("reads decimal points and decimal commas, and refuses junk", () => {

@@ -3,9 +3,9 @@ import { ASSAY_HALF_RANGE, FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate
 import type { SpecimenInput } from "@/lib/estimate/types";
 import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-gold";
 import { fahrenheitToCelsius, toGrams, type MassUnit } from "@/lib/estimate/units";
-import { parseNumber } from "@/lib/parse-number";
+import { parseTyped } from "@/lib/parse-number";
 
-export { parseNumber };
+export { parseTyped };
 
 /** The weigh-in form as typed: strings, so half-typed numbers never jump about. */
 export type WeighFormValues = {
@@ -88,7 +88,7 @@ export function toSpecimenInput(v: WeighFormValues, claim: ClaimGold | null = nu
   const readings = (list: { value: string }[], field: "air" | "water") => {
     const out: number[] = [];
     for (const r of list) {
-      const n = parseNumber(r.value);
+      const n = parseTyped(r.value);
       if (n === undefined) continue;
       if (Number.isNaN(n)) errors[field] = "Type a number, like 12.34.";
       else out.push(toGrams(n, unit));
@@ -99,7 +99,7 @@ export function toSpecimenInput(v: WeighFormValues, claim: ClaimGold | null = nu
   const waterGrams = readings(v.water, "water");
 
   const num = (text: string, field: WeighField, label: string) => {
-    const n = parseNumber(text);
+    const n = parseTyped(text);
     if (n !== undefined && Number.isNaN(n)) errors[field] = `${label}: type a number.`;
     return n !== undefined && !Number.isNaN(n) ? n : undefined;
   };

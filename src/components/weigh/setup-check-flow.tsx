@@ -6,7 +6,7 @@ import type { Scale, SetupCheck } from "@/lib/entities/scale";
 import { REFERENCE_OBJECTS, OWN_REFERENCE } from "@/lib/estimate/reference-objects";
 import { CHECK_COVERAGE, judgeSetupCheck, type SetupCheckResult } from "@/lib/estimate/setup-check";
 import { defaultScaleAccuracy } from "@/lib/estimate/input";
-import { parseNumber } from "@/lib/parse-number";
+import { parseTyped } from "@/lib/parse-number";
 import { toDensityInput, withFieldErrors } from "./density-input";
 import { DEFAULT_WEIGH_FORM, type WeighFormValues } from "./form-model";
 import { MethodChoice, PracticeList, ReadingsPair, WaterTemperature } from "./rig-fields";
@@ -69,8 +69,8 @@ export function SetupCheckFlow({ scale, onSave }: { scale: Scale; onSave: (check
   const preset = REFERENCE_OBJECTS.find((r) => r.id === values.reference);
   const reference = useMemo(() => {
     if (preset) return { kind: preset.id, label: preset.label, density: preset.density, uncertainty: preset.uncertainty };
-    const density = parseNumber(values.ownDensity);
-    const u = parseNumber(values.ownUncertainty);
+    const density = parseTyped(values.ownDensity);
+    const u = parseTyped(values.ownUncertainty);
     if (density === undefined || Number.isNaN(density)) return null;
     return { kind: OWN_REFERENCE as "own", label: "My own reference object", density, uncertainty: u !== undefined && !Number.isNaN(u) ? u : 0 };
   }, [preset, values.ownDensity, values.ownUncertainty]);

@@ -8,7 +8,7 @@ import type { Scale, ScaleCheckRef } from "@/lib/entities/scale";
 import { checkRefOf } from "@/lib/figures/scale-standing";
 import { formatGrams } from "@/lib/format";
 import { EstimatePanel } from "./estimate-panel";
-import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseNumber, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
+import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseTyped, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
 import { MethodChoice, PracticeList, ReadingsPair, ScaleSettings, WaterTemperature } from "./rig-fields";
 import { FailedCheckNotice, ScalePicker } from "./scale-picker";
 import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-gold";
@@ -81,7 +81,7 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Prop
   const scale = scales.find((x) => x.id === values.scaleId);
   const unit = values.readingUnit;
   const e = outcome.errors;
-  const step = parseNumber(values.resolution);
+  const step = parseTyped(values.resolution);
   const accuracyHint = step !== undefined && step > 0 ? `± ${Number(convertMass(defaultScaleAccuracy(toGrams(step, unit)), unit).toPrecision(2))}` : "";
 
   return (

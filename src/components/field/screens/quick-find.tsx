@@ -9,9 +9,9 @@ import { requestSync } from "@/client/sync/scheduler";
 import { FieldError } from "@/components/field-error";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import type { FindKind } from "@/lib/entities/find";
-import { toGrams } from "@/lib/estimate/units";
+import { convertMass, toGrams } from "@/lib/estimate/units";
 import { claimAt } from "@/lib/geo";
-import { parseNumber } from "@/lib/parse-number";
+import { readNumber } from "@/lib/parse-number";
 import { LocationLine } from "../location-line";
 
 /** Log a find in seconds, one-handed: tap the kind, type the weight, tap save. */
@@ -32,8 +32,8 @@ export function QuickFindScreen() {
   async function save() {
     const fields: Record<string, string[]> = {};
     if (!kind) fields.kind = ["Choose what you found."];
-    const w = parseNumber(weight);
-    if (w !== undefined && (Number.isNaN(w) || w <= 0)) fields.weightGrams = ["Type the weight as a number, like 1.25 — or leave it empty."];
+    const { value: w, error } = readNumber(weight, { label: "weight", above: 0, max: convertMass(100_000, unit), unit });
+    if (error) fields.weightGrams = [error];
     if (Object.keys(fields).length) return setErrors(fields);
     setSaving(true);
     try {

@@ -1,0 +1,69 @@
+import Database from "better-sqlite3";
+import { describe, expect, inject, it } from "vitest";
+import { MORE_SCREENS } from "@/components/field/tab-bar";
+import { launchPersistent, PHONE, shotPath } from "./support/browser";
+import { firstPage, signInToField, waitForSyncDone } from "./support/field";
+import { DEMO } from "./support/pages";
+import { WeighPage } from "./support/weigh-page";
+
+const baseUrl = inject("baseUrl");
+
+/** One of the member's own finds that has a weigh-in, and one of their outings. */
+function memberRecords() {
+  const db = new Database(inject("databaseUrl"), { readonly: true });
+  try {
+    const find = db.prepare("select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from weigh_ins w where w.find_id = f.id) limit 1").get(DEMO.member.email) as { id: string };
+    const outing = db.prepare("select o.id from outings o join members m on m.id = o.member_id where m.email = ? limit 1").get(DEMO.member.email) as { id: string };
+    return { find: find.id, outing: outing.id };
+  } finally {
+    db.close();
+  }
+}
+
+describe("the phone in the field (issue 19)", () => {
+  it("reaches every member screen from the tab bar, and none scrolls sideways at 320, 360, 390 or 430 px, absurd numbers included", async () => {
+    const { context } = await launchPersistent(undefined, PHONE);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await waitForSyncDone(page);
+
+    // Every screen one tap (or "More" and a tap) away.
+    const bar = page.getByRole("navigation", { name: "Field" });
+    for (const [name, path] of [["Finds", "/finds"], ["Outings", "/outings"], ["Map", "/map"], ["Sync", "/sync"], ["Today", "/"]] as const) {
+      await bar.getByRole("link", { name, exact: true }).click();
+      await page.waitForURL((u) => u.pathname === path);
+    }
+    for (const screen of MORE_SCREENS) {
+      await bar.getByRole("button", { name: "More" }).click();
+      await bar.getByRole("link", { name: screen.label }).click();
+      await page.waitForURL((u) => u.pathname === screen.href);
+      await page.getByRole("heading").first().waitFor();
+      if (screen.href !== "/weigh" && screen.href !== "/about") await page.getByRole("navigation", { name: "Field" }).waitFor();
+      await page.goto(`${baseUrl}/`);
+    }
+
+    const { find, outing } = memberRecords();
+    const screens = ["/", "/finds", "/finds/new", `/finds/view#id=${find}`, "/outings", `/outings/view#id=${outing}`, "/map", "/sync", "/settings", "/scales", "/barren-rock", "/weigh", "/about"];
+    const wide: string[] = [];
+    for (const width of [320, 360, 390, 430]) {
+      await page.setViewportSize({ width, height: 800 });
+      for (const screen of screens) {
+        await page.goto(`${baseUrl}${screen}`);
+        await page.getByRole("heading").first().waitFor();
+        if (screen === "/weigh") {
+          // Absurd readings still give a page that fits.
+          const weigh = new WeighPage(page, baseUrl);
+          await weigh.readings(["98765.4321", "98765.4322", "98765.43"], ["0.0001", "0.0002", "0.0003"]);
+          await page.getByTestId("estimate").or(page.locator(".field-error").first()).first().waitFor();
+        }
+        const over = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+        if (over > 0) wide.push(`${screen} at ${width}px: ${over}px too wide`);
+      }
+    }
+    await page.setViewportSize({ width: 320, height: 800 });
+    await page.goto(`${baseUrl}/weigh`);
+    await page.screenshot({ path: shotPath("weigh-320-phone"), fullPage: true });
+    expect(wide).toEqual([]);
+    await context.close();
+  });
+});
