@@ -1,9 +1,22 @@
 "use client";
 import { useEffect, useState } from "react";
 
-/** "New version ready": shown when a new service worker waits; reloading switches to it. */
+/** Whether the member has typed into a form since it was last sent (a reload would lose it). */
+let typing = false;
+if (typeof window !== "undefined") {
+  window.addEventListener("input", () => (typing = true), true);
+  window.addEventListener("submit", () => (typing = false), true);
+}
+
+/**
+ * "New version ready": shown at the top (never over a form's Save at the bottom) when a new
+ * service worker waits. "Update" switches and reloads; "Later" hides it until the next start.
+ * A switch made in another tab never reloads this one while a form here holds typing.
+ */
 export function UpdatePrompt() {
   const [waiting, setWaiting] = useState<ServiceWorker | null>(null);
+  const [later, setLater] = useState(false);
+  const [reloadWhenDone, setReloadWhenDone] = useState(false);
 
   useEffect(() => {
     if (!("serviceWorker" in navigator)) return;
@@ -18,7 +31,7 @@ export function UpdatePrompt() {
         });
       });
     });
-    const onChange = () => window.location.reload();
+    const onChange = () => (typing ? setReloadWhenDone(true) : window.location.reload());
     navigator.serviceWorker.addEventListener("controllerchange", onChange);
     return () => {
       cancelled = true;
@@ -26,13 +39,28 @@ export function UpdatePrompt() {
     };
   }, []);
 
-  if (!waiting) return null;
+  if (reloadWhenDone) {
+    return (
+      <div role="status" className="sheet fixed inset-x-3 top-16 z-30 flex items-center justify-between gap-3 shadow-lg md:left-auto md:w-96">
+        <span className="font-bold">Lodebook was updated. Save what you are typing, then reload.</span>
+        <button type="button" className="btn" onClick={() => window.location.reload()}>
+          Reload
+        </button>
+      </div>
+    );
+  }
+  if (!waiting || later) return null;
   return (
-    <div role="status" className="sheet fixed inset-x-3 bottom-20 z-30 flex items-center justify-between gap-3 shadow-lg md:bottom-4 md:left-auto md:w-96">
+    <div role="status" className="sheet fixed inset-x-3 top-16 z-30 flex flex-wrap items-center justify-between gap-3 shadow-lg md:left-auto md:w-96">
       <span className="font-bold">A new version of Lodebook is ready.</span>
-      <button type="button" className="btn btn-primary" onClick={() => waiting.postMessage({ type: "SKIP_WAITING" })}>
-        Update
-      </button>
+      <span className="flex gap-2">
+        <button type="button" className="btn" onClick={() => setLater(true)}>
+          Later
+        </button>
+        <button type="button" className="btn btn-primary" onClick={() => (typing && !window.confirm("Updating reloads the page: what you are typing will be lost. Update now?") ? undefined : waiting.postMessage({ type: "SKIP_WAITING" }))}>
+          Update
+        </button>
+      </span>
     </div>
   );
 }

@@ -66,4 +66,25 @@ describe("the phone in the field (issue 19)", () => {
     expect(wide).toEqual([]);
     await context.close();
   });
+
+  it("asks once to keep the logbook on the device, and signing out with no signal says what happens", async () => {
+    const { context } = await launchPersistent(undefined, PHONE);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    const prompt = page.getByTestId("storage-prompt");
+    await prompt.waitFor();
+    expect(await prompt.textContent()).toMatch(/waiting for camp sync|until camp sync/);
+    await prompt.getByRole("button", { name: "Not now" }).click();
+    await prompt.waitFor({ state: "detached" });
+    await page.reload();
+    await page.getByRole("heading", { name: /Good day/ }).waitFor();
+    expect(await page.getByTestId("storage-prompt").count()).toBe(0);
+
+    await context.setOffline(true);
+    const said = new Promise<string>((resolve) => page.once("dialog", (d) => (resolve(d.message()), void d.accept())));
+    await page.getByRole("button", { name: "Sign out" }).click();
+    expect(await said).toMatch(/no signal.*stay signed in.*stays on this device/s);
+    expect(new URL(page.url()).pathname).toBe("/");
+    await context.close();
+  });
 });

@@ -1,16 +1,29 @@
 "use client";
+import { usePathname } from "next/navigation";
 import { MemberProvider, useMemberState } from "@/client/member";
+import { lazy, Suspense } from "react";
 import { SiteHeader } from "../site-header";
 import { UpdatePrompt } from "../update-prompt";
 import { Skeleton } from "./skeleton";
 import { TabBar } from "./tab-bar";
 
+// Asked once, on the home screen: loaded after it, so no screen's first load carries it.
+const StoragePrompt = lazy(() => import("../storage-prompt").then((m) => ({ default: m.StoragePrompt })));
+
 function Body({ children }: { children: React.ReactNode }) {
   const state = useMemberState();
+  const path = usePathname();
   return (
     <>
       <SiteHeader actor={state.status === "ready" ? state.member : null} />
-      <main className="mx-auto max-w-5xl px-3 pb-24 pt-4 md:pb-8">{state.status === "ready" ? children : <Skeleton />}</main>
+      <main className="mx-auto max-w-5xl px-3 pb-24 pt-4 md:pb-8">
+        {state.status === "ready" && path === "/" && (
+          <Suspense fallback={null}>
+            <StoragePrompt />
+          </Suspense>
+        )}
+        {state.status === "ready" ? children : <Skeleton />}
+      </main>
       {state.status === "ready" && <TabBar />}
       <UpdatePrompt />
     </>

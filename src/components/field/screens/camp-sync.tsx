@@ -7,6 +7,7 @@ import type { LodebookDb, OutboxEntry } from "@/client/device-db";
 import { useMember } from "@/client/member";
 import { SyncStatusView } from "@/components/sync/sync-status";
 import { formatWhen } from "@/lib/format";
+import { changeWords } from "@/lib/sync/change-words";
 
 const ENTITY_LINK: Record<string, (id: string) => string> = {
   find: (id) => `/finds/view#id=${id}`,
@@ -39,7 +40,7 @@ export function CampSyncScreen() {
               return (
                 <li key={e.id} className="flex flex-col gap-1 border-b border-rule pb-2">
                   <span className="font-bold">
-                    {e.name} · {formatWhen(e.createdAt)}
+                    {changeWords(e.name)} · {formatWhen(e.createdAt)}
                   </span>
                   <span>
                     {e.reason}
@@ -72,7 +73,7 @@ export function CampSyncScreen() {
           <ul className="text-sm">
             {waiting.slice(0, 50).map((e) => (
               <li key={e.id}>
-                {e.name} · {formatWhen(e.createdAt)}
+                {changeWords(e.name)} · {formatWhen(e.createdAt)}
               </li>
             ))}
             {waiting.length > 50 && <li>… and {waiting.length - 50} more</li>}
@@ -92,7 +93,7 @@ async function retryStuckChanges(db: LodebookDb) {
 
 /** The body of a "send to the club" report: what is stuck and the ids the server's log keeps the failures under. */
 function reportText(entries: OutboxEntry[]): string {
-  const lines = entries.map((e) => `- ${e.name} of ${e.entityId}, saved ${formatWhen(e.createdAt)}: server error id ${e.errorId ?? "none"}`);
+  const lines = entries.map((e) => `- ${changeWords(e.name)} (${e.entityId}), saved ${formatWhen(e.createdAt)}: server error id ${e.errorId ?? "none"}`);
   return ["The club's server fails on these changes from my device each time they are sent:", ...lines, "", "(Lodebook camp sync report)"].join("\n");
 }
 
@@ -114,7 +115,7 @@ function StuckChanges({ entries, onRetry }: { entries: OutboxEntry[]; onRetry: (
       <ul className="text-sm">
         {entries.map((e) => (
           <li key={e.id}>
-            {e.name} · {formatWhen(e.createdAt)} · error id <code>{e.errorId}</code>
+            {changeWords(e.name)} · {formatWhen(e.createdAt)} · error id <code>{e.errorId}</code>
           </li>
         ))}
       </ul>

@@ -1,0 +1,46 @@
+"use client";
+import { useEffect, useState } from "react";
+
+const ASKED = "lodebook-storage-asked";
+
+/**
+ * Once, on the member's home after signing in: asks the browser to keep this device's
+ * logbook (persistent storage), saying why. Without it a browser may clear a site's data when
+ * space runs low, with changes still waiting for camp sync.
+ */
+export function StoragePrompt() {
+  const [show, setShow] = useState(false);
+  useEffect(() => {
+    if (!navigator.storage?.persisted || localStorage.getItem(ASKED)) return;
+    let live = true;
+    void navigator.storage.persisted().then((kept) => live && !kept && setShow(true));
+    return () => {
+      live = false;
+    };
+  }, []);
+  if (!show) return null;
+  const done = (text: string) => {
+    localStorage.setItem(ASKED, text);
+    setShow(false);
+  };
+  return (
+    <section className="sheet flex flex-col gap-2 border-2 border-ochre" aria-labelledby="keep-title" data-testid="storage-prompt">
+      <h2 id="keep-title" className="font-bold">
+        Keep your logbook on this device?
+      </h2>
+      <p className="text-sm">
+        Your finds, photos and weigh-ins live on this device until camp sync sends them. A browser short of space may clear a website&apos;s data
+        unless it was asked to keep it. Allow Lodebook to keep its data so nothing waiting is lost.
+      </p>
+      <div className="flex flex-wrap gap-2">
+        <button type="button" className="btn btn-primary" onClick={() => void navigator.storage.persist().then((ok) => done(ok ? "granted" : "refused"))}>
+          Keep it on this device
+        </button>
+        <button type="button" className="btn" onClick={() => done("later")}>
+          Not now
+        </button>
+      </div>
+      <p className="text-xs text-ink-soft">You can ask again in Settings.</p>
+    </section>
+  );
+}
