@@ -16,6 +16,8 @@ function publicRecord(row: Record<string, unknown>): Record<string, unknown> {
   return rest;
 }
 
+const withCreatedAt = (r: Row) => ({ ...publicRecord(r), createdAt: r.createdAt });
+
 function changesOf(entity: PullEntity, rows: Row[], shape: (r: Row) => Record<string, unknown> = publicRecord): PullChange[] {
   return rows.map((r) => (r.deletedAt ? { seq: r.seq, entity, op: "del" as const, id: r.id } : { seq: r.seq, entity, op: "put" as const, value: shape(r) }));
 }
@@ -37,7 +39,7 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
     const take = opts.limit + 1;
     const after = (table: { seq: AnySQLiteColumn }) => gt(table.seq, opts.cursor);
     const mine = (table: { memberId: AnySQLiteColumn }): SQL | undefined => (opts.scope === "club" ? undefined : eq(table.memberId, actor.id));
-    const page = <T extends typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks>(table: T) =>
+    const page = <T extends typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks | typeof t.answers>(table: T) =>
       tx.select().from(table as typeof t.finds).where(and(after(table), mine(table))).orderBy(asc(table.seq)).limit(take).all() as unknown as Row[];
 
     const hidden = opts.scope === "club" ? positionsHiddenFor(tx, actor) : new Set<string>();
@@ -52,7 +54,9 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
       ...changesOf("weighIn", page(t.weighIns)),
       ...changesOf("scale", page(t.scales)),
       ...changesOf("barrenRock", page(t.barrenRocks)),
-      ...changesOf("review", reviewsAfter(tx, actor, opts, take)),
+      // A review's and an answer's time is the server's, when it was written: the thread shows it.
+      ...changesOf("review", reviewsAfter(tx, actor, opts, take), withCreatedAt),
+      ...changesOf("answer", page(t.answers), withCreatedAt),
     ].sort((a, b) => a.seq - b.seq);
 
     const more = changes.length > opts.limit;
@@ -70,8 +74,7 @@ function reviewsAfter(tx: Tx, actor: Actor, opts: { cursor: number; scope: "own"
     .where(and(gt(t.reviews.seq, opts.cursor), opts.scope === "club" ? undefined : eq(t.finds.memberId, actor.id)))
     .orderBy(asc(t.reviews.seq))
     .limit(take)
-    .all()
-    .map((r) => ({ ...r, createdAt: r.createdAt })) as unknown as Row[];
+    .all() as unknown as Row[];
 }
 
 /** Members who share only the claim, not the exact spot, with officers. */
