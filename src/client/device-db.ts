@@ -1,4 +1,5 @@
 import Dexie, { type EntityTable } from "dexie";
+import type { Answer } from "@/lib/entities/answer";
 import type { ClaimView } from "@/lib/entities/claim";
 import type { FineBasis } from "@/lib/figures/fine-basis";
 import type { Find } from "@/lib/entities/find";
@@ -26,6 +27,8 @@ export type LocalBarrenRock = BarrenRock & Local;
 /** A photo with its shrunk JPEG and a thumbnail; `uploaded` is 1 once the server holds the bytes. */
 export type LocalPhoto = Photo & Local & { blob: Blob; thumb: Blob; uploaded: 0 | 1 };
 export type LocalReview = { id: string; findId: string; action: "verify" | "query" | "note"; note: string; officerName: string | null; createdAt: number };
+/** The member's answer to a query; `createdAt` is the server's time once it has arrived there. */
+export type LocalAnswer = Answer & Local & { createdAt?: number };
 
 /**
  * One change waiting for camp sync, in the order made (the auto-increment key). Its mutation
@@ -62,6 +65,7 @@ export class LodebookDb extends Dexie {
   barrenRocks!: EntityTable<LocalBarrenRock, "id">;
   claims!: EntityTable<ClaimView, "id">;
   reviews!: EntityTable<LocalReview, "id">;
+  answers!: EntityTable<LocalAnswer, "id">;
   prices!: EntityTable<LocalPrice, "id">;
   settings!: EntityTable<Setting, "key">;
   outbox!: EntityTable<OutboxEntry, "id">;
@@ -120,10 +124,18 @@ export class LodebookDb extends Dexie {
           w.scaleCheck ??= null;
         });
       });
+    // Version 4: the member's answers to officers' queries, by find. Reviews pulled before
+    // came without their time (the pull dropped it): the cursor goes back to 0 so the next
+    // camp sync brings every record again, reviews with their times.
+    this.version(4)
+      .stores({ answers: "id, findId, reviewId" })
+      .upgrade(async (tx) => {
+        if ((await tx.table("reviews").count()) > 0) await tx.table("meta").put({ key: "cursor", value: 0 });
+      });
   }
 }
 
-export const DB_VERSION = 3;
+export const DB_VERSION = 4;
 
 let onNewerSchema = () => {
   if (typeof window !== "undefined") window.location.reload();

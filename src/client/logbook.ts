@@ -1,4 +1,5 @@
 import { v7 as uuidv7 } from "uuid";
+import type { Answer } from "@/lib/entities/answer";
 import type { BarrenRock } from "@/lib/entities/barren-rock";
 import type { Find } from "@/lib/entities/find";
 import type { Outing } from "@/lib/entities/outing";
@@ -152,6 +153,16 @@ export async function deleteBarrenRock(db: LodebookDb, id: string): Promise<void
     await db.barrenRocks.delete(id);
     await enqueue(db, "barrenRock.delete", { id }, id);
   });
+}
+
+/** The member's answer to an officer's query: the member's own record, synced like any change. */
+export async function saveAnswer(db: LodebookDb, answer: Answer): Promise<Answer> {
+  const value = (await loadValidation()).checkRecord("answer", answer);
+  await db.transaction("rw", db.answers, db.outbox, async () => {
+    await db.answers.put({ ...value, updatedAt: Date.now() });
+    await enqueue(db, "answer.put", value, value.id);
+  });
+  return value;
 }
 
 export async function deletePhoto(db: LodebookDb, id: string): Promise<void> {

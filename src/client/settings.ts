@@ -2,7 +2,7 @@ import type { MassUnit } from "@/lib/estimate/units";
 import type { LodebookDb } from "./device-db";
 import { enqueue, loadValidation } from "./logbook";
 
-/** The member's choices on this device. Location sharing also goes to the club's server. */
+/** The member's choices on this device. Location sharing and mail on a query also go to the club's server. */
 export type MemberSettings = {
   massUnit: MassUnit;
   tempUnit: "C" | "F";
@@ -10,6 +10,8 @@ export type MemberSettings = {
   hostPreset: string;
   finenessPreset: string;
   locationSharing: "exact" | "claim";
+  /** E-mail the member when an officer queries one of their finds. */
+  mailOnQuery: boolean;
   tileUrl: string;
 };
 
@@ -21,6 +23,7 @@ export const DEFAULT_SETTINGS: MemberSettings = {
   hostPreset: "quartz",
   finenessPreset: "natural",
   locationSharing: "exact",
+  mailOnQuery: false,
   tileUrl: "",
 };
 
@@ -34,9 +37,12 @@ export async function saveSettings(db: LodebookDb, changes: Partial<MemberSettin
   await loadValidation();
   await db.transaction("rw", db.settings, db.outbox, async () => {
     const before = (await db.settings.get("locationSharing"))?.value ?? DEFAULT_SETTINGS.locationSharing;
+    const mailBefore = (await db.settings.get("mailOnQuery"))?.value ?? DEFAULT_SETTINGS.mailOnQuery;
     await db.settings.bulkPut(Object.entries(changes).map(([key, value]) => ({ key, value })));
-    if (changes.locationSharing && changes.locationSharing !== before) {
-      await enqueue(db, "settings.put", { locationSharing: changes.locationSharing }, "settings");
-    }
+    const synced = {
+      ...(changes.locationSharing && changes.locationSharing !== before ? { locationSharing: changes.locationSharing } : {}),
+      ...(changes.mailOnQuery !== undefined && changes.mailOnQuery !== mailBefore ? { mailOnQuery: changes.mailOnQuery } : {}),
+    };
+    if (Object.keys(synced).length > 0) await enqueue(db, "settings.put", synced, "settings");
   });
 }

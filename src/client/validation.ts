@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { answerSchema } from "@/lib/entities/answer";
 import { barrenRockSchema } from "@/lib/entities/barren-rock";
 import { findSchema } from "@/lib/entities/find";
 import { outingSchema } from "@/lib/entities/outing";
@@ -21,7 +22,7 @@ function check<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
   return parsed.data;
 }
 
-const RECORDS = { outing: outingSchema, find: findSchema, weighIn: weighInSchema, scale: scaleSchema, barrenRock: barrenRockSchema };
+const RECORDS = { outing: outingSchema, find: findSchema, weighIn: weighInSchema, scale: scaleSchema, barrenRock: barrenRockSchema, answer: answerSchema };
 
 export function checkRecord<K extends keyof typeof RECORDS>(kind: K, value: unknown): z.infer<(typeof RECORDS)[K]> {
   return check(RECORDS[kind], value) as z.infer<(typeof RECORDS)[K]>;

@@ -19,13 +19,13 @@ const figureOf = (v: Record<string, unknown>): ServerFigure => ({
  * still waiting on this device is left as the device has it: that change goes up next.
  */
 export async function applyPullPage(db: LodebookDb, changes: PullChange[], cursor: number, lastMutationId: number): Promise<void> {
-  await db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
+  await db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.answers, db.prices, db.outbox, db.meta], async () => {
     const pendingIds = new Set((await db.outbox.where("state").equals("pending").toArray()).map((e) => e.entityId));
     for (const c of changes) {
       const id = c.op === "put" ? (c.value.id as string) : c.id;
       if (pendingIds.has(id)) continue;
       if (c.op === "del") {
-        const table = { outing: db.outings, find: db.finds, photo: db.photos, weighIn: db.weighIns, scale: db.scales, barrenRock: db.barrenRocks, claim: db.claims, review: db.reviews, price: db.prices, settings: undefined }[c.entity];
+        const table = { outing: db.outings, find: db.finds, photo: db.photos, weighIn: db.weighIns, scale: db.scales, barrenRock: db.barrenRocks, claim: db.claims, review: db.reviews, answer: db.answers, price: db.prices, settings: undefined }[c.entity];
         await table?.delete(id);
         continue;
       }
@@ -60,6 +60,9 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
         case "review":
           await db.reviews.put({ id, findId: v.findId as string, action: v.action as "verify", note: (v.note as string) ?? "", officerName: (v.officerName as string) ?? null, createdAt: v.createdAt as number });
           break;
+        case "answer":
+          await db.answers.put({ ...pickRecord("answer", v), updatedAt, createdAt: v.createdAt as number });
+          break;
         case "price":
           await db.prices.put({ id, effectiveOn: v.effectiveOn as string, pricePerTroyOunce: v.pricePerTroyOunce as number, currency: v.currency as string });
           break;
@@ -93,7 +96,7 @@ export async function beginResync(db: LodebookDb): Promise<void> {
  * whose bytes have not gone up yet (those stay, and go up or are refused with a reason).
  */
 export async function finishResync(db: LodebookDb): Promise<number> {
-  return db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.prices, db.outbox, db.meta], async () => {
+  return db.transaction("rw", [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.answers, db.prices, db.outbox, db.meta], async () => {
     const marks = (await db.meta.get("resync"))?.value as string[] | undefined;
     if (!marks) return 0;
     const seen = new Set(marks);
@@ -108,6 +111,7 @@ export async function finishResync(db: LodebookDb): Promise<number> {
       ["barrenRock", db.barrenRocks],
       ["claim", db.claims],
       ["review", db.reviews],
+      ["answer", db.answers],
       ["price", db.prices],
     ] as const;
     let dropped = 0;

@@ -56,7 +56,7 @@ async function renumberFrom(db: LodebookDb, from: number): Promise<void> {
  * the device is dropped.
  */
 export async function resetAndResend(db: LodebookDb): Promise<void> {
-  await db.transaction("rw", [db.outbox, db.meta, db.outings, db.finds, db.photos, db.scales, db.weighIns, db.barrenRocks], async () => {
+  await db.transaction("rw", [db.outbox, db.meta, db.outings, db.finds, db.photos, db.scales, db.weighIns, db.barrenRocks, db.answers], async () => {
     const now = Date.now();
     const puts: OutboxEntry[] = [];
     const queue = (entity: RecordEntity, record: { id: string } & object) =>
@@ -68,6 +68,8 @@ export async function resetAndResend(db: LodebookDb): Promise<void> {
     (await db.scales.toArray()).forEach((s) => queue("scale", s));
     (await db.weighIns.toArray()).forEach((w) => queue("weighIn", w));
     (await db.barrenRocks.toArray()).forEach((b) => queue("barrenRock", b));
+    // After the finds they answer about.
+    (await db.answers.toArray()).forEach((a) => queue("answer", a));
     const waiting = await db.outbox.where("state").equals("pending").sortBy("id");
     // A record's waiting put is the record as queued above (or, gone from the device, one a waiting delete undoes).
     const kept = waiting.filter((e) => e.name === "settings.put" || !e.name.endsWith(".put")).map(({ id: _id, mutationId: _m, ...e }) => e);

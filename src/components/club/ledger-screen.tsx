@@ -15,7 +15,7 @@ type Option = { id: string; name: string | null };
 const col = createColumnHelper<LedgerRow>();
 const grams = (g: number | null) => (g == null ? "—" : formatGrams(g));
 const money = (v: number | null, c: string | null) => (v == null ? "—" : `${v.toFixed(2)} ${c ?? ""}`);
-const STATE_LABEL = { new: "New", verified: "Verified", queried: "Queried" } as const;
+const STATE_LABEL = { new: "New", verified: "Verified", queried: "Queried", answered: "Answered" } as const;
 
 const SORT_IDS: Record<string, string> = { foundAt: "foundAt", memberName: "member", claimName: "claim", kind: "kind", method: "method", weightGrams: "weight", fineGrams: "fine", value: "value", state: "state" };
 
@@ -100,7 +100,21 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
         cell: (c) => <FineCell row={c.row.original} />,
       }),
       col.accessor("value", { header: "Value", cell: (c) => money(c.getValue(), c.row.original.currency) }),
-      col.accessor("state", { header: "Review", cell: (c) => <span data-state={c.getValue()}>{STATE_LABEL[c.getValue()]}</span> }),
+      col.accessor("state", {
+        header: "Review",
+        cell: (c) => (
+          <span className="flex flex-col">
+            <span data-state={c.getValue()} className={c.getValue() === "answered" ? "font-bold" : ""}>
+              {STATE_LABEL[c.getValue()]}
+            </span>
+            {c.row.original.changedSinceQuery && (
+              <span className="text-xs font-bold text-rust" data-testid="changed-since-query">
+                changed since the query
+              </span>
+            )}
+          </span>
+        ),
+      }),
     ],
     [],
   );

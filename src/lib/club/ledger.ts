@@ -3,7 +3,7 @@ import { FIND_KINDS } from "../entities/find";
 import type { FineBasis } from "../figures/fine-basis";
 import type { Totals } from "./totals";
 
-export const REVIEW_STATES = ["new", "verified", "queried"] as const;
+export const REVIEW_STATES = ["new", "verified", "queried", "answered"] as const;
 export const LEDGER_SORTS = ["foundAt", "weight", "fine", "value", "member", "claim", "kind", "method", "state"] as const;
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.");
@@ -54,6 +54,8 @@ export type LedgerRow = {
   currency: string | null;
   value: number | null;
   state: (typeof REVIEW_STATES)[number];
+  /** Queried or answered, and the find or its weigh-ins changed after the latest query. */
+  changedSinceQuery: boolean;
 };
 
 /** The totals (one module: ./totals) and their value at the reference price, low to high. */

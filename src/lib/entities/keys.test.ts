@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { answerSchema } from "./answer";
 import { barrenRockSchema } from "./barren-rock";
 import { claimViewSchema } from "./claim";
 import { findSchema } from "./find";
@@ -10,7 +11,7 @@ import { weighInSchema } from "./weigh-in";
 
 describe("the sync key lists", () => {
   it("name exactly each entity schema's fields", () => {
-    const schemas = { outing: outingSchema, find: findSchema, photo: photoSchema, weighIn: weighInSchema, scale: scaleSchema, barrenRock: barrenRockSchema };
+    const schemas = { outing: outingSchema, find: findSchema, photo: photoSchema, weighIn: weighInSchema, scale: scaleSchema, barrenRock: barrenRockSchema, answer: answerSchema };
     for (const [entity, schema] of Object.entries(schemas)) {
       expect([...RECORD_KEYS[entity as keyof typeof schemas]].sort(), entity).toEqual(Object.keys(schema.shape).sort());
     }

@@ -1,3 +1,4 @@
+import type { Answer } from "./answer";
 import type { BarrenRock } from "./barren-rock";
 import type { ClaimView } from "./claim";
 import type { Find } from "./find";
@@ -15,6 +16,7 @@ export const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "p
 export const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const satisfies readonly (keyof Photo)[];
 export const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt", "scaleId", "scaleCheck"] as const satisfies readonly (keyof WeighIn)[];
 export const SCALE_KEYS = ["id", "name", "stepGrams", "accuracyGrams", "checks"] as const satisfies readonly (keyof Scale)[];
+export const ANSWER_KEYS = ["id", "findId", "reviewId", "note"] as const satisfies readonly (keyof Answer)[];
 export const BARREN_ROCK_KEYS = ["id", "claimId", "input", "deviceDensity", "weighedAt", "scaleId", "scaleCheck", "notes"] as const satisfies readonly (keyof BarrenRock)[];
 
 /** A claim as devices keep it (read-only there; officers change claims on the server). */
@@ -37,7 +39,7 @@ export const CLAIM_KEYS = [
 ] as const satisfies readonly (keyof ClaimView)[];
 
 /** A member record's entity as sync names it, with its record type. */
-export type RecordEntities = { outing: Outing; find: Find; photo: Photo; weighIn: WeighIn; scale: Scale; barrenRock: BarrenRock };
+export type RecordEntities = { outing: Outing; find: Find; photo: Photo; weighIn: WeighIn; scale: Scale; barrenRock: BarrenRock; answer: Answer };
 export type RecordEntity = keyof RecordEntities;
 
 export const RECORD_KEYS: { [E in RecordEntity]: readonly (keyof RecordEntities[E])[] } = {
@@ -47,6 +49,7 @@ export const RECORD_KEYS: { [E in RecordEntity]: readonly (keyof RecordEntities[
   weighIn: WEIGH_IN_KEYS,
   scale: SCALE_KEYS,
   barrenRock: BARREN_ROCK_KEYS,
+  answer: ANSWER_KEYS,
 };
 
 /** The record as it syncs: exactly its entity's fields (a missing one as null), nothing a device or server adds. */

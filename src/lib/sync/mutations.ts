@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { idSchema } from "../entities/common";
+import { answerSchema } from "../entities/answer";
 import { barrenRockSchema } from "../entities/barren-rock";
 import { findSchema } from "../entities/find";
 import { outingSchema } from "../entities/outing";
@@ -8,7 +9,14 @@ import { scaleSchema } from "../entities/scale";
 import { weighInSchema } from "../entities/weigh-in";
 
 /** Member settings the club's server needs to know (the rest stay on the device). */
-export const memberSettingsSchema = z.object({ locationSharing: z.enum(["exact", "claim"]) }).strict();
+export const memberSettingsSchema = z
+  .object({
+    locationSharing: z.enum(["exact", "claim"]).optional(),
+    /** Tell the member by e-mail when an officer queries one of their finds. */
+    mailOnQuery: z.boolean().optional(),
+  })
+  .strict()
+  .refine((s) => s.locationSharing !== undefined || s.mailOnQuery !== undefined, "Send at least one setting.");
 
 /**
  * Every change a device can send, by name, with the schema of its arguments. Puts carry the
@@ -27,6 +35,7 @@ export const MUTATION_ARGS = {
   "scale.delete": z.object({ id: idSchema }).strict(),
   "barrenRock.put": barrenRockSchema,
   "barrenRock.delete": z.object({ id: idSchema }).strict(),
+  "answer.put": answerSchema,
   "settings.put": memberSettingsSchema,
 } as const;
 

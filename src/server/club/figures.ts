@@ -16,8 +16,11 @@ const WEIGH_IN_FIGURES = `
       coalesce(w.scale_check_passed, 0)
     from weigh_ins w where w.find_id = finds.id and w.deleted_at is null order by w.weighed_at desc, w.id desc limit 1)`;
 
+// The query thread's state: the latest verify or query decides; a query the member has
+// answered (an answer naming it) is "answered" until an officer verifies or queries again.
 const REVIEW_STATE = `
-  review_state = coalesce((select case r.action when 'verify' then 'verified' else 'queried' end
+  review_state = coalesce((select case when r.action = 'verify' then 'verified'
+      when exists (select 1 from answers a where a.review_id = r.id and a.deleted_at is null) then 'answered' else 'queried' end
     from reviews r where r.find_id = finds.id and r.action in ('verify','query') order by r.created_at desc, r.seq desc limit 1), 'new')`;
 
 /** After a weigh-in of the find is added, changed or deleted. */
@@ -70,7 +73,7 @@ export function refigureFineness(sqlite: Sqlite, where: { claimId: string; start
   ).run(where.claimId, where.start, where.end).changes;
 }
 
-/** After an officer's review of the find. */
+/** After an officer's review of the find, or the member's answer to a query. */
 export function refreshReviewState(sqlite: Sqlite, findId: string): void {
   statement(sqlite, `update finds set ${REVIEW_STATE} where id = ?`).run(findId);
 }

@@ -8,9 +8,10 @@ import * as t from "../db/schema";
 import { nextSeq } from "../db/sequence";
 import { AppError } from "../errors";
 import { refreshReviewState } from "./figures";
+import { mailQueryIfAsked, threadOf } from "./query-thread";
 import { clubSettings } from "./settings";
 
-/** One find as an officer opens it: photos, position (as the member shares it), every weigh-in and the review history. */
+/** One find as an officer opens it: photos, position (as the member shares it), every weigh-in, the review history and the query thread. */
 export function findForOfficer(id: string) {
   const db = getDb();
   const find = db
@@ -52,13 +53,14 @@ export function findForOfficer(id: string) {
       .where(eq(t.reviews.findId, id))
       .orderBy(asc(t.reviews.createdAt))
       .all(),
+    thread: threadOf(id),
   };
 }
 
 /** An officer verifies, queries or annotates a find. Its own record: never conflicts with the member's edits. */
 export function reviewFind(actor: Actor, findId: string, input: { action: "verify" | "query" | "note"; note: string }) {
   const db = getDb();
-  return db.transaction((tx) => {
+  const written = db.transaction((tx) => {
     const find = tx.select({ id: t.finds.id, deletedAt: t.finds.deletedAt }).from(t.finds).where(eq(t.finds.id, findId)).get();
     if (!find || find.deletedAt) throw new AppError("not_found:find", "No such find.");
     const review = { id: uuidv7(), findId, officerId: actor.id, action: input.action, note: input.note, seq: nextSeq(db.$client) };
@@ -67,4 +69,7 @@ export function reviewFind(actor: Actor, findId: string, input: { action: "verif
     audit(tx, { actorId: actor.id, action: `review.${input.action}`, entity: "find", entityId: findId, after: { action: input.action, note: input.note } });
     return { id: review.id };
   });
+  // After the commit: the member hears of a query only once it stands.
+  if (input.action === "query") mailQueryIfAsked(findId, actor.name, input.note);
+  return written;
 }

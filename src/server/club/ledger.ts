@@ -6,6 +6,7 @@ import { addTotals, NO_TOTALS } from "@/lib/club/totals";
 import { clubDay, currentSeason, dayStart, nextDay, seasonBounds } from "@/lib/time/club-day";
 import { getDb } from "../db";
 import { pricesInForce } from "./prices";
+import { CHANGED_SINCE_QUERY } from "./query-thread";
 import { clubSettings } from "./settings";
 import { totalsBy } from "./totals";
 
@@ -138,9 +139,14 @@ const ORDER: Record<Exclude<LedgerQuery["sort"], "value">, string> = {
 const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName, f.claim_id as claimId, c.name as claimName,
   f.found_at as foundAt, f.kind, f.method, f.weight_grams as weightGrams,
   f.latest_alloy_grams as alloyGrams, f.latest_fine_grams as fineGrams, f.latest_fine_low as fineLow, f.latest_fine_high as fineHigh,
-  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.outside_claim as outsideClaim, f.review_state as state`);
+  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.outside_claim as outsideClaim, f.review_state as state,
+  ${CHANGED_SINCE_QUERY} as changedSinceQuery`);
 
-type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "outsideClaim" | "foundOn"> & { weighMismatch: number | boolean; outsideClaim: number | boolean };
+type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "outsideClaim" | "changedSinceQuery" | "foundOn"> & {
+  weighMismatch: number | boolean;
+  outsideClaim: number | boolean;
+  changedSinceQuery: number | boolean | null;
+};
 
 const MEMBER_JOIN = "join members m on m.id = f.member_id";
 const CLAIM_JOIN = "left join claims c on c.id = f.claim_id";
@@ -161,7 +167,7 @@ function withPrices(list: UnpricedRow[], spans: Span[], tz = clubSettings().time
       else hi = mid - 1;
     }
     const { price, currency } = spans[lo];
-    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, outsideClaim: !!r.outsideClaim, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, outsideClaim: !!r.outsideClaim, changedSinceQuery: !!r.changedSinceQuery, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
   });
 }
 

@@ -16,3 +16,13 @@ export function invitationMessage(url: string, inviter: string, days: number, cl
     text: `${withoutBidiControls(inviter)} invites you to keep your prospecting log in Lodebook, with ${clubName}.\n\nOpen this link to choose your password. It works once, for ${days} days:\n\n${url}\n\nIf you were not expecting this, ignore it.`,
   };
 }
+
+/** To a member who asked for it: an officer queried a find of theirs. Text people chose has no bidirectional controls; the subject stays on one line. */
+export function queryMessage(q: { link: string; club: string; officer: string | null; note: string; find: string }) {
+  const clubName = withoutBidiControls(q.club).replace(/[\r\n]+/g, " ");
+  const officer = q.officer ? withoutBidiControls(q.officer).replace(/[\r\n]+/g, " ") : "An officer";
+  return {
+    subject: `${clubName}: a find of yours was queried`,
+    text: `${officer} of ${clubName} queried your ${q.find}:\n\n${withoutBidiControls(q.note)}\n\nOpen the find to answer or correct it; your answer goes to the club at the next camp sync:\n\n${q.link}\n\nYou get this because you asked for it in Lodebook's settings.`,
+  };
+}

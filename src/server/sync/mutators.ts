@@ -9,7 +9,7 @@ import { insertRow, selectRow, statement, updateRow, type Sqlite } from "../db/r
 import * as t from "../db/schema";
 import { logger } from "../log";
 import { inBoundary } from "@/lib/geo";
-import { claimFacts, refreshWeighInFigures, weighInAdded, type ClaimFacts } from "../club/figures";
+import { claimFacts, refreshReviewState, refreshWeighInFigures, weighInAdded, type ClaimFacts } from "../club/figures";
 import { RejectError } from "./reject";
 import { judgeChecks, namedCheckVerdict, serverDensity } from "./scale-checks";
 
@@ -23,10 +23,10 @@ import { judgeChecks, namedCheckVerdict, serverDensity } from "./scale-checks";
 export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; claims: Map<string | null, ClaimFacts> };
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = RecordEntity;
-type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks;
+type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks | typeof t.answers;
 
-const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns, scale: t.scales, barrenRock: t.barrenRocks };
-const TABLE_NAME: Record<Entity, string> = { outing: "outings", find: "finds", photo: "photos", weighIn: "weigh_ins", scale: "scales", barrenRock: "barren_rocks" };
+const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns, scale: t.scales, barrenRock: t.barrenRocks, answer: t.answers };
+const TABLE_NAME: Record<Entity, string> = { outing: "outings", find: "finds", photo: "photos", weighIn: "weigh_ins", scale: "scales", barrenRock: "barren_rocks", answer: "answers" };
 
 /**
  * Loads a member record for a write. Another member's record is refused (and logged);
@@ -222,7 +222,21 @@ const MUTATORS: Mutators = {
     return () => upsert(tx, "barrenRock", existing, b, actor, { density, scaleCheckPassed, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
   },
   "barrenRock.delete": (tx, actor, { id }) => tombstone(tx, "barrenRock", id, actor),
+  "answer.put": (tx, actor, a) => {
+    const existing = loadForWrite(tx, "answer", a.id, actor, a);
+    requireOwnedParent(tx, "find", a.findId, actor, "findId");
+    // Only an officer's query of this very find can be answered (a verify or a note asks nothing).
+    const review = statement(tx.db, "select find_id, action from reviews where id = ?").raw().get(a.reviewId) as [string, string] | undefined;
+    if (!review || review[0] !== a.findId) throw new RejectError("unknown_parent", "The query this answers is not on the server.", "reviewId");
+    if (review[1] !== "query") throw new RejectError("invalid", "Only an officer's query can be answered.", "reviewId");
+    return () => {
+      upsert(tx, "answer", existing, a, actor);
+      refreshReviewState(tx.db, a.findId);
+    };
+  },
   "settings.put": (tx, actor, s) => () => {
+    if (s.mailOnQuery !== undefined) statement(tx.db, "update members set mail_on_query = ? where id = ?").run(s.mailOnQuery ? 1 : 0, actor.id);
+    if (s.locationSharing === undefined) return;
     const changed = statement(tx.db, "update members set location_sharing = ? where id = ? and location_sharing <> ?").run(s.locationSharing, actor.id, s.locationSharing).changes;
     // Officers' copies of this member's finds change with the setting: they are re-sent once
     // at the end of the push (resendFinds), however many settings changes it holds.

@@ -61,9 +61,9 @@ export function SettingsScreen() {
   const change = async (changes: Partial<MemberSettings>) => {
     await saveSettings(db, changes);
     setSaved(true);
-    if (changes.locationSharing) requestSync();
+    if (changes.locationSharing || changes.mailOnQuery !== undefined) requestSync();
   };
-  const select = (key: keyof MemberSettings, label: string, options: [string, string][]) => (
+  const select = (key: Exclude<keyof MemberSettings, "mailOnQuery">, label: string, options: [string, string][]) => (
     <label className="flex flex-col">
       <span className="field-label">{label}</span>
       <select className="field-input" value={settings[key]} onChange={(e) => void change({ [key]: e.target.value })}>
@@ -106,6 +106,10 @@ export function SettingsScreen() {
           ["claim", "Only the claim"],
         ])}
         <p className="text-sm text-ink-soft">Your own devices always keep the exact spot. This goes to the club at the next sync.</p>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={settings.mailOnQuery} onChange={(e) => void change({ mailOnQuery: e.target.checked })} />
+          <span>E-mail me when an officer queries one of my finds</span>
+        </label>
       </section>
       <section className="sheet flex flex-col gap-2" aria-label="Map">
         <label className="flex flex-col">
