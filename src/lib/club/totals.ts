@@ -32,3 +32,29 @@ export function addTotals(a: Totals, b: Totals): Totals {
     byBasis,
   };
 }
+
+/** A find as a device holds it: its weight, and the server's figure as of the last pull. */
+export type DeviceFindFigures = { weightGrams: number | null; figure?: { basis: FineBasis | null; fineGrams: number | null; low: number | null; high: number | null; weighMismatch: boolean } | null };
+
+/**
+ * The same totals over the finds a device holds (the phone's tally), from the figures the
+ * server worked out: a find saved since the last camp sync has none yet and counts as not
+ * figured.
+ */
+export function deviceTotals(finds: readonly DeviceFindFigures[]): Totals {
+  return finds.reduce<Totals>((t, f) => {
+    const fig = f.figure?.fineGrams != null ? f.figure : null;
+    const byBasis = { ...t.byBasis };
+    if (fig?.basis) byBasis[fig.basis] = (byBasis[fig.basis] ?? 0) + 1;
+    return {
+      finds: t.finds + 1,
+      weightGrams: t.weightGrams + (f.weightGrams ?? 0),
+      fineGrams: t.fineGrams + (fig?.fineGrams ?? 0),
+      fineLow: t.fineLow + (fig?.low ?? 0),
+      fineHigh: t.fineHigh + (fig?.high ?? 0),
+      figured: t.figured + (fig ? 1 : 0),
+      mismatched: t.mismatched + (f.figure?.weighMismatch ? 1 : 0),
+      byBasis,
+    };
+  }, NO_TOTALS);
+}

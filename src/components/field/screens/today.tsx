@@ -12,6 +12,7 @@ import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/constants";
 import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
 import { deviceSeasonBounds } from "@/lib/time/device-season";
+import { deviceTotals } from "@/lib/club/totals";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
 
@@ -24,6 +25,7 @@ export function TodayScreen() {
   const { season, start, end } = deviceSeasonBounds();
   const finds = useLiveQuery(() => db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"), [db, start, end]);
   const first = (member.name ?? member.email).split(" ")[0];
+  const tally = deviceTotals(finds ?? []);
   const claimName = (id: string | null) => claims?.find((c) => c.id === id)?.name ?? "no claim";
 
   return (
@@ -100,7 +102,7 @@ export function TodayScreen() {
         <h2 id="season-title" className="heading-bar mb-3 text-lg">
           Your {season} season
         </h2>
-        <dl className="grid grid-cols-2 gap-3 text-center">
+        <dl className="grid grid-cols-3 gap-3 text-center">
           <div>
             <dt className="text-sm text-ink-soft">Finds</dt>
             <dd className="figure text-2xl font-bold" data-testid="tally-finds">
@@ -108,10 +110,22 @@ export function TodayScreen() {
             </dd>
           </div>
           <div>
+            <dt className="text-sm text-ink-soft">Fine gold (est.)</dt>
+            <dd className="figure text-2xl font-bold" data-testid="tally-fine">
+              {formatGrams(tally.fineGrams, settings.massUnit)}
+            </dd>
+          </div>
+          <div>
             <dt className="text-sm text-ink-soft">Recorded weight</dt>
-            <dd className="figure text-2xl font-bold">{formatGrams((finds ?? []).reduce((n, f) => n + (f.weightGrams ?? 0), 0), settings.massUnit)}</dd>
+            <dd className="figure text-2xl font-bold">{formatGrams(tally.weightGrams, settings.massUnit)}</dd>
           </div>
         </dl>
+        {tally.finds > tally.figured && (
+          <p className="mt-2 text-sm text-ink-soft">
+            {tally.finds - tally.figured} {tally.finds - tally.figured === 1 ? "find has" : "finds have"} no fine-gold figure yet: specimens not weighed, or
+            finds the club&apos;s server has not figured since your last camp sync.
+          </p>
+        )}
       </section>
 
       <section aria-labelledby="recent-title" className="flex flex-col gap-2">
