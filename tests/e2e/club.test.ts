@@ -63,9 +63,9 @@ describe("the club console", () => {
     await signInToField(phone, baseUrl);
     await waitForSyncDone(phone);
     await phone.goto(`${baseUrl}/finds/view#id=${verified}`);
-    await phone.getByTestId("reviews").locator('[data-action="verify"]').waitFor();
+    await phone.getByTestId("query-thread").locator('[data-action="verify"]').waitFor();
     await phone.goto(`${baseUrl}/finds/view#id=${queried}`);
-    await phone.getByTestId("reviews").getByText("Please weigh it again with the line tared under water.").waitFor();
+    await phone.getByTestId("query-thread").getByText("Please weigh it again with the line tared under water.").waitFor();
     await phone.screenshot({ path: shotPath("member-sees-query-phone"), fullPage: true });
     await phone.context().close();
   });

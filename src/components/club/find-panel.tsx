@@ -7,6 +7,7 @@ import { DEFAULTS } from "@/lib/estimate/input";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import type { ReportedEstimate } from "@/lib/entities/weigh-in";
 import { formatGrams, formatWhen } from "@/lib/format";
+import type { ThreadEvent } from "@/lib/club/thread";
 import { formatDecimal, toDms } from "@/lib/geo";
 import { api, ApiError } from "./api";
 
@@ -27,6 +28,7 @@ type FindDetail = {
     scaleCheckPassed: boolean | null;
   }[];
   reviews: { id: string; action: "verify" | "query" | "note"; note: string; createdAt: number; officerName: string | null }[];
+  thread: ThreadEvent[];
 };
 
 const ACTION = { verify: "Verified", query: "Queried", note: "Note" } as const;
@@ -86,6 +88,37 @@ function ScaleMark({ w, timeZone }: { w: FindDetail["weighIns"][number]; timeZon
       {w.scaleName || w.scaleCheck ? `On ${scale}, not checked then.` : "No scale named; the rig was not checked."}
     </p>
   );
+}
+
+/** One step of the thread, on the club's clock. */
+function ThreadLine({ e, timeZone }: { e: ThreadEvent; timeZone: string }) {
+  const when = <time dateTime={new Date(e.at).toISOString()}>{formatWhen(e.at, timeZone)}</time>;
+  switch (e.kind) {
+    case "review":
+      return (
+        <>
+          <strong className={e.action === "query" ? "text-rust" : e.action === "verify" ? "text-moss" : ""}>{ACTION[e.action]}</strong> by {e.by ?? "a former officer"} · {when} {e.note && `— ${e.note}`}
+        </>
+      );
+    case "answer":
+      return (
+        <>
+          <strong>Answered</strong> by {e.by ?? "the member"} · {when} — {e.note}
+        </>
+      );
+    case "edit":
+      return (
+        <span className="text-ink-soft">
+          The member changed the find ({e.fields.join(", ")}) · {when}
+        </span>
+      );
+    case "weighIn":
+      return (
+        <span className="text-ink-soft">
+          The member {e.removed ? "removed a weigh-in" : "weighed it"} · {when}
+        </span>
+      );
+  }
 }
 
 /** A find opened from the ledger: everything about it, and the officer's verify / query / note. */
@@ -160,14 +193,15 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
             ))}
           </section>
           <section>
-            <h3 className="font-bold">Reviews</h3>
-            <ul className="text-sm" data-testid="review-history">
-              {data.reviews.map((r) => (
-                <li key={r.id}>
-                  <strong>{ACTION[r.action]}</strong> by {r.officerName} · {formatWhen(r.createdAt, data.timeZone)} {r.note && `— ${r.note}`}
+            <h3 className="font-bold">Query thread</h3>
+            {data.thread.length === 0 && <p className="text-sm text-ink-soft">Not reviewed yet.</p>}
+            <ol className="text-sm" data-testid="review-history">
+              {data.thread.map((e) => (
+                <li key={`${e.kind}:${e.id}`} data-kind={e.kind} data-action={e.kind === "review" ? e.action : undefined} className="border-b border-rule py-1">
+                  <ThreadLine e={e} timeZone={data.timeZone} />
                 </li>
               ))}
-            </ul>
+            </ol>
           </section>
           <div className="flex flex-col gap-2">
             <label className="flex flex-col">

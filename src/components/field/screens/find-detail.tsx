@@ -18,6 +18,7 @@ import { formatGrams, formatWhen } from "@/lib/format";
 import { claimAt } from "@/lib/geo";
 import { engineLabel } from "@/components/weigh/engine-label";
 import { LocationLine } from "../location-line";
+import { QueryThread } from "../query-thread";
 import { Skeleton } from "../skeleton";
 
 // The weigh-in flow (and the estimate engine with it) loads when the member starts weighing.
@@ -28,8 +29,6 @@ const WeighInFlow = lazy(() => import("@/components/weigh/weigh-in-flow").then((
 // load just after the record itself: both are precached chunks, so offline too.
 const PhotosBlock = lazy(() => import("../photos-block").then((m) => ({ default: m.PhotosBlock })));
 const FindForm = lazy(() => import("../find-form").then((m) => ({ default: m.FindForm })));
-
-const REVIEW_LABEL = { verify: "Verified", query: "Queried", note: "Note" } as const;
 
 /** The find's fine gold as the club's server figured it, and a warning when its weigh-in disagrees with its weight. */
 function FineGoldLine({ find, latestAir, unit }: { find: LocalFind; latestAir: number[]; unit: MassUnit }) {
@@ -91,7 +90,6 @@ export function FindDetailScreen() {
   const settings = useSettings(db);
   const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);
   const scales = useLiveQuery(() => db.scales.toArray(), [db]);
-  const reviews = useLiveQuery(() => db.reviews.where("findId").equals(id).sortBy("createdAt"), [db, id]);
   // Asked for when the member taps for it; the position code loads then.
   const [position, setPosition] = useState<PositionState>({ kind: "idle" });
   const locate = async () => {
@@ -137,20 +135,7 @@ export function FindDetailScreen() {
         </p>
       )}
 
-      {(reviews?.length ?? 0) > 0 && (
-        <section className="sheet flex flex-col gap-2" aria-labelledby="reviews-title" data-testid="reviews">
-          <h2 id="reviews-title" className="heading-bar self-start text-lg">
-            From the club&apos;s officers
-          </h2>
-          {reviews!.map((r) => (
-            <p key={r.id} data-action={r.action}>
-              <strong className={r.action === "query" ? "text-rust" : r.action === "verify" ? "text-moss" : ""}>{REVIEW_LABEL[r.action]}</strong>
-              {r.officerName ? ` by ${r.officerName}` : ""} · {formatWhen(r.createdAt)}
-              {r.note && <span className="block">{r.note}</span>}
-            </p>
-          ))}
-        </section>
-      )}
+      <QueryThread db={db} find={find} weighIns={weighIns ?? []} />
 
       <section className="sheet flex flex-col gap-2" aria-labelledby="where-title">
         <h2 id="where-title" className="heading-bar self-start text-lg">

@@ -5,10 +5,12 @@ import { lazy, Suspense, useMemo, useState, type ReactElement } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
 import type { LocalFind } from "@/client/device-db";
 import { useMember } from "@/client/member";
+import { useQueryStates } from "@/client/query-states";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import { formatDay, formatGrams } from "@/lib/format";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions } from "../options";
+import { QueryMark } from "../query-mark";
 
 const ROW_HEIGHT = 76;
 /** Rows drawn plainly while the list's virtualiser loads: more than a phone's screen holds. */
@@ -25,6 +27,7 @@ export function FindsListScreen() {
   const claims = useMemo(() => loaded ?? [], [loaded]);
   const settings = useSettings(db);
   const all = useLiveQuery(() => db.finds.orderBy("foundAt").reverse().toArray(), [db]);
+  const queries = useQueryStates(db);
   const [text, setText] = useState("");
   const [kind, setKind] = useState("");
   const [claim, setClaim] = useState("");
@@ -44,7 +47,7 @@ export function FindsListScreen() {
     <div key={f.id} style={{ height: ROW_HEIGHT }} className="pb-2">
       <Link href={`/finds/view#id=${f.id}`} className="sheet flex h-full items-center justify-between gap-2 no-underline">
         <span>
-          <span className="font-bold">{KIND_LABELS[f.kind]}</span>
+          <span className="font-bold">{KIND_LABELS[f.kind]}</span> <QueryMark state={queries?.get(f.id)} />
           <span className="block text-sm text-ink-soft">
             {claimName.get(f.claimId ?? "") ?? "off-claim"} · {formatDay(f.foundAt)}
           </span>

@@ -13,6 +13,7 @@ import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
 import { deviceSeasonBounds } from "@/lib/time/device-season";
 import { deviceTotals } from "@/lib/club/totals";
+import { QueriedFinds } from "../queried-finds";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
 
@@ -35,6 +36,8 @@ export function TodayScreen() {
       <Link href="/finds/new" className="btn btn-primary min-h-[64px] text-xl" data-testid="log-find">
         Log a find
       </Link>
+
+      <QueriedFinds db={db} />
 
       <section className="sheet flex flex-col gap-3" aria-labelledby="outing-title">
         <h2 id="outing-title" className="heading-bar self-start text-lg">
