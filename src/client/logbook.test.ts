@@ -2,7 +2,7 @@ import Dexie from "dexie";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { makeJpeg } from "../../tests/support/jpeg";
 import { closeMemberDbs, databaseNameFor, DB_VERSION, LodebookDb, memberDb } from "./device-db";
-import { addSetupCheck, LocalValidationError, newId, saveFind, saveScale, startOuting } from "./logbook";
+import { addSetupCheck, LocalValidationError, newId, saveAnswer, saveFind, saveScale, startOuting } from "./logbook";
 import { judgeSetupCheck } from "@/lib/estimate/setup-check";
 import { readPhotoMeta } from "./photos";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
@@ -147,5 +147,46 @@ describe("photo EXIF", () => {
   it("reports no position for a JPEG without EXIF, and survives junk", async () => {
     expect(await readPhotoMeta(new Blob([new Uint8Array(makeJpeg({ width: 16, height: 16 }))]))).toEqual({ takenAt: null, lat: null, lon: null });
     expect(await readPhotoMeta(new Blob(["<html>not a photo</html>"]))).toEqual({ takenAt: null, lat: null, lon: null });
+  });
+});
+
+describe("answers to officers' queries (issue 18)", () => {
+  it("saves the answer and its outbox entry together; an empty answer saves neither", async () => {
+    const db = freshDb();
+    const f = await saveFind(db, find());
+    await db.outbox.clear();
+    const answer = { id: newId(), findId: f.id, reviewId: newId(), note: "Re-weighed at camp." };
+    await saveAnswer(db, answer);
+    expect(await db.answers.get(answer.id)).toMatchObject(answer);
+    expect(await db.outbox.toArray()).toMatchObject([{ name: "answer.put", args: answer, entityId: answer.id, state: "pending" }]);
+    await expect(saveAnswer(db, { ...answer, id: newId(), note: "   " })).rejects.toBeInstanceOf(LocalValidationError);
+    expect(await db.answers.count()).toBe(1);
+    expect(await db.outbox.count()).toBe(1);
+  });
+
+  it("sends the mail-on-query setting to the club when it changes, and only then", async () => {
+    const db = freshDb();
+    await saveSettings(db, { mailOnQuery: false });
+    expect(await db.outbox.count()).toBe(0);
+    await saveSettings(db, { mailOnQuery: true });
+    expect(await db.outbox.toArray()).toMatchObject([{ name: "settings.put", args: { mailOnQuery: true } }]);
+    expect((await readSettings(db)).mailOnQuery).toBe(true);
+  });
+
+  it("pulls everything again after the upgrade to version 4 when reviews were stored without their time", async () => {
+    const name = databaseNameFor(`upgrade-v3-${Date.now()}`);
+    const v3 = new Dexie(name);
+    const stores = { outings: "id, startedAt", finds: "id, foundAt, outingId, kind, claimId", photos: "id, findId, uploaded", weighIns: "id, findId", claims: "id", settings: "key", outbox: "++id, state, entityId", reviews: "id, findId", prices: "id, effectiveOn", meta: "key", scales: "id", barrenRocks: "id, claimId, weighedAt" };
+    v3.version(3).stores(stores);
+    await v3.table("reviews").add({ id: "r1", findId: "f1", action: "query", note: "Which side?", officerName: "An officer" });
+    await v3.table("meta").put({ key: "cursor", value: 420 });
+    v3.close();
+
+    const v4 = new LodebookDb(name);
+    await v4.open();
+    expect(v4.verno).toBe(DB_VERSION);
+    expect((await v4.meta.get("cursor"))?.value).toBe(0);
+    expect(await v4.answers.count()).toBe(0);
+    v4.close();
   });
 });
