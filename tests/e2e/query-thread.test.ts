@@ -52,7 +52,10 @@ describe("the query thread (issue 18)", () => {
     await signInToField(phone, baseUrl);
     await waitForSyncDone(phone);
     await phone.goto(`${baseUrl}/settings`);
-    await phone.getByLabel("E-mail me when an officer queries one of my finds").check();
+    // The box follows the device's stored setting, so it turns on once saved there.
+    const mailBox = phone.getByLabel("E-mail me when an officer queries one of my finds");
+    await mailBox.click();
+    await expect.poll(() => mailBox.isChecked()).toBe(true);
     await syncUntilSent(phone);
 
     // The officer queries the find from the ledger.
