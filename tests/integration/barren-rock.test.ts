@@ -135,6 +135,12 @@ describe("weigh-ins on a checked scale", () => {
     expect(checkedFlag(f3.id)).toBeNull();
     const scales = db.$client.prepare("select id, latest_check_passed p from scales where id in (?, ?)").all(sound.id, faulty.id) as { id: string; p: number }[];
     expect(Object.fromEntries(scales.map((s) => [s.id, s.p]))).toEqual({ [sound.id]: 1, [faulty.id]: 0 });
+    // Officers see it in the ledger, row by row.
+    const { ledgerPage } = await import("@/server/club/ledger");
+    const { ledgerQuerySchema } = await import("@/lib/club/ledger");
+    const rows = ledgerPage(ledgerQuerySchema.parse({ memberId: memberByEmail(db, MEMBER_EMAIL).id, pageSize: 200 })).rows;
+    const of = (id: string) => rows.find((r) => r.id === id)?.scaleChecked;
+    expect([of(f1.id), of(f2.id), of(f3.id)]).toEqual([true, false, null]);
   });
 
   it("takes the server's verdict, not the device's, and refuses another member's scale", async () => {

@@ -29,6 +29,11 @@ function FineCell({ row }: { row: LedgerRow }) {
         {row.fineBasis ? FINE_BASIS_LABELS[row.fineBasis] : ""}
         {row.fineLow !== row.fineHigh ? ` · ${grams(row.fineLow)}–${grams(row.fineHigh)}` : ""}
       </span>
+      {row.fineBasis === "weighed" && row.scaleChecked !== null && (
+        <span className={`text-xs ${row.scaleChecked ? "text-moss" : "font-bold text-rust"}`} data-testid="scale-checked" data-checked={row.scaleChecked}>
+          {row.scaleChecked ? "on a checked scale" : "scale not checked"}
+        </span>
+      )}
       {row.weighMismatch && (
         <span className="text-xs font-bold text-rust" data-testid="weigh-mismatch">
           weigh-in ≠ recorded weight

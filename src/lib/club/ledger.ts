@@ -48,6 +48,8 @@ export type LedgerRow = {
   fineHigh: number | null;
   fineBasis: FineBasis | null;
   weighMismatch: boolean;
+  /** Its latest weigh-in was made on a scale whose latest setup check passed; null when it has none. */
+  scaleChecked: boolean | null;
   /** Its position lies outside the boundary of its claim. */
   outsideClaim: boolean;
   price: number | null;
@@ -74,4 +76,4 @@ export type ExportRow = LedgerRow & {
 };
 
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "outingId", "outingOn", "lat", "lon", "depthCm", "notes", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "outsideClaim", "price", "currency", "value", "state"] as const;
+export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "outingId", "outingOn", "lat", "lon", "depthCm", "notes", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "scaleChecked", "outsideClaim", "price", "currency", "value", "state"] as const;

@@ -139,11 +139,12 @@ const ORDER: Record<Exclude<LedgerQuery["sort"], "value">, string> = {
 const ROW_COLUMNS = sql.raw(`f.id, f.member_id as memberId, m.name as memberName, f.claim_id as claimId, c.name as claimName,
   f.found_at as foundAt, f.kind, f.method, f.weight_grams as weightGrams,
   f.latest_alloy_grams as alloyGrams, f.latest_fine_grams as fineGrams, f.latest_fine_low as fineLow, f.latest_fine_high as fineHigh,
-  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.outside_claim as outsideClaim, f.review_state as state,
+  f.fine_basis as fineBasis, f.weigh_mismatch as weighMismatch, f.weighed_scale_checked as scaleChecked, f.outside_claim as outsideClaim, f.review_state as state,
   ${CHANGED_SINCE_QUERY} as changedSinceQuery`);
 
-type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "outsideClaim" | "changedSinceQuery" | "foundOn"> & {
+type UnpricedRow = Omit<LedgerRow, "price" | "currency" | "value" | "weighMismatch" | "outsideClaim" | "changedSinceQuery" | "scaleChecked" | "foundOn"> & {
   weighMismatch: number | boolean;
+  scaleChecked: number | boolean | null;
   outsideClaim: number | boolean;
   changedSinceQuery: number | boolean | null;
 };
@@ -167,7 +168,7 @@ function withPrices(list: UnpricedRow[], spans: Span[], tz = clubSettings().time
       else hi = mid - 1;
     }
     const { price, currency } = spans[lo];
-    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, outsideClaim: !!r.outsideClaim, changedSinceQuery: !!r.changedSinceQuery, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, outsideClaim: !!r.outsideClaim, changedSinceQuery: !!r.changedSinceQuery, scaleChecked: r.scaleChecked === null ? null : !!r.scaleChecked, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
   });
 }
 

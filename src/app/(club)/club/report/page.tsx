@@ -105,6 +105,7 @@ export default async function ReportPage({ searchParams }: Props) {
                   {r.fineBasis ? FINE_BASIS_LABELS[r.fineBasis] : r.kind === "specimen" ? "not weighed" : "no weight"}
                   {r.weighMismatch ? " · weigh-in ≠ weight" : ""}
                   {r.outsideClaim ? " · position outside its claim" : ""}
+                  {r.fineBasis === "weighed" && r.scaleChecked === false ? " · scale not checked" : ""}
                 </td>
                 <td className="figure py-1 pr-2 text-right">{r.value != null ? r.value.toFixed(2) : "—"}</td>
                 <td className="py-1">{r.state}</td>
