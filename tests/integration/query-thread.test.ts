@@ -155,6 +155,20 @@ describe("the query thread's states", () => {
     expect(stateOf(f.id)).toBe("queried");
     expect(sql<{ n: number }>("select count(*) n from answers where find_id in (?, ?)", f.id, g.id).n).toBe(0);
   });
+
+  it("an answer moved to another find's query leaves the first find's query open again", async () => {
+    const f = newFind();
+    const g = newFind();
+    await send("find.put", f);
+    await send("find.put", g);
+    const qf = await review(f.id, "query", "First?");
+    const qg = await review(g.id, "query", "Second?");
+    const answer = { id: uuidv7(), findId: f.id, reviewId: qf, note: "Meant for the other one." };
+    await send("answer.put", answer);
+    expect([stateOf(f.id), stateOf(g.id)]).toEqual(["answered", "queried"]);
+    expect((await send("answer.put", { ...answer, findId: g.id, reviewId: qg })).status).toBe("applied");
+    expect([stateOf(f.id), stateOf(g.id)]).toEqual(["queried", "answered"]);
+  });
 });
 
 describe("the find's thread for the officer", () => {

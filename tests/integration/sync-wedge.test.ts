@@ -91,9 +91,11 @@ describe("random batches with references shuffled across kinds and members (RELI
   it("never answer 5xx, and a full pull holds what the server holds", async () => {
     const others = { finds: ids("select id from finds where member_id = ? limit 3", otherId), outings: ids("select id from outings where member_id = ? limit 3", otherId) };
     const claims = ids("select id from claims limit 2");
+    // Officers' reviews an answer can name: queries and a verify, of this member's finds and another's.
+    const reviews = ids("select id from reviews where action = 'query' limit 4").concat(ids("select id from reviews where action = 'verify' limit 1"));
     await fc.assert(
       fc.asyncProperty(
-        fc.array(fc.record({ kind: fc.constantFrom("outing.put", "find.put", "weighIn.put", "photo.put", "outing.delete", "find.delete", "weighIn.delete", "photo.delete"), pick: fc.nat(), claim: fc.nat() }), { minLength: 1, maxLength: 14 }),
+        fc.array(fc.record({ kind: fc.constantFrom("outing.put", "find.put", "weighIn.put", "photo.put", "answer.put", "outing.delete", "find.delete", "weighIn.delete", "photo.delete"), pick: fc.nat(), claim: fc.nat() }), { minLength: 1, maxLength: 14 }),
         fc.boolean(),
         async (steps, split) => {
           // Ids the batch makes, plus another member's records and the club's claims: any of them
@@ -126,6 +128,11 @@ describe("random batches with references shuffled across kinds and members (RELI
                 made.push(p.id);
                 return { id, name: s.kind, args: p };
               }
+              case "answer.put": {
+                const a = { id: s.pick % 3 === 0 && made.length ? ref(s.claim) : uuidv7(), findId: ref(s.pick), reviewId: s.claim % 2 ? reviews[s.claim % reviews.length] : ref(s.claim), note: "Here." };
+                made.push(a.id);
+                return { id, name: s.kind, args: a };
+              }
               default:
                 return { id, name: s.kind, args: { id: ref(s.pick) } };
             }
@@ -152,7 +159,7 @@ describe("random batches with references shuffled across kinds and members (RELI
 
 /** A device that pulls everything holds exactly the member's live records, of every kind. */
 function expectPullHoldsServer(device: ReturnType<typeof applyChanges>) {
-  const tables = { outing: "outings", find: "finds", weighIn: "weigh_ins", photo: "photos" } as const;
+  const tables = { outing: "outings", find: "finds", weighIn: "weigh_ins", photo: "photos", answer: "answers" } as const;
   for (const [entity, table] of Object.entries(tables)) {
     const server = ids(`select id from ${table} where member_id = ? and deleted_at is null order by id`, memberId);
     expect([...(device.get(entity)?.keys() ?? [])].sort(), entity).toEqual(server);

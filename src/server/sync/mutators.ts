@@ -223,7 +223,7 @@ const MUTATORS: Mutators = {
   },
   "barrenRock.delete": (tx, actor, { id }) => tombstone(tx, "barrenRock", id, actor),
   "answer.put": (tx, actor, a) => {
-    const existing = loadForWrite(tx, "answer", a.id, actor, a);
+    const existing = loadForWrite(tx, "answer", a.id, actor, a) as (Owned & { findId: string }) | undefined;
     requireOwnedParent(tx, "find", a.findId, actor, "findId");
     // Only an officer's query of this very find can be answered (a verify or a note asks nothing).
     const review = statement(tx.db, "select find_id, action from reviews where id = ?").raw().get(a.reviewId) as [string, string] | undefined;
@@ -232,6 +232,8 @@ const MUTATORS: Mutators = {
     return () => {
       upsert(tx, "answer", existing, a, actor);
       refreshReviewState(tx.db, a.findId);
+      // An answer moved to another find leaves its first find's thread open again.
+      if (existing && existing.findId !== a.findId) refreshReviewState(tx.db, existing.findId);
     };
   },
   "settings.put": (tx, actor, s) => () => {
