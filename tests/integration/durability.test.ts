@@ -97,3 +97,30 @@ describe("durability (RELIABILITY 17, 18, 41)", () => {
     expect((await pull(cookie, clientId, 0, 10)).status).toBe(200);
   });
 });
+
+describe("the backup download", () => {
+  it("streams a copy that passes integrity_check and opens with the club's data, and leaves no copy behind", async () => {
+    const os = await import("node:os");
+    const fsp = await import("node:fs/promises");
+    const path = await import("node:path");
+    const Database = (await import("better-sqlite3")).default;
+    const { GET } = await import("@/app/api/club/backup/route");
+    const { seededDatabase, sessionCookie, memberByEmail, OFFICER_EMAIL, req } = await import("../support/test-db");
+    const { db } = await seededDatabase();
+    const before = (await fsp.readdir(os.tmpdir())).filter((n) => n.startsWith("lodebook-backup-")).length;
+    const res = await GET(req("/api/club/backup", { cookie: await sessionCookie(memberByEmail(db, OFFICER_EMAIL)) }), {});
+    expect(res.status).toBe(200);
+    // Nothing is left in the temp folder, even before the download is read.
+    expect((await fsp.readdir(os.tmpdir())).filter((n) => n.startsWith("lodebook-backup-")).length).toBe(before);
+    expect(res.body).toBeInstanceOf(ReadableStream);
+    const bytes = Buffer.from(await res.arrayBuffer());
+    expect(Number(res.headers.get("content-length"))).toBe(bytes.length);
+    const out = path.join(os.tmpdir(), `lodebook-check-${process.pid}.db`);
+    await fsp.writeFile(out, bytes);
+    const copy = new Database(out, { readonly: true });
+    expect(copy.pragma("integrity_check", { simple: true })).toBe("ok");
+    expect((copy.prepare("select count(*) n from finds").get() as { n: number }).n).toBe((db.$client.prepare("select count(*) n from finds").get() as { n: number }).n);
+    copy.close();
+    await fsp.rm(out, { force: true });
+  });
+});
