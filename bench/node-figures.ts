@@ -7,6 +7,7 @@ import { ledgerQuerySchema } from "../src/lib/club/ledger";
 import { PROTOCOL_VERSION } from "../src/lib/sync/protocol";
 import { ledgerPage } from "../src/server/club/ledger";
 import { productionByMonth } from "../src/server/club/production";
+import { TOTAL_COLUMN_TEXT } from "../src/server/club/totals";
 import { closeDb, getDb } from "../src/server/db";
 import { seedLargeClub } from "../src/server/seed/large-club";
 import { applyPushGrouped } from "../src/server/sync/push";
@@ -91,8 +92,8 @@ export async function ledger() {
   closeDb();
   process.env.DATABASE_URL = file;
   const db = getDb();
-  const bareSql = db.$client.prepare("select count(*), sum(weight_grams), sum(latest_fine_grams) from finds where deleted_at is null and found_at >= ? and found_at < ?");
-  // The same summary figures, straight from SQL: count, recorded weight, fine gold.
+  // The same summary figures, straight from SQL: count, weight, fine gold with its range, bases.
+  const bareSql = db.$client.prepare(`select ${TOTAL_COLUMN_TEXT} from finds f where f.deleted_at is null and f.found_at >= ? and f.found_at < ?`);
   const bare = () => timed(() => bareSql.get(Date.UTC(2026, 0, 1), Date.UTC(2027, 0, 1)));
   // Each timing beside a bare aggregate taken just after it (side by side, as the machine drifts).
   const beside = (work: () => unknown) => {

@@ -8,18 +8,17 @@ import { getDb } from "../db";
  * The one home of production totals: every total over finds (ledger, report, chart, console,
  * digest) is these columns over `finds f`, reading the figures kept on the find.
  */
-export const TOTAL_COLUMNS = sql.raw(
-  [
-    "count(*) as finds",
-    "coalesce(sum(f.weight_grams), 0) as weightGrams",
-    "coalesce(sum(f.latest_fine_grams), 0) as fineGrams",
-    "coalesce(sum(f.latest_fine_low), 0) as fineLow",
-    "coalesce(sum(f.latest_fine_high), 0) as fineHigh",
-    "count(f.latest_fine_grams) as figured",
-    "coalesce(sum(f.weigh_mismatch), 0) as mismatched",
-    ...FINE_BASES.map((b) => `sum(f.fine_basis = '${b}') as "basis_${b}"`),
-  ].join(", "),
-);
+export const TOTAL_COLUMN_TEXT = [
+  "count(*) as finds",
+  "coalesce(sum(f.weight_grams), 0) as weightGrams",
+  "coalesce(sum(f.latest_fine_grams), 0) as fineGrams",
+  "coalesce(sum(f.latest_fine_low), 0) as fineLow",
+  "coalesce(sum(f.latest_fine_high), 0) as fineHigh",
+  "count(f.latest_fine_grams) as figured",
+  "coalesce(sum(f.weigh_mismatch), 0) as mismatched",
+  ...FINE_BASES.map((b) => `sum(f.fine_basis = '${b}') as "basis_${b}"`),
+].join(", ");
+export const TOTAL_COLUMNS = sql.raw(TOTAL_COLUMN_TEXT);
 
 type TotalsRow = Omit<Totals, "byBasis"> & Record<`basis_${string}`, number | null>;
 
