@@ -112,6 +112,8 @@ describe("the query thread (issue 18)", () => {
     await row.click();
     await panel.thread.getByText(reply).waitFor();
     expect(await panel.steps()).toEqual(["query", "edit", "answer"]);
+    // Only what the member changed: the found time is kept to the millisecond through the form.
+    await panel.thread.locator('[data-kind="edit"]').getByText("The member changed the find (notes)").waitFor();
     await laptop.screenshot({ path: shotPath("query-answered-ledger-laptop"), fullPage: true });
     await panel.verify();
     expect(await panel.steps()).toEqual(["query", "edit", "answer", "verify"]);

@@ -97,7 +97,8 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
         lon,
         accuracyM: moved ? null : find.accuracyM,
         locationSource: lat === null ? null : moved ? "typed" : find.locationSource,
-        foundAt: new Date(v.foundAt).getTime(),
+        // The field holds minutes: unchanged, it keeps the find's time to the millisecond (else every edit moved it).
+        foundAt: v.foundAt === toLocalInput(find.foundAt) ? Math.round(find.foundAt) : new Date(v.foundAt).getTime(),
       });
       setSaved(true);
     } catch (error) {

@@ -93,7 +93,8 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
         }).run();
         const findCount = Math.floor(rand() * 4);
         for (let f = 0; f < findCount; f++) {
-          const foundAt = start + rand() * hours * 3_600_000;
+          // Whole milliseconds, as a device records them (the find form keeps them when saved).
+          const foundAt = Math.round(start + rand() * hours * 3_600_000);
           const kind = claim.kind === "lode" ? "specimen" : method === "detecting" ? pick(["nugget", "nugget", "specimen"] as const) : pick(["flakes", "fines", "nugget"] as const);
           const mPerDegLon = METRES_PER_DEG_LAT * Math.cos((claim.lat * Math.PI) / 180);
           const dx = (rand() - 0.5) * claim.halfW;
