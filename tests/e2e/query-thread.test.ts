@@ -73,6 +73,9 @@ describe("the query thread (issue 18)", () => {
     const mail = await queryMail(find.id);
     expect(mail.text).toContain(question);
     expect(mail.text).toContain(`/finds/view#id=${find.id}`);
+    // The demo's caught-mail page shows it too.
+    await laptop.goto(`${baseUrl}/club/mail`);
+    await laptop.getByRole("heading", { name: mail.subject }).first().waitFor();
 
     // The phone pulls the query: a mark on Today and in the finds list.
     await syncUntilSent(phone);
