@@ -1,16 +1,17 @@
 import "server-only";
 import { hash as argon2Hash, verify as argon2Verify } from "@node-rs/argon2";
 import { verify as bcryptVerify } from "@node-rs/bcrypt";
+import os from "node:os";
 import pLimit from "p-limit";
 import { AppError } from "../errors";
 
 /**
  * Password hashing runs on libuv's thread pool (native argon2id), never on the event loop,
- * and at most HASH_CONCURRENCY at once: a burst of sign-ins or joins waits its turn instead
- * of taking every thread. Past HASH_QUEUE waiting, callers are told to try again shortly.
+ * and at most HASH_CONCURRENCY at once (half the cores, at least one): a burst of sign-ins or
+ * joins waits its turn instead of taking every core from the members' other requests. Past HASH_QUEUE waiting, callers are told to try again shortly.
  * Parameters: argon2id, 19 MiB, 2 passes, 1 lane (OWASP Password Storage Cheat Sheet).
  */
-export const HASH_CONCURRENCY = 2;
+export const HASH_CONCURRENCY = Math.max(1, Math.floor(os.availableParallelism() / 2));
 export const HASH_QUEUE = 64;
 const ARGON2 = { memoryCost: 19_456, timeCost: 2, parallelism: 1 } as const;
 
