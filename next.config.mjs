@@ -32,10 +32,23 @@ const nextConfig = {
   experimental: { serverActions: { bodySizeLimit: "64kb" } },
   serverExternalPackages: ["better-sqlite3", "smtp-server", "mailparser", "pino"],
   webpack(config, { isServer, dev }) {
-    // The member layout and its screens share small modules (device database, logbook). Below
-    // Next's 20 kB threshold for a shared chunk, webpack copied them into each entry, so a
-    // screen loaded them twice; a lower threshold gives them one shared chunk.
-    if (!isServer && !dev && config.optimization.splitChunks) config.optimization.splitChunks.minSize = 2000;
+    // The member layout and each screen are separate entries that always load together. Small
+    // modules both use (device database, logbook, sync start, roles) fell under Next's 20 kB
+    // threshold for a shared chunk and were copied into both, so a screen loaded them twice.
+    // They get one chunk of their own; everything else keeps Next's splitting (a lower
+    // threshold for all made many tiny chunks, each paying its own gzip and request).
+    if (!isServer && !dev && config.optimization.splitChunks) {
+      config.optimization.splitChunks.cacheGroups.fieldShared = {
+        name: "field-shared",
+        chunks: "initial",
+        minChunks: 2,
+        minSize: 0,
+        priority: 25,
+        test: /[\\/]src[\\/](client[\\/](device-db|member|logbook|local-validation-error|sync[\\/](scheduler|status))\.|lib[\\/]roles|components[\\/]field[\\/]skeleton)|[\\/]node_modules[\\/](uuid|dexie-react-hooks)[\\/]/,
+        reuseExistingChunk: true,
+        enforce: true,
+      };
+    }
     // Dexie's package points bundlers at its ES5 build; its modern ES build is the same code,
     // 1.4 kB smaller gzipped, on every member screen. One alias, so one Dexie instance.
     if (!isServer) config.resolve.alias = { ...config.resolve.alias, dexie$: path.resolve("node_modules/dexie/dist/modern/dexie.mjs") };

@@ -8,7 +8,7 @@ import { PROTOCOL_VERSION } from "../src/lib/sync/protocol";
 import { engineScript } from "../tests/support/engine-script";
 import { percentile, repeat, report, summary } from "./stats";
 
-const MEMBER_SCREENS = ["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/weigh"];
+const MEMBER_SCREENS = ["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/scales", "/barren-rock", "/weigh"];
 
 async function firstLoadJs(baseUrl: string, route: string): Promise<{ gzip: number; sources: string[] }> {
   const html = await (await fetch(`${baseUrl}${route}`)).text();

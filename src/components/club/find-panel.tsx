@@ -3,7 +3,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import { engineLabel } from "@/components/weigh/engine-label";
-import { DEFAULTS } from "@/lib/estimate/input";
+import { DEFAULTS } from "@/lib/estimate/defaults";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import type { ReportedEstimate } from "@/lib/entities/weigh-in";
 import { formatGrams, formatWhen } from "@/lib/format";

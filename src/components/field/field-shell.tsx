@@ -3,12 +3,14 @@ import { usePathname } from "next/navigation";
 import { MemberProvider, useMemberState } from "@/client/member";
 import { lazy, Suspense } from "react";
 import { SiteHeader } from "../site-header";
-import { UpdatePrompt } from "../update-prompt";
 import { Skeleton } from "./skeleton";
 import { TabBar } from "./tab-bar";
 
 // Asked once, on the home screen: loaded after it, so no screen's first load carries it.
 const StoragePrompt = lazy(() => import("../storage-prompt").then((m) => ({ default: m.StoragePrompt })));
+
+// Shows only when a new version waits: loaded just after the frame, never in a first load.
+const UpdatePrompt = lazy(() => import("../update-prompt").then((m) => ({ default: m.UpdatePrompt })));
 
 function Body({ children }: { children: React.ReactNode }) {
   const state = useMemberState();
@@ -25,7 +27,9 @@ function Body({ children }: { children: React.ReactNode }) {
         {state.status === "ready" ? children : <Skeleton />}
       </main>
       {state.status === "ready" && <TabBar />}
-      <UpdatePrompt />
+      <Suspense fallback={null}>
+        <UpdatePrompt />
+      </Suspense>
     </>
   );
 }

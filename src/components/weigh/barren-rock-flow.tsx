@@ -2,7 +2,7 @@
 import { useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { Scale, ScaleCheckRef } from "@/lib/entities/scale";
-import { defaultScaleAccuracy } from "@/lib/estimate/input";
+import { defaultScaleAccuracy } from "@/lib/estimate/defaults";
 import { measureDensity, type DensityInput } from "@/lib/estimate/setup-check";
 import { convertMass, toGrams } from "@/lib/estimate/units";
 import { checkRefOf } from "@/lib/figures/scale-standing";

@@ -1,4 +1,4 @@
-import { DEFAULTS } from "@/lib/estimate/input";
+import { DEFAULTS } from "@/lib/estimate/defaults";
 import { ASSAY_HALF_RANGE, FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import { CLAIM_PRESET, type ClaimGold } from "@/lib/figures/claim-gold";

@@ -5,7 +5,7 @@ import { v7 as uuidv7 } from "uuid";
 import type { Scale, SetupCheck } from "@/lib/entities/scale";
 import { REFERENCE_OBJECTS, OWN_REFERENCE } from "@/lib/estimate/reference-objects";
 import { CHECK_COVERAGE, judgeSetupCheck, type SetupCheckResult } from "@/lib/estimate/setup-check";
-import { defaultScaleAccuracy } from "@/lib/estimate/input";
+import { defaultScaleAccuracy } from "@/lib/estimate/defaults";
 import { parseTyped } from "@/lib/parse-number";
 import { toDensityInput, withFieldErrors } from "./density-input";
 import { DEFAULT_WEIGH_FORM, type WeighFormValues } from "./form-model";

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { MAX_STEP_GRAMS } from "@/lib/estimate/input";
+import { MAX_STEP_GRAMS } from "@/lib/estimate/defaults";
 import { idSchema, shortText, timestampSchema } from "./common";
 import { densityInputSchema } from "./specimen-input";
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { GOLD_DENSITY } from "@/lib/estimate/alloy";
-import { MAX_READING_GRAMS, MAX_STEP_GRAMS } from "@/lib/estimate/input";
+import { MAX_READING_GRAMS, MAX_STEP_GRAMS } from "@/lib/estimate/defaults";
 
 // Limits are the engine's own; the engine checks them again (and what depends on several
 // fields, like a host that must stay below the gold alloy's density).

@@ -1,5 +1,5 @@
 import type { Scale, ScaleCheckRef, SetupCheck } from "../entities/scale";
-import { defaultScaleAccuracy } from "../estimate/input";
+import { defaultScaleAccuracy } from "../estimate/defaults";
 
 // A scale profile's standing, for screens: no zod here (types only), so a screen that shows a
 // scale's last check does not carry the validator.

@@ -5,7 +5,7 @@ import { addSetupCheck, deleteScale, newId, saveScale } from "@/client/logbook";
 import type { LocalScale } from "@/client/device-db";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
-import { defaultScaleAccuracy } from "@/lib/estimate/input";
+import { defaultScaleAccuracy } from "@/lib/estimate/defaults";
 import { formatWhen } from "@/lib/format";
 import { parseNumber } from "@/lib/parse-number";
 import { CheckStanding } from "@/components/weigh/scale-picker";

@@ -1,6 +1,7 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
+import { lazy, Suspense } from "react";
 import { useClaims, useCurrentOuting, useSettings } from "@/client/hooks";
 import { endOuting, startOuting, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
@@ -13,9 +14,11 @@ import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
 import { deviceSeasonBounds } from "@/lib/time/device-season";
 import { deviceTotals } from "@/lib/club/totals";
-import { QueriedFinds } from "../queried-finds";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
+
+// The queried finds load just after Today draws (a precached chunk, so offline too).
+const QueriedFinds = lazy(() => import("../queried-finds").then((m) => ({ default: m.QueriedFinds })));
 
 export function TodayScreen() {
   const { member, db } = useMember();
@@ -37,7 +40,9 @@ export function TodayScreen() {
         Log a find
       </Link>
 
-      <QueriedFinds db={db} />
+      <Suspense fallback={null}>
+        <QueriedFinds db={db} />
+      </Suspense>
 
       <section className="sheet flex flex-col gap-3" aria-labelledby="outing-title">
         <h2 id="outing-title" className="heading-bar self-start text-lg">

@@ -1,0 +1,30 @@
+// The estimate's defaults and limits, apart from the engine: forms and the scale list read
+// them without loading the estimate itself.
+
+export const DEFAULTS = {
+  scaleResolutionGrams: 0.01,
+  waterTempC: 20,
+  waterTempToleranceC: 2,
+  hostDensity: 2.65,
+  /** Default host span: ±2 % around the chosen density (our choice; quartz with a little
+   *  iron oxide or mica spans about this much, Holland & Powell ds62 quartz 2.648). */
+  hostRelativeSpan: 0.02,
+  finenessPermille: 1000,
+} as const;
+
+/** The heaviest reading taken as a specimen weighing (a 100 kg scale); beyond it, a typing slip. */
+export const MAX_READING_GRAMS = 100_000;
+/** The coarsest scale step and accuracy accepted. */
+export const MAX_STEP_GRAMS = 10;
+
+/**
+ * The accuracy assumed when the member does not state their scale's: how far one reading may
+ * be off, rounding included. From pocket-scale specifications as commonly printed [memory, not
+ * confirmed in a source]: milligram scales ±3 steps (drafts and static tell at that step),
+ * centigram scales ±2 steps, coarser scales ±1 step.
+ */
+export function defaultScaleAccuracy(step: number): number {
+  if (step < 0.005) return 3 * step;
+  if (step < 0.05) return 2 * step;
+  return step;
+}
