@@ -1,5 +1,6 @@
 import "server-only";
-import { RateLimiterMemory, RateLimiterRes } from "rate-limiter-flexible";
+import RateLimiterMemory from "rate-limiter-flexible/lib/RateLimiterMemory";
+import RateLimiterRes from "rate-limiter-flexible/lib/RateLimiterRes";
 import { AppError } from "./errors";
 
 /**
