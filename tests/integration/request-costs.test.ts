@@ -117,7 +117,7 @@ describe("password hashing: off the event loop, capped, and only after the cheap
 
   it("a password stored as bcrypt still signs in, and is stored as argon2id from then on", async () => {
     const { hashSync } = await import("@node-rs/bcrypt");
-    const legacy = hashSync("an-old-password-9", { cost: 10 });
+    const legacy = hashSync("an-old-password-9", 10);
     db.$client.prepare("update members set password_hash = ? where email = ?").run(legacy, MEMBER_EMAIL);
     expect(signedIn(await signInByPassword(MEMBER_EMAIL, "an-old-password-9", { jar: new CookieJar() }))).toBe(true);
     const stored = (db.$client.prepare("select password_hash as h from members where email = ?").get(MEMBER_EMAIL) as { h: string }).h;
