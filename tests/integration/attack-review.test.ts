@@ -3,50 +3,34 @@ import fs from "node:fs";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
+import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { GET as authGet } from "@/app/api/auth/[...nextauth]/route";
 import { GET as getMe } from "@/app/api/me/route";
 import { GET as getPhoto, PUT as putPhoto } from "@/app/api/photos/[id]/route";
 import jpeg from "jpeg-js";
 import { v7 as uuidv7 } from "uuid";
-import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
+import { SIGN_IN_POLICY } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
-import { resetLimits } from "@/server/limits";
 import { safeReturnPath } from "@/lib/web/return-path";
-import { startTestMail } from "../support/mail";
+import { doorsSetup, TEST_ORIGIN, type TestMail } from "../support/doors";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
 import { NO_TOTALS } from "@/lib/club/totals";
 import { makeJpeg } from "../support/jpeg";
 import { newFind, push } from "../support/sync-client";
-import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
+import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, sessionCookie } from "../support/test-db";
 
 // Attack review of issue 14 (RELIABILITY 32–37): each case is what a stranger or a hostile
 // member would try; the expectation is the safe behaviour.
 const MEMBER_PASSWORD = "member-demo-pass";
-const ORIGIN = "https://club.example";
+const ORIGIN = TEST_ORIGIN;
 const none = { params: Promise.resolve({}) };
 
 let db: Db;
-let mail: Awaited<ReturnType<typeof startTestMail>>;
+let mail: TestMail;
 
 const caughtMail = () => mail.caught();
 
-beforeAll(async () => {
-  ({ db } = await seededDatabase());
-  mail = await startTestMail("attack");
-});
-afterAll(() => mail.stop());
-beforeEach(async () => {
-  vi.stubEnv("LODEBOOK_ORIGIN", ORIGIN);
-  vi.stubEnv("AUTH_URL", "");
-  resetLimits();
-  resetSignInGuard();
-  await mail.clear();
-});
-afterEach(() => {
-  vi.unstubAllEnvs();
-  vi.restoreAllMocks();
-});
+doorsSetup("attack", (s) => ({ db, mail } = s));
 
 const where = (res: Response) => {
   const loc = res.headers.get("location");

@@ -2,8 +2,6 @@ import os from "node:os";
 import path from "node:path";
 import fs from "node:fs";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { GET as pullHandler } from "@/app/api/sync/pull/route";
-import { POST as pushHandler } from "@/app/api/sync/push/route";
 import { LodebookDb } from "@/client/device-db";
 import { deleteFind, newId, saveFind } from "@/client/logbook";
 import { FAULTS_BEFORE_SET_ASIDE, syncOnce } from "@/client/sync/engine";
@@ -14,8 +12,8 @@ import { closeDb, getDb, type Db } from "@/server/db";
 import { resetLimits } from "@/server/limits";
 import { logger } from "@/server/log";
 import { purgeTombstones } from "@/server/sync/tombstones";
-import { newFind } from "../support/sync-client";
-import { MEMBER_EMAIL, memberByEmail, req, seededDatabase, sessionCookie } from "../support/test-db";
+import { fetchToSyncHandlers, newFind } from "../support/sync-client";
+import { MEMBER_EMAIL, memberByEmail, seededDatabase, sessionCookie } from "../support/test-db";
 
 // RELIABILITY 16, 38, 39 on the device: its own sync engine (Dexie on fake-indexeddb) against
 // the real route handlers and a real SQLite file. Every recovery path meets a create, an edit
@@ -39,13 +37,7 @@ beforeEach(async () => {
   const m = memberByEmail(db, MEMBER_EMAIL);
   memberId = m.id;
   cookie = await sessionCookie(m);
-  vi.stubGlobal("fetch", async (input: string, init?: RequestInit) => {
-    const url = new URL(input, "http://localhost:3000");
-    const request = req(url.pathname + url.search, { ...init, cookie });
-    if (url.pathname === "/api/sync/push") return pushHandler(request, {} as never);
-    if (url.pathname === "/api/sync/pull") return pullHandler(request, {} as never);
-    throw new TypeError(`no route for ${url.pathname} in this test`);
-  });
+  fetchToSyncHandlers(vi.stubGlobal, () => cookie);
 });
 
 afterEach(() => {

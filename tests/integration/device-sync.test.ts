@@ -1,13 +1,11 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { GET as pullHandler } from "@/app/api/sync/pull/route";
-import { POST as pushHandler } from "@/app/api/sync/push/route";
 import { DB_VERSION, LodebookDb, whenNewerSchema } from "@/client/device-db";
 import { deleteFind, newId, saveFind } from "@/client/logbook";
 import { syncOnce } from "@/client/sync/engine";
 import type { Db } from "@/server/db";
 import { purgeTombstones } from "@/server/sync/tombstones";
-import { newFind } from "../support/sync-client";
-import { MEMBER_EMAIL, memberByEmail, req, seededDatabase, sessionCookie } from "../support/test-db";
+import { fetchToSyncHandlers, newFind } from "../support/sync-client";
+import { MEMBER_EMAIL, memberByEmail, seededDatabase, sessionCookie } from "../support/test-db";
 
 // The device's own sync engine (Dexie on fake-indexeddb) against the real route handlers and
 // a real SQLite file: each `fetch` the engine makes is answered by the handler it names.
@@ -28,13 +26,7 @@ beforeEach(async () => {
   const m = memberByEmail(db, MEMBER_EMAIL);
   memberId = m.id;
   cookie = await sessionCookie(m);
-  vi.stubGlobal("fetch", async (input: string, init?: RequestInit) => {
-    const url = new URL(input, "http://localhost:3000");
-    const request = req(url.pathname + url.search, { ...init, cookie });
-    if (url.pathname === "/api/sync/push") return pushHandler(request, {} as never);
-    if (url.pathname === "/api/sync/pull") return pullHandler(request, {} as never);
-    throw new TypeError(`no route for ${url.pathname} in this test`);
-  });
+  fetchToSyncHandlers(vi.stubGlobal, () => cookie);
 });
 
 afterEach(() => {

@@ -1,41 +1,25 @@
 import crypto from "node:crypto";
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { POST as postInvitation } from "@/app/api/club/invitations/route";
 import { GET as getMe } from "@/app/api/me/route";
 import { SIGN_IN_POLICY, resetSignInGuard } from "@/server/auth/sign-in-guard";
 import type { Db } from "@/server/db";
-import { resetLimits } from "@/server/limits";
-import { startTestMail } from "../support/mail";
+import { doorsSetup, TEST_ORIGIN, type TestMail } from "../support/doors";
 import { CookieJar, postAuth, signedIn, signInByPassword } from "../support/auth-client";
-import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
+import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, req, sessionCookie } from "../support/test-db";
 
 // The seeded members' passwords (tests/support/test-db.ts).
 const MEMBER_PASSWORD = "member-demo-pass";
-const ORIGIN = "https://club.example";
+const ORIGIN = TEST_ORIGIN;
 const none = { params: Promise.resolve({}) };
 
 let db: Db;
-let mail: Awaited<ReturnType<typeof startTestMail>>;
+let mail: TestMail;
 
 const caughtMail = () => mail.caught();
 const links = (text: string) => text.match(/https?:\/\/[^\s"<>]+/g) ?? [];
 
-beforeAll(async () => {
-  ({ db } = await seededDatabase());
-  mail = await startTestMail("doors");
-});
-afterAll(() => mail.stop());
-beforeEach(async () => {
-  vi.stubEnv("LODEBOOK_ORIGIN", ORIGIN);
-  vi.stubEnv("AUTH_URL", "");
-  resetLimits();
-  resetSignInGuard();
-  await mail.clear();
-});
-afterEach(() => {
-  vi.unstubAllEnvs();
-  vi.restoreAllMocks();
-});
+doorsSetup("doors", (s) => ({ db, mail } = s));
 
 // A stranger's request names a host of their choosing in every header a server might read.
 const HOSTILE_HEADERS = { host: "evil.example", "x-forwarded-host": "evil.example", "x-forwarded-proto": "https", forwarded: "host=evil.example;proto=https", "x-original-host": "evil.example" };

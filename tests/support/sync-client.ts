@@ -79,3 +79,17 @@ export function newWeighIn(findId: string) {
   const input = { method: "hanging" as const, airGrams: [42.5], waterGrams: [26.1], finenessPermille: 825, finenessRangePermille: [700, 950] as [number, number] };
   return { id: uuidv7(), findId, input, deviceEstimate: estimateSpecimen(input), weighedAt: Date.UTC(2026, 6, 1, 18) };
 }
+
+/**
+ * The device's `fetch` answered by the real route handlers, as the member with this cookie:
+ * its sync engine runs against real SQLite without a server. Undo with vi.unstubAllGlobals().
+ */
+export function fetchToSyncHandlers(stubGlobal: (name: string, value: unknown) => unknown, cookie: () => string): void {
+  stubGlobal("fetch", async (input: string, init?: RequestInit) => {
+    const url = new URL(input, "http://localhost:3000");
+    const request = req(url.pathname + url.search, { ...init, cookie: cookie() });
+    if (url.pathname === "/api/sync/push") return pushHandler(request, {} as never);
+    if (url.pathname === "/api/sync/pull") return pullHandler(request, {} as never);
+    throw new TypeError(`no route for ${url.pathname} in this test`);
+  });
+}
