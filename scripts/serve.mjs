@@ -5,7 +5,7 @@
 import http from "node:http";
 import { parseArgs } from "node:util";
 import next from "next";
-import { MAX_DECLARED_BODY_BYTES, settleForwardingHeaders, trustedProxyCount } from "./lib/front-door.mjs";
+import { boundedLinger, MAX_DECLARED_BODY_BYTES, settleForwardingHeaders, trustedProxyCount } from "./lib/front-door.mjs";
 
 const { values } = parseArgs({ options: { port: { type: "string", short: "p" }, hostname: { type: "string", short: "H" } } });
 const port = Number(values.port ?? process.env.PORT ?? 3000);
@@ -21,6 +21,7 @@ await app.prepare();
 const handle = app.getRequestHandler();
 
 const server = http.createServer((req, res) => {
+  boundedLinger(req, res);
   // Only origin-form targets ("/path"): an absolute target ("GET http://evil.example/x") would
   // have Next build its redirects on a host the client chose (RFC 9112 §3.2.2 lets proxies send
   // it; nothing in front of this server needs to).

@@ -7,6 +7,50 @@ export const CLIENT_HEADER = "x-lodebook-client";
 /** Bodies declared larger than this are refused before Next reads a byte (photos are at most 4 MB). */
 export const MAX_DECLARED_BODY_BYTES = 8 * 1024 * 1024;
 
+/**
+ * A body the server answered before reading it all (refused: too large, not signed in, over a
+ * limit) is read and thrown away for at most this much, then the connection is closed: the
+ * client has its answer, and a stranger's endless body costs the server no more than this.
+ */
+export const LINGER_BYTES = 1024 * 1024;
+export const LINGER_MS = 2000;
+
+/**
+ * After the answer is sent: if the request's body is still coming, drain it for at most
+ * LINGER_BYTES or LINGER_MS (so the client can read the answer), then close the connection.
+ * Node would otherwise read a refused body to its end, however long it is.
+ * @param {import("node:http").IncomingMessage} req
+ * @param {import("node:http").ServerResponse} res
+ */
+export function boundedLinger(req, res) {
+  res.once("finish", () => {
+    if (req.complete) return;
+    // Node dumps an unread body once the answer is finished: its bytes no longer reach `req`,
+    // so they are counted where they arrive, on the socket.
+    const socket = req.socket;
+    let left = LINGER_BYTES;
+    const stop = () => {
+      clearTimeout(timer);
+      socket.off("data", count);
+      req.off("end", stop);
+    };
+    const close = () => {
+      stop();
+      socket.destroy();
+    };
+    /** @param {Buffer} chunk */
+    const count = (chunk) => {
+      left -= chunk.length;
+      if (left < 0) close();
+    };
+    const timer = setTimeout(close, LINGER_MS);
+    timer.unref();
+    socket.on("data", count);
+    req.once("end", stop);
+    req.resume();
+  });
+}
+
 /** @param {string | undefined} address */
 function normalise(address) {
   if (!address) return undefined;

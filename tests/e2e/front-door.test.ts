@@ -4,6 +4,7 @@ import http from "node:http";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
+import { once } from "node:events";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startApp } from "../../scripts/lib/app-server";
 import { startMailCatcher } from "../../scripts/lib/mail-catcher";
@@ -126,5 +127,37 @@ describe("the front door (RELIABILITY 32–34)", () => {
     }
     expect(statuses.slice(0, 30)).not.toContain(429);
     expect(statuses[30]).toBe(429);
+  });
+  it("a body refused before it was read is drained for a moment at most, then the connection is closed", async () => {
+    // A stranger's endless chunked body to the push endpoint: refused at once (no session), and
+    // without a bound Node would go on reading and discarding it until the request timeout.
+    const url = new URL(baseUrl);
+    const socket = net.connect(Number(url.port), url.hostname);
+    await once(socket, "connect");
+    let answer = "";
+    socket.on("data", (b: Buffer) => (answer += b.toString("latin1")));
+    let open = true;
+    const closed = new Promise<void>((resolve) => {
+      const done = () => {
+        open = false;
+        resolve();
+      };
+      socket.once("close", done);
+      socket.once("error", done);
+    });
+    socket.write(`POST /api/sync/push HTTP/1.1\r\nHost: ${url.host}\r\nContent-Type: application/json\r\nTransfer-Encoding: chunked\r\n\r\n`);
+    const chunk = Buffer.alloc(64 * 1024, 0x20);
+    const frame = Buffer.concat([Buffer.from(`${chunk.length.toString(16)}\r\n`), chunk, Buffer.from("\r\n")]);
+    let sent = 0;
+    const started = Date.now();
+    while (open && Date.now() - started < 20_000) {
+      if (!socket.write(frame)) await Promise.race([once(socket, "drain"), closed]);
+      sent += frame.length;
+    }
+    socket.destroy();
+    expect(open).toBe(false);
+    expect(answer).toMatch(/^HTTP\/1\.1 4\d\d /);
+    // The server's 1 MB of draining, plus what the two sockets' buffers hold.
+    expect(sent).toBeLessThan(64 * 1024 * 1024);
   });
 });
