@@ -74,4 +74,56 @@ describe("the club console", () => {
     await phone.screenshot({ path: shotPath("member-sees-query-phone"), fullPage: true });
     await phone.context().close();
   });
+
+  for (const viewport of [
+    { width: 1366, height: 768 },
+    { width: 1280, height: 800 },
+  ]) {
+    it(`the ledger fits a ${viewport.width}×${viewport.height} laptop: every column, whole filter boxes, and with the find panel open no sideways scrolling`, async () => {
+      const page = await (await browser().newContext({ viewport })).newPage();
+      const signIn = new SignInPage(page, baseUrl);
+      await signIn.open();
+      await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+      await page.getByRole("heading", { name: /Club console/ }).waitFor();
+      await page.goto(`${baseUrl}/club/ledger`);
+      const table = page.getByTestId("ledger-table");
+      await table.locator("tbody tr").first().waitFor();
+
+      /** What sticks out: the page wider than the window, the table wider than its sheet, headers past the right edge, filter texts cut. */
+      const overflow = () =>
+        page.evaluate(() => {
+          const sheet = document.querySelector('[data-testid="ledger-table"]')!.parentElement!;
+          const right = Math.min(innerWidth, sheet.getBoundingClientRect().right);
+          const ctx = document.createElement("canvas").getContext("2d")!;
+          const cut = [...document.querySelectorAll<HTMLSelectElement | HTMLInputElement>('form[aria-label="Ledger filters"] select, form[aria-label="Ledger filters"] input')].filter((el) => {
+            const style = getComputedStyle(el);
+            ctx.font = `${style.fontWeight} ${style.fontSize} ${style.fontFamily}`;
+            const text = el instanceof HTMLSelectElement ? el.options[el.selectedIndex].text : "0000-00-00";
+            // Padding, border and the control's own arrow or calendar button (about 24 px).
+            const room = el.clientWidth - parseFloat(style.paddingLeft) - parseFloat(style.paddingRight) - 24;
+            return ctx.measureText(text).width > room;
+          });
+          return {
+            page: document.documentElement.scrollWidth - innerWidth,
+            table: sheet.scrollWidth - sheet.clientWidth,
+            headersPastEdge: [...document.querySelectorAll('[data-testid="ledger-table"] th')].filter((th) => th.getBoundingClientRect().right > right + 1).map((th) => th.textContent),
+            headers: [...document.querySelectorAll('[data-testid="ledger-table"] th')].map((th) => th.textContent?.replace(/[↓↑]/g, "").trim()),
+            cut: cut.map((el) => el.closest("label")?.querySelector("span")?.textContent),
+          };
+        });
+      const closed = await overflow();
+      expect(closed).toMatchObject({ page: 0, table: 0, headersPastEdge: [], cut: [] });
+      expect(closed.headers).toEqual(["Found", "Member", "Claim", "Kind", "Method", "Weight", "Fine gold (est.)", "Value", "Review"]);
+      await page.screenshot({ path: shotPath(`club-ledger-${viewport.width}`) });
+
+      await table.locator("tbody tr").first().click();
+      await page.getByTestId("find-panel").getByText("Position").waitFor();
+      const open = await overflow();
+      expect(open).toMatchObject({ page: 0, table: 0, headersPastEdge: [] });
+      // Method and weight step aside (they are in the panel); the review state stays in view.
+      expect(open.headers).toEqual(["Found", "Member", "Claim", "Kind", "Fine gold (est.)", "Value", "Review"]);
+      await page.screenshot({ path: shotPath(`club-ledger-panel-${viewport.width}`) });
+      await page.context().close();
+    });
+  }
 });

@@ -1,7 +1,9 @@
+import Papa from "papaparse";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { GET as getFind } from "@/app/api/club/finds/[id]/route";
 import { POST as postReview } from "@/app/api/club/finds/[id]/reviews/route";
+import { GET as getCsv } from "@/app/api/club/ledger/csv/route";
 import { GET as getLedger } from "@/app/api/club/ledger/route";
 import { LodebookDb } from "@/client/device-db";
 import { applyPullPage } from "@/client/sync/apply-pull";
@@ -168,6 +170,43 @@ describe("the query thread's states", () => {
     expect([stateOf(f.id), stateOf(g.id)]).toEqual(["answered", "queried"]);
     expect((await send("answer.put", { ...answer, findId: g.id, reviewId: qg })).status).toBe("applied");
     expect([stateOf(f.id), stateOf(g.id)]).toEqual(["queried", "answered"]);
+  });
+});
+
+describe("what to look at again", () => {
+  it("the ledger's \"changed since the query\" filter selects exactly the queried or answered finds changed after their latest query, and the CSV says so", async () => {
+    const [untouched, edited, reweighed, answeredOnly, verified] = [newFind(), newFind(), newFind(), newFind(), newFind()];
+    for (const f of [untouched, edited, reweighed, answeredOnly, verified]) await send("find.put", f);
+    const queries = new Map<string, string>();
+    for (const f of [untouched, edited, reweighed, answeredOnly, verified]) queries.set(f.id, await review(f.id, "query", "Look again, please."));
+    await send("find.put", { ...edited, notes: "Weighed at home, not at camp." });
+    await send("weighIn.put", newWeighIn(reweighed.id));
+    // An answer alone is not a change to the find.
+    await send("answer.put", { id: uuidv7(), findId: answeredOnly.id, reviewId: queries.get(answeredOnly.id), note: "It is right as it is." });
+    // Changed, then verified: nothing left to look at.
+    await send("find.put", { ...verified, notes: "Corrected." });
+    await review(verified.id, "verify");
+
+    const listed = async (query: string) => {
+      const res = await getLedger(req(`/api/club/ledger?${query}&pageSize=200`, { cookie: officer }), {} as never);
+      expect(res.status).toBe(200);
+      return (await res.json()) as { rows: LedgerRow[]; summary: { finds: number } };
+    };
+    const mine = [untouched, edited, reweighed, answeredOnly, verified].map((f) => f.id);
+    const changed = await listed(`memberId=${memberId}&state=changed`);
+    expect(changed.rows.map((r) => r.id).filter((id) => mine.includes(id)).sort()).toEqual([edited.id, reweighed.id].sort());
+    expect(changed.rows.every((r) => r.changedSinceQuery && (r.state === "queried" || r.state === "answered"))).toBe(true);
+    // The totals count what the filter selects, not the whole ledger.
+    expect(changed.summary.finds).toBe(changed.rows.length);
+
+    const csv = await (await getCsv(req(`/api/club/ledger/csv?memberId=${memberId}`, { cookie: officer }), {} as never)).text();
+    const parsed = Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true });
+    expect(parsed.meta.fields).toContain("changedSinceQuery");
+    const cellOf = (id: string) => parsed.data.find((r) => r.id === id)!.changedSinceQuery;
+    expect([untouched, edited, reweighed, answeredOnly, verified].map((f) => cellOf(f.id))).toEqual(["false", "true", "true", "false", "false"]);
+
+    const refused = await getLedger(req(`/api/club/ledger?state=changed-lately`, { cookie: officer }), {} as never);
+    expect(refused.status).toBe(400);
   });
 });
 

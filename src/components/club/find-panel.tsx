@@ -51,7 +51,7 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
         {formatWhen(w.weighedAt, timeZone)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C · host {host.toFixed(2)} ·
         fineness {Math.round(fineness)} ‰
       </p>
-      <p className="figure font-bold">
+      <p className="font-bold tabular-nums">
         Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine ± {formatGrams(u, "g", u)} (at worst {formatGrams(server.range.fineGoldGrams[0], "g", u)} –{" "}
         {formatGrams(server.range.fineGoldGrams[1], "g", u)}), {engineLabel(w.engineVersion)}
       </p>
@@ -147,7 +147,7 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
       {error && <p className="field-error">{(error as Error).message}</p>}
       {data && (
         <>
-          <dl className="grid grid-cols-2 gap-2 text-sm">
+          <dl className="grid grid-cols-[auto_minmax(0,1fr)] gap-x-4 gap-y-2 text-sm">
             <dt className="text-ink-soft">Found</dt>
             <dd>{formatWhen(data.find.foundAt, data.timeZone)}</dd>
             <dt className="text-ink-soft">Claim</dt>
@@ -160,12 +160,13 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
               {data.find.depthCm != null ? `, ${data.find.depthCm} cm` : ""}
             </dd>
             <dt className="text-ink-soft">Position</dt>
-            <dd className="figure">
+            <dd className="tabular-nums">
               {data.find.lat !== null && data.find.lon !== null ? (
                 <>
-                  {formatDecimal(data.find.lat, data.find.lon)}
+                  <span className="whitespace-nowrap">{formatDecimal(data.find.lat, data.find.lon)}</span>
                   <br />
-                  {toDms(data.find.lat, "lat")} {toDms(data.find.lon, "lon")}
+                  {/* Latitude and longitude each kept whole; the pair wraps between them if it must. */}
+                  <span className="whitespace-nowrap">{toDms(data.find.lat, "lat")}</span> <span className="whitespace-nowrap">{toDms(data.find.lon, "lon")}</span>
                 </>
               ) : data.find.positionShared ? (
                 "not recorded"

@@ -24,10 +24,17 @@ function FineCell({ row }: { row: LedgerRow }) {
   if (row.fineGrams == null) return <span className="text-ink-soft">{row.kind === "specimen" ? "not weighed" : "no weight"}</span>;
   return (
     <span className="flex flex-col">
-      <span>{grams(row.fineGrams)}</span>
+      <span className="figure">{grams(row.fineGrams)}</span>
       <span className="text-xs text-ink-soft">
         {row.fineBasis ? FINE_BASIS_LABELS[row.fineBasis] : ""}
-        {row.fineLow !== row.fineHigh ? ` · ${grams(row.fineLow)}–${grams(row.fineHigh)}` : ""}
+        {row.fineLow !== row.fineHigh && (
+          <>
+            {" · "}
+            <span className="whitespace-nowrap">
+              {grams(row.fineLow)}–{grams(row.fineHigh)}
+            </span>
+          </>
+        )}
       </span>
       {row.fineBasis === "weighed" && row.scaleChecked !== null && (
         <span className={`text-xs ${row.scaleChecked ? "text-moss" : "font-bold text-rust"}`} data-testid="scale-checked" data-checked={row.scaleChecked}>
@@ -82,7 +89,7 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
   const sorting: SortingState = [{ id: Object.entries(SORT_IDS).find(([, v]) => v === (params.get("sort") ?? "foundAt"))?.[0] ?? "foundAt", desc: (params.get("dir") ?? "desc") === "desc" }];
   const columns = useMemo(
     () => [
-      col.accessor("foundAt", { header: "Found", cell: (c) => c.row.original.foundOn }),
+      col.accessor("foundAt", { header: "Found", cell: (c) => <span className="whitespace-nowrap">{c.row.original.foundOn}</span> }),
       col.accessor("memberName", { header: "Member" }),
       col.accessor("claimName", {
         header: "Claim",
@@ -97,14 +104,23 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           </span>
         ),
       }),
-      col.accessor("kind", { header: "Kind", cell: (c) => KIND_LABELS[c.getValue() as keyof typeof KIND_LABELS] }),
+      col.accessor("kind", {
+        header: "Kind",
+        cell: (c) => (
+          <span className="flex flex-col">
+            <span>{KIND_LABELS[c.getValue() as keyof typeof KIND_LABELS]}</span>
+            {/* With the find panel open the Method column steps aside: its word goes here. */}
+            {c.table.getColumn("method")?.getIsVisible() === false && <span className="text-xs text-ink-soft">{c.row.original.method}</span>}
+          </span>
+        ),
+      }),
       col.accessor("method", { header: "Method" }),
-      col.accessor("weightGrams", { header: "Weight", cell: (c) => grams(c.getValue()) }),
+      col.accessor("weightGrams", { header: "Weight", cell: (c) => <span className="figure">{grams(c.getValue())}</span> }),
       col.accessor("fineGrams", {
         header: "Fine gold (est.)",
         cell: (c) => <FineCell row={c.row.original} />,
       }),
-      col.accessor("value", { header: "Value", cell: (c) => money(c.getValue(), c.row.original.currency) }),
+      col.accessor("value", { header: "Value", cell: (c) => <span className="figure">{money(c.getValue(), c.row.original.currency)}</span> }),
       col.accessor("state", {
         header: "Review",
         cell: (c) => (
@@ -129,7 +145,9 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
     getCoreRowModel: getCoreRowModel(),
     manualSorting: true,
     manualPagination: true,
-    state: { sorting },
+    // With the find panel beside it, the table drops Method and Weight (both are in the panel)
+    // so a laptop shows every other column without sideways scrolling.
+    state: { sorting, columnVisibility: { method: !openId, weightGrams: !openId } },
     onSortingChange: (updater) => {
       const next = typeof updater === "function" ? updater(sorting) : updater;
       const first = next[0];
@@ -175,7 +193,7 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           )}
         </div>
       </div>
-      <form className="sheet grid grid-cols-2 gap-2 md:grid-cols-4 xl:grid-cols-8" aria-label="Ledger filters" onSubmit={(e) => e.preventDefault()}>
+      <form className="sheet grid grid-cols-[repeat(auto-fill,minmax(10rem,1fr))] gap-2" aria-label="Ledger filters" onSubmit={(e) => e.preventDefault()}>
         {select("claimId", "Claim", claims.map((c) => [c.id, c.name ?? ""]), "All claims")}
         {select("memberId", "Member", members.map((m) => [m.id, m.name ?? ""]), "All members")}
         {select("season", "Season", seasons.map((y) => [String(y), String(y)]), "Any season")}
@@ -188,13 +206,13 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           <input type="date" className="field-input" value={params.get("to") ?? ""} onChange={(e) => set({ to: e.target.value || undefined })} />
         </label>
         {select("kind", "Kind", FIND_KINDS.map((k) => [k, KIND_LABELS[k]]), "All kinds")}
-        {select("state", "Review", REVIEW_STATES.map((k) => [k, STATE_LABEL[k]]), "Any state")}
+        {select("state", "Review", [...REVIEW_STATES.map((k): [string, string] => [k, STATE_LABEL[k]]), ["changed", "Changed since the query"]], "Any state")}
         {select("price", "Value at", [["today", "today's price"]], "the find's date")}
       </form>
       {error && <p className="field-error">{(error as Error).message}</p>}
 
       {s && (
-        <section aria-label="Totals" className="sheet grid grid-cols-2 gap-3 md:grid-cols-5" data-testid="ledger-totals">
+        <section aria-label="Totals" className="sheet grid grid-cols-[repeat(auto-fit,minmax(12rem,1fr))] gap-3" data-testid="ledger-totals">
           <div>
             <p className="text-sm text-ink-soft">Finds</p>
             <p className="figure text-xl font-bold" data-testid="total-finds">
@@ -212,24 +230,24 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
           <div>
             <p className="text-sm text-ink-soft">Value</p>
             <p className="figure text-xl font-bold">{money(s.value, s.currency)}</p>
-            <p className="figure text-sm text-ink-soft">
-              at worst {money(s.valueLow, s.currency)} – {money(s.valueHigh, s.currency)}
+            <p className="text-sm text-ink-soft tabular-nums">
+              at worst <span className="whitespace-nowrap">{money(s.valueLow, s.currency)}</span> – <span className="whitespace-nowrap">{money(s.valueHigh, s.currency)}</span>
             </p>
           </div>
-          <p className="col-span-2 self-center text-xs text-ink-soft md:col-span-1" data-testid="ledger-bases">
+          <p className="col-span-full text-xs text-ink-soft" data-testid="ledger-bases">
             {basisSummary(s)}. {s.mismatched > 0 ? `${s.mismatched} weigh-in${s.mismatched === 1 ? "" : "s"} far from the find's weight. ` : ""}Estimates, not assays.
           </p>
         </section>
       )}
 
-      <div className={`grid gap-4 ${openId ? "xl:grid-cols-[1fr_420px]" : ""}`}>
+      <div className={`grid gap-4 ${openId ? "xl:grid-cols-[minmax(0,1fr)_26rem]" : ""}`}>
         <div className="sheet overflow-x-auto" aria-busy={isFetching}>
           <table className="w-full text-left text-sm" data-testid="ledger-table">
             <thead>
               {table.getHeaderGroups().map((hg) => (
                 <tr key={hg.id} className="border-b-2 border-rule">
                   {hg.headers.map((h) => (
-                    <th key={h.id} className="py-2 pr-3" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}>
+                    <th key={h.id} className="whitespace-nowrap py-2 pr-3 align-bottom" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}>
                       {h.column.getCanSort() ? (
                         <button type="button" className="font-bold underline-offset-2 hover:underline" onClick={h.column.getToggleSortingHandler()}>
                           {flexRender(h.column.columnDef.header, h.getContext())}
@@ -252,7 +270,7 @@ export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; m
                   data-find={row.original.id}
                 >
                   {row.getVisibleCells().map((cell, i) => (
-                    <td key={cell.id} className="figure py-2 pr-3">
+                    <td key={cell.id} className="py-2 pr-3 align-top tabular-nums">
                       {i === 0 ? (
                         <button type="button" className="underline" onClick={() => setOpenId(row.original.id)}>
                           {flexRender(cell.column.columnDef.cell, cell.getContext())}

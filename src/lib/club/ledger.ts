@@ -4,6 +4,8 @@ import type { FineBasis } from "../figures/fine-basis";
 import type { Totals } from "./totals";
 
 export const REVIEW_STATES = ["new", "verified", "queried", "answered"] as const;
+/** The review filter: a state, or "changed": queried or answered, and changed by the member since the latest query. */
+export const REVIEW_FILTERS = [...REVIEW_STATES, "changed"] as const;
 export const LEDGER_SORTS = ["foundAt", "weight", "fine", "value", "member", "claim", "kind", "method", "state"] as const;
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.");
@@ -18,7 +20,7 @@ export const ledgerQuerySchema = z
     from: isoDate.optional(),
     to: isoDate.optional(),
     kind: z.enum(FIND_KINDS).optional().or(z.literal("").transform(() => undefined)),
-    state: z.enum(REVIEW_STATES).optional().or(z.literal("").transform(() => undefined)),
+    state: z.enum(REVIEW_FILTERS).optional().or(z.literal("").transform(() => undefined)),
     sort: z.enum(LEDGER_SORTS).default("foundAt"),
     dir: z.enum(["asc", "desc"]).default("desc"),
     page: z.coerce.number().int().min(1).max(100_000).default(1),
@@ -76,4 +78,4 @@ export type ExportRow = LedgerRow & {
 };
 
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "outingId", "outingOn", "lat", "lon", "depthCm", "notes", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "scaleChecked", "outsideClaim", "price", "currency", "value", "state"] as const;
+export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "outingId", "outingOn", "lat", "lon", "depthCm", "notes", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "scaleChecked", "outsideClaim", "price", "currency", "value", "state", "changedSinceQuery"] as const;

@@ -23,7 +23,9 @@ function filters(q: LedgerQuery): SQL[] {
   if (q.claimId) parts.push(sql`f.claim_id = ${q.claimId}`);
   if (q.memberId) parts.push(sql`f.member_id = ${q.memberId}`);
   if (q.kind) parts.push(sql`f.kind = ${q.kind}`);
-  if (q.state) parts.push(sql`f.review_state = ${q.state}`);
+  // "Changed since the query" reads each queried or answered find's latest query (few rows).
+  if (q.state === "changed") parts.push(sql.raw(`f.review_state in ('queried', 'answered') and ${CHANGED_SINCE_QUERY}`));
+  else if (q.state) parts.push(sql`f.review_state = ${q.state}`);
   return parts;
 }
 

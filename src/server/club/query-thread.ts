@@ -15,8 +15,9 @@ import { clubSettings } from "./settings";
 /**
  * "Changed since the query", for a listed ledger row: the find is queried or answered and the
  * member changed it, or added, changed or removed a weigh-in of it, after the latest query.
- * Derived, not kept: it is read for the rows of a page only (the reviews_find and
- * weigh_ins_find indexes), never filtered on, so the ledger's covering index is untouched.
+ * Derived, not kept: it is read for the rows of a page (the reviews_find and weigh_ins_find
+ * indexes), and filtered on only behind `review_state in ('queried', 'answered')`, so the
+ * ledger's covering index serves every other filter untouched.
  */
 export const CHANGED_SINCE_QUERY = `case when f.review_state in ('queried', 'answered') then coalesce((
     select max(f.updated_at, coalesce((select max(coalesce(w.deleted_at, w.updated_at)) from weigh_ins w where w.find_id = f.id), 0)) > r.created_at

@@ -61,7 +61,7 @@ export default async function ReportPage({ searchParams }: Props) {
           <p>
             {period}
             {q.kind ? ` · ${KIND_LABELS[q.kind]} only` : ""}
-            {q.state ? ` · ${q.state} only` : ""} · printed {printedOn}
+            {q.state === "changed" ? " · changed since the query only" : q.state ? ` · ${q.state} only` : ""} · printed {printedOn}
           </p>
         </div>
         <PrintButton />
