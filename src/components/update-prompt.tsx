@@ -21,6 +21,9 @@ export function UpdatePrompt() {
   useEffect(() => {
     if (!("serviceWorker" in navigator)) return;
     let cancelled = false;
+    // A first visit's worker takes the page over as soon as it is installed (clientsClaim):
+    // that is no new version, and reloading then would load the first screen twice.
+    const hadController = navigator.serviceWorker.controller !== null;
     navigator.serviceWorker.getRegistration().then((reg) => {
       if (!reg || cancelled) return;
       if (reg.waiting && navigator.serviceWorker.controller) setWaiting(reg.waiting);
@@ -31,7 +34,11 @@ export function UpdatePrompt() {
         });
       });
     });
-    const onChange = () => (typing ? setReloadWhenDone(true) : window.location.reload());
+    const onChange = () => {
+      if (!hadController) return;
+      if (typing) setReloadWhenDone(true);
+      else window.location.reload();
+    };
     navigator.serviceWorker.addEventListener("controllerchange", onChange);
     return () => {
       cancelled = true;

@@ -21,6 +21,16 @@ function memberRecords() {
 }
 
 describe("the phone in the field (issue 19)", () => {
+  it("a first visit loads Today once: the worker taking the page over does not reload it", async () => {
+    const { context } = await launchPersistent(undefined, PHONE);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    // A reload, if one comes, follows the worker's takeover at once; give it time to come.
+    await page.waitForTimeout(1500);
+    await page.getByRole("heading", { name: `Good day, ${DEMO.member.firstName}` }).waitFor();
+    expect(await page.evaluate(() => (performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming).type)).not.toBe("reload");
+    await context.close();
+  });
   it("reaches every member screen from the tab bar, and none scrolls sideways at 320, 360, 390 or 430 px, absurd numbers included", async () => {
     const { context } = await launchPersistent(undefined, PHONE);
     const page = await firstPage(context);
