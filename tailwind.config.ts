@@ -19,7 +19,7 @@ export default {
         caution: "var(--caution)",
       },
       fontFamily: {
-        sans: ['"Atkinson Hyperlegible"', "system-ui", "sans-serif"],
+        sans: ["var(--font-atkinson-extended)", "var(--font-atkinson)", "system-ui", "sans-serif"],
         mono: ['ui-monospace', "SFMono-Regular", "Menlo", "monospace"],
       },
       minHeight: { touch: "44px" },

@@ -1,6 +1,5 @@
-import "@fontsource/atkinson-hyperlegible/400.css";
-import "@fontsource/atkinson-hyperlegible/700.css";
 import "./globals.css";
+import { atkinson, atkinsonExtended } from "./fonts";
 import type { Metadata, Viewport } from "next";
 
 export const metadata: Metadata = {
@@ -25,7 +24,7 @@ const themeScript = `try{var t=localStorage.getItem("lodebook-theme");if(t==="li
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
-    <html lang="en" suppressHydrationWarning>
+    <html lang="en" className={`${atkinson.variable} ${atkinsonExtended.variable}`} suppressHydrationWarning>
       <head>
         <script dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
