@@ -9,6 +9,7 @@ import { buildApp, startApp } from "../scripts/lib/app-server";
 import { launchBrowser } from "../tests/e2e/support/browser";
 import { concurrency, deviceLists, estimateBrowser, memberCookie, offlineOpen, pageWeight, photoBytes } from "./browser-figures";
 import { bystander, seedHeavyMembers } from "./hostile-figures";
+import { lighthouseScores } from "./lighthouse-figures";
 import { claimOutline, printableReport } from "./report-figures";
 import { estimateNode, ledger, syncIngest } from "./node-figures";
 
@@ -63,6 +64,8 @@ try {
   await photoBytes(browser, app.url);
   await offlineOpen(browser, app.url);
   await deviceLists(browser, app.url);
+  const member = getDb().$client.prepare("select id, email from members where email = 'ines@quillmarsh.example'").get() as { id: string; email: string };
+  await lighthouseScores(app.url, await memberCookie(member), await memberCookie(officer));
 } finally {
   await browser.close();
   await app.stop();

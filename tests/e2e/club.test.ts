@@ -75,6 +75,25 @@ describe("the club console", () => {
     await phone.context().close();
   });
 
+  it("the ledger's first page arrives with the page (no jump when it loads): rows and totals are there before any script runs", async () => {
+    const context = await browser().newContext(LAPTOP);
+    const officer = await context.newPage();
+    const signIn = new SignInPage(officer, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await officer.getByRole("heading", { name: /Club console/ }).waitFor();
+    const db = new Database(inject("databaseUrl"), { readonly: true });
+    const kept = (db.prepare("select count(*) n from finds where deleted_at is null and kind = 'nugget'").get() as { n: number }).n;
+    db.close();
+    // The same session, with scripts off: what the server sent is all there is.
+    const plain = await browser().newContext({ ...LAPTOP, javaScriptEnabled: false, storageState: await context.storageState() });
+    const page = await plain.newPage();
+    await page.goto(`${baseUrl}/club/ledger?kind=nugget`);
+    expect(await page.getByTestId("total-finds").textContent()).toBe(String(kept));
+    expect(await page.getByTestId("ledger-table").locator("tbody tr").count()).toBe(Math.min(kept, 50));
+    await plain.close();
+    await context.close();
+  });
   for (const viewport of [
     { width: 1366, height: 768 },
     { width: 1280, height: 800 },

@@ -59,13 +59,19 @@ function basisSummary(s: LedgerSummary): string {
 }
 
 /** The officers' club ledger: filtered and paged on the server, totals for everything selected. */
-export function LedgerScreen({ claims, members, seasons }: { claims: Option[]; members: Option[]; seasons: number[] }) {
+export function LedgerScreen({ claims, members, seasons, first }: { claims: Option[]; members: Option[]; seasons: number[]; first?: { query: string; page: LedgerPage } }) {
   const params = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
   const [openId, setOpenId] = useState<string | null>(null);
   const query = params.toString();
-  const { data, error, isFetching } = useQuery({ queryKey: ["ledger", query], queryFn: () => api<LedgerPage>(`/api/club/ledger?${query}`), placeholderData: keepPreviousData });
+  const { data, error, isFetching } = useQuery({
+    queryKey: ["ledger", query],
+    queryFn: () => api<LedgerPage>(`/api/club/ledger?${query}`),
+    placeholderData: keepPreviousData,
+    // The page the server rendered with the screen, for the address it was rendered for.
+    initialData: first && first.query === query ? first.page : undefined,
+  });
 
   // The filters as last asked for: several quick changes all count, even before the address
   // bar catches up; back and forward reset it.

@@ -1,0 +1,74 @@
+import * as chromeLauncher from "chrome-launcher";
+import lighthouse from "lighthouse";
+import desktopConfig from "lighthouse/core/config/desktop-config.js";
+import { CHROMIUM } from "../tests/e2e/support/browser";
+import { report, summary } from "./stats";
+
+// Lighthouse 12 (the version the issues measured with), each screen three times beside the
+// bare page (`/about`, no app code) in the same run: these machines are slow and shared, so a
+// score means something only next to the bare page's.
+
+const MEMBER_SCREENS = ["/", "/finds", "/finds/new", "/outings", "/map", "/sync", "/settings", "/scales", "/barren-rock", "/weigh"];
+const CONSOLE_SCREENS = ["/club", "/club/ledger", "/club/claims", "/club/members", "/club/prices"];
+const RUNS = 3;
+
+type Run = { score: number; lcp: number; tbt: number; cls: number };
+
+async function audit(port: number, url: string, cookie: string, preset: "mobile" | "desktop"): Promise<Run> {
+  const flags = { port, output: "json" as const, logLevel: "error" as const, onlyCategories: ["performance"], extraHeaders: { Cookie: cookie } };
+  const result = await lighthouse(url, flags, preset === "desktop" ? desktopConfig : undefined);
+  const lhr = result?.lhr;
+  if (!lhr || lhr.runtimeError) throw new Error(`Lighthouse could not measure ${url}: ${lhr?.runtimeError?.message ?? "no result"}`);
+  const n = (id: string) => lhr.audits[id]?.numericValue ?? Number.NaN;
+  return { score: Math.round((lhr.categories.performance.score ?? 0) * 100), lcp: n("largest-contentful-paint"), tbt: n("total-blocking-time"), cls: n("cumulative-layout-shift") };
+}
+
+async function runs(port: number, url: string, cookie: string, preset: "mobile" | "desktop"): Promise<Run[]> {
+  const out: Run[] = [];
+  for (let i = 0; i < RUNS; i++) out.push(await audit(port, url, cookie, preset));
+  return out;
+}
+
+const med = (list: Run[], k: keyof Run) => summary(list.map((r) => r[k])).median;
+const details = (list: Run[]) => `LCP ${(med(list, "lcp") / 1000).toFixed(1)} s, TBT ${med(list, "tbt").toFixed(0)} ms, CLS ${med(list, "cls").toFixed(2)}`;
+
+/**
+ * Member screens on Lighthouse's mobile preset (signed in as a member): within 8 points of the
+ * bare page, total blocking time at most twice the bare page's plus 150 ms, CLS ≤ 0.1.
+ * Console screens on the desktop preset (signed in as an officer): performance ≥ 90, CLS ≤ 0.1.
+ */
+export async function lighthouseScores(baseUrl: string, memberCookie: string, officerCookie: string) {
+  const chrome = await chromeLauncher.launch({ chromePath: CHROMIUM, chromeFlags: ["--headless=new", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"] });
+  try {
+    const bareMobile = await runs(chrome.port, `${baseUrl}/about`, memberCookie, "mobile");
+    const bareScore = med(bareMobile, "score");
+    const bareTbt = med(bareMobile, "tbt");
+    for (const screen of MEMBER_SCREENS) {
+      const list = await runs(chrome.port, `${baseUrl}${screen}`, memberCookie, "mobile");
+      const score = med(list, "score");
+      const pass = score >= bareScore - 8 && med(list, "tbt") <= 2 * bareTbt + 150 && med(list, "cls") <= 0.1;
+      report(`Lighthouse mobile ${screen}`, {
+        value: list.map((r) => r.score),
+        unit: `performance (${details(list)})`,
+        ratio: list.map((r) => r.score - bareScore),
+        ratioLabel: `points beside the bare page (${bareScore}; ${details(bareMobile)})`,
+        goal: `within 8 points, TBT ≤ ${(2 * bareTbt + 150).toFixed(0)} ms, CLS ≤ 0.1`,
+        pass,
+      });
+    }
+    const bareDesktop = await runs(chrome.port, `${baseUrl}/about`, officerCookie, "desktop");
+    for (const screen of CONSOLE_SCREENS) {
+      const list = await runs(chrome.port, `${baseUrl}${screen}`, officerCookie, "desktop");
+      report(`Lighthouse desktop ${screen}`, {
+        value: list.map((r) => r.score),
+        unit: `performance (${details(list)})`,
+        ratio: list.map((r) => r.score - med(bareDesktop, "score")),
+        ratioLabel: `points beside the bare page (${med(bareDesktop, "score")})`,
+        goal: "performance ≥ 90, CLS ≤ 0.1",
+        pass: med(list, "score") >= 90 && med(list, "cls") <= 0.1,
+      });
+    }
+  } finally {
+    chrome.kill();
+  }
+}
