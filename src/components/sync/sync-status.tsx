@@ -6,6 +6,7 @@ import type { LodebookDb } from "@/client/device-db";
 import { syncStatus } from "@/client/sync/status";
 import { requestSync } from "@/client/sync/scheduler";
 import type { SyncStatus } from "@/client/sync/status";
+import { progressWords } from "./progress-words";
 
 function useOnline() {
   return useSyncExternalStore(
@@ -47,8 +48,7 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
   let progress: number | null = null;
   switch (status.kind) {
     case "syncing": {
-      const phase = status.phase === "sending" ? "Sending changes" : status.phase === "photos" ? "Uploading photos" : "Receiving from the club";
-      line = status.phase === "photos" ? `${phase}: ${Math.round(status.bytesDone / 1024)} of ${Math.round(status.bytesTotal / 1024)} kB` : `${phase}: ${status.done} of ${Math.max(status.total, status.done)}`;
+      line = progressWords(status);
       progress = status.phase === "photos" ? (status.bytesTotal ? status.bytesDone / status.bytesTotal : 0) : status.total ? status.done / status.total : 0;
       break;
     }
