@@ -29,8 +29,10 @@ async function dayOverPoorLink(browser: Browser, appPort: number, databaseUrl: s
     await page.goto(`${base}/about`); // a page that does not sync while the day is written
     const bundle = await build({ entryPoints: ["bench/day-page.ts"], bundle: true, format: "iife", globalName: "lodebookBenchDay", write: false, platform: "browser", tsconfig: "tsconfig.json", logLevel: "silent" });
     await page.addScriptTag({ content: bundle.outputFiles[0].text });
+    const writing = performance.now();
     const day = await page.evaluate((id) => (window as unknown as { lodebookBenchDay: DayPage }).lodebookBenchDay.writeDayOfWork(id), memberId);
 
+    console.log(`        (${email}: the day written on the device in ${((performance.now() - writing) / 1000).toFixed(0)} s, not timed)`);
     link.shaping = true;
     const before = { ...link.bytes };
     for (let k = 1; k <= cuts; k++) link.onUpBytes(before.up + (day.photoBytes * k) / (cuts + 1), () => link.cut(2000));
@@ -39,11 +41,11 @@ async function dayOverPoorLink(browser: Browser, appPort: number, databaseUrl: s
     const count = () =>
       server
         .prepare(
-          `select (select count(*) from finds where id in (select value from json_each(?1)) and deleted_at is null) finds,
-                  (select count(*) from weigh_ins where find_id in (select value from json_each(?1)) and deleted_at is null) weighIns,
-                  (select count(*) from photos where find_id in (select value from json_each(?1)) and storage_key is not null) photos`,
+          `select (select count(*) from finds where id in (select value from json_each(@ids)) and deleted_at is null) finds,
+                  (select count(*) from weigh_ins where find_id in (select value from json_each(@ids)) and deleted_at is null) weighIns,
+                  (select count(*) from photos where find_id in (select value from json_each(@ids)) and storage_key is not null) photos`,
         )
-        .get(ids) as Run["onServer"];
+        .get({ ids }) as Run["onServer"];
     const started = performance.now();
     await page.goto(`${base}/sync`);
     let onServer = count();
@@ -66,7 +68,7 @@ async function dayOverPoorLink(browser: Browser, appPort: number, databaseUrl: s
  * the link cut twice mid-photo, its bytes against the clean run's.
  */
 export async function poorLink(browser: Browser, appPort: number, databaseUrl: string) {
-  const clean = await dayOverPoorLink(browser, appPort, databaseUrl, "dale@quillmarsh.example", 0);
+  const clean = await dayOverPoorLink(browser, appPort, databaseUrl, "tobias@quillmarsh.example", 0);
   const all = (r: Run) => r.onServer.finds === 30 && r.onServer.weighIns === 40 && r.onServer.photos === 60;
   const mb = (n: number) => (n / 1024 / 1024).toFixed(1);
   const what = (r: Run) => `${r.onServer.finds}/30 finds, ${r.onServer.weighIns}/40 weigh-ins, ${r.onServer.photos}/60 photos on the server; ${mb(r.upBytes)} MB up (photos ${mb(r.photoBytes)} MB), ${mb(r.downBytes)} MB down`;
