@@ -69,8 +69,14 @@ describe("camp sync over a poor link", () => {
     link.shaping = false;
     const via = `http://localhost:${link.port}`; // the app reached through the shaped link
     const page = await (await browser().newContext({ ...PHONE, permissions: [] })).newPage();
-    await signInToField(page, via, TOBIAS);
+    await signInToField(page, baseUrl, TOBIAS);
+    // The session cookie is the host's, so the same member opens the app through the link (its
+    // own origin: its own device database and service worker).
+    await page.goto(`${via}/`);
+    await page.getByRole("heading", { name: `Good day, ${TOBIAS.firstName}` }).waitFor();
+    await page.waitForFunction(async () => (await navigator.serviceWorker.ready).active?.state === "activated" && navigator.serviceWorker.controller !== null, undefined, { timeout: 60_000 });
     await waitForSyncDone(page);
+    expect(link.bytes.up).toBeGreaterThan(0);
     await page.context().setOffline(true);
     const { photoId, bytes } = await findWithPhoto(page, 31);
     expect(bytes).toBeGreaterThan(100_000);
@@ -90,7 +96,9 @@ describe("camp sync over a poor link", () => {
     const upBefore = link.bytes.up;
     await page.context().setOffline(false);
     await tab(page, "Sync");
+    await page.getByTestId("photo-progress").waitFor({ timeout: 30_000 });
     await page.screenshot({ path: shotPath("poor-link-sync-progress"), fullPage: true });
+    await expect.poll(() => storedBytes(photoId) !== null, { timeout: 60_000 }).toBe(true);
     await waitForSyncDone(page);
     const onServer = storedBytes(photoId);
     expect(cutAt).toBeGreaterThan(0);
@@ -120,6 +128,7 @@ describe("camp sync over a poor link", () => {
     await page.context().setOffline(false);
     await tab(page, "Sync");
     await page.getByRole("button", { name: "Sync now" }).click();
+    await expect.poll(async () => (await deviceRecords(page)).outbox, { timeout: 30_000 }).toBe(0);
     await waitForSyncDone(page);
     await page.getByTestId("photos-waiting").filter({ hasText: /Photos waiting: 1 \(\d+ kB\)/ }).waitFor();
     await page.screenshot({ path: shotPath("poor-link-photos-later"), fullPage: true });

@@ -1,22 +1,28 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
+import { useState, useSyncExternalStore } from "react";
 import type { LodebookDb } from "@/client/device-db";
 import { useSettings } from "@/client/hooks";
 import { saveSettings } from "@/client/settings";
 import { requestSync } from "@/client/sync/scheduler";
-import { formatBytes } from "./progress-words";
+import { syncStatus } from "@/client/sync/status";
+import { formatBytes, photoBytesWords } from "./progress-words";
 
 /**
  * "Records now, photos later", for a weak connection: camp sync sends records and receives the
  * club's changes, and photos stay on this device until the member sends them or turns it off.
  */
 export function PhotosLater({ db }: { db: LodebookDb }) {
-  const { photosLater } = useSettings(db);
+  const saved = useSettings(db).photosLater;
+  // Shown as tapped at once; the stored setting catches up a moment later.
+  const [tapped, setTapped] = useState<boolean | null>(null);
+  const photosLater = tapped ?? saved;
   const waiting = useLiveQuery(async () => {
     const photos = await db.photos.where("uploaded").equals(0).toArray();
     return { count: photos.length, bytes: photos.reduce((n, p) => n + p.blob.size, 0) };
   }, [db]);
   const count = waiting?.count ?? 0;
+  const status = useSyncExternalStore(syncStatus.subscribe, syncStatus.get, syncStatus.get);
   return (
     <section className="sheet flex flex-col gap-2" aria-labelledby="photos-later-title" data-testid="photos-later">
       <h2 id="photos-later-title" className="heading-bar self-start text-lg">
@@ -29,6 +35,7 @@ export function PhotosLater({ db }: { db: LodebookDb }) {
           checked={photosLater}
           onChange={async (e) => {
             const on = e.target.checked;
+            setTapped(on);
             await saveSettings(db, { photosLater: on });
             if (!on) requestSync();
           }}
@@ -39,6 +46,11 @@ export function PhotosLater({ db }: { db: LodebookDb }) {
           <span className="text-sm">Camp sync sends your finds and weigh-ins and leaves photos on this device until you send them.</span>
         </span>
       </label>
+      {status.kind === "syncing" && status.phase === "photos" && (
+        <p className="font-bold" role="status" data-testid="photo-progress">
+          {photoBytesWords(status)}
+        </p>
+      )}
       <p data-testid="photos-waiting">
         {count === 0 ? "No photos waiting." : `Photos waiting: ${count} (${formatBytes(waiting!.bytes)}).`}
       </p>

@@ -6,7 +6,6 @@ import type { LodebookDb } from "@/client/device-db";
 import { syncStatus } from "@/client/sync/status";
 import { requestSync } from "@/client/sync/scheduler";
 import type { SyncStatus } from "@/client/sync/status";
-import { progressWords } from "./progress-words";
 
 function useOnline() {
   return useSyncExternalStore(
@@ -48,7 +47,9 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
   let progress: number | null = null;
   switch (status.kind) {
     case "syncing": {
-      line = progressWords(status);
+      // Items here; the camp-sync screen adds the photos' bytes and the time left (photos-later.tsx).
+      const phase = status.phase === "sending" ? "Sending changes" : status.phase === "photos" ? "Sending photos" : "Receiving from the club";
+      line = `${phase}: ${status.done} of ${Math.max(status.total, status.done)}`;
       progress = status.phase === "photos" ? (status.bytesTotal ? status.bytesDone / status.bytesTotal : 0) : status.total ? status.done / status.total : 0;
       break;
     }
