@@ -12,16 +12,25 @@ import { bystander, seedHeavyMembers } from "./hostile-figures";
 import { lighthouseScores } from "./lighthouse-figures";
 import { claimOutline, printableReport } from "./report-figures";
 import { estimateNode, ledger, syncIngest } from "./node-figures";
+import { photoStudy } from "./photo-figures";
+import { poorLink } from "./poor-link";
 
 // npm run bench: every figure on one run of this machine, each beside its baseline measured in
 // the same run (these machines are shared and noisy). Medians of several runs, with min–max.
 const started = performance.now();
 console.log(`Lodebook bench · ${new Date().toISOString()} · Node ${process.version} · ${os.cpus().length} cores\n`);
 
-await syncIngest();
-await estimateNode();
-await ledger();
-claimOutline();
+// `npm run bench -- --only=poor-link,photo-study` runs just those figures (names below).
+const FIGURES = ["sync-ingest", "estimate", "ledger", "claim-outline", "page-weight", "concurrency", "bystander", "report", "estimate-browser", "photo-bytes", "photo-study", "offline-open", "device-lists", "poor-link", "lighthouse"] as const;
+const only = process.argv.find((a) => a.startsWith("--only="))?.slice("--only=".length).split(",");
+const unknown = only?.filter((n) => !(FIGURES as readonly string[]).includes(n)) ?? [];
+if (unknown.length) throw new Error(`Unknown figure ${unknown.join(", ")}; choose from ${FIGURES.join(", ")}.`);
+const want = (name: (typeof FIGURES)[number]) => !only || only.includes(name);
+
+if (want("sync-ingest")) await syncIngest();
+if (want("estimate")) await estimateNode();
+if (want("ledger")) await ledger();
+if (want("claim-outline")) claimOutline();
 
 const freePort = () =>
   new Promise<number>((resolve) => {
@@ -42,30 +51,36 @@ seedDemoClub(getDb(), { passwordHashes: { officer: await hashPassword(DEMO_PASSW
 const benchMembers = Array.from({ length: 50 }, (_, i) => ({ id: uuidv7(), email: `bench${i}@quillmarsh.example` }));
 const insert = getDb().$client.prepare("insert into members (id, email, name, role, active) values (?, ?, ?, 'member', 1)");
 for (const m of benchMembers) insert.run(m.id, m.email, m.email);
-const heavyIds = seedHeavyMembers(getDb().$client, 4, 3000);
+const heavyIds = want("bystander") ? seedHeavyMembers(getDb().$client, 4, 3000) : [];
 closeDb();
 
 if (!fs.existsSync(".next/BUILD_ID") || process.env.LODEBOOK_BENCH_BUILD === "1") await buildApp(env);
-const app = await startApp({ port: await freePort(), env, quiet: true });
+const appPort = await freePort();
+const app = await startApp({ port: appPort, env, quiet: true });
 const browser = await launchBrowser();
 try {
-  await pageWeight(app.url);
-  await concurrency(app.url, benchMembers, (ids) => {
-    const db = new Database(env.DATABASE_URL!, { readonly: true });
-    const n = (db.prepare(`select count(*) n from finds where id in (${ids.map(() => "?").join(",")})`).get(...ids) as { n: number }).n;
-    db.close();
-    return n;
-  });
-  await bystander(app.url, { id: benchMembers[0].id, cookie: await memberCookie(benchMembers[0]) }, await Promise.all(heavyIds.map(async (id) => ({ id, cookie: await memberCookie({ id, email: "" }) }))));
+  if (want("page-weight")) await pageWeight(app.url);
+  if (want("concurrency"))
+    await concurrency(app.url, benchMembers, (ids) => {
+      const db = new Database(env.DATABASE_URL!, { readonly: true });
+      const n = (db.prepare(`select count(*) n from finds where id in (${ids.map(() => "?").join(",")})`).get(...ids) as { n: number }).n;
+      db.close();
+      return n;
+    });
+  if (want("bystander")) await bystander(app.url, { id: benchMembers[0].id, cookie: await memberCookie(benchMembers[0]) }, await Promise.all(heavyIds.map(async (id) => ({ id, cookie: await memberCookie({ id, email: "" }) }))));
   const officer = getDb().$client.prepare("select id, email from members where role = 'officer' limit 1").get() as { id: string; email: string };
   const finds = (getDb().$client.prepare("select count(*) n from finds").get() as { n: number }).n;
-  await printableReport(app.url, await memberCookie(officer), finds);
-  await estimateBrowser(browser, app.url);
-  await photoBytes(browser, app.url);
-  await offlineOpen(browser, app.url);
-  await deviceLists(browser, app.url);
-  const member = getDb().$client.prepare("select id, email from members where email = 'ines@quillmarsh.example'").get() as { id: string; email: string };
-  await lighthouseScores(app.url, await memberCookie(member), await memberCookie(officer));
+  if (want("report")) await printableReport(app.url, await memberCookie(officer), finds);
+  if (want("estimate-browser")) await estimateBrowser(browser, app.url);
+  if (want("photo-bytes")) await photoBytes(browser, app.url);
+  if (want("photo-study")) await photoStudy(browser, app.url);
+  if (want("offline-open")) await offlineOpen(browser, app.url);
+  if (want("device-lists")) await deviceLists(browser, app.url);
+  if (want("poor-link")) await poorLink(browser, appPort, env.DATABASE_URL!);
+  if (want("lighthouse")) {
+    const member = getDb().$client.prepare("select id, email from members where email = 'ines@quillmarsh.example'").get() as { id: string; email: string };
+    await lighthouseScores(app.url, await memberCookie(member), await memberCookie(officer));
+  }
 } finally {
   await browser.close();
   await app.stop();

@@ -13,6 +13,8 @@ export type MemberSettings = {
   /** E-mail the member when an officer queries one of their finds. */
   mailOnQuery: boolean;
   tileUrl: string;
+  /** "Records now, photos later": camp sync sends records and receives, and photos wait (this device only). */
+  photosLater: boolean;
 };
 
 export const DEFAULT_SETTINGS: MemberSettings = {
@@ -25,6 +27,7 @@ export const DEFAULT_SETTINGS: MemberSettings = {
   locationSharing: "exact",
   mailOnQuery: false,
   tileUrl: "",
+  photosLater: false,
 };
 
 export async function readSettings(db: LodebookDb): Promise<MemberSettings> {

@@ -35,6 +35,8 @@ const envSchema = z.object({
   LODEBOOK_MAIL_DIR: z.string().min(1).optional(),
   LODEBOOK_LOG: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   LODEBOOK_PHOTO_DIR: z.string().min(1).default("./data/photos"),
+  /** Photo uploads still coming in, chunk by chunk (default: `.partial` inside LODEBOOK_PHOTO_DIR). */
+  LODEBOOK_UPLOAD_DIR: z.string().min(1).optional(),
   /** Photo bytes each member may keep on the server, in MB (deleted photos count until purged). */
   LODEBOOK_PHOTO_QUOTA_MB: z.coerce.number().positive().max(1_000_000).default(500),
   LODEBOOK_TOMBSTONE_DAYS: z.coerce.number().positive().default(180),

@@ -67,7 +67,7 @@ describe("camp sync between two devices of one member and the club", () => {
       }
       return route.continue();
     });
-    await phone.route("**/api/photos/*", async (route) => (route.request().method() === "PUT" && cutUpload++ === 0 ? route.abort("connectionreset") : route.continue()));
+    await phone.route("**/api/photos/*/upload*", async (route) => (route.request().method() === "PUT" && cutUpload++ === 0 ? route.abort("connectionreset") : route.continue()));
     await phone.context().setOffline(false);
     await tab(phone, "Sync");
     await phone.screenshot({ path: shotPath("sync-screen-phone"), fullPage: true });

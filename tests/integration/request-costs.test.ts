@@ -74,6 +74,7 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
         "PUT /api/club/recoveries/[id]/document",
         "PUT /api/club/settings",
         "PUT /api/photos/[id]",
+        "PUT /api/photos/[id]/upload",
       ]
     `);
   });
@@ -82,8 +83,9 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
     const handler = await loadHandler(h);
     const { body, sent } = hostileStream(HOSTILE_BYTES);
     const isPhoto = key.startsWith("PUT /api/photos");
-    const path = key.split(" ")[1].replace("[id]", isPhoto ? photoId : uuidv7()).replace("[...nextauth]", "callback/credentials");
-    const type = isPhoto ? "image/jpeg" : key.includes("nextauth") ? "application/x-www-form-urlencoded" : "application/json";
+    const isChunk = key.endsWith("/upload");
+    const path = key.split(" ")[1].replace("[id]", isPhoto ? photoId : uuidv7()).replace("[...nextauth]", "callback/credentials") + (isChunk ? "?offset=0" : "");
+    const type = isChunk ? "application/octet-stream" : isPhoto ? "image/jpeg" : key.includes("nextauth") ? "application/x-www-form-urlencoded" : "application/json";
     const request = new Request(new URL(path, "http://localhost:3000"), { method: h.method, headers: { "content-type": type, cookie: isPhoto ? member : officer }, body, duplex: "half" } as RequestInit);
     const res = await handler(request, { params: Promise.resolve({ id: isPhoto ? photoId : uuidv7(), nextauth: ["callback", "credentials"] }) });
     expect(res.status).toBeGreaterThanOrEqual(400);

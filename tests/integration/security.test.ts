@@ -75,6 +75,12 @@ const MATRIX: Record<string, Row> = {
     expect: { anonymous: 401, member: [200, 201], other: 404, officer: 404 },
     request: () => ({ id: fixture.photoToUpload, init: { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(fixture.photoBytes) } }),
   },
+  // A chunk of another's photo, or an officer's, is as unknown as a guessed id (404).
+  "PUT /api/photos/[id]/upload": {
+    expect: { anonymous: 401, member: [200, 201], other: 404, officer: 404 },
+    request: () => ({ id: fixture.photoToUpload, url: `/api/photos/${fixture.photoToUpload}/upload?offset=0`, init: { method: "PUT", headers: { "content-type": "application/octet-stream" }, body: new Uint8Array(fixture.photoBytes) } }),
+  },
+  "GET /api/photos/[id]/upload": { expect: { anonymous: 401, member: 200, other: 404, officer: 404 }, request: () => ({ id: fixture.photoToRead, url: `/api/photos/${fixture.photoToRead}/upload` }) },
   "GET /api/photos/[id]": { expect: { anonymous: 401, member: 200, other: 404, officer: 200 }, request: () => ({ id: fixture.photoToRead }) },
   "GET /api/club/members": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "PATCH /api/club/members/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.bystander, init: json("PATCH", { active: true }) }) },

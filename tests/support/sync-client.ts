@@ -1,6 +1,7 @@
 import { v7 as uuidv7 } from "uuid";
 import { GET as pullHandler } from "@/app/api/sync/pull/route";
 import { POST as pushHandler } from "@/app/api/sync/push/route";
+import { GET as uploadStatusHandler, PUT as chunkHandler } from "@/app/api/photos/[id]/upload/route";
 import { estimateSpecimen } from "@/lib/estimate";
 import type { Find } from "@/lib/entities/find";
 import type { Outing } from "@/lib/entities/outing";
@@ -90,6 +91,8 @@ export function fetchToSyncHandlers(stubGlobal: (name: string, value: unknown) =
     const request = req(url.pathname + url.search, { ...init, cookie: cookie() });
     if (url.pathname === "/api/sync/push") return pushHandler(request, {} as never);
     if (url.pathname === "/api/sync/pull") return pullHandler(request, {} as never);
+    const upload = url.pathname.match(/^\/api\/photos\/([^/]+)\/upload$/);
+    if (upload) return (request.method === "PUT" ? chunkHandler : uploadStatusHandler)(request, { params: Promise.resolve({ id: upload[1] }) });
     throw new TypeError(`no route for ${url.pathname} in this test`);
   });
 }

@@ -2,7 +2,8 @@ import type { LodebookDb, OutboxEntry } from "../device-db";
 import { applyPullPage, beginResync, finishResync } from "./apply-pull";
 import { assignMutationIds, clearServerFault, countServerFault, ensureClient, meta, putBack, recoverFromGap, resetAndResend, setAside, takeNewClientId } from "./recover";
 import type { SyncStatus } from "./status";
-import { fetchPull, sendPush, uploadPhoto, type Answer } from "./transport";
+import { PARALLEL_UPLOADS, sendPhoto } from "./photo-upload";
+import { fetchPull, sendPush, type Answer } from "./transport";
 
 export { ensureClient, resetAndResend } from "./recover";
 
@@ -14,22 +15,29 @@ type Report = (s: SyncStatus) => void;
 /** A step's end: on, with its counts, or stopped with the status to show. */
 type Step<T> = ({ ok: true } & T) | { ok: false; status: SyncStatus };
 
+export type SyncOptions = {
+  /** "Send photos now": this sync sends photos even when the member keeps them for later. */
+  photosNow?: boolean;
+};
+
 /**
  * One full sync, in three steps: send waiting changes, upload photos whose records are on the
  * server, receive what changed. A pull answered `reset` starts over after queueing everything
- * again (see recover.ts).
+ * again (see recover.ts). With "records now, photos later" on (a device setting), photos wait
+ * unless this sync was asked to send them.
  */
-export async function syncOnce(db: LodebookDb, memberId: string, report: Report): Promise<SyncStatus> {
+export async function syncOnce(db: LodebookDb, memberId: string, report: Report, options: SyncOptions = {}): Promise<SyncStatus> {
   await ensureClient(db);
   const sent = await pushChanges(db, memberId, report);
   if (!sent.ok) return sent.status;
-  const photos = await uploadPhotos(db, sent.sent, sent.total, report);
+  const photosLater = (await db.settings.get("photosLater"))?.value === true && !options.photosNow;
+  const photos = photosLater ? { ok: true as const, bytesDone: 0, bytesTotal: 0 } : await uploadPhotos(db, report);
   if (!photos.ok) return photos.status;
   const received = await pullChanges(db, report, photos.bytesDone, photos.bytesTotal);
   if (!received.ok) return received.status;
   if (received.reset) {
     await resetAndResend(db);
-    return syncOnce(db, memberId, report);
+    return syncOnce(db, memberId, report, options);
   }
   const at = Date.now();
   await db.meta.put({ key: "lastSyncedAt", value: at });
@@ -119,24 +127,45 @@ async function settle(db: LodebookDb, batch: OutboxEntry[], results: { id: numbe
   return { sent, rejected };
 }
 
-/** Photos whose records are on the server; one refused for good stays on the device. */
-async function uploadPhotos(db: LodebookDb, sent: number, total: number, report: Report): Promise<Step<{ bytesDone: number; bytesTotal: number }>> {
+/**
+ * Photos whose records are on the server, PARALLEL_UPLOADS at a time, each in chunks that
+ * resume after a cut (photo-upload.ts). One refused for good stays on the device; any other
+ * failure stops the step once the uploads under way have ended.
+ */
+async function uploadPhotos(db: LodebookDb, report: Report): Promise<Step<{ bytesDone: number; bytesTotal: number }>> {
   const photos = (await db.photos.where("uploaded").equals(0).toArray()).filter((p) => p.blob.size > 0);
   const waitingIds = new Set((await db.outbox.toArray()).map((e) => e.entityId));
   const ready = photos.filter((p) => !waitingIds.has(p.id) && !waitingIds.has(p.findId));
   const bytesTotal = ready.reduce((n, p) => n + p.blob.size, 0);
+  const startedAt = Date.now();
   let bytesDone = 0;
-  for (const p of ready) {
-    report({ kind: "syncing", phase: "photos", done: sent, total, bytesDone, bytesTotal });
-    const answer = await uploadPhoto(p.id, p.blob, p.sha256);
-    if (answer.ok) {
-      await db.photos.update(p.id, { uploaded: 1 });
-      bytesDone += p.blob.size;
-    } else if (answer.kind !== "refused") {
-      return { ok: false, status: failure(answer, await pending(db).count()) };
+  let photosDone = 0;
+  let stop: Extract<Answer<unknown>, { ok: false }> | undefined;
+  const emit = () => report({ kind: "syncing", phase: "photos", done: photosDone, total: ready.length, bytesDone, bytesTotal, secondsLeft: secondsLeft(bytesDone, bytesTotal, Date.now() - startedAt) });
+  const queue = [...ready];
+  const worker = async () => {
+    for (let p = queue.shift(); p && !stop; p = queue.shift()) {
+      const answer = await sendPhoto(p, (delta) => {
+        bytesDone += delta;
+        emit();
+      });
+      if (answer.ok) {
+        await db.photos.update(p.id, { uploaded: 1 });
+        photosDone++;
+        emit();
+      } else if (answer.kind !== "refused") stop ??= answer;
     }
-  }
+  };
+  emit();
+  await Promise.all(Array.from({ length: PARALLEL_UPLOADS }, worker));
+  if (stop) return { ok: false, status: failure(stop, await pending(db).count()) };
   return { ok: true, bytesDone, bytesTotal };
+}
+
+/** Time left at the rate seen so far; none until a couple of seconds and some bytes have gone. */
+export function secondsLeft(done: number, total: number, elapsedMs: number): number | null {
+  if (elapsedMs < 2000 || done <= 0) return null;
+  return Math.max(0, Math.round(((total - done) * elapsedMs) / done / 1000));
 }
 
 /**

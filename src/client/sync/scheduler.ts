@@ -28,7 +28,9 @@ export function afterOutcome(outcome: SyncStatus, attempt: number, now = Date.no
 // a chunk the service worker precaches, so it is there offline too.
 const loadEngine = () => import("./engine");
 
-type Running = { stop: () => void; request: () => void };
+type Running = { stop: () => void; request: (options?: SyncOptions) => void };
+/** What the engine's sync takes (kept as a type here, so the engine stays out of the first load). */
+type SyncOptions = { photosNow?: boolean };
 let current: Running | undefined;
 
 /**
@@ -43,6 +45,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   let retryTimer: ReturnType<typeof setTimeout> | undefined;
   let again = false;
   let running = false;
+  // "Send photos now" holds for the next sync to start (this one, or the one after a running one).
+  let photosNow = false;
 
   const run = async () => {
     if (stopped) return;
@@ -51,10 +55,12 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       return;
     }
     running = true;
+    const options: SyncOptions = { photosNow };
+    photosNow = false;
     try {
       const work = async () => {
         const { syncOnce } = await loadEngine();
-        const next = afterOutcome(await syncOnce(db, memberId, (s) => syncStatus.set(s)), attempt);
+        const next = afterOutcome(await syncOnce(db, memberId, (s) => syncStatus.set(s), options), attempt);
         syncStatus.set(next.status);
         attempt = next.attempt;
         clearTimeout(retryTimer);
@@ -90,7 +96,10 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   const startIdle = typeof requestIdleCallback === "function" ? requestIdleCallback(() => void run(), { timeout: 2000 }) : setTimeout(() => void run(), 0);
 
   current = {
-    request: () => void run(),
+    request: (options) => {
+      if (options?.photosNow) photosNow = true;
+      void run();
+    },
     stop: () => {
       stopped = true;
       if (typeof cancelIdleCallback === "function") cancelIdleCallback(startIdle as number);
@@ -106,8 +115,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
 }
 
 /** Ask for a sync now (after a save, or the "sync now" button). Offline, Background Sync takes it. */
-export function requestSync(): void {
-  if (navigator.onLine) current?.request();
+export function requestSync(options?: SyncOptions): void {
+  if (navigator.onLine) current?.request(options);
   else void registerBackgroundSync();
 }
 

@@ -5,7 +5,8 @@ export type Answer<T> =
   | { ok: true; body: T }
   | {
       ok: false;
-      kind: "offline" | "unauthorized" | "other-member" | "outdated" | "gap" | "reused" | "retry" | "refused";
+      kind: "offline" | "unauthorized" | "other-member" | "outdated" | "gap" | "reused" | "retry" | "refused" | "offset";
+      /** For "gap": the mutation id the server expects; for "offset": the bytes it holds of the photo. */
       expected?: number;
       message?: string;
       retryAfterS?: number;
@@ -23,7 +24,7 @@ async function call<T>(input: string, init?: RequestInit): Promise<Answer<T>> {
     return { ok: false, kind: "offline" };
   }
   if (res.ok) return { ok: true, body: (await res.json()) as T };
-  const body = (await res.json().catch(() => ({}))) as { error?: { code?: string; message?: string; errorId?: string; fields?: { expected?: string[]; replayed?: string[] } } };
+  const body = (await res.json().catch(() => ({}))) as { error?: { code?: string; message?: string; errorId?: string; fields?: { expected?: string[]; replayed?: string[]; offset?: string[] } } };
   const code = body.error?.code ?? "";
   const message = body.error?.message;
   if (res.status === 401) return { ok: false, kind: "unauthorized", message };
@@ -31,6 +32,7 @@ async function call<T>(input: string, init?: RequestInit): Promise<Answer<T>> {
   if (code === "conflict:member") return { ok: false, kind: "other-member", message };
   if (code === "conflict:mutation_gap") return { ok: false, kind: "gap", expected: Number(body.error?.fields?.expected?.[0]), message };
   if (code === "conflict:client_reused") return { ok: false, kind: "reused", replayed: (body.error?.fields?.replayed ?? []).map(Number), message };
+  if (code === "conflict:offset") return { ok: false, kind: "offset", expected: Number(body.error?.fields?.offset?.[0]), message };
   if (res.status === 500) return { ok: false, kind: "retry", message, errorId: body.error?.errorId ?? "" };
   if (res.status === 429 || res.status >= 500) return { ok: false, kind: "retry", message, retryAfterS: Number(res.headers.get("retry-after")) || undefined };
   return { ok: false, kind: "refused", message };
@@ -48,6 +50,14 @@ export function fetchPull(clientId: string, cursor: number, limit = 500) {
   return call<PullResponse>(`/api/sync/pull?protocolVersion=${PROTOCOL_VERSION}&clientId=${clientId}&cursor=${cursor}&limit=${limit}`);
 }
 
-export function uploadPhoto(id: string, blob: Blob, sha256: string) {
-  return call<{ stored: boolean; sha256: string }>(`/api/photos/${id}`, { method: "PUT", headers: { "content-type": "image/jpeg", "x-content-sha256": sha256 }, body: blob });
+/** Where a photo's upload stands on the server: bytes held of its total. */
+export type UploadState = { received: number; total: number; complete: boolean };
+
+export function photoUploadStatus(id: string) {
+  return call<UploadState>(`/api/photos/${id}/upload`);
+}
+
+/** One chunk of a photo at the offset the server holds; the last one stores it. */
+export function sendPhotoChunk(id: string, offset: number, chunk: Blob) {
+  return call<UploadState>(`/api/photos/${id}/upload?offset=${offset}`, { method: "PUT", headers: { "content-type": "application/octet-stream" }, body: chunk });
 }

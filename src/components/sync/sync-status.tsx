@@ -47,8 +47,9 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
   let progress: number | null = null;
   switch (status.kind) {
     case "syncing": {
-      const phase = status.phase === "sending" ? "Sending changes" : status.phase === "photos" ? "Uploading photos" : "Receiving from the club";
-      line = status.phase === "photos" ? `${phase}: ${Math.round(status.bytesDone / 1024)} of ${Math.round(status.bytesTotal / 1024)} kB` : `${phase}: ${status.done} of ${Math.max(status.total, status.done)}`;
+      // Items here; the camp-sync screen adds the photos' bytes and the time left (photos-later.tsx).
+      const phase = status.phase === "sending" ? "Sending changes" : status.phase === "photos" ? "Sending photos" : "Receiving from the club";
+      line = `${phase}: ${status.done} of ${Math.max(status.total, status.done)}`;
       progress = status.phase === "photos" ? (status.bytesTotal ? status.bytesDone / status.bytesTotal : 0) : status.total ? status.done / status.total : 0;
       break;
     }

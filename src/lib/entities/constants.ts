@@ -22,4 +22,8 @@ export const METHOD_LABELS: Record<(typeof OUTING_METHODS)[number], string> = {
 
 export const PHOTO_TYPES = ["image/jpeg"] as const;
 export const MAX_PHOTO_BYTES = 4 * 1024 * 1024;
+/** The largest photo the server takes (older devices sent 2048 px). */
 export const MAX_PHOTO_EDGE = 2048;
+/** What the device sends: long edge and JPEG quality, chosen by the bench's photo study (README). */
+export const PHOTO_SEND_EDGE = 1600;
+export const PHOTO_SEND_QUALITY = 0.7;

@@ -5,6 +5,7 @@ import { discardRefusedChange } from "@/client/logbook";
 import { requestSync } from "@/client/sync/scheduler";
 import type { LodebookDb, OutboxEntry } from "@/client/device-db";
 import { useMember } from "@/client/member";
+import { PhotosLater } from "@/components/sync/photos-later";
 import { SyncStatusView } from "@/components/sync/sync-status";
 import { formatWhen } from "@/lib/format";
 import { changeWords } from "@/lib/sync/change-words";
@@ -27,6 +28,7 @@ export function CampSyncScreen() {
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Camp sync</h1>
       <SyncStatusView db={db} />
+      <PhotosLater db={db} />
       {refused.length > 0 && (
         <section className="sheet flex flex-col gap-2" aria-labelledby="refused-title" data-testid="refused">
           <h2 id="refused-title" className="heading-bar self-start text-lg text-rust">

@@ -63,7 +63,7 @@ export function SettingsScreen() {
     setSaved(true);
     if (changes.locationSharing || changes.mailOnQuery !== undefined) requestSync();
   };
-  const select = (key: Exclude<keyof MemberSettings, "mailOnQuery">, label: string, options: [string, string][]) => (
+  const select = (key: Exclude<keyof MemberSettings, "mailOnQuery" | "photosLater">, label: string, options: [string, string][]) => (
     <label className="flex flex-col">
       <span className="field-label">{label}</span>
       <select className="field-input" value={settings[key]} onChange={(e) => void change({ [key]: e.target.value })}>
