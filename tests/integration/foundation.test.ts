@@ -32,6 +32,16 @@ describe("database", () => {
     expect(databaseChecksum(db)).toBe(before);
   });
 
+  it("shows a whole query thread from the demo member's first sign-in: one query answered, the find's state answered", async () => {
+    const { db } = await seededDatabase();
+    const rows = db.$client
+      .prepare("select f.review_state state, r.action, a.note from answers a join reviews r on r.id = a.review_id join finds f on f.id = a.find_id join members m on m.id = a.member_id where m.email = 'ines@quillmarsh.example' and r.find_id = a.find_id")
+      .all() as { state: string; action: string; note: string }[];
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ state: "answered", action: "query" });
+    expect(rows[0].note).toMatch(/weighed it again/);
+  });
+
   it("gives the demo club 2 officers, 6 members, 4 claims with closed polygon boundaries, and weigh-ins", async () => {
     const { db } = await seededDatabase();
     const roles = db.$client.prepare("select role, count(*) as n from members group by role order by role").all();

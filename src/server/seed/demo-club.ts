@@ -53,7 +53,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
     const memberIds = DEMO_PEOPLE.map((p) => {
       const id = idAt(seasonStart - 30 * DAY);
       tx.insert(t.members).values({ id, email: p.email, name: p.name, role: p.role, passwordHash: opts.passwordHashes[p.role], active: true }).run();
-      return { id, role: p.role };
+      return { id, role: p.role, email: p.email };
     });
     const officers = memberIds.filter((m) => m.role === "officer");
     tx.insert(t.clubSettings).values({ id: 1, name: DEMO_CLUB, currency: "USD", timeZone: "UTC" }).onConflictDoUpdate({ target: t.clubSettings.id, set: { name: DEMO_CLUB } }).run();
@@ -123,8 +123,9 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
             weighIns++;
             if (rand() < 0.35) {
               const action = rand() < 0.7 ? "verify" : "query";
+              const reviewId = idAt(foundAt + 2 * DAY);
               tx.insert(t.reviews).values({
-                id: idAt(foundAt + 2 * DAY), findId, officerId: pick(officers).id, action,
+                id: reviewId, findId, officerId: pick(officers).id, action,
                 note: action === "query" ? "Readings look close together: please weigh again with the line tared under water." : "",
                 seq: nextSeq(db.$client),
               }).run();
@@ -133,9 +134,26 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
         }
       }
     }
+    demoThread(tx, db.$client, memberIds.find((m) => m.email === DEMO_PEOPLE.find((p) => p.role === "member")!.email)!.id, officers[0].id);
     refreshAllFigures(db.$client);
   });
   return { seeded: true, members: DEMO_PEOPLE.length, finds, weighIns };
+}
+
+/**
+ * A whole query thread for the member the demo signs in as: an officer queries their latest
+ * unreviewed find and the member answers, so the thread shows from the first sign-in. Ids
+ * take no random draws, so the rest of the demo club stays the same.
+ */
+function demoThread(tx: Pick<Db, "insert">, sqlite: Db["$client"], memberId: string, officerId: string) {
+  const find = sqlite
+    .prepare("select id, found_at foundAt from finds where member_id = ? and not exists (select 1 from reviews r where r.find_id = finds.id) order by found_at desc limit 1")
+    .get(memberId) as { id: string; foundAt: number } | undefined;
+  if (!find) return;
+  const fixedId = (ms: number, fill: number) => uuidv7({ msecs: Math.floor(ms), random: new Uint8Array(16).fill(fill) });
+  const reviewId = fixedId(find.foundAt + DAY, 5);
+  tx.insert(t.reviews).values({ id: reviewId, findId: find.id, officerId, action: "query", note: "The weight looks high for this find: was it weighed dry, with no sand left on it?", seq: nextSeq(sqlite) }).run();
+  tx.insert(t.answers).values({ id: fixedId(find.foundAt + 2 * DAY, 7), memberId, findId: find.id, reviewId, note: "Dried and brushed it, then weighed it again at camp: the same weight, so it stands.", seq: nextSeq(sqlite) }).run();
 }
 
 /**
