@@ -1,3 +1,5 @@
+import { seededRandom } from "../src/lib/estimate/uncertainty";
+
 /**
  * A photograph of a gold-in-quartz specimen on sand, painted from a seed: what a member's phone
  * takes, so that an encoder's figure on it means something. It has what real photographs have
@@ -7,7 +9,7 @@
  * little sensor noise. Deterministic: the same seed paints the same pixels in Node and Chromium.
  */
 export function paintSpecimenPhoto(width: number, height: number, seed: number): Uint8ClampedArray {
-  const rand = mulberry32(seed);
+  const rand = seededRandom(seed);
   const out = new Uint8ClampedArray(width * height * 4);
   const s = Math.min(width, height) / 3000; // features scale with the picture: 1 at 12 MP
   const light = valueNoise(width, height, 420 * s, rand);
@@ -159,16 +161,6 @@ function paintRuler(out: Uint8ClampedArray, width: number, height: number, s: nu
   }
 }
 
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Smooth value noise in [−0.5, 0.5]: random values on a lattice of `cell` px, eased between. */
 function valueNoise(width: number, height: number, cell: number, rand: () => number): (x: number, y: number) => number {
