@@ -12,6 +12,7 @@ export default {
         ink: "var(--ink)",
         "ink-soft": "var(--ink-soft)",
         rule: "var(--rule)",
+        edge: "var(--edge)",
         ochre: "var(--ochre)",
         "ochre-ink": "var(--ochre-ink)",
         moss: "var(--moss)",

@@ -137,7 +137,7 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
       </label>
       <div className="flex flex-col gap-2">
         <span className="field-label">Boundary from a GeoJSON file</span>
-        <div {...getRootProps({ className: "rounded-md border-2 border-dashed border-rule p-4 text-center" })}>
+        <div {...getRootProps({ className: "rounded-md border-2 border-dashed border-edge p-4 text-center" })}>
           <input {...getInputProps({ "aria-label": "GeoJSON boundary file" })} />
           Drop a .geojson file here, or click to choose
         </div>

@@ -12,7 +12,7 @@ export function PhotoDrop({ busy, onFiles, onRefused }: { busy: boolean; onFiles
     },
   });
   return (
-    <div {...getRootProps({ className: `rounded-md border-2 border-dashed p-4 text-center ${isDragActive ? "border-ochre" : "border-rule"}` })}>
+    <div {...getRootProps({ className: `rounded-md border-2 border-dashed p-4 text-center ${isDragActive ? "border-ochre" : "border-edge"}` })}>
       <input {...getInputProps({ "aria-label": "Add photos" })} data-testid="photo-input" />
       <p>{busy ? "Shrinking and saving…" : "Drop photos here, or tap to choose"}</p>
     </div>

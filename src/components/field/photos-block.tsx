@@ -8,7 +8,7 @@ import { requestSync } from "@/client/sync/scheduler";
 // The drop area (react-dropzone) loads just after the block itself: the camera button and the
 // photos already here show at once.
 const PhotoDrop = lazy(() => import("./photo-drop").then((m) => ({ default: m.PhotoDrop })));
-const dropPlaceholder = <div className="rounded-md border-2 border-dashed border-rule p-4 text-center">Drop photos here, or tap to choose</div>;
+const dropPlaceholder = <div className="rounded-md border-2 border-dashed border-edge p-4 text-center">Drop photos here, or tap to choose</div>;
 
 function Thumb({ photo, onDelete }: { photo: LocalPhoto; onDelete: () => void }) {
   // A photo taken on another device has no bytes here: the club's server has it.
