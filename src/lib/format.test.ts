@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { decimalsForUncertainty, formatGrams } from "./format";
+import { countOf, decimalsForUncertainty, formatGrams } from "./format";
 
 describe("figures shown to the precision their uncertainty allows", () => {
   // JCGM 100:2008, 7.2.6: the uncertainty with at most two significant digits, the figure to match.
@@ -25,5 +25,11 @@ describe("figures shown to the precision their uncertainty allows", () => {
     // ± 0.3 g is ± 0.0096 ozt (troy ounce 31.1034768 g, NIST SP 811 B.8): one digit, shown as 0.010.
     expect(formatGrams(31.1034768, "ozt", 0.3)).toBe("1.000 ozt");
     expect(decimalsForUncertainty(0.3, "gr")).toBe(0);
+  });
+});
+
+describe("countOf", () => {
+  it("counts in English: one find, otherwise finds (zero included)", () => {
+    expect([0, 1, 2, 21].map((n) => countOf(n, "find", "finds"))).toEqual(["0 finds", "1 find", "2 finds", "21 finds"]);
   });
 });

@@ -49,3 +49,8 @@ export function toLocalInput(ms: number): string {
   const pad = (n: number) => String(n).padStart(2, "0");
   return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
 }
+
+/** "1 find", "0 finds", "12 finds": English plural of a counted noun (Intl.PluralRules). */
+export function countOf(n: number, one: string, many: string): string {
+  return `${n} ${new Intl.PluralRules("en").select(n) === "one" ? one : many}`;
+}

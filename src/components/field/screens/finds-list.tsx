@@ -7,7 +7,7 @@ import type { LocalFind } from "@/client/device-db";
 import { useMember } from "@/client/member";
 import { useQueryStates } from "@/client/query-states";
 import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
-import { formatDay, formatGrams } from "@/lib/format";
+import { countOf, formatDay, formatGrams } from "@/lib/format";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions } from "../options";
 import { QueryMark } from "../query-mark";
@@ -95,7 +95,7 @@ export function FindsListScreen() {
       ) : (
         <>
           <p className="text-sm text-ink-soft" data-testid="finds-count">
-            {shown.length} of {all.length} finds
+            {shown.length} of {countOf(all.length, "find", "finds")}
           </p>
           <div className="max-h-[70dvh] overflow-auto" data-testid="finds-list">
             <Suspense

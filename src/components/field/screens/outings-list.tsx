@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useClaims } from "@/client/hooks";
 import { useMember } from "@/client/member";
 import { METHOD_LABELS } from "@/lib/entities/constants";
-import { formatDay } from "@/lib/format";
+import { countOf, formatDay } from "@/lib/format";
 import { Skeleton } from "../skeleton";
 
 export function OutingsScreen() {
@@ -38,7 +38,7 @@ export function OutingsScreen() {
                   <span className="font-bold">{formatDay(o.startedAt)}</span> · {METHOD_LABELS[o.method]} on {claimName(o.claimId)}
                   {o.endedAt === null && <span className="ml-2 font-bold text-moss">under way</span>}
                 </span>
-                <span className="text-sm">{counts?.get(o.id) ?? 0} finds</span>
+                <span className="text-sm">{countOf(counts?.get(o.id) ?? 0, "find", "finds")}</span>
               </Link>
             </li>
           ))}
