@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { claimAt, toDms } from "./geo";
+import { claimAt, formatDecimal, toDms } from "./geo";
 
 describe("toDms", () => {
   it("writes degrees, minutes and seconds with the hemisphere", () => {
@@ -31,5 +31,12 @@ describe("claimAt", () => {
     const notched = { ...square, boundary: { type: "Polygon" as const, coordinates: [[[0, 0], [2, 0], [2, 2], [1, 1], [0, 2], [0, 0]]] } };
     expect(claimAt(1.8, 1, [notched])).toBeUndefined();
     expect(claimAt(0.5, 1, [notched])?.id).toBe("a");
+  });
+});
+
+describe("formatDecimal", () => {
+  it("shows five places (about 1 m, finer than a phone's fix), rounding rather than cutting", () => {
+    expect(formatDecimal(41.7929494, -117.6122161)).toBe("41.79295, -117.61222");
+    expect(formatDecimal(0, 0)).toBe("0.00000, 0.00000");
   });
 });

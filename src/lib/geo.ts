@@ -19,8 +19,13 @@ export function toDms(value: number, axis: "lat" | "lon"): string {
   return `${degrees}° ${minutes}′ ${seconds.toFixed(1)}″ ${hemisphere}`;
 }
 
+/**
+ * Decimal degrees to five places, about 1 m on the ground: finer than a phone's fix (3–15 m)
+ * claims, coarser hides where a find was (common practice for handheld GPS). The stored
+ * position keeps every digit the device gave.
+ */
 export function formatDecimal(lat: number, lon: number): string {
-  return `${lat.toFixed(6)}, ${lon.toFixed(6)}`;
+  return `${lat.toFixed(5)}, ${lon.toFixed(5)}`;
 }
 
 type ClaimShape = { id: string; name: string; boundary: Polygon | null; active?: boolean };

@@ -11,7 +11,7 @@ import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import { formatGrams, formatWhen } from "@/lib/format";
-import { claimAt } from "@/lib/geo";
+import { claimAt, formatDecimal } from "@/lib/geo";
 import { LocationLine } from "../location-line";
 import { Skeleton } from "../skeleton";
 
@@ -98,7 +98,7 @@ export function FindDetailScreen() {
         </div>
         {position.kind === "found" && (
           <p className="text-sm">
-            Device says {position.position.lat.toFixed(6)}, {position.position.lon.toFixed(6)} (± {Math.round(position.position.accuracyM)} m).
+            Device says {formatDecimal(position.position.lat, position.position.lon)} (± {Math.round(position.position.accuracyM)} m).
           </p>
         )}
         {position.kind === "failed" && <p className="text-sm text-rust">{position.message}</p>}
