@@ -44,6 +44,11 @@ describe("the field logbook with no signal", () => {
     await page.screenshot({ path: shotPath("logbook-quick-find-phone"), fullPage: true });
     await page.getByRole("button", { name: "Save the find" }).click();
     await page.getByText("Find saved on this device.").waitFor();
+    // Said once: the mark leaves the address, so a reload shows the find without it.
+    expect(new URL(page.url()).hash).not.toContain("saved");
+    await page.reload();
+    await page.getByRole("button", { name: "Weigh this specimen" }).waitFor();
+    expect(await page.getByText("Find saved on this device.").count()).toBe(0);
 
     // A photo whose EXIF puts it inside Larkspur Bench fills in the position.
     await page.getByTestId("photo-input").setInputFiles({ name: "nugget.jpg", mimeType: "image/jpeg", buffer: makeJpeg({ width: 2400, height: 1800, lat: larkspur.lat + 0.0002, lon: larkspur.lon - 0.0003, takenAt: new Date() }) });

@@ -2,7 +2,7 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { lazy, Suspense, useState } from "react";
+import { lazy, Suspense, useEffect, useState } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
 import { useHashParams } from "@/client/hash-params";
 import type { PositionState } from "@/client/position";
@@ -26,7 +26,18 @@ const FindForm = lazy(() => import("../find-form").then((m) => ({ default: m.Fin
 export function FindDetailScreen() {
   const hash = useHashParams();
   const id = hash.get("id") ?? "";
-  const justSaved = hash.get("saved") === "1";
+  // "Saved" is said once, for the find just saved: the mark leaves the address at once, so a
+  // reload or a later visit does not say it again.
+  const [savedId, setSavedId] = useState<string | null>(null);
+  const savedMark = hash.get("saved") === "1" ? hash.get("id") : null;
+  if (savedMark !== null && savedMark !== savedId) setSavedId(savedMark);
+  useEffect(() => {
+    if (hash.get("saved") !== "1") return;
+    const rest = new URLSearchParams(hash);
+    rest.delete("saved");
+    window.history.replaceState(window.history.state, "", `${window.location.pathname}#${rest}`);
+  }, [hash]);
+  const justSaved = savedId !== null && savedId === id;
   const { db } = useMember();
   const router = useRouter();
   // A live query keeps its last answer while it runs again for a new id: the answer says which
