@@ -1,3 +1,4 @@
+import "server-only";
 import type Database from "better-sqlite3";
 import type { Polygon } from "../../lib/entities/claim";
 import { inBoundary } from "../../lib/geo";
