@@ -18,8 +18,14 @@ const config = [
         "error",
         {
           patterns: [
-            { group: ["react", "react-dom", "react/*", "next", "next/*", "dexie", "dexie-react-hooks", "better-sqlite3", "drizzle-orm", "drizzle-orm/*"], message: "src/lib is pure: no framework, device or database imports." },
-            { group: ["@/server/*", "@/client/*", "@/components/*", "@/app/*", "../server/*", "../../server/*", "../client/*"], message: "src/lib is pure: it imports only src/lib and plain packages." },
+            {
+              group: ["react", "react-dom", "react/*", "next", "next/*", "dexie", "dexie-react-hooks", "better-sqlite3", "drizzle-orm", "drizzle-orm/*"],
+              message: "src/lib is pure: no framework, device or database imports.",
+            },
+            {
+              group: ["@/server/*", "@/client/*", "@/components/*", "@/app/*", "../server/*", "../../server/*", "../client/*"],
+              message: "src/lib is pure: it imports only src/lib and plain packages.",
+            },
           ],
         },
       ],
@@ -32,13 +38,29 @@ const config = [
         "error",
         {
           patterns: [
-            { group: ["@/server/*", "!@/server/actions", "!@/server/actions/*"], allowTypeImports: true, message: "Device code and components reach the server through server actions (src/server/actions) or its HTTP API, never its modules." },
+            {
+              group: ["@/server/*", "!@/server/actions", "!@/server/actions/*"],
+              allowTypeImports: true,
+              message: "Device code and components reach the server through server actions (src/server/actions) or its HTTP API, never its modules.",
+            },
             { group: ["better-sqlite3", "drizzle-orm", "drizzle-orm/*"], message: "The database is the server's alone." },
           ],
         },
       ],
     },
   },
-  { ignores: [".next/**", "public/sw.js", "public/swe-worker*", "public/maplibre-gl-worker.mjs", "data/**", "drizzle/**", "next-env.d.ts", "test-results/**", "bench/tmp/**"] },
+  {
+    ignores: [
+      ".next/**",
+      "public/sw.js",
+      "public/swe-worker*",
+      "public/maplibre-gl-worker.mjs",
+      "data/**",
+      "drizzle/**",
+      "next-env.d.ts",
+      "test-results/**",
+      "bench/tmp/**",
+    ],
+  },
 ];
 export default config;

@@ -18,7 +18,22 @@ const withSerwist = withSerwistInit({
   reloadOnOnline: false,
   // Every member screen opens with no signal after one visit: precache their shells.
   additionalPrecacheEntries: [
-    ...["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/scales", "/barren-rock", "/weigh", "/offline", "/manifest.webmanifest"].map((url) => ({ url, revision })),
+    ...[
+      "/",
+      "/finds",
+      "/finds/new",
+      "/finds/view",
+      "/outings",
+      "/outings/view",
+      "/map",
+      "/sync",
+      "/settings",
+      "/scales",
+      "/barren-rock",
+      "/weigh",
+      "/offline",
+      "/manifest.webmanifest",
+    ].map((url) => ({ url, revision })),
     ...["/maplibre-gl-worker.mjs", "/icons/icon-192.png", "/icons/icon-512.png"].map((url) => ({ url, revision })),
   ],
 });

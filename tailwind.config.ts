@@ -21,7 +21,7 @@ export default {
       },
       fontFamily: {
         sans: ["var(--font-atkinson-extended)", "var(--font-atkinson)", "system-ui", "sans-serif"],
-        mono: ['ui-monospace', "SFMono-Regular", "Menlo", "monospace"],
+        mono: ["ui-monospace", "SFMono-Regular", "Menlo", "monospace"],
       },
       minHeight: { touch: "44px" },
       minWidth: { touch: "44px" },

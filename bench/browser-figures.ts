@@ -7,7 +7,20 @@ import { engineScript } from "../tests/support/engine-script";
 import { addPhotoPage } from "./photo-figures";
 import { percentile, repeat, report, summary } from "./stats";
 
-const MEMBER_SCREENS = ["/", "/finds", "/finds/new", "/finds/view", "/outings", "/outings/view", "/map", "/sync", "/settings", "/scales", "/barren-rock", "/weigh"];
+const MEMBER_SCREENS = [
+  "/",
+  "/finds",
+  "/finds/new",
+  "/finds/view",
+  "/outings",
+  "/outings/view",
+  "/map",
+  "/sync",
+  "/settings",
+  "/scales",
+  "/barren-rock",
+  "/weigh",
+];
 
 async function firstLoadJs(baseUrl: string, route: string): Promise<{ gzip: number; sources: string[] }> {
   const html = await (await fetch(`${baseUrl}${route}`)).text();
@@ -32,9 +45,21 @@ export async function pageWeight(baseUrl: string) {
     const page = await firstLoadJs(baseUrl, route);
     if (page.sources.some((s) => s.includes("maplibregl") || s.includes("MapLibre GL JS"))) withMap.push(route);
     const ratio = page.gzip / bare.gzip;
-    report(`page weight ${route}`, { value: [page.gzip / 1024], unit: "kB gzip first load", ratio: [ratio], ratioLabel: `× the bare page (${(bare.gzip / 1024).toFixed(1)} kB)`, goal: "≤ 1.3×", pass: ratio <= 1.3 });
+    report(`page weight ${route}`, {
+      value: [page.gzip / 1024],
+      unit: "kB gzip first load",
+      ratio: [ratio],
+      ratioLabel: `× the bare page (${(bare.gzip / 1024).toFixed(1)} kB)`,
+      goal: "≤ 1.3×",
+      pass: ratio <= 1.3,
+    });
   }
-  report("MapLibre in a first load", { value: [withMap.length], unit: `screens (${withMap.join(", ") || "none"}): it loads with the map screen only`, goal: "0", pass: withMap.length === 0 });
+  report("MapLibre in a first load", {
+    value: [withMap.length],
+    unit: `screens (${withMap.join(", ") || "none"}): it loads with the map screen only`,
+    goal: "0",
+    pass: withMap.length === 0,
+  });
 }
 
 export async function signIn(page: Page, baseUrl: string, email: string, password: string) {
@@ -43,7 +68,11 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in", exact: true }).click();
   await page.getByRole("heading", { name: /Good day/ }).waitFor();
-  await page.waitForFunction(async () => (await navigator.serviceWorker.ready).active?.state === "activated" && !!navigator.serviceWorker.controller, undefined, { timeout: 60_000 });
+  await page.waitForFunction(
+    async () => (await navigator.serviceWorker.ready).active?.state === "activated" && !!navigator.serviceWorker.controller,
+    undefined,
+    { timeout: 60_000 },
+  );
   await page.locator('[data-testid="sync-status"][data-kind="done"]').first().waitFor({ timeout: 60_000 });
 }
 
@@ -65,7 +94,14 @@ export async function offlineOpen(browser: Browser, baseUrl: string) {
   await context.setOffline(true);
   const offline = await repeat(5, open);
   await context.close();
-  report("offline open of Today (service worker cache, CPU 4× slower)", { value: offline, unit: "ms to interactive", ratio: offline.map((o, i) => o / online[i]), ratioLabel: "× the online open", goal: "≤ 1200 ms (median)", pass: summary(offline).median <= 1200 });
+  report("offline open of Today (service worker cache, CPU 4× slower)", {
+    value: offline,
+    unit: "ms to interactive",
+    ratio: offline.map((o, i) => o / online[i]),
+    ratioLabel: "× the online open",
+    goal: "≤ 1200 ms (median)",
+    pass: summary(offline).median <= 1200,
+  });
 }
 
 /** A session cookie as signing in would set it, with its session row in the database. */
@@ -78,7 +114,15 @@ export async function memberCookie(m: { id: string; email: string }): Promise<st
 export async function concurrency(baseUrl: string, members: { id: string; email: string }[], countFinds: (ids: string[]) => number) {
   const cookies = await Promise.all(members.map(memberCookie));
   // One push first, not counted: it loads the route's module, as any running server has.
-  await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie: cookies[0], origin: baseUrl }, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }] }) });
+  await fetch(`${baseUrl}/api/sync/push`, {
+    method: "POST",
+    headers: { "content-type": "application/json", cookie: cookies[0], origin: baseUrl },
+    body: JSON.stringify({
+      protocolVersion: PROTOCOL_VERSION,
+      clientId: uuidv7(),
+      mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }],
+    }),
+  });
   // Three rounds, each with fresh devices; the bodies are made before the clock starts, so
   // the load generator (on the same two cores) does as little as it can while timed.
   const ids: string[] = [];
@@ -89,7 +133,25 @@ export async function concurrency(baseUrl: string, members: { id: string; email:
       const mutations = Array.from({ length: 100 }, (_, i) => {
         const id = uuidv7();
         ids.push(id);
-        return { id: i + 1, name: "find.put", args: { id, outingId: null, claimId: null, kind: "flakes", weightGrams: 0.4, depthCm: null, method: "panning", notes: "", lat: null, lon: null, accuracyM: null, locationSource: null, foundAt: 1780000000000 + i } };
+        return {
+          id: i + 1,
+          name: "find.put",
+          args: {
+            id,
+            outingId: null,
+            claimId: null,
+            kind: "flakes",
+            weightGrams: 0.4,
+            depthCm: null,
+            method: "panning",
+            notes: "",
+            lat: null,
+            lon: null,
+            accuracyM: null,
+            locationSource: null,
+            foundAt: 1780000000000 + i,
+          },
+        };
       });
       return { cookie, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations }) };
     });
@@ -106,7 +168,12 @@ export async function concurrency(baseUrl: string, members: { id: string; email:
   }
   const lost = ids.length - countFinds(ids);
   const p95 = summary(p95s).median;
-  report(`concurrency: 50 members × 100 changes at once, 3 rounds (${errors} errors, ${lost} lost)`, { value: p95s, unit: "ms p95 per push", goal: "0 errors, 0 lost, p95 ≤ 500 ms (median round)", pass: errors === 0 && lost === 0 && p95 <= 500 });
+  report(`concurrency: 50 members × 100 changes at once, 3 rounds (${errors} errors, ${lost} lost)`, {
+    value: p95s,
+    unit: "ms p95 per push",
+    goal: "0 errors, 0 lost, p95 ≤ 500 ms (median round)",
+    pass: errors === 0 && lost === 0 && p95 <= 500,
+  });
 }
 
 /** A 12-megapixel camera JPEG of a painted specimen (bench/specimen-photo.ts), shrunk in Chromium by the device's own code. */
@@ -125,7 +192,14 @@ export async function photoBytes(browser: Browser, baseUrl: string) {
   });
   await page.context().close();
   const ratio = sizes.map((s) => s.shrunk / s.original);
-  report(`photo upload size (painted 12 MP camera JPEGs of ${(sizes[0].original / 1024 / 1024).toFixed(1)} MB, shrunk on the device)`, { value: sizes.map((s) => s.shrunk / 1024), unit: "kB", ratio, ratioLabel: "of the original", goal: "≤ 0.15", pass: Math.max(...ratio) <= 0.15 });
+  report(`photo upload size (painted 12 MP camera JPEGs of ${(sizes[0].original / 1024 / 1024).toFixed(1)} MB, shrunk on the device)`, {
+    value: sizes.map((s) => s.shrunk / 1024),
+    unit: "kB",
+    ratio,
+    ratioLabel: "of the original",
+    goal: "≤ 0.15",
+    pass: Math.max(...ratio) <= 0.15,
+  });
 }
 
 /** The estimate in Chromium: one call, and a 10 000-sample Monte Carlo. */
@@ -136,7 +210,11 @@ export async function estimateBrowser(browser: Browser, baseUrl: string) {
   await page.evaluate(await engineScript());
   const input = { method: "hanging", airGrams: [100, 100.01], waterGrams: [62.72], finenessPermille: 825, finenessRangePermille: [700, 950] };
   const result = await page.evaluate((i) => {
-    const e = (globalThis as unknown as { lodebookEngine: { estimateSpecimen: (x: unknown) => unknown; estimateSpecimenMonteCarlo: (x: unknown, n: number, s: number) => unknown } }).lodebookEngine;
+    const e = (
+      globalThis as unknown as {
+        lodebookEngine: { estimateSpecimen: (x: unknown) => unknown; estimateSpecimenMonteCarlo: (x: unknown, n: number, s: number) => unknown };
+      }
+    ).lodebookEngine;
     const mc: number[] = [];
     for (let r = 0; r < 5; r++) {
       const t = performance.now();
@@ -148,7 +226,12 @@ export async function estimateBrowser(browser: Browser, baseUrl: string) {
     return { mc, perCallUs: ((performance.now() - t) / 2000) * 1000 };
   }, input);
   await page.context().close();
-  report("estimate, 10 000-sample Monte Carlo (Chromium; the first, cold run is the max)", { value: result.mc, unit: "ms", goal: "≤ 50 ms (median)", pass: summary(result.mc).median <= 50 });
+  report("estimate, 10 000-sample Monte Carlo (Chromium; the first, cold run is the max)", {
+    value: result.mc,
+    unit: "ms",
+    goal: "≤ 50 ms (median)",
+    pass: summary(result.mc).median <= 50,
+  });
   report("estimate, one call (Chromium)", { value: [result.perCallUs], unit: "µs", goal: "reported", pass: true });
 }
 
@@ -169,7 +252,22 @@ export async function deviceLists(browser: Browser, baseUrl: string) {
         const store = tx.objectStore("finds");
         store.clear();
         for (let i = 0; i < count; i++)
-          store.put({ id: `bench-${String(i).padStart(6, "0")}`, outingId: null, claimId: null, kind: "flakes", weightGrams: 0.1 + i / 1000, depthCm: null, method: "panning", notes: `bench ${i}`, lat: null, lon: null, accuracyM: null, locationSource: null, foundAt: 1780000000000 - i * 60_000, updatedAt: 0 });
+          store.put({
+            id: `bench-${String(i).padStart(6, "0")}`,
+            outingId: null,
+            claimId: null,
+            kind: "flakes",
+            weightGrams: 0.1 + i / 1000,
+            depthCm: null,
+            method: "panning",
+            notes: `bench ${i}`,
+            lat: null,
+            lon: null,
+            accuracyM: null,
+            locationSource: null,
+            foundAt: 1780000000000 - i * 60_000,
+            updatedAt: 0,
+          });
         tx.oncomplete = () => res();
       });
       db.close();
@@ -177,7 +275,10 @@ export async function deviceLists(browser: Browser, baseUrl: string) {
   const open = (n: number) => async () => {
     const t = performance.now();
     await page.goto(`${baseUrl}/finds`);
-    await page.getByTestId("finds-count").filter({ hasText: `of ${n} finds` }).waitFor();
+    await page
+      .getByTestId("finds-count")
+      .filter({ hasText: `of ${n} finds` })
+      .waitFor();
     await page.getByTestId("finds-list").locator("a").first().waitFor();
     return performance.now() - t;
   };
@@ -188,5 +289,12 @@ export async function deviceLists(browser: Browser, baseUrl: string) {
   const large = await repeat(3, open(5000));
   const rendered = await page.getByTestId("finds-list").locator("a").count();
   await context.close();
-  report(`device finds list, 5 000 finds (${rendered} rows in the DOM)`, { value: large, unit: "ms to first screen", ratio: large.map((l, i) => l / small[i]), ratioLabel: "× with 50 finds", goal: "reported; list virtualised", pass: rendered < 100 });
+  report(`device finds list, 5 000 finds (${rendered} rows in the DOM)`, {
+    value: large,
+    unit: "ms to first screen",
+    ratio: large.map((l, i) => l / small[i]),
+    ratioLabel: "× with 50 finds",
+    goal: "reported; list virtualised",
+    pass: rendered < 100,
+  });
 }

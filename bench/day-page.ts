@@ -22,7 +22,22 @@ export async function writeDayOfWork(memberId: string, counts = { finds: 30, pho
   for (let f = 0; f < counts.finds; f++) {
     const id = newId();
     const specimen = f % 3 !== 2;
-    await saveFind(db, { id, outingId: null, claimId: null, kind: specimen ? "specimen" : "nugget", weightGrams: 20 + f, purity: null, depthCm: 15, method: "detecting", notes: `Bench find ${f + 1}`, lat: 41.8 + f / 1e4, lon: -117.61, accuracyM: 5, locationSource: "device", foundAt: day + f * 600_000 });
+    await saveFind(db, {
+      id,
+      outingId: null,
+      claimId: null,
+      kind: specimen ? "specimen" : "nugget",
+      weightGrams: 20 + f,
+      purity: null,
+      depthCm: 15,
+      method: "detecting",
+      notes: `Bench find ${f + 1}`,
+      lat: 41.8 + f / 1e4,
+      lon: -117.61,
+      accuracyM: 5,
+      locationSource: "device",
+      foundAt: day + f * 600_000,
+    });
     findIds.push(id);
     for (let p = 0; p < counts.photosPerFind; p++) {
       const file = await anotherShot(paintings[shot % seeds], Math.floor(shot / seeds));
@@ -32,8 +47,22 @@ export async function writeDayOfWork(memberId: string, counts = { finds: 30, pho
   }
   const specimens = findIds.filter((_, f) => f % 3 !== 2);
   for (let w = 0; w < counts.weighIns; w++) {
-    const input = { method: "hanging" as const, airGrams: [40 + w / 10, 40.01 + w / 10], waterGrams: [24.6 + w / 20], finenessPermille: 825, finenessRangePermille: [700, 950] as [number, number] };
-    await saveWeighIn(db, { id: newId(), findId: specimens[w % specimens.length], input, deviceEstimate: estimateSpecimen(input), weighedAt: day + 9 * 3600_000 + w * 60_000, scaleId: null, scaleCheck: null });
+    const input = {
+      method: "hanging" as const,
+      airGrams: [40 + w / 10, 40.01 + w / 10],
+      waterGrams: [24.6 + w / 20],
+      finenessPermille: 825,
+      finenessRangePermille: [700, 950] as [number, number],
+    };
+    await saveWeighIn(db, {
+      id: newId(),
+      findId: specimens[w % specimens.length],
+      input,
+      deviceEstimate: estimateSpecimen(input),
+      weighedAt: day + 9 * 3600_000 + w * 60_000,
+      scaleId: null,
+      scaleCheck: null,
+    });
   }
   db.close();
   return { findIds, photoBytes };

@@ -41,7 +41,10 @@ function attack(baseUrl: string, heavy: Member[], stop: () => boolean) {
       (async () => {
         while (!stop()) {
           const mutations = Array.from({ length: 500 }, (_, i) => ({ id: i + 1, name: "settings.put", args: { locationSharing: i % 2 ? "exact" : "claim" } }));
-          await fetch(`${baseUrl}/api/sync/push`, json(baseUrl, m.cookie, { protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations }, `198.19.0.${k + 1}`))
+          await fetch(
+            `${baseUrl}/api/sync/push`,
+            json(baseUrl, m.cookie, { protocolVersion: PROTOCOL_VERSION, clientId: uuidv7(), mutations }, `198.19.0.${k + 1}`),
+          )
             .then((r) => r.arrayBuffer())
             .catch(cut);
           sent.settings++;
@@ -53,7 +56,10 @@ function attack(baseUrl: string, heavy: Member[], stop: () => boolean) {
   loops.push(
     (async () => {
       const csrf = await fetch(`${baseUrl}/api/auth/csrf`);
-      const cookie = csrf.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+      const cookie = csrf.headers
+        .getSetCookie()
+        .map((c) => c.split(";")[0])
+        .join("; ");
       const { csrfToken } = (await csrf.json()) as { csrfToken: string };
       let n = 0;
       while (!stop()) {
@@ -61,7 +67,12 @@ function attack(baseUrl: string, heavy: Member[], stop: () => boolean) {
           Array.from({ length: 24 }, () => {
             n++;
             const body = new URLSearchParams({ email: `guess${n % 500}@quillmarsh.example`, password: `guess-${n}`, csrfToken });
-            return fetch(`${baseUrl}/api/auth/callback/credentials`, { method: "POST", redirect: "manual", headers: { "content-type": "application/x-www-form-urlencoded", cookie, "x-forwarded-for": `198.18.${(n >> 8) & 255}.${n & 255}` }, body })
+            return fetch(`${baseUrl}/api/auth/callback/credentials`, {
+              method: "POST",
+              redirect: "manual",
+              headers: { "content-type": "application/x-www-form-urlencoded", cookie, "x-forwarded-for": `198.18.${(n >> 8) & 255}.${n & 255}` },
+              body,
+            })
               .then((r) => r.arrayBuffer())
               .catch(cut);
           }),
@@ -83,7 +94,12 @@ function attack(baseUrl: string, heavy: Member[], stop: () => boolean) {
               c.enqueue(new Uint8Array(65536).fill(0x20));
             },
           });
-          await fetch(`${baseUrl}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie: heavy[k % heavy.length].cookie, origin: baseUrl, "x-forwarded-for": `198.19.1.${k + 1}` }, body, duplex: "half" } as RequestInit)
+          await fetch(`${baseUrl}/api/sync/push`, {
+            method: "POST",
+            headers: { "content-type": "application/json", cookie: heavy[k % heavy.length].cookie, origin: baseUrl, "x-forwarded-for": `198.19.1.${k + 1}` },
+            body,
+            duplex: "half",
+          } as RequestInit)
             .then((r) => r.arrayBuffer())
             .catch(cut);
           sent.chunked++;
@@ -117,7 +133,36 @@ async function bystanderRequests(baseUrl: string, member: Member, count: number)
         ? await fetch(`${baseUrl}/api/me`, { headers: { cookie: member.cookie, "x-forwarded-for": BYSTANDER_ADDRESS } })
         : await fetch(
             `${baseUrl}/api/sync/push`,
-            json(baseUrl, member.cookie, { protocolVersion: PROTOCOL_VERSION, clientId, mutations: [{ id: (i + 1) / 4, name: "find.put", args: { id: uuidv7(), outingId: null, claimId: null, kind: "nugget", weightGrams: 1.2, depthCm: null, method: "detecting", notes: "", lat: null, lon: null, accuracyM: null, locationSource: null, foundAt: 1780000000000 + i } }] }, BYSTANDER_ADDRESS),
+            json(
+              baseUrl,
+              member.cookie,
+              {
+                protocolVersion: PROTOCOL_VERSION,
+                clientId,
+                mutations: [
+                  {
+                    id: (i + 1) / 4,
+                    name: "find.put",
+                    args: {
+                      id: uuidv7(),
+                      outingId: null,
+                      claimId: null,
+                      kind: "nugget",
+                      weightGrams: 1.2,
+                      depthCm: null,
+                      method: "detecting",
+                      notes: "",
+                      lat: null,
+                      lon: null,
+                      accuracyM: null,
+                      locationSource: null,
+                      foundAt: 1780000000000 + i,
+                    },
+                  },
+                ],
+              },
+              BYSTANDER_ADDRESS,
+            ),
           );
     await res.arrayBuffer();
     if (res.status !== 200) {
@@ -144,12 +189,15 @@ export async function bystander(baseUrl: string, member: Member, heavy: Member[]
   const p99 = percentile(loud.latencies, 99);
   const quietP99 = percentile(quiet.latencies, 99);
   const s = hostile.sent;
-  report(`bystander under hostile traffic (${s.settings} pushes of 500 sharing changes, ${s.signIns} sign-in guesses, ${s.chunked} chunked 12 MB bodies; ${s.cut} hostile requests cut off, ${loud.errors} bystander errors${loud.errors ? ` (${[...loud.statuses].join(", ")})` : ""})`, {
-    value: [p99],
-    unit: "ms p99",
-    ratio: [p99 / quietP99],
-    ratioLabel: `× the quiet p99 (${quietP99.toFixed(1)} ms)`,
-    goal: "p99 ≤ 250 ms and 0 errors",
-    pass: p99 <= 250 && loud.errors === 0 && quiet.errors === 0,
-  });
+  report(
+    `bystander under hostile traffic (${s.settings} pushes of 500 sharing changes, ${s.signIns} sign-in guesses, ${s.chunked} chunked 12 MB bodies; ${s.cut} hostile requests cut off, ${loud.errors} bystander errors${loud.errors ? ` (${[...loud.statuses].join(", ")})` : ""})`,
+    {
+      value: [p99],
+      unit: "ms p99",
+      ratio: [p99 / quietP99],
+      ratioLabel: `× the quiet p99 (${quietP99.toFixed(1)} ms)`,
+      goal: "p99 ≤ 250 ms and 0 errors",
+      pass: p99 <= 250 && loud.errors === 0 && quiet.errors === 0,
+    },
+  );
 }

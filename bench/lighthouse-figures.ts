@@ -20,7 +20,12 @@ async function audit(port: number, url: string, cookie: string, preset: "mobile"
   const lhr = result?.lhr;
   if (!lhr || lhr.runtimeError) throw new Error(`Lighthouse could not measure ${url}: ${lhr?.runtimeError?.message ?? "no result"}`);
   const n = (id: string) => lhr.audits[id]?.numericValue ?? Number.NaN;
-  return { score: Math.round((lhr.categories.performance.score ?? 0) * 100), lcp: n("largest-contentful-paint"), tbt: n("total-blocking-time"), cls: n("cumulative-layout-shift") };
+  return {
+    score: Math.round((lhr.categories.performance.score ?? 0) * 100),
+    lcp: n("largest-contentful-paint"),
+    tbt: n("total-blocking-time"),
+    cls: n("cumulative-layout-shift"),
+  };
 }
 
 async function runs(port: number, url: string, cookie: string, preset: "mobile" | "desktop"): Promise<Run[]> {
@@ -38,7 +43,10 @@ const details = (list: Run[]) => `LCP ${(med(list, "lcp") / 1000).toFixed(1)} s,
  * Console screens on the desktop preset (signed in as an officer): performance ≥ 90, CLS ≤ 0.1.
  */
 export async function lighthouseScores(baseUrl: string, memberCookie: string, officerCookie: string) {
-  const chrome = await chromeLauncher.launch({ chromePath: CHROMIUM, chromeFlags: ["--headless=new", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"] });
+  const chrome = await chromeLauncher.launch({
+    chromePath: CHROMIUM,
+    chromeFlags: ["--headless=new", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"],
+  });
   try {
     const bareMobile = await runs(chrome.port, `${baseUrl}/about`, memberCookie, "mobile");
     const bareScore = med(bareMobile, "score");

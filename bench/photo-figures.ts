@@ -8,7 +8,16 @@ type PhotoPage = typeof import("./photo-page");
 
 /** bench/photo-page.ts bundled for a page, as `lodebookBenchPhotos`. */
 export async function addPhotoPage(page: Page): Promise<void> {
-  const bundle = await build({ entryPoints: ["bench/photo-page.ts"], bundle: true, format: "iife", globalName: "lodebookBenchPhotos", write: false, platform: "browser", tsconfig: "tsconfig.json", logLevel: "silent" });
+  const bundle = await build({
+    entryPoints: ["bench/photo-page.ts"],
+    bundle: true,
+    format: "iife",
+    globalName: "lodebookBenchPhotos",
+    write: false,
+    platform: "browser",
+    tsconfig: "tsconfig.json",
+    logLevel: "silent",
+  });
   await page.addScriptTag({ content: bundle.outputFiles[0].text });
 }
 
@@ -43,11 +52,15 @@ export async function photoStudy(browser: Browser, baseUrl: string) {
   }
   await page.context().close();
   const mean = (f: (r: StudyRow) => number, i: number) => all.reduce((n, rows) => n + f(rows[i]), 0) / all.length;
-  console.log(`        photo study: ${SEEDS.length} painted 12 MP specimens (camera JPEGs of ${originals.map((b) => (b / 1024 / 1024).toFixed(1)).join(", ")} MB), mean of the three`);
+  console.log(
+    `        photo study: ${SEEDS.length} painted 12 MP specimens (camera JPEGs of ${originals.map((b) => (b / 1024 / 1024).toFixed(1)).join(", ")} MB), mean of the three`,
+  );
   console.log("        long edge  quality    kB   SSIM phone  SSIM zoomed 2×");
   pairs.forEach(([edge, quality], i) => {
     const mark = edge === PHOTO_SEND_EDGE && quality === PHOTO_SEND_QUALITY ? "  ← chosen" : "";
-    console.log(`        ${String(edge).padStart(9)}  ${quality.toFixed(2).padStart(7)}  ${(mean((r) => r.bytes, i) / 1024).toFixed(0).padStart(4)}   ${mean((r) => r.ssimPhone, i).toFixed(4)}      ${mean((r) => r.ssimZoom, i).toFixed(4)}${mark}`);
+    console.log(
+      `        ${String(edge).padStart(9)}  ${quality.toFixed(2).padStart(7)}  ${(mean((r) => r.bytes, i) / 1024).toFixed(0).padStart(4)}   ${mean((r) => r.ssimPhone, i).toFixed(4)}      ${mean((r) => r.ssimZoom, i).toFixed(4)}${mark}`,
+    );
   });
   // The rule (README): a day's 60 photos must leave room for records, headers and round trips
   // in 120 s at 1 Mbit/s, so a photo gets ≤ 200 kB (60 × 200 kB ≈ 96 s); of the pairs under
@@ -55,7 +68,12 @@ export async function photoStudy(browser: Browser, baseUrl: string) {
   const budget = 200 * 1024;
   const chosen = pairs.findIndex(([e, q]) => e === PHOTO_SEND_EDGE && q === PHOTO_SEND_QUALITY);
   const kb = all.map((rows) => rows[chosen].bytes / 1024);
-  report(`photo sent at ${PHOTO_SEND_EDGE} px, quality ${PHOTO_SEND_QUALITY} (painted 12 MP specimens)`, { value: kb, unit: "kB", goal: "≤ 200 kB each", pass: Math.max(...kb) * 1024 <= budget });
+  report(`photo sent at ${PHOTO_SEND_EDGE} px, quality ${PHOTO_SEND_QUALITY} (painted 12 MP specimens)`, {
+    value: kb,
+    unit: "kB",
+    goal: "≤ 200 kB each",
+    pass: Math.max(...kb) * 1024 <= budget,
+  });
   const fits = pairs.map((_, i) => i).filter((i) => mean((r) => r.bytes, i) <= budget);
   const sharpest = fits.reduce((a, b) => (mean((r) => r.ssimZoom, b) > mean((r) => r.ssimZoom, a) ? b : a), fits[0] ?? chosen);
   const best = pairs.findIndex(([e, q]) => e === 2048 && q === 0.85);

@@ -27,7 +27,16 @@ async function dayOverPoorLink(browser: Browser, appPort: number, databaseUrl: s
     await signIn(page, base, email, "member-demo-pass");
     const memberId = (await page.evaluate(() => JSON.parse(localStorage.getItem("lodebook-member")!) as { id: string })).id;
     await page.goto(`${base}/about`); // a page that does not sync while the day is written
-    const bundle = await build({ entryPoints: ["bench/day-page.ts"], bundle: true, format: "iife", globalName: "lodebookBenchDay", write: false, platform: "browser", tsconfig: "tsconfig.json", logLevel: "silent" });
+    const bundle = await build({
+      entryPoints: ["bench/day-page.ts"],
+      bundle: true,
+      format: "iife",
+      globalName: "lodebookBenchDay",
+      write: false,
+      platform: "browser",
+      tsconfig: "tsconfig.json",
+      logLevel: "silent",
+    });
     await page.addScriptTag({ content: bundle.outputFiles[0].text });
     const writing = performance.now();
     const day = await page.evaluate((id) => (window as unknown as { lodebookBenchDay: DayPage }).lodebookBenchDay.writeDayOfWork(id), memberId);
@@ -71,9 +80,24 @@ export async function poorLink(browser: Browser, appPort: number, databaseUrl: s
   const clean = await dayOverPoorLink(browser, appPort, databaseUrl, "tobias@quillmarsh.example", 0);
   const all = (r: Run) => r.onServer.finds === 30 && r.onServer.weighIns === 40 && r.onServer.photos === 60;
   const mb = (n: number) => (n / 1024 / 1024).toFixed(1);
-  const what = (r: Run) => `${r.onServer.finds}/30 finds, ${r.onServer.weighIns}/40 weigh-ins, ${r.onServer.photos}/60 photos on the server; ${mb(r.upBytes)} MB up (photos ${mb(r.photoBytes)} MB), ${mb(r.downBytes)} MB down`;
-  report(`a day's work over a poor link, 1 Mbit/s up, 5 down, 600 ms round trip (${what(clean)})`, { value: [clean.seconds], unit: "s until all is on the server", ratio: [clean.seconds / 120], ratioLabel: "× the goal", goal: "≤ 120 s", pass: all(clean) && clean.seconds <= 120 });
+  const what = (r: Run) =>
+    `${r.onServer.finds}/30 finds, ${r.onServer.weighIns}/40 weigh-ins, ${r.onServer.photos}/60 photos on the server; ${mb(r.upBytes)} MB up (photos ${mb(r.photoBytes)} MB), ${mb(r.downBytes)} MB down`;
+  report(`a day's work over a poor link, 1 Mbit/s up, 5 down, 600 ms round trip (${what(clean)})`, {
+    value: [clean.seconds],
+    unit: "s until all is on the server",
+    ratio: [clean.seconds / 120],
+    ratioLabel: "× the goal",
+    goal: "≤ 120 s",
+    pass: all(clean) && clean.seconds <= 120,
+  });
   const cut = await dayOverPoorLink(browser, appPort, databaseUrl, "priya@quillmarsh.example", 2);
   const extra = cut.upBytes / clean.upBytes;
-  report(`the same day with the link cut twice mid-photo (${what(cut)}; ${cut.seconds.toFixed(0)} s)`, { value: [cut.upBytes / 1024 / 1024], unit: "MB up", ratio: [extra], ratioLabel: "× the uncut day's bytes", goal: "≤ 1.15×", pass: all(cut) && extra <= 1.15 });
+  report(`the same day with the link cut twice mid-photo (${what(cut)}; ${cut.seconds.toFixed(0)} s)`, {
+    value: [cut.upBytes / 1024 / 1024],
+    unit: "MB up",
+    ratio: [extra],
+    ratioLabel: "× the uncut day's bytes",
+    goal: "≤ 1.15×",
+    pass: all(cut) && extra <= 1.15,
+  });
 }

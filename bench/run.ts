@@ -21,8 +21,27 @@ const started = performance.now();
 console.log(`Lodebook bench · ${new Date().toISOString()} · Node ${process.version} · ${os.cpus().length} cores\n`);
 
 // `npm run bench -- --only=poor-link,photo-study` runs just those figures (names below).
-const FIGURES = ["sync-ingest", "estimate", "ledger", "claim-outline", "page-weight", "concurrency", "bystander", "report", "estimate-browser", "photo-bytes", "photo-study", "offline-open", "device-lists", "poor-link", "lighthouse"] as const;
-const only = process.argv.find((a) => a.startsWith("--only="))?.slice("--only=".length).split(",");
+const FIGURES = [
+  "sync-ingest",
+  "estimate",
+  "ledger",
+  "claim-outline",
+  "page-weight",
+  "concurrency",
+  "bystander",
+  "report",
+  "estimate-browser",
+  "photo-bytes",
+  "photo-study",
+  "offline-open",
+  "device-lists",
+  "poor-link",
+  "lighthouse",
+] as const;
+const only = process.argv
+  .find((a) => a.startsWith("--only="))
+  ?.slice("--only=".length)
+  .split(",");
 const unknown = only?.filter((n) => !(FIGURES as readonly string[]).includes(n)) ?? [];
 if (unknown.length) throw new Error(`Unknown figure ${unknown.join(", ")}; choose from ${FIGURES.join(", ")}.`);
 const want = (name: (typeof FIGURES)[number]) => !only || only.includes(name);
@@ -41,7 +60,16 @@ const freePort = () =>
   });
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-bench-"));
 // One trusted proxy: the hostile sign-in burst comes from many addresses, as through a proxy.
-const env: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: path.join(dir, "bench.db"), AUTH_SECRET: crypto.randomBytes(32).toString("base64url"), LODEBOOK_PHOTO_DIR: path.join(dir, "photos"), LODEBOOK_LOG: "error", SMTP_PORT: "1", LODEBOOK_TRUSTED_PROXIES: "1" };
+const env: NodeJS.ProcessEnv = {
+  ...process.env,
+  NEXT_TELEMETRY_DISABLED: "1",
+  DATABASE_URL: path.join(dir, "bench.db"),
+  AUTH_SECRET: crypto.randomBytes(32).toString("base64url"),
+  LODEBOOK_PHOTO_DIR: path.join(dir, "photos"),
+  LODEBOOK_LOG: "error",
+  SMTP_PORT: "1",
+  LODEBOOK_TRUSTED_PROXIES: "1",
+};
 Object.assign(process.env, env);
 const { closeDb, getDb } = await import("../src/server/db");
 const { hashPassword } = await import("../src/server/auth/password");
@@ -67,7 +95,12 @@ try {
       db.close();
       return n;
     });
-  if (want("bystander")) await bystander(app.url, { id: benchMembers[0].id, cookie: await memberCookie(benchMembers[0]) }, await Promise.all(heavyIds.map(async (id) => ({ id, cookie: await memberCookie({ id, email: "" }) }))));
+  if (want("bystander"))
+    await bystander(
+      app.url,
+      { id: benchMembers[0].id, cookie: await memberCookie(benchMembers[0]) },
+      await Promise.all(heavyIds.map(async (id) => ({ id, cookie: await memberCookie({ id, email: "" }) }))),
+    );
   const officer = getDb().$client.prepare("select id, email from members where role = 'officer' limit 1").get() as { id: string; email: string };
   const finds = (getDb().$client.prepare("select count(*) n from finds").get() as { n: number }).n;
   if (want("report")) await printableReport(app.url, await memberCookie(officer), finds);

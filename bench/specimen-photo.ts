@@ -161,7 +161,6 @@ function paintRuler(out: Uint8ClampedArray, width: number, height: number, s: nu
   }
 }
 
-
 /** Smooth value noise in [−0.5, 0.5]: random values on a lattice of `cell` px, eased between. */
 function valueNoise(width: number, height: number, cell: number, rand: () => number): (x: number, y: number) => number {
   const gw = Math.ceil((width * 1.8) / cell) + 2;

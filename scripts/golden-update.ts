@@ -16,7 +16,9 @@ if (JSON.stringify(next.results) === JSON.stringify(kept.results) && kept.engine
   console.log(`golden.json already holds engine ${ENGINE_VERSION}'s results; nothing to write.`);
 } else if (kept.engineVersion === ENGINE_VERSION && !process.argv.includes("--same-version")) {
   const moved = next.results.filter((r, i) => JSON.stringify(r) !== JSON.stringify(kept.results[i])).length;
-  console.error(`${moved} of ${kept.count} results moved while ENGINE_VERSION is still ${ENGINE_VERSION}. Bump it in src/lib/estimate/version.ts, or pass -- --same-version if the kept results were wrong.`);
+  console.error(
+    `${moved} of ${kept.count} results moved while ENGINE_VERSION is still ${ENGINE_VERSION}. Bump it in src/lib/estimate/version.ts, or pass -- --same-version if the kept results were wrong.`,
+  );
   process.exit(1);
 } else {
   fs.writeFileSync(file, text);

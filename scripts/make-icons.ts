@@ -15,7 +15,11 @@ const mark = (size: number, pad: number) => `
 
 const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu"] });
 const page = await browser.newPage();
-for (const [name, size, pad] of [["icon-192", 192, 0], ["icon-512", 512, 0], ["icon-maskable-512", 512, 4]] as const) {
+for (const [name, size, pad] of [
+  ["icon-192", 192, 0],
+  ["icon-512", 512, 0],
+  ["icon-maskable-512", 512, 4],
+] as const) {
   await page.setViewportSize({ width: size, height: size });
   await page.setContent(`<html><body style="margin:0">${mark(size, pad)}</body></html>`);
   fs.writeFileSync(`public/icons/${name}.png`, await page.screenshot({ clip: { x: 0, y: 0, width: size, height: size } }));

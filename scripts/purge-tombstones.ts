@@ -8,5 +8,7 @@ applyLocalDefaults();
 const { purged, horizon } = purgeTombstones();
 const bytes = await deletePurgedPhotoBytes();
 closeDb();
-console.log(`Removed the bytes of ${bytes.deleted} photo${bytes.deleted === 1 ? "" : "s"} from storage${bytes.failed ? `; ${bytes.failed} could not be removed and will be tried again` : ""}.`);
+console.log(
+  `Removed the bytes of ${bytes.deleted} photo${bytes.deleted === 1 ? "" : "s"} from storage${bytes.failed ? `; ${bytes.failed} could not be removed and will be tried again` : ""}.`,
+);
 console.log(`Purged ${purged} deletion${purged === 1 ? "" : "s"} older than ${tombstoneDays()} days; devices below change ${horizon} will resync in full.`);

@@ -16,6 +16,10 @@ if (values.size === "large") {
   const result = seedDemoClub(getDb(), {
     passwordHashes: { officer: await hashPassword(DEMO_PASSWORDS.officer), member: await hashPassword(DEMO_PASSWORDS.member) },
   });
-  console.log(result.seeded ? `Seeded the demo club: ${result.members} people, ${result.finds} finds, ${result.weighIns} weigh-ins.` : "The demo club is already there; nothing changed.");
+  console.log(
+    result.seeded
+      ? `Seeded the demo club: ${result.members} people, ${result.finds} finds, ${result.weighIns} weigh-ins.`
+      : "The demo club is already there; nothing changed.",
+  );
 }
 closeDb();

@@ -6,6 +6,8 @@ export async function register() {
   const env = serverEnv();
   if (!siteOrigin(env)) console.warn(`Lodebook: ${MISSING_ORIGIN_MESSAGE}`);
   if (env.NODE_ENV === "production" && !(globalThis as { __lodebookFrontDoor?: boolean }).__lodebookFrontDoor) {
-    console.warn("Lodebook: started without its front door (scripts/serve.mjs, `npm start`): callers' addresses are unknown, so per-address limits treat everyone as one caller.");
+    console.warn(
+      "Lodebook: started without its front door (scripts/serve.mjs, `npm start`): callers' addresses are unknown, so per-address limits treat everyone as one caller.",
+    );
   }
 }

@@ -46,7 +46,5 @@ self.addEventListener("message", (event) => {
 self.addEventListener("sync", (event) => {
   const e = event as ExtendableEvent & { tag?: string };
   if (e.tag !== "lodebook-sync") return;
-  e.waitUntil(
-    self.clients.matchAll({ type: "window" }).then((clients) => clients.forEach((c) => c.postMessage({ type: "lodebook-sync" }))),
-  );
+  e.waitUntil(self.clients.matchAll({ type: "window" }).then((clients) => clients.forEach((c) => c.postMessage({ type: "lodebook-sync" }))));
 });

@@ -17,7 +17,11 @@ const SERVE = path.resolve("scripts/serve.mjs");
  * Starts the production server (Next behind the front door, scripts/serve.mjs) and waits until
  * it answers. Stopped by the pid it was started with, never looked for by name.
  */
-export async function startApp(opts: { port: number; env: NodeJS.ProcessEnv; quiet?: boolean }): Promise<{ url: string; child: ChildProcess; stop: () => Promise<void> }> {
+export async function startApp(opts: {
+  port: number;
+  env: NodeJS.ProcessEnv;
+  quiet?: boolean;
+}): Promise<{ url: string; child: ChildProcess; stop: () => Promise<void> }> {
   const child = spawn(process.execPath, [SERVE, "--port", String(opts.port), "--hostname", "127.0.0.1"], {
     env: { ...opts.env, NODE_ENV: "production" },
     stdio: opts.quiet ? ["ignore", "ignore", "pipe"] : "inherit",

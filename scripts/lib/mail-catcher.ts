@@ -39,8 +39,6 @@ export function startMailCatcher(opts: { port: number; dir: string }): Promise<{
   });
   return new Promise((resolve, reject) => {
     server.once("error", reject);
-    server.listen(opts.port, "127.0.0.1", () =>
-      resolve({ close: () => new Promise<void>((done) => server.close(() => done())) }),
-    );
+    server.listen(opts.port, "127.0.0.1", () => resolve({ close: () => new Promise<void>((done) => server.close(() => done())) }));
   });
 }

@@ -104,12 +104,18 @@ export class LodebookDb extends Dexie {
         meta: "key",
       })
       .upgrade(async (tx) => {
-        await tx.table("photos").toCollection().modify((p: Partial<LocalPhoto>) => {
-          p.uploaded ??= 0;
-        });
-        await tx.table("outbox").toCollection().modify((e: Partial<OutboxEntry>) => {
-          e.state ??= "pending";
-        });
+        await tx
+          .table("photos")
+          .toCollection()
+          .modify((p: Partial<LocalPhoto>) => {
+            p.uploaded ??= 0;
+          });
+        await tx
+          .table("outbox")
+          .toCollection()
+          .modify((e: Partial<OutboxEntry>) => {
+            e.state ??= "pending";
+          });
       });
     // Version 3: the member's scale profiles (with their setup checks) and barren-rock
     // weigh-ins by claim; weigh-ins made before name no scale.
@@ -119,10 +125,13 @@ export class LodebookDb extends Dexie {
         barrenRocks: "id, claimId, weighedAt",
       })
       .upgrade(async (tx) => {
-        await tx.table("weighIns").toCollection().modify((w: Partial<LocalWeighIn>) => {
-          w.scaleId ??= null;
-          w.scaleCheck ??= null;
-        });
+        await tx
+          .table("weighIns")
+          .toCollection()
+          .modify((w: Partial<LocalWeighIn>) => {
+            w.scaleId ??= null;
+            w.scaleCheck ??= null;
+          });
       });
     // Version 4: the member's answers to officers' queries, by find. Reviews pulled before
     // came without their time (the pull dropped it): the cursor goes back to 0 so the next

@@ -15,5 +15,13 @@ export function useSettings(db: LodebookDb): MemberSettings {
 
 /** The outing not yet ended, if any: where quick finds go. */
 export function useCurrentOuting(db: LodebookDb) {
-  return useLiveQuery(async () => (await db.outings.orderBy("startedAt").reverse().filter((o) => o.endedAt === null).first()) ?? null, [db]);
+  return useLiveQuery(
+    async () =>
+      (await db.outings
+        .orderBy("startedAt")
+        .reverse()
+        .filter((o) => o.endedAt === null)
+        .first()) ?? null,
+    [db],
+  );
 }

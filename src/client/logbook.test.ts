@@ -85,7 +85,15 @@ describe("device database", () => {
   it("upgrades a version 1 database to the current version and keeps its data", async () => {
     const name = databaseNameFor(`upgrade-${Date.now()}`);
     const v1 = new Dexie(name);
-    v1.version(1).stores({ outings: "id, startedAt", finds: "id, foundAt, outingId, kind", photos: "id, findId", weighIns: "id, findId", claims: "id", settings: "key", outbox: "++id" });
+    v1.version(1).stores({
+      outings: "id, startedAt",
+      finds: "id, foundAt, outingId, kind",
+      photos: "id, findId",
+      weighIns: "id, findId",
+      claims: "id",
+      settings: "key",
+      outbox: "++id",
+    });
     const f = find();
     await v1.table("finds").add({ ...f, updatedAt: 1 });
     await v1.table("photos").add({ id: "p1", findId: f.id });
@@ -176,7 +184,20 @@ describe("answers to officers' queries (issue 18)", () => {
   it("pulls everything again after the upgrade to version 4 when reviews were stored without their time", async () => {
     const name = databaseNameFor(`upgrade-v3-${Date.now()}`);
     const v3 = new Dexie(name);
-    const stores = { outings: "id, startedAt", finds: "id, foundAt, outingId, kind, claimId", photos: "id, findId, uploaded", weighIns: "id, findId", claims: "id", settings: "key", outbox: "++id, state, entityId", reviews: "id, findId", prices: "id, effectiveOn", meta: "key", scales: "id", barrenRocks: "id, claimId, weighedAt" };
+    const stores = {
+      outings: "id, startedAt",
+      finds: "id, foundAt, outingId, kind, claimId",
+      photos: "id, findId, uploaded",
+      weighIns: "id, findId",
+      claims: "id",
+      settings: "key",
+      outbox: "++id, state, entityId",
+      reviews: "id, findId",
+      prices: "id, effectiveOn",
+      meta: "key",
+      scales: "id",
+      barrenRocks: "id, claimId, weighedAt",
+    };
     v3.version(3).stores(stores);
     await v3.table("reviews").add({ id: "r1", findId: "f1", action: "query", note: "Which side?", officerName: "An officer" });
     await v3.table("meta").put({ key: "cursor", value: 420 });

@@ -30,7 +30,11 @@ function loaded(): Validation {
 export async function enqueue<N extends MutationName>(db: LodebookDb, name: N, args: MutationArgs<N>, entityId: string) {
   const entry: OutboxEntry = { name, args: loaded().checkArgs(name, args), entityId, createdAt: Date.now(), state: "pending" };
   // A newer change to the same record supersedes one the server refused earlier.
-  await db.outbox.where("entityId").equals(entityId).filter((e) => e.state === "rejected").delete();
+  await db.outbox
+    .where("entityId")
+    .equals(entityId)
+    .filter((e) => e.state === "rejected")
+    .delete();
   return db.outbox.add(entry);
 }
 
@@ -186,5 +190,9 @@ export function pendingCount(db: LodebookDb): Promise<number> {
 
 /** The member lets go of a change the server refused; the record stays as it is on the device. */
 export async function discardRefusedChange(db: LodebookDb, outboxId: number): Promise<void> {
-  await db.outbox.where("id").equals(outboxId).filter((e) => e.state === "rejected").delete();
+  await db.outbox
+    .where("id")
+    .equals(outboxId)
+    .filter((e) => e.state === "rejected")
+    .delete();
 }

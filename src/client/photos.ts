@@ -10,13 +10,20 @@ export async function readPhotoMeta(file: Blob | ArrayBuffer): Promise<PhotoMeta
   const { default: exifr } = await import("exifr");
   try {
     const bytes = file instanceof ArrayBuffer ? file : await file.arrayBuffer();
-    const tags = (await exifr.parse(bytes, { gps: true, tiff: true, exif: true, pick: ["DateTimeOriginal", "CreateDate", "GPSLatitude", "GPSLongitude", "GPSLatitudeRef", "GPSLongitudeRef"] })) as
-      | { DateTimeOriginal?: Date; CreateDate?: Date; latitude?: number; longitude?: number }
-      | undefined;
+    const tags = (await exifr.parse(bytes, {
+      gps: true,
+      tiff: true,
+      exif: true,
+      pick: ["DateTimeOriginal", "CreateDate", "GPSLatitude", "GPSLongitude", "GPSLatitudeRef", "GPSLongitudeRef"],
+    })) as { DateTimeOriginal?: Date; CreateDate?: Date; latitude?: number; longitude?: number } | undefined;
     const when = tags?.DateTimeOriginal ?? tags?.CreateDate;
     const lat = typeof tags?.latitude === "number" && Number.isFinite(tags.latitude) ? tags.latitude : null;
     const lon = typeof tags?.longitude === "number" && Number.isFinite(tags.longitude) ? tags.longitude : null;
-    return { takenAt: when instanceof Date && !Number.isNaN(when.getTime()) ? when.getTime() : null, lat: lon === null ? null : lat, lon: lat === null ? null : lon };
+    return {
+      takenAt: when instanceof Date && !Number.isNaN(when.getTime()) ? when.getTime() : null,
+      lat: lon === null ? null : lat,
+      lon: lat === null ? null : lon,
+    };
   } catch {
     return { takenAt: null, lat: null, lon: null };
   }

@@ -17,7 +17,10 @@ export function askPosition(): Promise<PositionAnswer> {
       (e) =>
         resolve({
           kind: "failed",
-          message: e.code === e.PERMISSION_DENIED ? "Position is blocked for this app. Allow it in the browser, or pick the spot on the map." : "No position yet (no GPS fix). Try again in the open, or pick the spot on the map.",
+          message:
+            e.code === e.PERMISSION_DENIED
+              ? "Position is blocked for this app. Allow it in the browser, or pick the spot on the map."
+              : "No position yet (no GPS fix). Try again in the open, or pick the spot on the map.",
         }),
       { enableHighAccuracy: true, timeout: 20_000, maximumAge: 30_000 },
     );

@@ -14,7 +14,10 @@ export function useQueryStates(db: LodebookDb): Map<string, Extract<QueryState, 
     for (const r of reviews) byFind.set(r.findId, [...(byFind.get(r.findId) ?? []), r]);
     const states = new Map<string, "queried" | "answered">();
     for (const [findId, list] of byFind) {
-      const { state } = queryStateOf(list, answers.filter((a) => a.findId === findId));
+      const { state } = queryStateOf(
+        list,
+        answers.filter((a) => a.findId === findId),
+      );
       if (state === "queried" || state === "answered") states.set(findId, state);
     }
     return states;

@@ -11,7 +11,6 @@ import { LocalValidationError } from "./local-validation-error";
 // The shared zod schemas as the device uses them before it saves. Loaded on demand by
 // ./logbook (a chunk the service worker precaches), so screens that only read open without it.
 
-
 function check<S extends z.ZodType>(schema: S, value: unknown): z.infer<S> {
   const parsed = schema.safeParse(value);
   if (!parsed.success) {

@@ -13,7 +13,9 @@ export function SignOutButton() {
       onSubmit={(e) => {
         if (!navigator.onLine) {
           e.preventDefault();
-          window.alert("You have no signal. Signing out needs the club's server, so you stay signed in for now. Whatever waits for camp sync stays on this device either way; sign out once you have signal.");
+          window.alert(
+            "You have no signal. Signing out needs the club's server, so you stay signed in for now. Whatever waits for camp sync stays on this device either way; sign out once you have signal.",
+          );
           return;
         }
         localStorage.removeItem("lodebook-member");

@@ -36,8 +36,8 @@ export function StoragePrompt() {
         Keep your logbook on this device?
       </h2>
       <p className="text-sm">
-        Your finds, photos and weigh-ins live on this device until camp sync sends them. A browser short of space may clear a website&apos;s data
-        unless it was asked to keep it. Allow Lodebook to keep its data so nothing waiting is lost.
+        Your finds, photos and weigh-ins live on this device until camp sync sends them. A browser short of space may clear a website&apos;s data unless it was
+        asked to keep it. Allow Lodebook to keep its data so nothing waiting is lost.
       </p>
       <div className="flex flex-wrap gap-2">
         <button type="button" className="btn btn-primary" onClick={() => void navigator.storage.persist().then((ok) => done(ok ? "granted" : "refused"))}>

@@ -64,7 +64,15 @@ export function UpdatePrompt() {
         <button type="button" className="btn" onClick={() => setLater(true)}>
           Later
         </button>
-        <button type="button" className="btn btn-primary" onClick={() => (typing && !window.confirm("Updating reloads the page: what you are typing will be lost. Update now?") ? undefined : waiting.postMessage({ type: "SKIP_WAITING" }))}>
+        <button
+          type="button"
+          className="btn btn-primary"
+          onClick={() =>
+            typing && !window.confirm("Updating reloads the page: what you are typing will be lost. Update now?")
+              ? undefined
+              : waiting.postMessage({ type: "SKIP_WAITING" })
+          }
+        >
           Update
         </button>
       </span>

@@ -13,22 +13,75 @@ describe("toDms", () => {
 });
 
 describe("claimAt", () => {
-  const square = { id: "a", name: "Square", boundary: { type: "Polygon" as const, coordinates: [[[0, 0], [1, 0], [1, 1], [0, 1], [0, 0]]] } };
+  const square = {
+    id: "a",
+    name: "Square",
+    boundary: {
+      type: "Polygon" as const,
+      coordinates: [
+        [
+          [0, 0],
+          [1, 0],
+          [1, 1],
+          [0, 1],
+          [0, 0],
+        ],
+      ],
+    },
+  };
   it("finds the claim holding a point, and none outside", () => {
     expect(claimAt(0.5, 0.5, [square])?.id).toBe("a");
     expect(claimAt(1.5, 0.5, [square])).toBeUndefined();
     expect(claimAt(0.5, 0.5, [{ ...square, active: false }])).toBeUndefined();
   });
   it("leaves out a hole in the boundary, and looks in every part of a multi-part claim", () => {
-    const hole = [[0.4, 0.4], [0.6, 0.4], [0.6, 0.6], [0.4, 0.6], [0.4, 0.4]];
+    const hole = [
+      [0.4, 0.4],
+      [0.6, 0.4],
+      [0.6, 0.6],
+      [0.4, 0.6],
+      [0.4, 0.4],
+    ];
     const holed = { ...square, boundary: { type: "Polygon" as const, coordinates: [...square.boundary.coordinates, hole] } };
     expect(claimAt(0.5, 0.5, [holed])).toBeUndefined();
     expect(claimAt(0.2, 0.2, [holed])?.id).toBe("a");
-    const parts = { ...square, boundary: { type: "MultiPolygon" as const, coordinates: [square.boundary.coordinates, [[[5, 5], [6, 5], [6, 6], [5, 6], [5, 5]]]] } };
+    const parts = {
+      ...square,
+      boundary: {
+        type: "MultiPolygon" as const,
+        coordinates: [
+          square.boundary.coordinates,
+          [
+            [
+              [5, 5],
+              [6, 5],
+              [6, 6],
+              [5, 6],
+              [5, 5],
+            ],
+          ],
+        ],
+      },
+    };
     expect(claimAt(5.5, 5.5, [parts])?.id).toBe("a");
     expect(claimAt(3, 3, [parts])).toBeUndefined();
     // A real claim's shape: a point inside its concave notch is outside the claim.
-    const notched = { ...square, boundary: { type: "Polygon" as const, coordinates: [[[0, 0], [2, 0], [2, 2], [1, 1], [0, 2], [0, 0]]] } };
+    const notched = {
+      ...square,
+      boundary: {
+        type: "Polygon" as const,
+        coordinates: [
+          [
+            [0, 0],
+            [2, 0],
+            [2, 2],
+            [1, 1],
+            [0, 2],
+            [0, 0],
+          ],
+        ],
+      },
+    };
     expect(claimAt(1.8, 1, [notched])).toBeUndefined();
     expect(claimAt(0.5, 1, [notched])?.id).toBe("a");
   });

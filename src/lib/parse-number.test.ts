@@ -35,7 +35,8 @@ const TABLE: [string, number | undefined, number | undefined, number | undefined
 
 describe("numbers as people type them (issues 15 and 19; common practice of en and de keyboards)", () => {
   it.each(TABLE)("%j reads as %s / %s / %s", (typed, point, comma, unknown) => {
-    const check = (got: number | undefined, want: number | undefined) => (want === undefined ? expect(got).toBeUndefined() : Number.isNaN(want) ? expect(got).toBeNaN() : expect(got).toBeCloseTo(want, 12));
+    const check = (got: number | undefined, want: number | undefined) =>
+      want === undefined ? expect(got).toBeUndefined() : Number.isNaN(want) ? expect(got).toBeNaN() : expect(got).toBeCloseTo(want, 12);
     check(parseNumber(typed, "."), point);
     check(parseNumber(typed, ","), comma);
     check(parseNumber(typed), unknown);

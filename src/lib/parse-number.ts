@@ -12,7 +12,9 @@ export type DecimalMark = "." | ",";
  *   by threes; spaces, no-break spaces and apostrophes may group thousands ("2 495", "2'495").
  */
 export function parseNumber(text: string, decimal?: DecimalMark): number | undefined {
-  let t = text.trim().replace(/[\u00a0\u202f\u2009 ']/g, (m, offset: number, s: string) => (/\d/.test(s[offset - 1] ?? "") && /\d/.test(s[offset + 1] ?? "") ? "_" : m));
+  let t = text
+    .trim()
+    .replace(/[\u00a0\u202f\u2009 ']/g, (m, offset: number, s: string) => (/\d/.test(s[offset - 1] ?? "") && /\d/.test(s[offset + 1] ?? "") ? "_" : m));
   if (t === "") return undefined;
   if (/^[-+]?\d+(\.\d+)?e[-+]?\d+$/i.test(t)) return Number(t);
   const sign = /^[-+]/.test(t) ? t[0] : "";
@@ -83,7 +85,8 @@ export function readNumber(text: string, rule: NumberRule, decimal: DecimalMark 
   }
   if (rule.above !== undefined && !(n > rule.above)) return { error: `The ${rule.label} must be more than ${rule.above}${unit}.` };
   if (rule.min !== undefined && n < rule.min) return { error: `The ${rule.label} must be at least ${rule.min}${unit}.` };
-  if (rule.max !== undefined && n > rule.max) return { error: `The ${rule.label} can be at most ${rule.max.toLocaleString("en-US").replace(/,/g, " ")}${unit}.` };
+  if (rule.max !== undefined && n > rule.max)
+    return { error: `The ${rule.label} can be at most ${rule.max.toLocaleString("en-US").replace(/,/g, " ")}${unit}.` };
   return { value: n };
 }
 

@@ -14,11 +14,7 @@ type Access = { public: true } | { capability: Capability | "session" };
  * Every server action is made here: it parses the form with zod, then checks the session
  * and the capability itself (server actions are public endpoints), then acts.
  */
-export function defineAction<S extends z.ZodType>(
-  access: Access,
-  schema: S,
-  act: (input: z.infer<S>, actor: Actor | null) => Promise<ActionState | void>,
-) {
+export function defineAction<S extends z.ZodType>(access: Access, schema: S, act: (input: z.infer<S>, actor: Actor | null) => Promise<ActionState | void>) {
   return async (_prev: ActionState, formData: FormData): Promise<ActionState> => {
     const parsed = schema.safeParse(Object.fromEntries(formData));
     if (!parsed.success) return { ok: false, message: "Check the marked fields.", fields: fieldErrorsOf(parsed.error) };

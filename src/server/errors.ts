@@ -1,7 +1,8 @@
 import "server-only";
 
 // One error type, one status table. Codes read "<kind>:<subject>", e.g. "forbidden:club".
-export type ErrorKind = "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "rate_limited" | "too_large" | "unsupported" | "gone" | "unavailable";
+export type ErrorKind =
+  "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "rate_limited" | "too_large" | "unsupported" | "gone" | "unavailable";
 
 const STATUS: Record<ErrorKind, number> = {
   bad_request: 400,

@@ -84,13 +84,26 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
       if (error instanceof AppError) {
         if (error.status >= 401) logger.warn({ code: error.code, method: req.method, path: new URL(req.url).pathname }, "refused");
         const retryAfter = error.fields?.retryAfter?.[0];
-        return NextResponse.json(error.toJSON(), { status: error.status, headers: { "Cache-Control": "no-store", ...(retryAfter ? { "Retry-After": retryAfter } : {}) } });
+        return NextResponse.json(error.toJSON(), {
+          status: error.status,
+          headers: { "Cache-Control": "no-store", ...(retryAfter ? { "Retry-After": retryAfter } : {}) },
+        });
       }
       // The id goes to the caller and to the log line, so an officer can find the failure a
       // member reports ("send to the club") without the answer carrying any of its detail.
       const errorId = randomUUID();
-      logger.error({ errorId, err: error instanceof Error ? { name: error.name, message: error.message, stack: error.stack } : String(error), path: new URL(req.url).pathname }, "handler failed");
-      return NextResponse.json({ error: { code: "server_error", message: "Something went wrong on the server. Nothing you sent was lost; try again.", errorId } }, { status: 500 });
+      logger.error(
+        {
+          errorId,
+          err: error instanceof Error ? { name: error.name, message: error.message, stack: error.stack } : String(error),
+          path: new URL(req.url).pathname,
+        },
+        "handler failed",
+      );
+      return NextResponse.json(
+        { error: { code: "server_error", message: "Something went wrong on the server. Nothing you sent was lost; try again.", errorId } },
+        { status: 500 },
+      );
     }
   };
 }

@@ -33,10 +33,12 @@ export async function receiveChunk(actor: Actor, id: string, offset: number, req
   const file = partialPath(actor.id, id);
   return withPhotoLock(id, async () => {
     const held = await heldBytes(file);
-    if (offset !== held) throw new AppError("conflict:offset", `The server holds ${held} bytes of this photo: send from byte ${held}.`, { offset: [String(held)] });
+    if (offset !== held)
+      throw new AppError("conflict:offset", `The server holds ${held} bytes of this photo: send from byte ${held}.`, { offset: [String(held)] });
     const declared = Number(req.headers.get("content-length") ?? "0");
     if (declared > MAX_CHUNK_BYTES) throw new AppError("too_large:chunk", `A chunk may be at most ${MAX_CHUNK_BYTES} bytes.`, { chunk: [String(declared)] });
-    if (held + declared > row.bytes) throw new AppError("bad_request:offset", `The photo has ${row.bytes} bytes; this chunk would end past them.`, { offset: [String(offset)] });
+    if (held + declared > row.bytes)
+      throw new AppError("bad_request:offset", `The photo has ${row.bytes} bytes; this chunk would end past them.`, { offset: [String(offset)] });
     await checkQuota(actor.id, Math.min(row.bytes, held + (declared || MAX_CHUNK_BYTES)), id);
     const received = held + (await appendBody(req, file, row.bytes - held));
     if (received < row.bytes) return { received, total: row.bytes, complete: false };

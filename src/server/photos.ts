@@ -20,7 +20,14 @@ export type PhotoRow = { id: string; memberId: string; sha256: string; bytes: nu
 
 export function photoFor(actor: Actor, id: string, forWrite: boolean): PhotoRow {
   const row = getDb()
-    .select({ id: photos.id, memberId: photos.memberId, sha256: photos.sha256, bytes: photos.bytes, storageKey: photos.storageKey, deletedAt: photos.deletedAt })
+    .select({
+      id: photos.id,
+      memberId: photos.memberId,
+      sha256: photos.sha256,
+      bytes: photos.bytes,
+      storageKey: photos.storageKey,
+      deletedAt: photos.deletedAt,
+    })
     .from(photos)
     .where(eq(photos.id, id))
     .get();
@@ -43,7 +50,10 @@ export async function checkQuota(memberId: string, more: number, exceptPartial?:
     .get()!.total;
   const partial = await partialBytesOf(memberId, exceptPartial);
   if (used + (uploading.get(memberId) ?? 0) + partial + more > memberPhotoQuotaBytes()) {
-    throw new AppError("too_large:quota", "Your photo space on the club's server is full (deleted photos count until their keeping time ends). Ask an officer.");
+    throw new AppError(
+      "too_large:quota",
+      "Your photo space on the club's server is full (deleted photos count until their keeping time ends). Ask an officer.",
+    );
   }
 }
 
@@ -61,13 +71,18 @@ export async function receivePhoto(actor: Actor, id: string, req: Request): Prom
 export async function storeCheckedPhoto(actor: Actor, row: PhotoRow, bytes: Buffer): Promise<{ stored: boolean; sha256: string }> {
   const sha256 = crypto.createHash("sha256").update(bytes).digest("hex");
   if (sha256 !== row.sha256) {
-    throw new AppError("bad_request:photo", "The bytes do not match the photo's SHA-256: the upload was cut or changed. Send it again.", { sha256: ["mismatch"] });
+    throw new AppError("bad_request:photo", "The bytes do not match the photo's SHA-256: the upload was cut or changed. Send it again.", {
+      sha256: ["mismatch"],
+    });
   }
   if (row.storageKey) return { stored: false, sha256 }; // already here: nothing to do
   const size = inspectJpeg(bytes);
   if (!size) throw new AppError("unsupported:photo", "That file is not a JPEG photo.", { contentType: ["not a JPEG"] });
   if (size.width > MAX_PHOTO_EDGE || size.height > MAX_PHOTO_EDGE) {
-    throw new AppError("too_large:photo", `Photos may be at most ${MAX_PHOTO_EDGE} pixels on a side.`, { width: [String(size.width)], height: [String(size.height)] });
+    throw new AppError("too_large:photo", `Photos may be at most ${MAX_PHOTO_EDGE} pixels on a side.`, {
+      width: [String(size.width)],
+      height: [String(size.height)],
+    });
   }
   // Uploads still being written count too: checked and recorded only after storage answers,
   // a burst sent at once would all pass the check against the same total. This photo's own
@@ -77,7 +92,11 @@ export async function storeCheckedPhoto(actor: Actor, row: PhotoRow, bytes: Buff
   try {
     const key = `p/${row.id}`;
     await photoStorage().put(key, bytes, "image/jpeg");
-    getDb().update(photos).set({ storageKey: key, storedBytes: bytes.length, uploadedAt: Date.now(), width: size.width, height: size.height }).where(eq(photos.id, row.id)).run();
+    getDb()
+      .update(photos)
+      .set({ storageKey: key, storedBytes: bytes.length, uploadedAt: Date.now(), width: size.width, height: size.height })
+      .where(eq(photos.id, row.id))
+      .run();
   } finally {
     const left = (uploading.get(actor.id) ?? 0) - bytes.length;
     if (left > 0) uploading.set(actor.id, left);

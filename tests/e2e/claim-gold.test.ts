@@ -43,13 +43,19 @@ describe("a claim's gold learned from a melt, and a member's next weigh-in start
     const details = page.locator("details").filter({ has: page.locator("summary", { hasText: claim.name }) });
     await details.locator("summary").click();
     const form = details.getByRole("form", { name: `Record a melt or assay on ${claim.name}` });
-    const choices = form.locator("label").filter({ has: page.locator('input[type="checkbox"]') }).filter({ hasNotText: "Specimen" });
+    const choices = form
+      .locator("label")
+      .filter({ has: page.locator('input[type="checkbox"]') })
+      .filter({ hasNotText: "Specimen" });
     await choices.first().waitFor();
     await choices.nth(0).locator("input").check();
     await choices.nth(1).locator("input").check();
     await form.getByLabel("Fine gold recovered (g)").fill("1.5");
     await form.getByRole("button", { name: "Record it" }).click();
-    await form.getByRole("status").filter({ hasText: /Recorded: 2 finds/ }).waitFor();
+    await form
+      .getByRole("status")
+      .filter({ hasText: /Recorded: 2 finds/ })
+      .waitFor();
     const proposal = details.getByTestId("fineness-proposal");
     await proposal.waitFor();
     const range = (await proposal.locator(".figure").first().textContent())!.match(/\(([\d.]+)–([\d.]+)\)/)!;

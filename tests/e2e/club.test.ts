@@ -12,7 +12,9 @@ describe("the club console", () => {
     const db = new Database(inject("databaseUrl"), { readonly: true });
     const ines = db.prepare("select id from members where email = ?").get(DEMO.member.email) as { id: string };
     const target = db
-      .prepare("select f.claim_id claimId, c.name claimName, strftime('%Y', f.found_at / 1000, 'unixepoch') season, count(*) n from finds f join claims c on c.id = f.claim_id where f.member_id = ? and f.deleted_at is null group by f.claim_id, season order by n desc limit 1")
+      .prepare(
+        "select f.claim_id claimId, c.name claimName, strftime('%Y', f.found_at / 1000, 'unixepoch') season, count(*) n from finds f join claims c on c.id = f.claim_id where f.member_id = ? and f.deleted_at is null group by f.claim_id, season order by n desc limit 1",
+      )
       .get(ines.id) as { claimId: string; claimName: string; season: string; n: number };
     db.close();
     expect(target.n).toBeGreaterThanOrEqual(2);
@@ -27,8 +29,13 @@ describe("the club console", () => {
     await filters.getByLabel("Claim").selectOption({ label: target.claimName });
     await filters.getByLabel("Season").selectOption(target.season);
     await filters.getByLabel("Member").selectOption({ label: "Ines Varga" });
-    await expect.poll(() => new URL(page.url()).search, { timeout: 15_000 }).toMatch(new RegExp(`(?=.*claimId=${target.claimId})(?=.*season=${target.season})(?=.*memberId=${ines.id})`));
-    await page.getByTestId("total-finds").filter({ hasText: String(target.n) }).waitFor();
+    await expect
+      .poll(() => new URL(page.url()).search, { timeout: 15_000 })
+      .toMatch(new RegExp(`(?=.*claimId=${target.claimId})(?=.*season=${target.season})(?=.*memberId=${ines.id})`));
+    await page
+      .getByTestId("total-finds")
+      .filter({ hasText: String(target.n) })
+      .waitFor();
     const rows = page.getByTestId("ledger-table").locator("tbody tr");
     await expect.poll(() => rows.count(), { timeout: 15_000 }).toBe(target.n);
     const [verified, queried] = [await rows.nth(0).getAttribute("data-find"), await rows.nth(1).getAttribute("data-find")];
@@ -40,7 +47,12 @@ describe("the club console", () => {
     await page.screenshot({ path: shotPath("club-ledger-laptop"), fullPage: true });
 
     await rows.nth(1).click();
-    await panel.getByTestId("review-history").locator("li").first().waitFor({ state: "detached" }).catch(() => undefined);
+    await panel
+      .getByTestId("review-history")
+      .locator("li")
+      .first()
+      .waitFor({ state: "detached" })
+      .catch(() => undefined);
     await panel.getByRole("button", { name: "Query" }).click();
     await panel.getByText("Say what the member should look at.").waitFor();
     await panel.getByLabel("Note to the member").fill("Please weigh it again with the line tared under water.");
@@ -114,7 +126,11 @@ describe("the club console", () => {
           const sheet = document.querySelector('[data-testid="ledger-table"]')!.parentElement!;
           const right = Math.min(innerWidth, sheet.getBoundingClientRect().right);
           const ctx = document.createElement("canvas").getContext("2d")!;
-          const cut = [...document.querySelectorAll<HTMLSelectElement | HTMLInputElement>('form[aria-label="Ledger filters"] select, form[aria-label="Ledger filters"] input')].filter((el) => {
+          const cut = [
+            ...document.querySelectorAll<HTMLSelectElement | HTMLInputElement>(
+              'form[aria-label="Ledger filters"] select, form[aria-label="Ledger filters"] input',
+            ),
+          ].filter((el) => {
             const style = getComputedStyle(el);
             ctx.font = `${style.fontWeight} ${style.fontSize} ${style.fontFamily}`;
             const text = el instanceof HTMLSelectElement ? el.options[el.selectedIndex].text : "0000-00-00";
@@ -125,7 +141,9 @@ describe("the club console", () => {
           return {
             page: document.documentElement.scrollWidth - innerWidth,
             table: sheet.scrollWidth - sheet.clientWidth,
-            headersPastEdge: [...document.querySelectorAll('[data-testid="ledger-table"] th')].filter((th) => th.getBoundingClientRect().right > right + 1).map((th) => th.textContent),
+            headersPastEdge: [...document.querySelectorAll('[data-testid="ledger-table"] th')]
+              .filter((th) => th.getBoundingClientRect().right > right + 1)
+              .map((th) => th.textContent),
             headers: [...document.querySelectorAll('[data-testid="ledger-table"] th')].map((th) => th.textContent?.replace(/[↓↑]/g, "").trim()),
             cut: cut.map((el) => el.closest("label")?.querySelector("span")?.textContent),
           };

@@ -61,14 +61,28 @@ beforeAll(async () => {
 afterAll(() => stop?.());
 
 /** A raw request, so Host and every other header are exactly what a hostile client sends. */
-function raw(method: string, pathname: string, headers: Record<string, string>, body = ""): Promise<{ status: number; headers: http.IncomingHttpHeaders; text: string }> {
+function raw(
+  method: string,
+  pathname: string,
+  headers: Record<string, string>,
+  body = "",
+): Promise<{ status: number; headers: http.IncomingHttpHeaders; text: string }> {
   const url = new URL(baseUrl);
   return new Promise((resolve, reject) => {
-    const r = http.request({ host: "127.0.0.1", port: url.port, method, path: pathname, headers: { ...headers, ...(body ? { "content-length": String(Buffer.byteLength(body)) } : {}) } }, (res) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c) => chunks.push(c));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text: Buffer.concat(chunks).toString() }));
-    });
+    const r = http.request(
+      {
+        host: "127.0.0.1",
+        port: url.port,
+        method,
+        path: pathname,
+        headers: { ...headers, ...(body ? { "content-length": String(Buffer.byteLength(body)) } : {}) },
+      },
+      (res) => {
+        const chunks: Buffer[] = [];
+        res.on("data", (c) => chunks.push(c));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text: Buffer.concat(chunks).toString() }));
+      },
+    );
     r.on("error", reject);
     r.end(body);
   });
@@ -84,7 +98,12 @@ describe("the front door (RELIABILITY 32–34)", () => {
   it("a sign-in link asked for under a stranger's Host and forwarding headers points at the configured origin", async () => {
     const hostile = { host: "evil.example", "x-forwarded-host": "evil.example", "x-forwarded-proto": "https" };
     const { cookie, token } = await csrf("evil.example");
-    const res = await raw("POST", "/api/auth/signin/nodemailer", { ...hostile, cookie, "content-type": "application/x-www-form-urlencoded" }, new URLSearchParams({ email: MEMBER, csrfToken: token, callbackUrl: "https://evil.example/x" }).toString());
+    const res = await raw(
+      "POST",
+      "/api/auth/signin/nodemailer",
+      { ...hostile, cookie, "content-type": "application/x-www-form-urlencoded" },
+      new URLSearchParams({ email: MEMBER, csrfToken: token, callbackUrl: "https://evil.example/x" }).toString(),
+    );
     expect(res.status).toBe(302);
     expect(res.headers.location ?? "").not.toContain("evil.example");
     const mail = await waitForMail(mailDir, MEMBER);
@@ -107,10 +126,19 @@ describe("the front door (RELIABILITY 32–34)", () => {
   it("a declared body over 8 MB is refused at the door", async () => {
     const url = new URL(baseUrl);
     const status = await new Promise<number>((resolve, reject) => {
-      const r = http.request({ host: "127.0.0.1", port: url.port, method: "POST", path: "/api/sync/push", headers: { "content-type": "application/json", "content-length": String(50 * 1024 * 1024) } }, (res) => {
-        res.resume();
-        resolve(res.statusCode ?? 0);
-      });
+      const r = http.request(
+        {
+          host: "127.0.0.1",
+          port: url.port,
+          method: "POST",
+          path: "/api/sync/push",
+          headers: { "content-type": "application/json", "content-length": String(50 * 1024 * 1024) },
+        },
+        (res) => {
+          res.resume();
+          resolve(res.statusCode ?? 0);
+        },
+      );
       r.on("error", reject);
       r.write("{");
     });
@@ -122,7 +150,12 @@ describe("the front door (RELIABILITY 32–34)", () => {
     const statuses: number[] = [];
     for (let i = 0; i < 31; i++) {
       const body = new URLSearchParams({ email: `nobody${i}@quillmarsh.example`, password: "guess", csrfToken: token }).toString();
-      const res = await raw("POST", "/api/auth/callback/credentials", { host: "localhost", cookie, "content-type": "application/x-www-form-urlencoded", "x-forwarded-for": `203.0.113.${i}`, "x-real-ip": `203.0.113.${i}` }, body);
+      const res = await raw(
+        "POST",
+        "/api/auth/callback/credentials",
+        { host: "localhost", cookie, "content-type": "application/x-www-form-urlencoded", "x-forwarded-for": `203.0.113.${i}`, "x-real-ip": `203.0.113.${i}` },
+        body,
+      );
       statuses.push(res.status);
     }
     expect(statuses.slice(0, 30)).not.toContain(429);

@@ -51,7 +51,11 @@ describe("the field logbook with no signal", () => {
     expect(await page.getByText("Find saved on this device.").count()).toBe(0);
 
     // A photo whose EXIF puts it inside Larkspur Bench fills in the position.
-    await page.getByTestId("photo-input").setInputFiles({ name: "nugget.jpg", mimeType: "image/jpeg", buffer: makeJpeg({ width: 2400, height: 1800, lat: larkspur.lat + 0.0002, lon: larkspur.lon - 0.0003, takenAt: new Date() }) });
+    await page.getByTestId("photo-input").setInputFiles({
+      name: "nugget.jpg",
+      mimeType: "image/jpeg",
+      buffer: makeJpeg({ width: 2400, height: 1800, lat: larkspur.lat + 0.0002, lon: larkspur.lon - 0.0003, takenAt: new Date() }),
+    });
     await page.getByText("The find's position was taken from the photo.").waitFor();
     await page.getByTestId("claim-match").filter({ hasText: larkspur.name }).waitFor();
     expect(await page.locator("img[alt='Photo of the find']").count()).toBe(1);
@@ -96,7 +100,10 @@ describe("the field logbook with no signal", () => {
     expect(drawn).toBeLessThanOrEqual(Number(total));
     await page.screenshot({ path: shotPath("logbook-finds-list-phone"), fullPage: true });
     await page.getByRole("searchbox").fill("flakes");
-    await page.getByTestId("finds-count").filter({ hasText: /^[1-9]\d* of/ }).waitFor();
+    await page
+      .getByTestId("finds-count")
+      .filter({ hasText: /^[1-9]\d* of/ })
+      .waitFor();
 
     // Restart the browser, still offline: the finds, the photo and the outbox survive.
     await context.close();
@@ -104,9 +111,15 @@ describe("the field logbook with no signal", () => {
     await context.setOffline(true);
     page = await firstPage(context);
     await page.goto(`${baseUrl}/finds`);
-    await page.getByTestId("finds-count").filter({ hasText: `of ${total} finds` }).waitFor();
+    await page
+      .getByTestId("finds-count")
+      .filter({ hasText: `of ${total} finds` })
+      .waitFor();
     await tab(page, "Sync");
-    await page.getByTestId("sync-waiting").filter({ hasText: /Waiting to send: [1-9]/ }).waitFor();
+    await page
+      .getByTestId("sync-waiting")
+      .filter({ hasText: /Waiting to send: [1-9]/ })
+      .waitFor();
     const waiting = await page.getByTestId("sync-waiting").textContent();
     expect(Number(waiting!.match(/Waiting to send: (\d+)/)![1])).toBeGreaterThanOrEqual(6);
     expect(waiting).toMatch(/1 photo/);
@@ -115,7 +128,10 @@ describe("the field logbook with no signal", () => {
     // every find on the device is on the server.
     await context.setOffline(false);
     await page.getByRole("button", { name: "Sync now" }).click();
-    await page.getByTestId("sync-waiting").filter({ hasText: /Waiting to send: 0 changes$/ }).waitFor({ timeout: 30_000 });
+    await page
+      .getByTestId("sync-waiting")
+      .filter({ hasText: /Waiting to send: 0 changes$/ })
+      .waitFor({ timeout: 30_000 });
     const device = await deviceRecords(page);
     const db = new Database(inject("databaseUrl"), { readonly: true });
     const missing = device.finds.filter((f) => !db.prepare("select 1 from finds where id = ? and deleted_at is null").get(f.id));

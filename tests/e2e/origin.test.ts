@@ -1,7 +1,13 @@
 import { describe, expect, inject, it } from "vitest";
 
 const baseUrl = inject("baseUrl");
-const decode = (s: string) => s.replace(/&quot;/g, '"').replace(/&amp;/g, "&").replace(/&#x27;/g, "'").replace(/&lt;/g, "<").replace(/&gt;/g, ">");
+const decode = (s: string) =>
+  s
+    .replace(/&quot;/g, '"')
+    .replace(/&amp;/g, "&")
+    .replace(/&#x27;/g, "'")
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">");
 
 /** The sign-in form exactly as a browser without JavaScript would post it (React's hidden action fields included). */
 async function signInForm(): Promise<FormData> {

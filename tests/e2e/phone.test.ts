@@ -12,8 +12,14 @@ const baseUrl = inject("baseUrl");
 function memberRecords() {
   const db = new Database(inject("databaseUrl"), { readonly: true });
   try {
-    const find = db.prepare("select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from weigh_ins w where w.find_id = f.id) limit 1").get(DEMO.member.email) as { id: string };
-    const outing = db.prepare("select o.id from outings o join members m on m.id = o.member_id where m.email = ? limit 1").get(DEMO.member.email) as { id: string };
+    const find = db
+      .prepare(
+        "select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from weigh_ins w where w.find_id = f.id) limit 1",
+      )
+      .get(DEMO.member.email) as { id: string };
+    const outing = db.prepare("select o.id from outings o join members m on m.id = o.member_id where m.email = ? limit 1").get(DEMO.member.email) as {
+      id: string;
+    };
     return { find: find.id, outing: outing.id };
   } finally {
     db.close();
@@ -39,7 +45,13 @@ describe("the phone in the field (issue 19)", () => {
 
     // Every screen one tap (or "More" and a tap) away.
     const bar = page.getByRole("navigation", { name: "Field" });
-    for (const [name, path] of [["Finds", "/finds"], ["Outings", "/outings"], ["Map", "/map"], ["Sync", "/sync"], ["Today", "/"]] as const) {
+    for (const [name, path] of [
+      ["Finds", "/finds"],
+      ["Outings", "/outings"],
+      ["Map", "/map"],
+      ["Sync", "/sync"],
+      ["Today", "/"],
+    ] as const) {
       await bar.getByRole("link", { name, exact: true }).click();
       await page.waitForURL((u) => u.pathname === path);
     }
@@ -53,7 +65,21 @@ describe("the phone in the field (issue 19)", () => {
     }
 
     const { find, outing } = memberRecords();
-    const screens = ["/", "/finds", "/finds/new", `/finds/view#id=${find}`, "/outings", `/outings/view#id=${outing}`, "/map", "/sync", "/settings", "/scales", "/barren-rock", "/weigh", "/about"];
+    const screens = [
+      "/",
+      "/finds",
+      "/finds/new",
+      `/finds/view#id=${find}`,
+      "/outings",
+      `/outings/view#id=${outing}`,
+      "/map",
+      "/sync",
+      "/settings",
+      "/scales",
+      "/barren-rock",
+      "/weigh",
+      "/about",
+    ];
     const wide: string[] = [];
     for (const width of [320, 360, 390, 430]) {
       await page.setViewportSize({ width, height: 800 });

@@ -20,7 +20,8 @@ const TOBIAS = { email: "tobias@quillmarsh.example", password: "member-demo-pass
 const RUTH = { email: "ruth@quillmarsh.example", password: "member-demo-pass", firstName: "Ruth" };
 
 /** A camera JPEG of a painted specimen: after the device's shrinking, still a couple of hundred kB. */
-const specimenJpeg = (seed: number) => Buffer.from(jpeg.encode({ data: Buffer.from(paintSpecimenPhoto(2400, 1800, seed).buffer), width: 2400, height: 1800 }, 92).data);
+const specimenJpeg = (seed: number) =>
+  Buffer.from(jpeg.encode({ data: Buffer.from(paintSpecimenPhoto(2400, 1800, seed).buffer), width: 2400, height: 1800 }, 92).data);
 
 async function findWithPhoto(page: Page, seed: number): Promise<{ photoId: string; bytes: number }> {
   await tab(page, "Today");
@@ -76,7 +77,11 @@ describe("camp sync over a poor link", () => {
     // worker aborts (it reloads pages as it takes control) is made again.
     await page.goto(`${via}/`).catch(() => page.goto(`${via}/`));
     await page.getByRole("heading", { name: `Good day, ${TOBIAS.firstName}` }).waitFor();
-    await page.waitForFunction(async () => (await navigator.serviceWorker.ready).active?.state === "activated" && navigator.serviceWorker.controller !== null, undefined, { timeout: 60_000 });
+    await page.waitForFunction(
+      async () => (await navigator.serviceWorker.ready).active?.state === "activated" && navigator.serviceWorker.controller !== null,
+      undefined,
+      { timeout: 60_000 },
+    );
     await waitForSyncDone(page);
     expect(link.bytes.up).toBeGreaterThan(0);
     await page.context().setOffline(true);
@@ -130,7 +135,10 @@ describe("camp sync over a poor link", () => {
     await page.getByRole("button", { name: "Sync now" }).click();
     await expect.poll(async () => (await deviceRecords(page)).outbox, { timeout: 30_000 }).toBe(0);
     await waitForSyncDone(page);
-    await page.getByTestId("photos-waiting").filter({ hasText: /Photos waiting: 1 \(\d+ kB\)/ }).waitFor();
+    await page
+      .getByTestId("photos-waiting")
+      .filter({ hasText: /Photos waiting: 1 \(\d+ kB\)/ })
+      .waitFor();
     await page.screenshot({ path: shotPath("poor-link-photos-later"), fullPage: true });
     const records = await deviceRecords(page);
     expect(records.outbox).toBe(0);

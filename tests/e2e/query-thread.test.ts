@@ -18,7 +18,9 @@ async function queryMail(findId: string): Promise<{ subject: string; text: strin
     .poll(
       () => {
         const all = fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith(".json")) : [];
-        found = all.map((f) => JSON.parse(fs.readFileSync(path.join(dir, f), "utf8")) as { to: string[]; subject: string; text: string }).find((m) => m.to.includes(DEMO.member.email) && /queried/.test(m.subject) && m.text.includes(findId));
+        found = all
+          .map((f) => JSON.parse(fs.readFileSync(path.join(dir, f), "utf8")) as { to: string[]; subject: string; text: string })
+          .find((m) => m.to.includes(DEMO.member.email) && /queried/.test(m.subject) && m.text.includes(findId));
         return found !== undefined;
       },
       { timeout: 15_000 },
@@ -31,7 +33,10 @@ async function queryMail(findId: string): Promise<{ subject: string; text: strin
 async function syncUntilSent(phone: import("playwright-core").Page) {
   await tab(phone, "Sync");
   await phone.getByRole("button", { name: "Sync now" }).click();
-  await phone.getByTestId("sync-waiting").filter({ hasText: /Waiting to send: 0 changes$/ }).waitFor({ timeout: 30_000 });
+  await phone
+    .getByTestId("sync-waiting")
+    .filter({ hasText: /Waiting to send: 0 changes$/ })
+    .waitFor({ timeout: 30_000 });
   await waitForSyncDone(phone);
 }
 
@@ -40,7 +45,9 @@ describe("the query thread (issue 18)", () => {
     const db = new Database(inject("databaseUrl"), { readonly: true });
     const ines = db.prepare("select id from members where email = ?").get(DEMO.member.email) as { id: string };
     const find = db
-      .prepare("select id, kind from finds where member_id = ? and deleted_at is null and review_state = 'new' and not exists (select 1 from reviews r where r.find_id = finds.id) order by found_at desc limit 1")
+      .prepare(
+        "select id, kind from finds where member_id = ? and deleted_at is null and review_state = 'new' and not exists (select 1 from reviews r where r.find_id = finds.id) order by found_at desc limit 1",
+      )
       .get(ines.id) as { id: string; kind: string };
     db.close();
     const question = "The weight looks high for its size: was the scale tared?";

@@ -49,7 +49,19 @@ describe("the setup check on a member's phone (issue 16)", () => {
     }
 
     // A sound rig: the engine's verdict, worked out here in Node, is the one shown in Chromium.
-    const expected = judgeSetupCheck({ method: "hanging", airGrams: [50], waterGrams: [44.42], scaleResolutionGrams: 0.01, scaleAccuracyGrams: 0.02, waterTempC: 20, waterTempToleranceC: 2, airBuoyancyCorrection: true }, copper);
+    const expected = judgeSetupCheck(
+      {
+        method: "hanging",
+        airGrams: [50],
+        waterGrams: [44.42],
+        scaleResolutionGrams: 0.01,
+        scaleAccuracyGrams: 0.02,
+        waterTempC: 20,
+        waterTempToleranceC: 2,
+        airBuoyancyCorrection: true,
+      },
+      copper,
+    );
     expect(expected.passed).toBe(true);
     let verdict = await runCheck(SOUND);
     expect(await verdict.getAttribute("data-passed")).toBe("true");
@@ -60,7 +72,19 @@ describe("the setup check on a member's phone (issue 16)", () => {
     await card.locator('[data-standing="passed"]').waitFor();
 
     // The basket touches the cup: off, and by how much.
-    const failing = judgeSetupCheck({ method: "hanging", airGrams: [50], waterGrams: [44.52], scaleResolutionGrams: 0.01, scaleAccuracyGrams: 0.02, waterTempC: 20, waterTempToleranceC: 2, airBuoyancyCorrection: true }, copper);
+    const failing = judgeSetupCheck(
+      {
+        method: "hanging",
+        airGrams: [50],
+        waterGrams: [44.52],
+        scaleResolutionGrams: 0.01,
+        scaleAccuracyGrams: 0.02,
+        waterTempC: 20,
+        waterTempToleranceC: 2,
+        airBuoyancyCorrection: true,
+      },
+      copper,
+    );
     expect(failing.passed).toBe(false);
     verdict = await runCheck(TOUCHING);
     expect(await verdict.getAttribute("data-passed")).toBe("false");
@@ -70,7 +94,12 @@ describe("the setup check on a member's phone (issue 16)", () => {
     await card.getByRole("button", { name: "Save this check to Pocket scale" }).click();
     await card.locator('[data-standing="failed"]').waitFor();
     await card.getByText("Setup checks (2)").click();
-    expect(await card.getByTestId("check-history").locator("li").evaluateAll((els) => els.map((e) => e.getAttribute("data-passed")))).toEqual(["false", "true"]);
+    expect(
+      await card
+        .getByTestId("check-history")
+        .locator("li")
+        .evaluateAll((els) => els.map((e) => e.getAttribute("data-passed"))),
+    ).toEqual(["false", "true"]);
 
     // A weigh-in on that scale: the flow says the check failed, the find keeps it, the club learns it.
     const find = query<{ id: string }>(
@@ -80,7 +109,10 @@ describe("the setup check on a member's phone (issue 16)", () => {
     await page.goto(`${baseUrl}/finds/view#id=${find.id}`);
     await page.getByRole("button", { name: "Weigh this specimen" }).click();
     // The scale list: the one select that offers the member's scales.
-    await page.getByRole("combobox").filter({ has: page.getByRole("option", { name: "Pocket scale — step 0.01 g" }) }).selectOption({ label: "Pocket scale — step 0.01 g" });
+    await page
+      .getByRole("combobox")
+      .filter({ has: page.getByRole("option", { name: "Pocket scale — step 0.01 g" }) })
+      .selectOption({ label: "Pocket scale — step 0.01 g" });
     await page.getByTestId("scale-check-failed").waitFor();
     await page.locator("#air-0").fill("100.00");
     await page.locator("#water-0").fill("62.72");
@@ -89,7 +121,9 @@ describe("the setup check on a member's phone (issue 16)", () => {
     await page.locator('[data-testid="weigh-in-scale"][data-standing="failed"]').first().waitFor();
     await page.screenshot({ path: shotPath("weigh-in-on-failed-scale-phone"), fullPage: true });
     // Saving asked for camp sync; the server's own verdict lands on the find.
-    await expect.poll(() => query<{ c: number | null } | undefined>("select weighed_scale_checked c from finds where id = ?", find.id)?.c, { timeout: 30_000 }).toBe(0);
+    await expect
+      .poll(() => query<{ c: number | null } | undefined>("select weighed_scale_checked c from finds where id = ?", find.id)?.c, { timeout: 30_000 })
+      .toBe(0);
     const scale = query<{ passed: number; checks: string }>("select latest_check_passed passed, checks from scales where name = 'Pocket scale'");
     expect(scale.passed).toBe(0);
     expect(JSON.parse(scale.checks)).toHaveLength(2);

@@ -50,7 +50,9 @@ describe("camp sync between two devices of one member and the club", () => {
     await phone.context().setOffline(true);
     await tablet.context().setOffline(true);
     const fromPhone = await logFind(phone, "Nugget", "3.21");
-    await phone.getByTestId("photo-input").setInputFiles({ name: "p.jpg", mimeType: "image/jpeg", buffer: makeJpeg({ width: 1200, height: 900, lat: 41.8, lon: -117.62 }) });
+    await phone
+      .getByTestId("photo-input")
+      .setInputFiles({ name: "p.jpg", mimeType: "image/jpeg", buffer: makeJpeg({ width: 1200, height: 900, lat: 41.8, lon: -117.62 }) });
     await phone.getByText(/Photo saved/).waitFor();
     await editNotes(phone, shared, "weighed again at camp (phone)");
     const fromTablet = await logFind(tablet, "Specimen", "54.3");
@@ -67,12 +69,17 @@ describe("camp sync between two devices of one member and the club", () => {
       }
       return route.continue();
     });
-    await phone.route("**/api/photos/*/upload*", async (route) => (route.request().method() === "PUT" && cutUpload++ === 0 ? route.abort("connectionreset") : route.continue()));
+    await phone.route("**/api/photos/*/upload*", async (route) =>
+      route.request().method() === "PUT" && cutUpload++ === 0 ? route.abort("connectionreset") : route.continue(),
+    );
     await phone.context().setOffline(false);
     await tab(phone, "Sync");
     await phone.screenshot({ path: shotPath("sync-screen-phone"), fullPage: true });
     for (let i = 0; i < 4 && (await deviceRecords(phone)).outbox > 0; i++) {
-      await phone.getByRole("button", { name: "Sync now" }).click().catch(() => undefined);
+      await phone
+        .getByRole("button", { name: "Sync now" })
+        .click()
+        .catch(() => undefined);
       await phone.waitForTimeout(1500);
     }
     await syncNow(phone);
@@ -90,7 +97,9 @@ describe("camp sync between two devices of one member and the club", () => {
     try {
       const a = await deviceRecords(phone);
       const b = await deviceRecords(tablet);
-      const onServer = db.prepare("select id, notes, weight_grams as weightGrams, kind from finds where member_id = ? and deleted_at is null").all(a.memberId) as typeof a.finds;
+      const onServer = db
+        .prepare("select id, notes, weight_grams as weightGrams, kind from finds where member_id = ? and deleted_at is null")
+        .all(a.memberId) as typeof a.finds;
       const byId = (list: typeof a.finds) => Object.fromEntries(list.map((f) => [f.id, f]));
       expect(byId(a.finds)).toEqual(byId(onServer));
       expect(byId(b.finds)).toEqual(byId(onServer));
@@ -141,7 +150,14 @@ describe("two tabs of one member (RELIABILITY 9)", () => {
     const a = await logFind(first, "Fines", "0.42");
     const b = await logFind(second, "Crystalline", "1.7");
     await context.setOffline(false);
-    await Promise.all([syncNow(first), second.getByRole("navigation", { name: "Field" }).getByRole("link", { name: "Sync", exact: true }).click().then(() => second.getByRole("button", { name: "Sync now" }).click())]);
+    await Promise.all([
+      syncNow(first),
+      second
+        .getByRole("navigation", { name: "Field" })
+        .getByRole("link", { name: "Sync", exact: true })
+        .click()
+        .then(() => second.getByRole("button", { name: "Sync now" }).click()),
+    ]);
     await expect.poll(async () => (await deviceRecords(first)).outbox, { timeout: 30_000 }).toBe(0);
     const db = server();
     expect(db.prepare("select count(*) n from finds where id in (?, ?)").get(a, b)).toEqual({ n: 2 });

@@ -23,7 +23,19 @@ describe("the weigh-in flow in Chromium", () => {
     // The textbook figure (1.2188 g of alloy, by hand in estimate.test.ts) is 8 % higher.
     const quartz = HOST_PRESETS[0];
     const natural = FINENESS_PRESETS[0];
-    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.72], hostDensity: quartz.density, hostDensityRange: quartz.range, finenessPermille: natural.fineness, finenessRangePermille: natural.range, waterTempC: 20, waterTempToleranceC: 2, scaleResolutionGrams: 0.01, airBuoyancyCorrection: true });
+    const e = estimateSpecimen({
+      method: "hanging",
+      airGrams: [100],
+      waterGrams: [62.72],
+      hostDensity: quartz.density,
+      hostDensityRange: quartz.range,
+      finenessPermille: natural.fineness,
+      finenessRangePermille: natural.range,
+      waterTempC: 20,
+      waterTempToleranceC: 2,
+      scaleResolutionGrams: 0.01,
+      airBuoyancyCorrection: true,
+    });
     const u = e.standardUncertainty;
     expect(await weigh.text("alloy-gold")).toBe(formatGrams(e.goldAlloyGrams, "g", u.goldAlloyGrams));
     expect(await weigh.text("specimen-density")).toBe(`${e.specimenDensity.toFixed(3)} g/cm³`);
@@ -62,11 +74,18 @@ describe("the weigh-in flow in Chromium", () => {
     // The engine's source, bundled for the page by the test: the app leaves no hook on globalThis.
     await page.evaluate(await engineScript());
     const inBrowser: string[] = await page.evaluate(
-      (vectors) => vectors.map((v) => JSON.stringify((globalThis as unknown as { lodebookEngine: { estimateSpecimen: (i: unknown) => unknown } }).lodebookEngine.estimateSpecimen(v))),
+      (vectors) =>
+        vectors.map((v) =>
+          JSON.stringify((globalThis as unknown as { lodebookEngine: { estimateSpecimen: (i: unknown) => unknown } }).lodebookEngine.estimateSpecimen(v)),
+        ),
       IDENTITY_VECTORS,
     );
     for (let i = 0; i < IDENTITY_VECTORS.length; i++) {
-      const res = await fetch(`${baseUrl}/api/estimate`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(IDENTITY_VECTORS[i]) });
+      const res = await fetch(`${baseUrl}/api/estimate`, {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(IDENTITY_VECTORS[i]),
+      });
       expect(res.status).toBe(200);
       const server = (await res.json()).estimate;
       // Shortest round-trip decimal forms are equal exactly when the doubles are equal.

@@ -105,14 +105,30 @@ describe("class 6: uploads", () => {
 
   async function recordPhotos(all: Buffer[]) {
     const find = newFind();
-    const records = all.map((bytes) => ({ id: uuidv7(), findId: find.id, sha256: sha(bytes), contentType: "image/jpeg", bytes: bytes.length, width: 10, height: 10, takenAt: null, lat: null, lon: null }));
+    const records = all.map((bytes) => ({
+      id: uuidv7(),
+      findId: find.id,
+      sha256: sha(bytes),
+      contentType: "image/jpeg",
+      bytes: bytes.length,
+      width: 10,
+      height: 10,
+      takenAt: null,
+      lat: null,
+      lon: null,
+    }));
     const res = await push(member, uuidv7(), [{ id: 1, name: "find.put", args: find }, ...records.map((args, i) => ({ id: i + 2, name: "photo.put", args }))]);
     expect(res.body.results.every((r) => r.status === "applied")).toBe(true);
     return records;
   }
-  const upload = (id: string, bytes: Buffer) => putPhoto(req("/x", { method: "PUT", cookie: member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(bytes) }), ctx(id));
+  const upload = (id: string, bytes: Buffer) =>
+    putPhoto(req("/x", { method: "PUT", cookie: member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(bytes) }), ctx(id));
   const storedBytes = () =>
-    (db.$client.prepare("select coalesce(sum(stored_bytes), 0) as n from photos where member_id = ? and storage_key is not null").get(memberByEmail(db, OTHER_MEMBER_EMAIL).id) as { n: number }).n;
+    (
+      db.$client
+        .prepare("select coalesce(sum(stored_bytes), 0) as n from photos where member_id = ? and storage_key is not null")
+        .get(memberByEmail(db, OTHER_MEMBER_EMAIL).id) as { n: number }
+    ).n;
 
   it("uploads sent all at once cannot store past the quota together", async () => {
     const used = storedBytes();
@@ -134,7 +150,8 @@ describe("class 6: uploads", () => {
     head.writeUInt16BE(payload.length + 2, 2);
     return Buffer.concat([head, payload]);
   }
-  const xmp = '<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="41,48.074N" exif:GPSLongitude="117,36.7407W"/></rdf:RDF></x:xmpmeta>';
+  const xmp =
+    '<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="41,48.074N" exif:GPSLongitude="117,36.7407W"/></rdf:RDF></x:xmpmeta>';
   // A JFIF header (version 1.1, no density, no thumbnail) with a position after it; an Adobe flag with one after it.
   const jfifTail = () => segment(APP0, Buffer.concat([Buffer.from("JFIF\0", "latin1"), Buffer.from([1, 1, 0, 0, 1, 0, 1, 0, 0]), Buffer.from(xmp, "latin1")]));
   const adobeTail = () => segment(APP14, Buffer.concat([Buffer.from("Adobe", "latin1"), Buffer.from([0, 100, 0, 0, 0, 0, 1]), Buffer.from(xmp, "latin1")]));
@@ -218,16 +235,25 @@ describe("class 7: mails are safe to read", () => {
 
 describe("class 1/5: return paths stay on this origin", () => {
   // The sign-in page redirects a signed-in visitor to safeReturnPath(from) as it is.
-  it.each(["/.//evil.example", "/..//evil.example", "/a/..//evil.example", "/%2e//evil.example", "/x/%2E%2E//evil.example/path?q=1"])("%s does not leave the site", (from) => {
-    const path = safeReturnPath(from, ORIGIN);
-    expect(path.startsWith("/") && !path.startsWith("//")).toBe(true);
-    // As a browser resolves a Location header against the page it is on.
-    expect(new URL(path, `${ORIGIN}/sign-in`).origin).toBe(ORIGIN);
-    expect(safeReturnPath(from)).toBe(path);
-  });
+  it.each(["/.//evil.example", "/..//evil.example", "/a/..//evil.example", "/%2e//evil.example", "/x/%2E%2E//evil.example/path?q=1"])(
+    "%s does not leave the site",
+    (from) => {
+      const path = safeReturnPath(from, ORIGIN);
+      expect(path.startsWith("/") && !path.startsWith("//")).toBe(true);
+      // As a browser resolves a Location header against the page it is on.
+      expect(new URL(path, `${ORIGIN}/sign-in`).origin).toBe(ORIGIN);
+      expect(safeReturnPath(from)).toBe(path);
+    },
+  );
 
   it("Auth.js's redirect after signing in keeps such a path on this origin too", async () => {
-    const res = await postAuth("/api/auth/callback/credentials", { form: [["email", OTHER_MEMBER_EMAIL], ["password", MEMBER_PASSWORD], ["callbackUrl", "/.//evil.example"]] });
+    const res = await postAuth("/api/auth/callback/credentials", {
+      form: [
+        ["email", OTHER_MEMBER_EMAIL],
+        ["password", MEMBER_PASSWORD],
+        ["callbackUrl", "/.//evil.example"],
+      ],
+    });
     expect(res.status).toBe(302);
     const location = res.headers.get("location")!;
     expect(new URL(location, ORIGIN).origin).toBe(ORIGIN);

@@ -30,8 +30,23 @@ beforeAll(async () => {
 beforeEach(() => resetLimits());
 
 /** The textbook reading (no air correction, 20 °C) of a piece with the given readings. */
-const textbook = (air: number, water: number): DensityInput => ({ method: "hanging", airGrams: [air], waterGrams: [water], waterTempC: 20, airBuoyancyCorrection: false });
-const piece = (input: DensityInput, weighedAt: number, claim = claimId) => ({ id: uuidv7(), claimId: claim, input, deviceDensity: measureDensity(input).density, weighedAt, scaleId: null, scaleCheck: null, notes: "" });
+const textbook = (air: number, water: number): DensityInput => ({
+  method: "hanging",
+  airGrams: [air],
+  waterGrams: [water],
+  waterTempC: 20,
+  airBuoyancyCorrection: false,
+});
+const piece = (input: DensityInput, weighedAt: number, claim = claimId) => ({
+  id: uuidv7(),
+  claimId: claim,
+  input,
+  deviceDensity: measureDensity(input).density,
+  weighedAt,
+  scaleId: null,
+  scaleCheck: null,
+  notes: "",
+});
 
 describe("barren rock: a claim's host density from its pieces", () => {
   it("proposes the pieces' mean ± 2 SD, checked by hand, and the officer's acceptance reaches the claim and members' devices", async () => {
@@ -62,7 +77,10 @@ describe("barren rock: a claim's host density from its pieces", () => {
 
     const answer = await barrenRockGet(req(`/api/club/barren-rock?claimId=${claimId}&season=2026`, { cookie: officer }), {} as never);
     expect(answer.status).toBe(200);
-    const body = (await answer.json()) as { pieces: { density: number }[]; proposal: { value: number; low: number; high: number; pieces: number; mean: number; sd: number } };
+    const body = (await answer.json()) as {
+      pieces: { density: number }[];
+      proposal: { value: number; low: number; high: number; pieces: number; mean: number; sd: number };
+    };
     expect(body.pieces).toHaveLength(6);
     body.pieces.forEach((p, i) => expect(p.density).toBeCloseTo(densities[i], 5));
     expect(body.proposal.pieces).toBe(6);
@@ -73,18 +91,33 @@ describe("barren rock: a claim's host density from its pieces", () => {
     expect(body.proposal.value).toBeCloseTo((body.proposal.low + body.proposal.high) / 2, 12);
 
     // The officer accepts it through the claim's profile, as the claims page does.
-    const before = db.$client.prepare("select fineness_low l, fineness_high h, fineness_source s from claims where id = ?").get(claimId) as { l: number; h: number; s: string };
+    const before = db.$client.prepare("select fineness_low l, fineness_high h, fineness_source s from claims where id = ?").get(claimId) as {
+      l: number;
+      h: number;
+      s: string;
+    };
     const put = await profilePut(
       req(`/api/club/claims/${claimId}/profile`, {
         method: "PUT",
         cookie: officer,
         headers: { "content-type": "application/json" },
-        body: JSON.stringify({ finenessLow: before.l, finenessHigh: before.h, finenessSource: before.s, hostDensityLow: body.proposal.low, hostDensityHigh: body.proposal.high, hostDensitySource: "Barren-rock weigh-ins of 2026" }),
+        body: JSON.stringify({
+          finenessLow: before.l,
+          finenessHigh: before.h,
+          finenessSource: before.s,
+          hostDensityLow: body.proposal.low,
+          hostDensityHigh: body.proposal.high,
+          hostDensitySource: "Barren-rock weigh-ins of 2026",
+        }),
       }),
       { params: Promise.resolve({ id: claimId }) },
     );
     expect(put.status).toBe(200);
-    const row = db.$client.prepare("select host_density d, host_density_low l, host_density_high h from claims where id = ?").get(claimId) as { d: number; l: number; h: number };
+    const row = db.$client.prepare("select host_density d, host_density_low l, host_density_high h from claims where id = ?").get(claimId) as {
+      d: number;
+      l: number;
+      h: number;
+    };
     expect(row).toEqual({ d: body.proposal.value, l: body.proposal.low, h: body.proposal.high });
     const { changes } = await pullAll(member, uuidv7());
     const claim = changes.find((c) => c.entity === "claim" && c.op === "put" && c.value.id === claimId);
@@ -133,7 +166,10 @@ describe("weigh-ins on a checked scale", () => {
     expect(checkedFlag(f1.id)).toBe(1);
     expect(checkedFlag(f2.id)).toBe(0);
     expect(checkedFlag(f3.id)).toBeNull();
-    const scales = db.$client.prepare("select id, latest_check_passed p from scales where id in (?, ?)").all(sound.id, faulty.id) as { id: string; p: number }[];
+    const scales = db.$client.prepare("select id, latest_check_passed p from scales where id in (?, ?)").all(sound.id, faulty.id) as {
+      id: string;
+      p: number;
+    }[];
     expect(Object.fromEntries(scales.map((s) => [s.id, s.p]))).toEqual({ [sound.id]: 1, [faulty.id]: 0 });
     // Officers see it in the ledger, row by row.
     const { ledgerPage } = await import("@/server/club/ledger");

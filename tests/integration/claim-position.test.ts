@@ -23,7 +23,9 @@ beforeAll(async () => {
   ({ db } = await seededDatabase());
   member = await sessionCookie(memberByEmail(db, MEMBER_EMAIL));
   officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
-  [a, b] = (db.$client.prepare("select id, name, kind, boundary from claims order by name").all() as (Omit<Claim, "boundary"> & { boundary: string })[]).map((c) => ({ ...c, boundary: JSON.parse(c.boundary) }));
+  [a, b] = (db.$client.prepare("select id, name, kind, boundary from claims order by name").all() as (Omit<Claim, "boundary"> & { boundary: string })[]).map(
+    (c) => ({ ...c, boundary: JSON.parse(c.boundary) }),
+  );
 });
 
 const outside = (id: string) => (db.$client.prepare("select outside_claim o from finds where id = ?").get(id) as { o: number }).o;
@@ -33,10 +35,15 @@ describe("a find's claim follows its position (issue 15)", () => {
     const wrong = { ...newFind(), claimId: a.id, ...middle(b), accuracyM: 5, locationSource: "device" as const };
     const right = { ...newFind(), claimId: a.id, ...middle(a), accuracyM: 5, locationSource: "device" as const };
     const nowhere = { ...newFind(), claimId: a.id, lat: null, lon: null };
-    const res = await push(member, uuidv7(), [wrong, right, nowhere].map((f, i) => ({ id: i + 1, name: "find.put", args: f })));
+    const res = await push(
+      member,
+      uuidv7(),
+      [wrong, right, nowhere].map((f, i) => ({ id: i + 1, name: "find.put", args: f })),
+    );
     expect(res.body.results.every((r) => r.status === "applied")).toBe(true);
     expect([outside(wrong.id), outside(right.id), outside(nowhere.id)]).toEqual([1, 0, 0]);
-    const rows = (await (await getLedger(req(`/api/club/ledger?claimId=${a.id}&pageSize=200`, { cookie: officer }), { params: Promise.resolve({}) })).json()).rows as { id: string; outsideClaim: boolean }[];
+    const rows = (await (await getLedger(req(`/api/club/ledger?claimId=${a.id}&pageSize=200`, { cookie: officer }), { params: Promise.resolve({}) })).json())
+      .rows as { id: string; outsideClaim: boolean }[];
     expect(rows.find((r) => r.id === wrong.id)!.outsideClaim).toBe(true);
     expect(rows.find((r) => r.id === right.id)!.outsideClaim).toBe(false);
     // The member moves it to the claim its position is in: no longer flagged.
@@ -53,7 +60,12 @@ describe("a find's claim follows its position (issue 15)", () => {
     const width = Math.max(...ring.map((p) => p[0])) - Math.min(...ring.map((p) => p[0]));
     const moved = { type: "Polygon", coordinates: [ring.map(([lon, lat]) => [lon + 2 * width, lat])] };
     const res = await putClaim(
-      req(`/api/club/claims/${a.id}`, { method: "PUT", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify({ name: a.name, kind: a.kind, boundary: moved }) }),
+      req(`/api/club/claims/${a.id}`, {
+        method: "PUT",
+        cookie: officer,
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ name: a.name, kind: a.kind, boundary: moved }),
+      }),
       { params: Promise.resolve({ id: a.id }) },
     );
     expect(res.status).toBe(200);

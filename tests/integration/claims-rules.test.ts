@@ -7,11 +7,30 @@ let db: Db;
 let officer: string;
 const none = { params: Promise.resolve({}) };
 const create = async (body: Record<string, unknown>) => {
-  const res = await postClaim(req("/api/club/claims", { method: "POST", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify({ kind: "placer", ...body }) }), none);
+  const res = await postClaim(
+    req("/api/club/claims", {
+      method: "POST",
+      cookie: officer,
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ kind: "placer", ...body }),
+    }),
+    none,
+  );
   return { status: res.status, json: await res.json() };
 };
 // A square of side `d` degrees with its south-west corner at (lon, lat), far from the demo claims.
-const square = (lon: number, lat: number, d = 0.002) => ({ type: "Polygon", coordinates: [[[lon, lat], [lon + d, lat], [lon + d, lat + d], [lon, lat + d], [lon, lat]]] });
+const square = (lon: number, lat: number, d = 0.002) => ({
+  type: "Polygon",
+  coordinates: [
+    [
+      [lon, lat],
+      [lon + d, lat],
+      [lon + d, lat + d],
+      [lon, lat + d],
+      [lon, lat],
+    ],
+  ],
+});
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
@@ -37,7 +56,16 @@ describe("claims the club can keep straight (issue 18)", () => {
   });
 
   it("names the problem with an outline that is not an area", async () => {
-    const r = await create({ name: "Test Line", boundary: { type: "LineString", coordinates: [[-110, 36], [-109.9, 36]] } });
+    const r = await create({
+      name: "Test Line",
+      boundary: {
+        type: "LineString",
+        coordinates: [
+          [-110, 36],
+          [-109.9, 36],
+        ],
+      },
+    });
     expect(r.status).toBe(400);
     expect(r.json.error.fields.boundary[0]).toMatch(/LineString.*closed area/);
   });

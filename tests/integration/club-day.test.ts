@@ -15,14 +15,20 @@ const NEW_YEARS_EVE = Date.UTC(2027, 0, 1, 6, 0); // 22:00 on 31 December 2026 i
 let db: Db;
 let officer: string;
 const none = { params: Promise.resolve({}) };
-const ledger = async (qs: string) => (await (await getLedger(req(`/api/club/ledger?${qs}`, { cookie: officer }), none)).json()) as { rows: { id: string; foundOn: string; price: number | null }[]; summary: { finds: number } };
+const ledger = async (qs: string) =>
+  (await (await getLedger(req(`/api/club/ledger?${qs}`, { cookie: officer }), none)).json()) as {
+    rows: { id: string; foundOn: string; price: number | null }[];
+    summary: { finds: number };
+  };
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
   officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
   db.$client.prepare("update club_settings set time_zone = ? where id = 1").run(ZONE);
   // A price taking effect on the evening find's own club day, in force from that day's start.
-  db.$client.prepare("insert into reference_prices (id, effective_on, price_per_troy_ounce, currency, seq) values (?, '2026-07-14', 3000, 'USD', 999999)").run(uuidv7());
+  db.$client
+    .prepare("insert into reference_prices (id, effective_on, price_per_troy_ounce, currency, seq) values (?, '2026-07-14', 3000, 'USD', 999999)")
+    .run(uuidv7());
 });
 
 describe("the club's own days (issue 15)", () => {

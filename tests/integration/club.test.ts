@@ -26,7 +26,12 @@ let officer: string;
 let member: string;
 const ctx = (id: string) => ({ params: Promise.resolve({ id }) });
 const none = {} as never;
-const jsonInit = (method: string, body: unknown, cookie: string) => ({ method, cookie, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+const jsonInit = (method: string, body: unknown, cookie: string) => ({
+  method,
+  cookie,
+  headers: { "content-type": "application/json" },
+  body: JSON.stringify(body),
+});
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
@@ -34,7 +39,7 @@ beforeAll(async () => {
   member = await sessionCookie(memberByEmail(db, MEMBER_EMAIL));
 });
 
-const sql = <T,>(q: string, ...args: unknown[]) => db.$client.prepare(q).get(...args) as T;
+const sql = <T>(q: string, ...args: unknown[]) => db.$client.prepare(q).get(...args) as T;
 
 /**
  * A find's fine gold worked out by hand in SQL, from the records themselves rather than the
@@ -110,7 +115,17 @@ describe("the club ledger", () => {
 
   it("pages through every sort in the sort's order, each find once", async () => {
     const total = sql<{ n: number }>("select count(*) n from finds where deleted_at is null").n;
-    type Row = { weightGrams: number | null; fineGrams: number | null; value: number | null; memberName: string | null; claimName: string | null; foundAt: number; kind: string; method: string; state: string };
+    type Row = {
+      weightGrams: number | null;
+      fineGrams: number | null;
+      value: number | null;
+      memberName: string | null;
+      claimName: string | null;
+      foundAt: number;
+      kind: string;
+      method: string;
+      state: string;
+    };
     const key: Record<string, (r: Row) => number | string | null> = {
       foundAt: (r) => r.foundAt,
       weight: (r) => r.weightGrams,
@@ -142,7 +157,10 @@ describe("the club ledger", () => {
         expect(ids.size, `${sort} ${dir}`).toBe(total);
         // Nulls last either way; the rest in order.
         const values = seen.filter((v) => v !== null);
-        expect(seen.slice(values.length).every((v) => v === null), `${sort} ${dir} nulls last`).toBe(true);
+        expect(
+          seen.slice(values.length).every((v) => v === null),
+          `${sort} ${dir} nulls last`,
+        ).toBe(true);
         const sorted = [...values].sort((a, b) => (a! < b! ? -1 : a! > b! ? 1 : 0));
         expect(values, `${sort} ${dir}`).toEqual(dir === "asc" ? sorted : sorted.reverse());
       }
@@ -179,7 +197,9 @@ describe("the club ledger", () => {
     expect(parsed.meta.fields).toEqual([...LEDGER_CSV_COLUMNS]);
     const page = await ledger(`claimId=${claim.id}&pageSize=200&sort=foundAt&dir=asc`);
     expect(parsed.data.map((r) => r.id)).toEqual(page.rows.map((r: { id: string }) => r.id));
-    expect(parsed.data.map((r) => (r.weightGrams === "" ? null : Number(r.weightGrams)))).toEqual(page.rows.map((r: { weightGrams: number | null }) => r.weightGrams));
+    expect(parsed.data.map((r) => (r.weightGrams === "" ? null : Number(r.weightGrams)))).toEqual(
+      page.rows.map((r: { weightGrams: number | null }) => r.weightGrams),
+    );
   });
 
   it("exports where and how each find was found, positions only where the member shares them, and GeoJSON of claims and finds", async () => {
@@ -187,8 +207,20 @@ describe("the club ledger", () => {
     const hiding = memberByEmail(db, "tobias@quillmarsh.example");
     db.$client.prepare("update members set location_sharing = 'claim' where id = ?").run(hiding.id);
     try {
-      const rows = Papa.parse<Record<string, string>>(await (await getCsv(req("/api/club/ledger/csv", { cookie: officer }), none)).text(), { header: true, skipEmptyLines: true }).data;
-      const owner = new Map((db.$client.prepare("select id, member_id m, depth_cm d, outing_id o from finds").all() as { id: string; m: string; d: number | null; o: string | null }[]).map((r) => [r.id, r]));
+      const rows = Papa.parse<Record<string, string>>(await (await getCsv(req("/api/club/ledger/csv", { cookie: officer }), none)).text(), {
+        header: true,
+        skipEmptyLines: true,
+      }).data;
+      const owner = new Map(
+        (
+          db.$client.prepare("select id, member_id m, depth_cm d, outing_id o from finds").all() as {
+            id: string;
+            m: string;
+            d: number | null;
+            o: string | null;
+          }[]
+        ).map((r) => [r.id, r]),
+      );
       for (const r of rows) {
         const f = owner.get(r.id)!;
         if (f.m === hiding.id) expect([r.lat, r.lon]).toEqual(["", ""]);
@@ -211,14 +243,21 @@ describe("the club ledger", () => {
   });
 
   it("fine gold in the CSV and the report's subtotals equals the hand computation, for all three kinds of figure", async () => {
-    const kinds = sql<{ n: number }>("select count(distinct fine_basis) n from finds where deleted_at is null and fine_basis in ('weighed', 'claim_fineness', 'recorded_purity')").n;
+    const kinds = sql<{ n: number }>(
+      "select count(distinct fine_basis) n from finds where deleted_at is null and fine_basis in ('weighed', 'claim_fineness', 'recorded_purity')",
+    ).n;
     expect(kinds).toBe(3);
     const byHand = sql<{ fine: number }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null`).fine;
     const res = await getCsv(req("/api/club/ledger/csv", { cookie: officer }), none);
     const rows = Papa.parse<Record<string, string>>(await res.text(), { header: true, skipEmptyLines: true }).data;
     // Each row as exported (to the milligram) is the hand computation of its find, rounded alike.
-    const perFind = new Map((db.$client.prepare(`select f.id, ${FINE_BY_HAND} fine from finds f where f.deleted_at is null`).all() as { id: string; fine: number | null }[]).map((r) => [r.id, r.fine]));
-    for (const r of rows) expect(r.fineGrams === "" ? null : Number(r.fineGrams), r.id).toBe(perFind.get(r.id) == null ? null : Number(perFind.get(r.id)!.toFixed(3)));
+    const perFind = new Map(
+      (db.$client.prepare(`select f.id, ${FINE_BY_HAND} fine from finds f where f.deleted_at is null`).all() as { id: string; fine: number | null }[]).map(
+        (r) => [r.id, r.fine],
+      ),
+    );
+    for (const r of rows)
+      expect(r.fineGrams === "" ? null : Number(r.fineGrams), r.id).toBe(perFind.get(r.id) == null ? null : Number(perFind.get(r.id)!.toFixed(3)));
     expect(rows.reduce((n, r) => n + (r.fineGrams === "" ? 0 : Number(r.fineGrams)), 0)).toBeCloseTo(byHand, 1);
     expect(new Set(rows.map((r) => r.fineBasis))).toEqual(new Set(["weighed", "claim_fineness", "recorded_purity"]));
 
@@ -230,7 +269,8 @@ describe("the club ledger", () => {
       expect(groups.reduce((n, g) => n + g.summary.fineGrams, 0)).toBeCloseTo(byHand, 6);
       const column = by === "member" ? "member_id" : "claim_id";
       for (const g of groups) {
-        const one = sql<{ fine: number | null }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null and f.${column} is ?`, g.id).fine ?? 0;
+        const one =
+          sql<{ fine: number | null }>(`select sum(${FINE_BY_HAND}) fine from finds f where f.deleted_at is null and f.${column} is ?`, g.id).fine ?? 0;
         expect(g.summary.fineGrams).toBeCloseTo(one, 6);
       }
     }
@@ -251,13 +291,65 @@ describe("reviews", () => {
 
 describe("claims", () => {
   it("creates from typed corners, refuses self-intersecting and unclosed GeoJSON, and audits edits", async () => {
-    const created = await postClaim(req("/x", jsonInit("POST", { name: "Test Flat", kind: "placer", corners: "41.70, -117.70\n41.70, -117.69\n41.71, -117.69\n41.71, -117.70" }, officer)), none);
+    const created = await postClaim(
+      req("/x", jsonInit("POST", { name: "Test Flat", kind: "placer", corners: "41.70, -117.70\n41.70, -117.69\n41.71, -117.69\n41.71, -117.70" }, officer)),
+      none,
+    );
     expect(created.status).toBe(201);
     const { id } = await created.json();
-    const bowTie = await putClaim(req("/x", jsonInit("PUT", { name: "Test Flat", kind: "placer", boundary: { type: "Polygon", coordinates: [[[0, 0], [1, 1], [1, 0], [0, 1], [0, 0]]] } }, officer)), ctx(id));
+    const bowTie = await putClaim(
+      req(
+        "/x",
+        jsonInit(
+          "PUT",
+          {
+            name: "Test Flat",
+            kind: "placer",
+            boundary: {
+              type: "Polygon",
+              coordinates: [
+                [
+                  [0, 0],
+                  [1, 1],
+                  [1, 0],
+                  [0, 1],
+                  [0, 0],
+                ],
+              ],
+            },
+          },
+          officer,
+        ),
+      ),
+      ctx(id),
+    );
     expect(bowTie.status).toBe(400);
     expect((await bowTie.json()).error.fields.boundary[0]).toMatch(/crosses itself/);
-    const open = await putClaim(req("/x", jsonInit("PUT", { name: "Test Flat", kind: "placer", boundary: { type: "Polygon", coordinates: [[[0, 0], [1, 0], [1, 1], [0, 1]]] } }, officer)), ctx(id));
+    const open = await putClaim(
+      req(
+        "/x",
+        jsonInit(
+          "PUT",
+          {
+            name: "Test Flat",
+            kind: "placer",
+            boundary: {
+              type: "Polygon",
+              coordinates: [
+                [
+                  [0, 0],
+                  [1, 0],
+                  [1, 1],
+                  [0, 1],
+                ],
+              ],
+            },
+          },
+          officer,
+        ),
+      ),
+      ctx(id),
+    );
     expect((await open.json()).error.fields.boundary[0]).toMatch(/not closed/);
     const renamed = await putClaim(req("/x", jsonInit("PUT", { name: "Test Flat North", kind: "placer" }, officer)), ctx(id));
     expect(renamed.status).toBe(200);
@@ -275,7 +367,10 @@ describe("members and invitations", () => {
     process.env.SMTP_PORT = String(port);
     const catcher = await startMailCatcher({ port, dir });
     try {
-      const res = await postInvitation(req("http://localhost:3000/api/club/invitations", jsonInit("POST", { email: "newcomer@quillmarsh.example", role: "member" }, officer)), none);
+      const res = await postInvitation(
+        req("http://localhost:3000/api/club/invitations", jsonInit("POST", { email: "newcomer@quillmarsh.example", role: "member" }, officer)),
+        none,
+      );
       expect(res.status).toBe(201);
       const mails = fs.readdirSync(dir).map((f) => JSON.parse(fs.readFileSync(path.join(dir, f), "utf8")));
       expect(mails).toHaveLength(1);
@@ -283,12 +378,19 @@ describe("members and invitations", () => {
       const token = mails[0].text.match(/\/join#token=([\w-]+)/)[1];
       const { acceptInvitation } = await import("@/server/club/members");
       await acceptInvitation(token, "New Comer", "a-long-password-1");
-      expect(sql<{ role: string; active: number }>("select role, active from members where email = 'newcomer@quillmarsh.example'")).toEqual({ role: "member", active: 1 });
+      expect(sql<{ role: string; active: number }>("select role, active from members where email = 'newcomer@quillmarsh.example'")).toEqual({
+        role: "member",
+        active: 1,
+      });
       await expect(acceptInvitation(token, "Someone Else", "another-password-2")).rejects.toThrow(/used, withdrawn or has run out/);
       // Resend and revoke on a second invitation.
-      const second = await (await postInvitation(req("http://localhost:3000/x", jsonInit("POST", { email: "later@quillmarsh.example" }, officer)), none)).json();
+      const second = await (
+        await postInvitation(req("http://localhost:3000/x", jsonInit("POST", { email: "later@quillmarsh.example" }, officer)), none)
+      ).json();
       expect((await resendInvitation(req("http://localhost:3000/x", jsonInit("POST", { action: "resend" }, officer)), ctx(second.id))).status).toBe(200);
-      const open = (await (await getInvitations(req("/x", { cookie: officer }), none)).json()).invitations.filter((i: { email: string; revokedAt: number | null; acceptedAt: number | null }) => i.email === "later@quillmarsh.example" && !i.revokedAt);
+      const open = (await (await getInvitations(req("/x", { cookie: officer }), none)).json()).invitations.filter(
+        (i: { email: string; revokedAt: number | null; acceptedAt: number | null }) => i.email === "later@quillmarsh.example" && !i.revokedAt,
+      );
       expect(open).toHaveLength(1);
       expect((await deleteInvitation(req("/x", { method: "DELETE", cookie: officer }), ctx(open[0].id))).status).toBe(200);
     } finally {
@@ -300,7 +402,10 @@ describe("members and invitations", () => {
     const target = memberByEmail(db, "ruth@quillmarsh.example");
     const res = await patchMember(req("/x", jsonInit("PATCH", { active: false }, officer)), ctx(target.id));
     expect(res.status).toBe(200);
-    expect(sql<{ sv: number; active: number }>("select session_version sv, active from members where id = ?", target.id)).toEqual({ sv: target.sv + 1, active: 0 });
+    expect(sql<{ sv: number; active: number }>("select session_version sv, active from members where id = ?", target.id)).toEqual({
+      sv: target.sv + 1,
+      active: 0,
+    });
     expect(sql<{ n: number }>("select count(*) n from finds where member_id = ?", target.id).n).toBeGreaterThan(0);
     const me = memberByEmail(db, OFFICER_EMAIL);
     const other = memberByEmail(db, "dale@quillmarsh.example");
@@ -311,8 +416,12 @@ describe("members and invitations", () => {
 
   it("records reference prices and keeps the history", async () => {
     const before = (await (await getPrices(req("/x", { cookie: officer }), none)).json()).prices.length;
-    expect((await postPrice(req("/x", jsonInit("POST", { effectiveOn: "2026-11-30", pricePerTroyOunce: 2601.5, currency: "USD" }, officer)), none)).status).toBe(201);
-    expect((await postPrice(req("/x", jsonInit("POST", { effectiveOn: "30/11/2026", pricePerTroyOunce: -1, currency: "usd" }, officer)), none)).status).toBe(400);
+    expect(
+      (await postPrice(req("/x", jsonInit("POST", { effectiveOn: "2026-11-30", pricePerTroyOunce: 2601.5, currency: "USD" }, officer)), none)).status,
+    ).toBe(201);
+    expect((await postPrice(req("/x", jsonInit("POST", { effectiveOn: "30/11/2026", pricePerTroyOunce: -1, currency: "usd" }, officer)), none)).status).toBe(
+      400,
+    );
     expect((await (await getPrices(req("/x", { cookie: officer }), none)).json()).prices.length).toBe(before + 1);
   });
 });
@@ -377,7 +486,10 @@ describe("the ledger's figures follow the weigh-ins and reviews", () => {
       { id: 1, name: "find.put", args: find },
       { id: 2, name: "weighIn.put", args: weighIn },
     ]);
-    const row = async () => (await (await getLedger(req(`/api/club/ledger?from=2026-04-02&to=2026-04-02&pageSize=200`, { cookie: officer }), none)).json()).rows.find((r: { id: string }) => r.id === find.id);
+    const row = async () =>
+      (await (await getLedger(req(`/api/club/ledger?from=2026-04-02&to=2026-04-02&pageSize=200`, { cookie: officer }), none)).json()).rows.find(
+        (r: { id: string }) => r.id === find.id,
+      );
     expect((await row()).fineGrams).toBe(estimateSpecimen(weighIn.input).fineGoldGrams);
     expect((await row()).state).toBe("new");
     await postReview(req("/x", jsonInit("POST", { action: "query", note: "Again, please." }, officer)), ctx(find.id));
@@ -400,7 +512,11 @@ describe("the ledger's figures follow the weigh-ins and reviews", () => {
     const middle = weighed(26.1, Date.UTC(2026, 3, 3, 12));
     const older = weighed(30.2, Date.UTC(2026, 3, 3, 11));
     const newer = weighed(33.9, Date.UTC(2026, 3, 3, 13));
-    const figures = () => sql<{ fine: number; low: number; high: number; alloy: number }>("select latest_fine_grams fine, latest_fine_low low, latest_fine_high high, latest_alloy_grams alloy from finds where id = ?", find.id);
+    const figures = () =>
+      sql<{ fine: number; low: number; high: number; alloy: number }>(
+        "select latest_fine_grams fine, latest_fine_low low, latest_fine_high high, latest_alloy_grams alloy from finds where id = ?",
+        find.id,
+      );
     const of = (w: typeof middle) => {
       const e = estimateSpecimen(w.input);
       return { fine: e.fineGoldGrams, low: e.range.fineGoldGrams[0], high: e.range.fineGoldGrams[1], alloy: e.goldAlloyGrams };

@@ -9,7 +9,9 @@ const css = fs.readFileSync("src/app/globals.css", "utf8");
 
 /** The custom properties of each theme block: the daylight root, and the camp-evening ones. */
 function themes(): Record<string, string>[] {
-  return [...css.matchAll(/(?:^|\n)\s*:root[^{]*\{([^}]*)\}/g)].map((m) => Object.fromEntries([...m[1].matchAll(/--([a-z-]+):\s*(#[0-9a-f]{6})/gi)].map((v) => [v[1], v[2]])));
+  return [...css.matchAll(/(?:^|\n)\s*:root[^{]*\{([^}]*)\}/g)].map((m) =>
+    Object.fromEntries([...m[1].matchAll(/--([a-z-]+):\s*(#[0-9a-f]{6})/gi)].map((v) => [v[1], v[2]])),
+  );
 }
 
 function luminance(hex: string): number {

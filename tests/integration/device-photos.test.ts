@@ -62,7 +62,22 @@ async function findWithPhoto(d: LodebookDb, bytes: Buffer): Promise<LocalPhoto> 
   const find = newFind();
   await saveFind(d, find);
   const blob = new Blob([new Uint8Array(bytes)], { type: "image/jpeg" });
-  const photo: LocalPhoto = { id: newId(), findId: find.id, sha256: crypto.createHash("sha256").update(bytes).digest("hex"), contentType: "image/jpeg", bytes: bytes.length, width: 700, height: 500, takenAt: null, lat: null, lon: null, blob, thumb: blob, uploaded: 0, updatedAt: Date.now() };
+  const photo: LocalPhoto = {
+    id: newId(),
+    findId: find.id,
+    sha256: crypto.createHash("sha256").update(bytes).digest("hex"),
+    contentType: "image/jpeg",
+    bytes: bytes.length,
+    width: 700,
+    height: 500,
+    takenAt: null,
+    lat: null,
+    lon: null,
+    blob,
+    thumb: blob,
+    uploaded: 0,
+    updatedAt: Date.now(),
+  };
   await d.transaction("rw", [d.photos, d.outbox], async () => {
     const { blob: _b, thumb: _t, uploaded: _u, ...record } = photo;
     await d.photos.add(photo);

@@ -54,7 +54,9 @@ async function sync(d: LodebookDb, report: Parameters<typeof syncOnce>[2] = () =
 
 /** The member's live finds as `id notes`, on the server and on a device. */
 const serverFinds = () =>
-  (db.$client.prepare("select id, notes from finds where member_id = ? and deleted_at is null order by id").all(memberId) as { id: string; notes: string }[]).map((r) => `${r.id} ${r.notes}`);
+  (
+    db.$client.prepare("select id, notes from finds where member_id = ? and deleted_at is null order by id").all(memberId) as { id: string; notes: string }[]
+  ).map((r) => `${r.id} ${r.notes}`);
 const deviceFinds = async (d: LodebookDb) => (await d.finds.orderBy("id").toArray()).map((f) => `${f.id} ${f.notes}`);
 
 async function expectDeviceEqualsServer(d: LodebookDb) {

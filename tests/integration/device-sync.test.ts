@@ -133,7 +133,7 @@ describe("an app update that bumps the device schema (RELIABILITY 19)", () => {
     expect(reloads).toEqual(["reload"]);
     expect(oldTab.isOpen()).toBe(false);
     expect((await newTab.meta.get("upgradedFrom"))?.value).toBe(DB_VERSION);
-    expect((await newTab.finds.where("weightGrams").above(0).count())).toBe(3);
+    expect(await newTab.finds.where("weightGrams").above(0).count()).toBe(3);
     expect(await newTab.outbox.count()).toBe(3);
 
     await sync(newTab);

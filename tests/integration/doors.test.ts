@@ -22,11 +22,26 @@ const links = (text: string) => text.match(/https?:\/\/[^\s"<>]+/g) ?? [];
 doorsSetup("doors", (s) => ({ db, mail } = s));
 
 // A stranger's request names a host of their choosing in every header a server might read.
-const HOSTILE_HEADERS = { host: "evil.example", "x-forwarded-host": "evil.example", "x-forwarded-proto": "https", forwarded: "host=evil.example;proto=https", "x-original-host": "evil.example" };
+const HOSTILE_HEADERS = {
+  host: "evil.example",
+  "x-forwarded-host": "evil.example",
+  "x-forwarded-proto": "https",
+  forwarded: "host=evil.example;proto=https",
+  "x-original-host": "evil.example",
+};
 
 describe("every link the server mails comes from the configured origin (RELIABILITY 32)", () => {
   it("a sign-in link asked for with a hostile Host and forwarding headers points at the club's origin", async () => {
-    const res = await postAuth("http://evil.example/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL], ["callbackUrl", "https://evil.example/steal"]] }, { headers: HOSTILE_HEADERS });
+    const res = await postAuth(
+      "http://evil.example/api/auth/signin/nodemailer",
+      {
+        form: [
+          ["email", MEMBER_EMAIL],
+          ["callbackUrl", "https://evil.example/steal"],
+        ],
+      },
+      { headers: HOSTILE_HEADERS },
+    );
     expect(res.status).toBe(302);
     const mails = await caughtMail();
     expect(mails).toHaveLength(1);
@@ -44,7 +59,16 @@ describe("every link the server mails comes from the configured origin (RELIABIL
 
   it("the same through a JSON body and a doubled e-mail field", async () => {
     await postAuth("http://evil.example/api/auth/signin/nodemailer", { json: { email: MEMBER_EMAIL } }, { headers: HOSTILE_HEADERS });
-    await postAuth("http://evil.example/api/auth/signin/nodemailer", { form: [["email", OTHER_MEMBER_EMAIL], ["email", MEMBER_EMAIL]] }, { headers: HOSTILE_HEADERS });
+    await postAuth(
+      "http://evil.example/api/auth/signin/nodemailer",
+      {
+        form: [
+          ["email", OTHER_MEMBER_EMAIL],
+          ["email", MEMBER_EMAIL],
+        ],
+      },
+      { headers: HOSTILE_HEADERS },
+    );
     const all = (await caughtMail()).flatMap((m) => links(m.text));
     expect(all.length).toBeGreaterThan(0);
     for (const link of all) expect(new URL(link).origin).toBe(ORIGIN);
@@ -53,7 +77,12 @@ describe("every link the server mails comes from the configured origin (RELIABIL
   it("an invitation made through a hostile Host links to the club's origin", async () => {
     const officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
     const res = await postInvitation(
-      req("http://evil.example/api/club/invitations", { method: "POST", cookie: officer, headers: { "content-type": "application/json", ...HOSTILE_HEADERS }, body: JSON.stringify({ email: "newcomer@quillmarsh.example" }) }),
+      req("http://evil.example/api/club/invitations", {
+        method: "POST",
+        cookie: officer,
+        headers: { "content-type": "application/json", ...HOSTILE_HEADERS },
+        body: JSON.stringify({ email: "newcomer@quillmarsh.example" }),
+      }),
       none,
     );
     expect(res.status).toBe(201);
@@ -68,7 +97,15 @@ describe("every link the server mails comes from the configured origin (RELIABIL
     vi.stubEnv("LODEBOOK_ORIGIN", "");
     const officer = await sessionCookie(memberByEmail(db, OFFICER_EMAIL));
     const before = db.$client.prepare("select count(*) as n from invitations").get();
-    const res = await postInvitation(req("http://localhost:3000/api/club/invitations", { method: "POST", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify({ email: "late@quillmarsh.example" }) }), none);
+    const res = await postInvitation(
+      req("http://localhost:3000/api/club/invitations", {
+        method: "POST",
+        cookie: officer,
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ email: "late@quillmarsh.example" }),
+      }),
+      none,
+    );
     expect(res.status).toBe(503);
     expect((await res.json()).error.message).toMatch(/LODEBOOK_ORIGIN/);
     expect(db.$client.prepare("select count(*) as n from invitations").get()).toEqual(before);
@@ -96,9 +133,28 @@ describe("sign-in limits (RELIABILITY 29, 33)", () => {
     for (let i = 0; i < free; i++) await signInByPassword(MEMBER_EMAIL, "wrong");
     const shapes = [
       () => postAuth("/api/auth/callback/credentials", { json: { email: MEMBER_EMAIL, password: MEMBER_PASSWORD } }),
-      () => postAuth("/api/auth/callback/credentials", { form: [["email", OTHER_MEMBER_EMAIL], ["email", MEMBER_EMAIL], ["password", MEMBER_PASSWORD]] }),
-      () => postAuth("/api/auth/callback/credentials", { form: [["email", `  ${MEMBER_EMAIL.toUpperCase()} `], ["password", MEMBER_PASSWORD]] }),
-      () => postAuth("/api/auth/callback/credentials?email=someone%40else.example", { form: [["email", MEMBER_EMAIL], ["password", MEMBER_PASSWORD]] }),
+      () =>
+        postAuth("/api/auth/callback/credentials", {
+          form: [
+            ["email", OTHER_MEMBER_EMAIL],
+            ["email", MEMBER_EMAIL],
+            ["password", MEMBER_PASSWORD],
+          ],
+        }),
+      () =>
+        postAuth("/api/auth/callback/credentials", {
+          form: [
+            ["email", `  ${MEMBER_EMAIL.toUpperCase()} `],
+            ["password", MEMBER_PASSWORD],
+          ],
+        }),
+      () =>
+        postAuth("/api/auth/callback/credentials?email=someone%40else.example", {
+          form: [
+            ["email", MEMBER_EMAIL],
+            ["password", MEMBER_PASSWORD],
+          ],
+        }),
     ];
     for (const send of shapes) {
       const res = await send();
@@ -190,7 +246,8 @@ describe("the mail limits cannot be spent against a member (RELIABILITY 33)", ()
     const phone = new CookieJar();
     expect(signedIn(await signInByPassword(MEMBER_EMAIL, MEMBER_PASSWORD, { jar: phone }))).toBe(true);
     // From many addresses, past the account's hourly count.
-    for (let i = 0; i < 8; i++) await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] }, { headers: { "x-lodebook-client": `203.0.113.${i}` } });
+    for (let i = 0; i < 8; i++)
+      await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] }, { headers: { "x-lodebook-client": `203.0.113.${i}` } });
     const before = (await caughtMail()).length;
     expect(before).toBe(6);
     await postAuth("/api/auth/signin/nodemailer", { form: [["email", MEMBER_EMAIL]] }, { headers: { "x-lodebook-client": "203.0.113.99" } });
@@ -218,7 +275,13 @@ describe("sessions (RELIABILITY 35)", () => {
 
   it("after signing in, only paths on this site are followed", async () => {
     for (const callbackUrl of ["https://evil.example/", "//evil.example", "/\\evil.example", "/%09/evil.example", "/finds\n/x"]) {
-      const res = await postAuth("/api/auth/callback/credentials", { form: [["email", OTHER_MEMBER_EMAIL], ["password", MEMBER_PASSWORD], ["callbackUrl", callbackUrl]] });
+      const res = await postAuth("/api/auth/callback/credentials", {
+        form: [
+          ["email", OTHER_MEMBER_EMAIL],
+          ["password", MEMBER_PASSWORD],
+          ["callbackUrl", callbackUrl],
+        ],
+      });
       expect(res.status).toBe(302);
       expect(new URL(res.headers.get("location")!).origin).toBe(ORIGIN);
     }
@@ -245,7 +308,11 @@ describe("exports and mails are safe to open (RELIABILITY 37)", () => {
     }
     // A query on one of the member's finds, as the digest lists it.
     const find = db.$client.prepare("select id from finds where member_id = ? limit 1").get(m.id) as { id: string };
-    db.$client.prepare("insert into reviews (id, find_id, officer_id, action, note, created_at, seq) values (?, ?, ?, 'query', ?, ?, (select coalesce(max(seq), 0) + 1 from reviews))").run(crypto.randomUUID(), find.id, memberByEmail(db, OFFICER_EMAIL).id, "weight\u202e 0.2 g", Date.now());
+    db.$client
+      .prepare(
+        "insert into reviews (id, find_id, officer_id, action, note, created_at, seq) values (?, ?, ?, 'query', ?, ?, (select coalesce(max(seq), 0) + 1 from reviews))",
+      )
+      .run(crypto.randomUUID(), find.id, memberByEmail(db, OFFICER_EMAIL).id, "weight\u202e 0.2 g", Date.now());
     const text = digestText(buildDigest());
     expect(text).not.toMatch(/[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/);
     expect(text).toContain("weight 0.2 g");

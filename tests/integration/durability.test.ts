@@ -21,10 +21,14 @@ const findPrefix = (stream: number) => `0190a5f0-0000-7000-800${stream}-%`;
 function runUntilKilled(file: string, memberId: string, clientIds: string[], acked: number[], killAfter: number): Promise<number[]> {
   return new Promise((resolve, reject) => {
     const starts = acked.map((n) => n + 1).join(",");
-    const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/support/crash-child.ts", memberId, clientIds.join(","), starts], {
-      env: { ...process.env, DATABASE_URL: file, LODEBOOK_LOG: "silent" },
-      stdio: ["ignore", "pipe", "pipe"],
-    });
+    const child = spawn(
+      process.execPath,
+      ["--conditions=react-server", "--import", "tsx", "tests/support/crash-child.ts", memberId, clientIds.join(","), starts],
+      {
+        env: { ...process.env, DATABASE_URL: file, LODEBOOK_LOG: "silent" },
+        stdio: ["ignore", "pipe", "pipe"],
+      },
+    );
     const last = [...acked];
     let acks = 0;
     let buffer = "";
@@ -119,7 +123,9 @@ describe("the backup download", () => {
     await fsp.writeFile(out, bytes);
     const copy = new Database(out, { readonly: true });
     expect(copy.pragma("integrity_check", { simple: true })).toBe("ok");
-    expect((copy.prepare("select count(*) n from finds").get() as { n: number }).n).toBe((db.$client.prepare("select count(*) n from finds").get() as { n: number }).n);
+    expect((copy.prepare("select count(*) n from finds").get() as { n: number }).n).toBe(
+      (db.$client.prepare("select count(*) n from finds").get() as { n: number }).n,
+    );
     copy.close();
     await fsp.rm(out, { force: true });
   });

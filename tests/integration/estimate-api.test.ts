@@ -39,7 +39,14 @@ describe("POST /api/estimate", () => {
 
   it("separates gold from a host denser than 10 g/cm³ (the silver of a gold-silver crown)", async () => {
     // 800 g of gold (19.32, CRC Handbook) with 200 g of silver (10.49–10.50, CRC Handbook [memory]), volumes adding, 20 °C.
-    const res = await post({ method: "hanging", airGrams: [1000], waterGrams: [939.64], hostDensity: 10.495, hostDensityRange: [10.49, 10.5], finenessPermille: 1000 });
+    const res = await post({
+      method: "hanging",
+      airGrams: [1000],
+      waterGrams: [939.64],
+      hostDensity: 10.495,
+      hostDensityRange: [10.49, 10.5],
+      finenessPermille: 1000,
+    });
     expect(res.status).toBe(200);
     const { estimate } = await res.json();
     expect(estimate.goldAlloyGrams).toBeGreaterThan(780);

@@ -23,7 +23,9 @@ beforeAll(async () => {
 
 type Kept = { basis: string | null; fine: number | null; low: number | null; high: number | null; mismatch: number };
 const kept = (id: string) =>
-  db.$client.prepare("select fine_basis basis, latest_fine_grams fine, latest_fine_low low, latest_fine_high high, weigh_mismatch mismatch from finds where id = ?").get(id) as Kept;
+  db.$client
+    .prepare("select fine_basis basis, latest_fine_grams fine, latest_fine_low low, latest_fine_high high, weigh_mismatch mismatch from finds where id = ?")
+    .get(id) as Kept;
 
 let client = uuidv7();
 let next = 1;
@@ -65,7 +67,13 @@ describe("every find has a fine-gold figure, and says how it was reached (issue 
     const w = weighIn(s.id, 80, 46);
     expect((await send("weighIn.put", w)).status).toBe("applied");
     const estimate = estimateSpecimen(w.input);
-    expect(kept(s.id)).toMatchObject({ basis: "weighed", fine: estimate.fineGoldGrams, low: estimate.range.fineGoldGrams[0], high: estimate.range.fineGoldGrams[1], mismatch: 0 });
+    expect(kept(s.id)).toMatchObject({
+      basis: "weighed",
+      fine: estimate.fineGoldGrams,
+      low: estimate.range.fineGoldGrams[0],
+      high: estimate.range.fineGoldGrams[1],
+      mismatch: 0,
+    });
     await send("weighIn.delete", { id: w.id });
     expect(kept(s.id)).toMatchObject({ basis: null, fine: null });
   });
@@ -97,8 +105,23 @@ describe("every find has a fine-gold figure, and says how it was reached (issue 
     const c = claims[1];
     const before = { ...newFind(), kind: "nugget" as const, claimId: c.id, weightGrams: 10, foundAt: Date.UTC(2026, 6, 1) };
     await send("find.put", before);
-    const profile = { finenessLow: 880, finenessHigh: 920, finenessSource: "Melt of 2026-08: 212.4 g fine from 236.0 g", hostDensityLow: 2.62, hostDensityHigh: 2.68, hostDensitySource: "Club preset" };
-    const res = await putProfile(req(`/api/club/claims/${c.id}/profile`, { method: "PUT", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify(profile) }), { params: Promise.resolve({ id: c.id }) });
+    const profile = {
+      finenessLow: 880,
+      finenessHigh: 920,
+      finenessSource: "Melt of 2026-08: 212.4 g fine from 236.0 g",
+      hostDensityLow: 2.62,
+      hostDensityHigh: 2.68,
+      hostDensitySource: "Club preset",
+    };
+    const res = await putProfile(
+      req(`/api/club/claims/${c.id}/profile`, {
+        method: "PUT",
+        cookie: officer,
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(profile),
+      }),
+      { params: Promise.resolve({ id: c.id }) },
+    );
     expect(res.status).toBe(200);
     expect((await res.json()).fineness).toBe(900);
     const after = { ...newFind(), kind: "nugget" as const, claimId: c.id, weightGrams: 10, foundAt: Date.UTC(2026, 6, 2) };
@@ -108,7 +131,15 @@ describe("every find has a fine-gold figure, and says how it was reached (issue 
     // An edit that does not move the find keeps its figure's fineness.
     await send("find.put", { ...before, notes: "cleaned" });
     expect(kept(before.id).fine).toBe((10 * c.fineness) / 1000);
-    const refigure = await postRefigure(req(`/api/club/claims/${c.id}/refigure`, { method: "POST", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify({ season: 2026 }) }), { params: Promise.resolve({ id: c.id }) });
+    const refigure = await postRefigure(
+      req(`/api/club/claims/${c.id}/refigure`, {
+        method: "POST",
+        cookie: officer,
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ season: 2026 }),
+      }),
+      { params: Promise.resolve({ id: c.id }) },
+    );
     expect(refigure.status).toBe(200);
     expect((await refigure.json()).finds).toBeGreaterThanOrEqual(2);
     expect(kept(before.id).fine).toBe(9);
@@ -118,7 +149,10 @@ describe("every find has a fine-gold figure, and says how it was reached (issue 
 
   it("refuses a profile with its range upside down, no source, a host denser than rock, or a number as text", async () => {
     const c = claims[2];
-    const put = (body: unknown) => putProfile(req(`/x`, { method: "PUT", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), { params: Promise.resolve({ id: c.id }) });
+    const put = (body: unknown) =>
+      putProfile(req(`/x`, { method: "PUT", cookie: officer, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), {
+        params: Promise.resolve({ id: c.id }),
+      });
     const good = { finenessLow: 800, finenessHigh: 900, finenessSource: "Assays", hostDensityLow: 2.6, hostDensityHigh: 2.7, hostDensitySource: "Barren rock" };
     for (const [bad, field] of [
       [{ ...good, finenessLow: 950 }, "finenessLow"],
@@ -147,7 +181,14 @@ describe("figures kept on the find equal a recomputation after any sequence of c
     // Claims keep their fineness through this test, so "as it stood then" is "as it stands".
     const steady = claims.slice(2);
     const op = fc.oneof(
-      fc.record({ t: fc.constant("find" as const), slot: fc.nat(5), kind: fc.constantFrom("nugget", "specimen", "flakes", "fines", "crystalline"), weight: fc.option(fc.integer({ min: 1, max: 5000 }).map((n) => n / 10)), purity: fc.option(fc.integer({ min: 500, max: 1000 })), claim: fc.option(fc.nat(steady.length - 1)) }),
+      fc.record({
+        t: fc.constant("find" as const),
+        slot: fc.nat(5),
+        kind: fc.constantFrom("nugget", "specimen", "flakes", "fines", "crystalline"),
+        weight: fc.option(fc.integer({ min: 1, max: 5000 }).map((n) => n / 10)),
+        purity: fc.option(fc.integer({ min: 500, max: 1000 })),
+        claim: fc.option(fc.nat(steady.length - 1)),
+      }),
       fc.record({ t: fc.constant("weigh" as const), slot: fc.nat(5), w: fc.nat(3), air: fc.integer({ min: 200, max: 2000 }).map((n) => n / 10) }),
       fc.record({ t: fc.constant("unweigh" as const), w: fc.nat(3) }),
       fc.record({ t: fc.constant("delete" as const), slot: fc.nat(5) }),
@@ -184,13 +225,17 @@ describe("the rule lives in one place", () => {
   it("the database's triggers are exactly the rule's text in db/fine-figure.ts", async () => {
     const { figureTriggersSql } = await import("@/server/db/fine-figure");
     const norm = (s: string) => s.replace(/\s+/g, " ").trim();
-    const inDb = (db.$client.prepare("select sql from sqlite_master where type = 'trigger' and name like 'finds_figure%' order by name").all() as { sql: string }[]).map((r) => norm(r.sql));
+    const inDb = (
+      db.$client.prepare("select sql from sqlite_master where type = 'trigger' and name like 'finds_figure%' order by name").all() as { sql: string }[]
+    ).map((r) => norm(r.sql));
     expect(inDb).toEqual(figureTriggersSql().map(norm).sort());
   });
 
   it("the ledger's totals read its covering index, never the table", () => {
     const plan = db.$client
-      .prepare("explain query plan select count(*), sum(weight_grams), sum(latest_fine_grams), sum(latest_fine_low), sum(latest_fine_high), sum(weigh_mismatch) from finds where deleted_at is null and found_at >= ? and found_at < ?")
+      .prepare(
+        "explain query plan select count(*), sum(weight_grams), sum(latest_fine_grams), sum(latest_fine_low), sum(latest_fine_high), sum(weigh_mismatch) from finds where deleted_at is null and found_at >= ? and found_at < ?",
+      )
       .all(0, 1) as { detail: string }[];
     expect(plan.map((p) => p.detail).join(" ")).toMatch(/COVERING INDEX finds_ledger/);
   });

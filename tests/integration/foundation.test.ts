@@ -14,8 +14,25 @@ const noCtx = {} as never;
 describe("database", () => {
   it("applies every migration to an empty file, with WAL, foreign keys and a busy timeout", () => {
     const { db } = freshDatabase();
-    const tables = db.$client.prepare("select name from sqlite_master where type = 'table'").all().map((r) => (r as { name: string }).name);
-    for (const t of ["members", "invitations", "claims", "outings", "finds", "photos", "weigh_ins", "reviews", "reference_prices", "sync_clients", "sequences", "audit_log", "record_history"]) {
+    const tables = db.$client
+      .prepare("select name from sqlite_master where type = 'table'")
+      .all()
+      .map((r) => (r as { name: string }).name);
+    for (const t of [
+      "members",
+      "invitations",
+      "claims",
+      "outings",
+      "finds",
+      "photos",
+      "weigh_ins",
+      "reviews",
+      "reference_prices",
+      "sync_clients",
+      "sequences",
+      "audit_log",
+      "record_history",
+    ]) {
       expect(tables).toContain(t);
     }
     expect(db.$client.pragma("journal_mode", { simple: true })).toBe("wal");
@@ -35,7 +52,9 @@ describe("database", () => {
   it("shows a whole query thread from the demo member's first sign-in: one query answered, the find's state answered", async () => {
     const { db } = await seededDatabase();
     const rows = db.$client
-      .prepare("select f.review_state state, r.action, a.note from answers a join reviews r on r.id = a.review_id join finds f on f.id = a.find_id join members m on m.id = a.member_id where m.email = 'ines@quillmarsh.example' and r.find_id = a.find_id")
+      .prepare(
+        "select f.review_state state, r.action, a.note from answers a join reviews r on r.id = a.review_id join finds f on f.id = a.find_id join members m on m.id = a.member_id where m.email = 'ines@quillmarsh.example' and r.find_id = a.find_id",
+      )
       .all() as { state: string; action: string; note: string }[];
     expect(rows).toHaveLength(1);
     expect(rows[0]).toMatchObject({ state: "answered", action: "query" });
@@ -45,7 +64,10 @@ describe("database", () => {
   it("gives the demo club 2 officers, 6 members, 4 claims with closed polygon boundaries, and weigh-ins", async () => {
     const { db } = await seededDatabase();
     const roles = db.$client.prepare("select role, count(*) as n from members group by role order by role").all();
-    expect(roles).toEqual([{ role: "member", n: 6 }, { role: "officer", n: 2 }]);
+    expect(roles).toEqual([
+      { role: "member", n: 6 },
+      { role: "officer", n: 2 },
+    ]);
     const claims = db.$client.prepare("select boundary from claims").all() as { boundary: string }[];
     expect(claims).toHaveLength(4);
     for (const c of claims) {
@@ -53,7 +75,11 @@ describe("database", () => {
       expect(ring.length).toBeGreaterThanOrEqual(4);
       expect(ring[0]).toEqual(ring[ring.length - 1]);
     }
-    const counts = db.$client.prepare("select (select count(*) from outings) o, (select count(*) from finds) f, (select count(*) from weigh_ins) w").get() as { o: number; f: number; w: number };
+    const counts = db.$client.prepare("select (select count(*) from outings) o, (select count(*) from finds) f, (select count(*) from weigh_ins) w").get() as {
+      o: number;
+      f: number;
+      w: number;
+    };
     expect(counts.o).toBeGreaterThan(40);
     expect(counts.f).toBeGreaterThan(40);
     expect(counts.w).toBeGreaterThan(5);
@@ -101,7 +127,10 @@ describe("route handlers check the session and the role themselves", () => {
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);
     db.update(members).set({ active: false }).where(eq(members.id, member.id)).run();
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
-    db.update(members).set({ active: true, sessionVersion: member.sv + 1 }).where(eq(members.id, member.id)).run();
+    db.update(members)
+      .set({ active: true, sessionVersion: member.sv + 1 })
+      .where(eq(members.id, member.id))
+      .run();
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(401);
   });
 
@@ -109,7 +138,12 @@ describe("route handlers check the session and the role themselves", () => {
     const { db } = await seededDatabase();
     const member = memberByEmail(db, MEMBER_EMAIL);
     const name = "authjs.session-token";
-    const token = await encode({ token: { sub: member.id, sv: member.sv, sid: openSession(member.id) }, secret: process.env.AUTH_SECRET!, salt: name, maxAge: 60 });
+    const token = await encode({
+      token: { sub: member.id, sv: member.sv, sid: openSession(member.id) },
+      secret: process.env.AUTH_SECRET!,
+      salt: name,
+      maxAge: 60,
+    });
     const cookie = `${name}=${token}`;
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);
     expect((await getMe(req("/api/me", { cookie }), noCtx)).status).toBe(200);

@@ -25,7 +25,14 @@ describe("the caller's address: forwarding headers count only behind trusted pro
   it("settles the headers the app reads: the client's copies of forwarding and address headers do not survive", () => {
     const req = new http.IncomingMessage(null as never);
     Object.defineProperty(req, "socket", { value: { remoteAddress: "198.51.100.7" } });
-    req.headers = { [CLIENT_HEADER]: "1.1.1.1", "x-forwarded-for": "1.1.1.1", "x-forwarded-host": "evil.example", "x-forwarded-proto": "https", "x-real-ip": "1.1.1.1", forwarded: "for=1.1.1.1" };
+    req.headers = {
+      [CLIENT_HEADER]: "1.1.1.1",
+      "x-forwarded-for": "1.1.1.1",
+      "x-forwarded-host": "evil.example",
+      "x-forwarded-proto": "https",
+      "x-real-ip": "1.1.1.1",
+      forwarded: "for=1.1.1.1",
+    };
     settleForwardingHeaders(req, 0);
     expect(req.headers[CLIENT_HEADER]).toBe("198.51.100.7");
     expect(req.headers["x-forwarded-for"]).toBe("198.51.100.7");

@@ -10,7 +10,7 @@ describe("the large-club generator", () => {
   const { db } = freshDatabase();
   const size = { members: 12, finds: 300, weighIns: 1200, claims: 3, priceMonths: 6 };
   seedLargeClub(db, size);
-  const one = <T,>(q: string) => db.$client.prepare(q).get() as T;
+  const one = <T>(q: string) => db.$client.prepare(q).get() as T;
 
   it("makes what it is asked for", () => {
     expect(one<{ n: number }>("select count(*) n from members").n).toBe(size.members);

@@ -47,7 +47,18 @@ function bigJpeg(seed: number, width = 500, height = 400): Buffer {
 
 async function recordPhoto(bytes: Buffer, opts: { sha256?: string } = {}) {
   const find = newFind();
-  const photo = { id: uuidv7(), findId: find.id, sha256: opts.sha256 ?? sha(bytes), contentType: "image/jpeg", bytes: bytes.length, width: 10, height: 10, takenAt: null, lat: null, lon: null };
+  const photo = {
+    id: uuidv7(),
+    findId: find.id,
+    sha256: opts.sha256 ?? sha(bytes),
+    contentType: "image/jpeg",
+    bytes: bytes.length,
+    width: 10,
+    height: 10,
+    takenAt: null,
+    lat: null,
+    lon: null,
+  };
   const res = await push(member, uuidv7(), [
     { id: 1, name: "find.put", args: find },
     { id: 2, name: "photo.put", args: photo },
@@ -57,7 +68,16 @@ async function recordPhoto(bytes: Buffer, opts: { sha256?: string } = {}) {
 }
 
 const chunk = (id: string, offset: number | string, body: Uint8Array | ReadableStream<Uint8Array>, cookie = member) =>
-  PUT(req(`/api/photos/${id}/upload?offset=${offset}`, { method: "PUT", cookie, headers: { "content-type": "application/octet-stream", ...(body instanceof Uint8Array ? { "content-length": String(body.byteLength) } : {}) }, body, duplex: "half" } as RequestInit & { cookie: string }), ctx(id));
+  PUT(
+    req(`/api/photos/${id}/upload?offset=${offset}`, {
+      method: "PUT",
+      cookie,
+      headers: { "content-type": "application/octet-stream", ...(body instanceof Uint8Array ? { "content-length": String(body.byteLength) } : {}) },
+      body,
+      duplex: "half",
+    } as RequestInit & { cookie: string }),
+    ctx(id),
+  );
 const status = async (id: string, cookie = member) => GET(req(`/api/photos/${id}/upload`, { cookie }), ctx(id));
 const partialFile = (id: string) => path.join(photoDir, ".partial", memberId, id);
 
@@ -128,7 +148,10 @@ describe("resumable photo uploads (issue 17: camp sync over a poor link)", () =>
     const past = await chunk(id, 0, Buffer.concat([bytes, Buffer.alloc(10)]));
     expect(past.status).toBe(400);
     expect(((await past.json()) as { error: { fields: object } }).error.fields).toHaveProperty("offset");
-    const wrongType = await PUT(req(`/api/photos/${id}/upload?offset=0`, { method: "PUT", cookie: member, headers: { "content-type": "text/plain" }, body: "x" }), ctx(id));
+    const wrongType = await PUT(
+      req(`/api/photos/${id}/upload?offset=0`, { method: "PUT", cookie: member, headers: { "content-type": "text/plain" }, body: "x" }),
+      ctx(id),
+    );
     expect(wrongType.status).toBe(415);
     expect((await status(uuidv7())).status).toBe(404);
   });
@@ -146,7 +169,11 @@ describe("resumable photo uploads (issue 17: camp sync over a poor link)", () =>
   it("partial uploads count toward the member's photo space", async () => {
     const first = bigJpeg(5);
     const second = bigJpeg(6);
-    const stored = (db.$client.prepare("select coalesce(sum(stored_bytes), 0) as n from photos where member_id = ? and storage_key is not null").get(memberId) as { n: number }).n;
+    const stored = (
+      db.$client.prepare("select coalesce(sum(stored_bytes), 0) as n from photos where member_id = ? and storage_key is not null").get(memberId) as {
+        n: number;
+      }
+    ).n;
     vi.stubEnv("LODEBOOK_PHOTO_QUOTA_MB", String((stored + first.length + CHUNK) / 1024 / 1024));
     const a = await recordPhoto(first);
     const b = await recordPhoto(second);

@@ -21,8 +21,12 @@ const change = async (id: string, value: unknown) => {
   const res = await changePrice(req(`/api/club/prices/${id}`, body("POST", value)), { params: Promise.resolve({ id }) });
   return { status: res.status, json: await res.json() };
 };
-const latestPrice = () => db.$client.prepare("select id, price_per_troy_ounce p from reference_prices where withdrawn_at is null order by effective_on desc, created_at desc limit 1").get() as { id: string; p: number };
-const todayValue = async () => (await (await getLedger(req("/api/club/ledger?price=today&pageSize=1", { cookie: officer }), none)).json()).summary as { value: number; fineGrams: number };
+const latestPrice = () =>
+  db.$client
+    .prepare("select id, price_per_troy_ounce p from reference_prices where withdrawn_at is null order by effective_on desc, created_at desc limit 1")
+    .get() as { id: string; p: number };
+const todayValue = async () =>
+  (await (await getLedger(req("/api/club/ledger?price=today&pageSize=1", { cookie: officer }), none)).json()).summary as { value: number; fineGrams: number };
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
@@ -62,12 +66,19 @@ describe("reference prices an officer can trust and correct (issue 15)", () => {
     const before = await todayValue();
     expect(before.value).toBeCloseTo((before.fineGrams / TROY_OUNCE_GRAMS) * wrong.p, 6);
     const fixed = Math.round(wrong.p / 1.6);
-    const r = await change(wrong.id, { action: "replace", price: { effectiveOn: "2026-11-22", pricePerTroyOunce: fixed, currency: "USD", note: "typed 1.6 times too high", confirmJump: true } });
+    const r = await change(wrong.id, {
+      action: "replace",
+      price: { effectiveOn: "2026-11-22", pricePerTroyOunce: fixed, currency: "USD", note: "typed 1.6 times too high", confirmJump: true },
+    });
     expect(r.status).toBe(200);
     expect(r.json.withdrawn).toBe(wrong.id);
     const after = await todayValue();
     expect(after.value).toBeCloseTo((after.fineGrams / TROY_OUNCE_GRAMS) * fixed, 6);
-    const rows = db.$client.prepare("select id, withdrawn_at w, replaces from reference_prices where id in (?, ?)").all(wrong.id, r.json.id) as { id: string; w: number | null; replaces: string | null }[];
+    const rows = db.$client.prepare("select id, withdrawn_at w, replaces from reference_prices where id in (?, ?)").all(wrong.id, r.json.id) as {
+      id: string;
+      w: number | null;
+      replaces: string | null;
+    }[];
     expect(rows.find((x) => x.id === wrong.id)!.w).not.toBeNull();
     expect(rows.find((x) => x.id === r.json.id)!.replaces).toBe(wrong.id);
     const audit = db.$client.prepare("select action from audit_log where entity = 'price' order by rowid").all() as { action: string }[];
@@ -92,7 +103,8 @@ describe("reference prices an officer can trust and correct (issue 15)", () => {
   });
 
   it("the club's currency changes only once no price in another is in force", async () => {
-    const put = (currency: string) => putSettings(req("/api/club/settings", body("PUT", { name: "Quillmarsh Gulch Prospectors", currency, timeZone: "America/Los_Angeles" })), none);
+    const put = (currency: string) =>
+      putSettings(req("/api/club/settings", body("PUT", { name: "Quillmarsh Gulch Prospectors", currency, timeZone: "America/Los_Angeles" })), none);
     const refused = await put("EUR");
     expect(refused.status).toBe(409);
     expect((await refused.json()).error.message).toMatch(/in force in USD/);

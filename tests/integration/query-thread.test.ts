@@ -27,7 +27,7 @@ let mail: Awaited<ReturnType<typeof startTestMail>>;
 const ORIGIN = "https://club.example";
 const ctx = (id: string) => ({ params: Promise.resolve({ id }) });
 const json = (body: unknown, cookie: string) => ({ method: "POST", cookie, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-const sql = <T,>(q: string, ...args: unknown[]) => db.$client.prepare(q).get(...args) as T;
+const sql = <T>(q: string, ...args: unknown[]) => db.$client.prepare(q).get(...args) as T;
 const stateOf = (id: string) => sql<{ s: string }>("select review_state s from finds where id = ?", id).s;
 
 /** Server times are milliseconds: the next step starts in a later one, so "after" is strictly after. */
@@ -76,7 +76,7 @@ beforeEach(async () => {
 afterEach(() => vi.unstubAllEnvs());
 
 describe("a review reaches the member's device with its time", () => {
-  it("the pull carries each review's server time, and the device keeps it (no more \"Invalid Date\")", async () => {
+  it('the pull carries each review\'s server time, and the device keeps it (no more "Invalid Date")', async () => {
     const f = newFind();
     await send("find.put", f);
     const queryId = await review(f.id, "query", "Which side of the creek?");
@@ -120,10 +120,14 @@ describe("the query thread's states", () => {
     const answer = { id: uuidv7(), findId: f.id, reviewId: first, note: "Typed 42.5 for 4.25; corrected." };
     expect((await send("answer.put", answer)).status).toBe("applied");
     expect(await ledgerRow(f.id)).toMatchObject({ state: "answered", changedSinceQuery: true });
-    const filtered = (await (await getLedger(req("/api/club/ledger?state=answered&pageSize=200", { cookie: officer }), {} as never)).json()) as { rows: LedgerRow[] };
+    const filtered = (await (await getLedger(req("/api/club/ledger?state=answered&pageSize=200", { cookie: officer }), {} as never)).json()) as {
+      rows: LedgerRow[];
+    };
     expect(filtered.rows.map((r) => r.id)).toContain(f.id);
     const { changes } = await pullAll(member, uuidv7());
-    expect(changes).toContainEqual(expect.objectContaining({ entity: "answer", op: "put", value: expect.objectContaining({ id: answer.id, reviewId: first, note: answer.note }) }));
+    expect(changes).toContainEqual(
+      expect.objectContaining({ entity: "answer", op: "put", value: expect.objectContaining({ id: answer.id, reviewId: first, note: answer.note }) }),
+    );
 
     // The officer verifies: verified, nothing to look at again.
     await review(f.id, "verify");
@@ -174,7 +178,7 @@ describe("the query thread's states", () => {
 });
 
 describe("what to look at again", () => {
-  it("the ledger's \"changed since the query\" filter selects exactly the queried or answered finds changed after their latest query, and the CSV says so", async () => {
+  it('the ledger\'s "changed since the query" filter selects exactly the queried or answered finds changed after their latest query, and the CSV says so', async () => {
     const [untouched, edited, reweighed, answeredOnly, verified] = [newFind(), newFind(), newFind(), newFind(), newFind()];
     for (const f of [untouched, edited, reweighed, answeredOnly, verified]) await send("find.put", f);
     const queries = new Map<string, string>();
@@ -194,7 +198,12 @@ describe("what to look at again", () => {
     };
     const mine = [untouched, edited, reweighed, answeredOnly, verified].map((f) => f.id);
     const changed = await listed(`memberId=${memberId}&state=changed`);
-    expect(changed.rows.map((r) => r.id).filter((id) => mine.includes(id)).sort()).toEqual([edited.id, reweighed.id].sort());
+    expect(
+      changed.rows
+        .map((r) => r.id)
+        .filter((id) => mine.includes(id))
+        .sort(),
+    ).toEqual([edited.id, reweighed.id].sort());
     expect(changed.rows.every((r) => r.changedSinceQuery && (r.state === "queried" || r.state === "answered"))).toBe(true);
     // The totals count what the filter selects, not the whole ledger.
     expect(changed.summary.finds).toBe(changed.rows.length);

@@ -17,7 +17,12 @@ let claimId: string;
 let otherClaimId: string;
 let dir: string;
 const none = { params: Promise.resolve({}) };
-const json = (method: string, body: unknown, cookie = officer) => ({ method, cookie, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+const json = (method: string, body: unknown, cookie = officer) => ({
+  method,
+  cookie,
+  headers: { "content-type": "application/json" },
+  body: JSON.stringify(body),
+});
 
 beforeAll(async () => {
   ({ db } = await seededDatabase());
@@ -35,7 +40,11 @@ afterAll(() => {
 /** Nuggets on the claim, pushed by the member; their weights sum to `total`. */
 async function nuggets(weights: number[], claim = claimId) {
   const finds = weights.map((w) => ({ ...newFind(), kind: "nugget" as const, claimId: claim, weightGrams: w, foundAt: Date.UTC(2026, 7, 10) }));
-  const res = await push(member, uuidv7(), finds.map((f, i) => ({ id: i + 1, name: "find.put", args: f })));
+  const res = await push(
+    member,
+    uuidv7(),
+    finds.map((f, i) => ({ id: i + 1, name: "find.put", args: f })),
+  );
   expect(res.body.results.every((r) => r.status === "applied")).toBe(true);
   return finds.map((f) => f.id);
 }
@@ -43,7 +52,8 @@ const record = async (body: Record<string, unknown>) => {
   const res = await postRecovery(req("/api/club/recoveries", json("POST", { claimId, recordedOn: "2026-09-01", ...body })), none);
   return { status: res.status, body: await res.json() };
 };
-const figure = (id: string) => db.$client.prepare("select fine_basis basis, latest_fine_grams fine from finds where id = ?").get(id) as { basis: string; fine: number };
+const figure = (id: string) =>
+  db.$client.prepare("select fine_basis basis, latest_fine_grams fine from finds where id = ?").get(id) as { basis: string; fine: number };
 
 describe("what the club recovers (issue 15)", () => {
   it("a melt shares its fine gold among the finds by their estimates; they are figured from it from then on", async () => {
@@ -73,7 +83,17 @@ describe("what the club recovers (issue 15)", () => {
     expect(body.comparison.ratios).toHaveLength(2);
     // Accepting it: later finds on the claim are figured with it.
     const put = await putProfile(
-      req(`/api/club/claims/${claimId}/profile`, json("PUT", { finenessLow: body.proposal.low, finenessHigh: body.proposal.high, finenessSource: "Proposed from 2 melts of 2026", hostDensityLow: 2.62, hostDensityHigh: 2.68, hostDensitySource: "Club preset" })),
+      req(
+        `/api/club/claims/${claimId}/profile`,
+        json("PUT", {
+          finenessLow: body.proposal.low,
+          finenessHigh: body.proposal.high,
+          finenessSource: "Proposed from 2 melts of 2026",
+          hostDensityLow: 2.62,
+          hostDensityHigh: 2.68,
+          hostDensitySource: "Club preset",
+        }),
+      ),
       { params: Promise.resolve({ id: claimId }) },
     );
     expect(put.status).toBe(200);
@@ -102,7 +122,10 @@ describe("what the club recovers (issue 15)", () => {
   it("keeps the melt's document: a PDF or an image by its bytes, served to officers only as a download", async () => {
     const r = await record({ kind: "assay", fineGrams: 4.4, fineness: 910, findIds: await nuggets([4.8]) });
     const id = r.body.id as string;
-    const put = (bytes: string, cookie = officer) => putDocument(req(`/x`, { method: "PUT", cookie, headers: { "content-type": "application/pdf", "x-file-name": "assay <report>.pdf" }, body: bytes }), { params: Promise.resolve({ id }) });
+    const put = (bytes: string, cookie = officer) =>
+      putDocument(req(`/x`, { method: "PUT", cookie, headers: { "content-type": "application/pdf", "x-file-name": "assay <report>.pdf" }, body: bytes }), {
+        params: Promise.resolve({ id }),
+      });
     expect((await put("<html><script>alert(1)</script></html>")).status).toBe(415);
     expect((await put("%PDF-1.4\n% an invented assay report\n", member)).status).toBe(403);
     expect((await put("%PDF-1.4\n% an invented assay report\n")).status).toBe(200);

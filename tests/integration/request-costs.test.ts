@@ -29,7 +29,18 @@ beforeAll(async () => {
   member = await sessionCookie(memberByEmail(db, MEMBER_EMAIL));
   const find = newFind();
   photoId = uuidv7();
-  const photo = { id: photoId, findId: find.id, sha256: "0".repeat(64), contentType: "image/jpeg", bytes: 1000, width: 10, height: 10, takenAt: null, lat: null, lon: null };
+  const photo = {
+    id: photoId,
+    findId: find.id,
+    sha256: "0".repeat(64),
+    contentType: "image/jpeg",
+    bytes: 1000,
+    width: 10,
+    height: 10,
+    takenAt: null,
+    lat: null,
+    lon: null,
+  };
   const res = await push(member, uuidv7(), [
     { id: 1, name: "find.put", args: find },
     { id: 2, name: "photo.put", args: photo },
@@ -84,9 +95,24 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
     const { body, sent } = hostileStream(HOSTILE_BYTES);
     const isPhoto = key.startsWith("PUT /api/photos");
     const isChunk = key.endsWith("/upload");
-    const path = key.split(" ")[1].replace("[id]", isPhoto ? photoId : uuidv7()).replace("[...nextauth]", "callback/credentials") + (isChunk ? "?offset=0" : "");
-    const type = isChunk ? "application/octet-stream" : isPhoto ? "image/jpeg" : key.includes("nextauth") ? "application/x-www-form-urlencoded" : "application/json";
-    const request = new Request(new URL(path, "http://localhost:3000"), { method: h.method, headers: { "content-type": type, cookie: isPhoto ? member : officer }, body, duplex: "half" } as RequestInit);
+    const path =
+      key
+        .split(" ")[1]
+        .replace("[id]", isPhoto ? photoId : uuidv7())
+        .replace("[...nextauth]", "callback/credentials") + (isChunk ? "?offset=0" : "");
+    const type = isChunk
+      ? "application/octet-stream"
+      : isPhoto
+        ? "image/jpeg"
+        : key.includes("nextauth")
+          ? "application/x-www-form-urlencoded"
+          : "application/json";
+    const request = new Request(new URL(path, "http://localhost:3000"), {
+      method: h.method,
+      headers: { "content-type": type, cookie: isPhoto ? member : officer },
+      body,
+      duplex: "half",
+    } as RequestInit);
     const res = await handler(request, { params: Promise.resolve({ id: isPhoto ? photoId : uuidv7(), nextauth: ["callback", "credentials"] }) });
     expect(res.status).toBeGreaterThanOrEqual(400);
     expect(res.status).toBeLessThan(500);
@@ -135,7 +161,11 @@ describe("work proportional to a member's data is set-based and bounded (RELIABI
     // A member with a few thousand finds.
     const finds = Array.from({ length: 3000 }, () => newFind());
     for (let i = 0; i < finds.length; i += 500) {
-      const res = await push(member, uuidv7(), finds.slice(i, i + 500).map((f, j) => ({ id: j + 1, name: "find.put", args: f })));
+      const res = await push(
+        member,
+        uuidv7(),
+        finds.slice(i, i + 500).map((f, j) => ({ id: j + 1, name: "find.put", args: f })),
+      );
       expect(res.status).toBe(200);
     }
     const owned = (sqlite.prepare("select count(*) as n from finds where member_id = ?").get(m.id) as { n: number }).n;

@@ -25,7 +25,14 @@ beforeAll(async () => {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-s3-"));
   server = new S3rver({ port, address: "127.0.0.1", directory: dir, silent: true, configureBuckets: [{ name: "club-photos", configs: [] }] });
   await server.run();
-  storage = new S3Storage({ bucket: "club-photos", region: "us-east-1", endpoint: `http://127.0.0.1:${port}`, accessKeyId: "S3RVER", secretAccessKey: "S3RVER", prefix: "test/" });
+  storage = new S3Storage({
+    bucket: "club-photos",
+    region: "us-east-1",
+    endpoint: `http://127.0.0.1:${port}`,
+    accessKeyId: "S3RVER",
+    secretAccessKey: "S3RVER",
+    prefix: "test/",
+  });
 });
 afterAll(async () => {
   setPhotoStorage(undefined);
@@ -53,7 +60,18 @@ describe("photo storage on an S3-compatible bucket (a local fake on loopback)", 
     const cookie = await sessionCookie(memberByEmail(db, MEMBER_EMAIL));
     const bytes = makeJpeg({ width: 64, height: 48 });
     const find = newFind();
-    const photo = { id: v7(), findId: find.id, sha256: crypto.createHash("sha256").update(bytes).digest("hex"), contentType: "image/jpeg", bytes: bytes.length, width: 64, height: 48, takenAt: null, lat: null, lon: null };
+    const photo = {
+      id: v7(),
+      findId: find.id,
+      sha256: crypto.createHash("sha256").update(bytes).digest("hex"),
+      contentType: "image/jpeg",
+      bytes: bytes.length,
+      width: 64,
+      height: 48,
+      takenAt: null,
+      lat: null,
+      lon: null,
+    };
     await push(cookie, v7(), [
       { id: 1, name: "find.put", args: find },
       { id: 2, name: "photo.put", args: photo },

@@ -17,14 +17,37 @@ type Handler = (req: Request, ctx: unknown) => Response | Promise<Response>;
 
 let db: Db;
 const cookies: Record<Role, string> = { anonymous: "", member: "", other: "", officer: "" };
-const fixture = { photoToUpload: "", photoToRead: "", photoBytes: Buffer.alloc(0) as Buffer, readBytes: Buffer.alloc(0) as Buffer, find: "", invitation: "", claim: "", claimName: "", bystander: "", otherLat: "", memberLat: "" };
+const fixture = {
+  photoToUpload: "",
+  photoToRead: "",
+  photoBytes: Buffer.alloc(0) as Buffer,
+  readBytes: Buffer.alloc(0) as Buffer,
+  find: "",
+  invitation: "",
+  claim: "",
+  claimName: "",
+  bystander: "",
+  otherLat: "",
+  memberLat: "",
+};
 
 const sha = (b: Buffer) => crypto.createHash("sha256").update(b).digest("hex");
 const json = (method: string, body: unknown) => ({ method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
 
 async function photoRecord(cookie: string, bytes: Buffer, withFind = true) {
   const find = newFind();
-  const photo = { id: uuidv7(), findId: find.id, sha256: sha(bytes), contentType: "image/jpeg", bytes: bytes.length, width: 64, height: 48, takenAt: null, lat: null, lon: null };
+  const photo = {
+    id: uuidv7(),
+    findId: find.id,
+    sha256: sha(bytes),
+    contentType: "image/jpeg",
+    bytes: bytes.length,
+    width: 64,
+    height: 48,
+    takenAt: null,
+    lat: null,
+    lon: null,
+  };
   const muts = [...(withFind ? [{ id: 1, name: "find.put", args: find }] : []), { id: withFind ? 2 : 1, name: "photo.put", args: photo }];
   const res = await push(cookie, uuidv7(), muts);
   expect(res.body.results.every((r) => r.status === "applied")).toBe(true);
@@ -45,11 +68,18 @@ beforeAll(async () => {
   fixture.photoToUpload = await photoRecord(cookies.member, fixture.photoBytes);
   fixture.photoToRead = await photoRecord(cookies.member, fixture.readBytes);
   const { PUT } = await import("@/app/api/photos/[id]/route");
-  expect((await PUT(req("/x", { method: "PUT", cookie: cookies.member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(fixture.readBytes) }), { params: Promise.resolve({ id: fixture.photoToRead }) })).status).toBe(201);
+  expect(
+    (
+      await PUT(req("/x", { method: "PUT", cookie: cookies.member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(fixture.readBytes) }), {
+        params: Promise.resolve({ id: fixture.photoToRead }),
+      })
+    ).status,
+  ).toBe(201);
   fixture.find = (db.$client.prepare("select id from finds where member_id = ? limit 1").get(m.id) as { id: string }).id;
   ({ id: fixture.claim, name: fixture.claimName } = db.$client.prepare("select id, name from claims limit 1").get() as { id: string; name: string });
   const other = memberByEmail(db, OTHER_MEMBER_EMAIL);
-  const latOf = (id: string) => String((db.$client.prepare("select lat from finds where member_id = ? and lat is not null limit 1").get(id) as { lat: number }).lat);
+  const latOf = (id: string) =>
+    String((db.$client.prepare("select lat from finds where member_id = ? and lat is not null limit 1").get(id) as { lat: number }).lat);
   fixture.otherLat = latOf(other.id);
   fixture.memberLat = latOf(m.id);
 });
@@ -66,21 +96,40 @@ const SIGNED_IN = (ok: number | number[]) => ({ anonymous: 401, member: ok, othe
 
 const MATRIX: Record<string, Row> = {
   "GET /api/auth/[...nextauth]": { expect: ALL(200), request: () => ({ url: "/api/auth/csrf" }) },
-  "POST /api/auth/[...nextauth]": { expect: ALL([302, 400]), request: () => ({ url: "/api/auth/callback/credentials", init: { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: "email=x%40y.example&password=nope" } }) },
+  "POST /api/auth/[...nextauth]": {
+    expect: ALL([302, 400]),
+    request: () => ({
+      url: "/api/auth/callback/credentials",
+      init: { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: "email=x%40y.example&password=nope" },
+    }),
+  },
   "GET /api/me": { expect: SIGNED_IN(200), request: () => ({}) },
   "POST /api/estimate": { expect: ALL(200), request: () => ({ init: json("POST", { method: "hanging", airGrams: [10], waterGrams: [6] }) }) },
-  "POST /api/sync/push": { expect: SIGNED_IN(200), request: () => ({ init: json("POST", { protocolVersion: 1, clientId: uuidv7(), mutations: [{ id: 1, name: "find.put", args: newFind() }] }) }) },
+  "POST /api/sync/push": {
+    expect: SIGNED_IN(200),
+    request: () => ({ init: json("POST", { protocolVersion: 1, clientId: uuidv7(), mutations: [{ id: 1, name: "find.put", args: newFind() }] }) }),
+  },
   "GET /api/sync/pull": { expect: SIGNED_IN(200), request: () => ({ url: `/api/sync/pull?protocolVersion=1&clientId=${uuidv7()}&cursor=0&limit=50` }) },
   "PUT /api/photos/[id]": {
     expect: { anonymous: 401, member: [200, 201], other: 404, officer: 404 },
-    request: () => ({ id: fixture.photoToUpload, init: { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(fixture.photoBytes) } }),
+    request: () => ({
+      id: fixture.photoToUpload,
+      init: { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(fixture.photoBytes) },
+    }),
   },
   // A chunk of another's photo, or an officer's, is as unknown as a guessed id (404).
   "PUT /api/photos/[id]/upload": {
     expect: { anonymous: 401, member: [200, 201], other: 404, officer: 404 },
-    request: () => ({ id: fixture.photoToUpload, url: `/api/photos/${fixture.photoToUpload}/upload?offset=0`, init: { method: "PUT", headers: { "content-type": "application/octet-stream" }, body: new Uint8Array(fixture.photoBytes) } }),
+    request: () => ({
+      id: fixture.photoToUpload,
+      url: `/api/photos/${fixture.photoToUpload}/upload?offset=0`,
+      init: { method: "PUT", headers: { "content-type": "application/octet-stream" }, body: new Uint8Array(fixture.photoBytes) },
+    }),
   },
-  "GET /api/photos/[id]/upload": { expect: { anonymous: 401, member: 200, other: 404, officer: 404 }, request: () => ({ id: fixture.photoToRead, url: `/api/photos/${fixture.photoToRead}/upload` }) },
+  "GET /api/photos/[id]/upload": {
+    expect: { anonymous: 401, member: 200, other: 404, officer: 404 },
+    request: () => ({ id: fixture.photoToRead, url: `/api/photos/${fixture.photoToRead}/upload` }),
+  },
   "GET /api/photos/[id]": { expect: { anonymous: 401, member: 200, other: 404, officer: 200 }, request: () => ({ id: fixture.photoToRead }) },
   "GET /api/club/members": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "PATCH /api/club/members/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.bystander, init: json("PATCH", { active: true }) }) },
@@ -88,25 +137,56 @@ const MATRIX: Record<string, Row> = {
   "GET /api/club/ledger/csv": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "GET /api/club/ledger/geojson": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "GET /api/club/finds/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.find }) },
-  "POST /api/club/finds/[id]/reviews": { expect: OFFICER_ONLY(201), request: () => ({ id: fixture.find, init: json("POST", { action: "note", note: "looked at it" }) }) },
+  "POST /api/club/finds/[id]/reviews": {
+    expect: OFFICER_ONLY(201),
+    request: () => ({ id: fixture.find, init: json("POST", { action: "note", note: "looked at it" }) }),
+  },
   "GET /api/club/claims": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "POST /api/club/claims": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { name: `Matrix ${uuidv7()}`, kind: "placer" }) }) },
-  "PUT /api/club/claims/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("PUT", { name: fixture.claimName, kind: "placer" }) }) },
+  "PUT /api/club/claims/[id]": {
+    expect: OFFICER_ONLY(200),
+    request: () => ({ id: fixture.claim, init: json("PUT", { name: fixture.claimName, kind: "placer" }) }),
+  },
   "PUT /api/club/claims/[id]/profile": {
     expect: OFFICER_ONLY(200),
-    request: () => ({ id: fixture.claim, init: json("PUT", { finenessLow: 700, finenessHigh: 950, finenessSource: "Club preset", hostDensityLow: 2.62, hostDensityHigh: 2.68, hostDensitySource: "Club preset" }) }),
+    request: () => ({
+      id: fixture.claim,
+      init: json("PUT", {
+        finenessLow: 700,
+        finenessHigh: 950,
+        finenessSource: "Club preset",
+        hostDensityLow: 2.62,
+        hostDensityHigh: 2.68,
+        hostDensitySource: "Club preset",
+      }),
+    }),
   },
   "POST /api/club/claims/[id]/refigure": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.claim, init: json("POST", { season: 2026 }) }) },
   "GET /api/club/prices": { expect: OFFICER_ONLY(200), request: () => ({}) },
-  "POST /api/club/prices": { expect: OFFICER_ONLY(201), request: () => ({ init: json("POST", { effectiveOn: "2026-12-01", pricePerTroyOunce: 2600, currency: "USD" }) }) },
-  "POST /api/club/prices/[id]": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: json("POST", { action: "withdraw", note: "entered twice" }) }) },
+  "POST /api/club/prices": {
+    expect: OFFICER_ONLY(201),
+    request: () => ({ init: json("POST", { effectiveOn: "2026-12-01", pricePerTroyOunce: 2600, currency: "USD" }) }),
+  },
+  "POST /api/club/prices/[id]": {
+    expect: OFFICER_ONLY(404),
+    request: () => ({ id: uuidv7(), init: json("POST", { action: "withdraw", note: "entered twice" }) }),
+  },
   "GET /api/club/recoveries": { expect: OFFICER_ONLY(200), request: () => ({ url: `/api/club/recoveries?claimId=${fixture.claim}&season=2026` }) },
-  "POST /api/club/recoveries": { expect: OFFICER_ONLY(400), request: () => ({ init: json("POST", { kind: "melt", claimId: fixture.claim, recordedOn: "2026-11-20", fineGrams: 5, findIds: [uuidv7()] }) }) },
-  "PUT /api/club/recoveries/[id]/document": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: { method: "PUT", headers: { "content-type": "application/pdf" }, body: "%PDF-1.4" } }) },
+  "POST /api/club/recoveries": {
+    expect: OFFICER_ONLY(400),
+    request: () => ({ init: json("POST", { kind: "melt", claimId: fixture.claim, recordedOn: "2026-11-20", fineGrams: 5, findIds: [uuidv7()] }) }),
+  },
+  "PUT /api/club/recoveries/[id]/document": {
+    expect: OFFICER_ONLY(404),
+    request: () => ({ id: uuidv7(), init: { method: "PUT", headers: { "content-type": "application/pdf" }, body: "%PDF-1.4" } }),
+  },
   "GET /api/club/recoveries/[id]/document": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7() }) },
   "GET /api/club/barren-rock": { expect: OFFICER_ONLY(200), request: () => ({ url: `/api/club/barren-rock?claimId=${fixture.claim}&season=2026` }) },
   "GET /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({}) },
-  "PUT /api/club/settings": { expect: OFFICER_ONLY(200), request: () => ({ init: json("PUT", { name: "Quillmarsh Gulch Prospectors", currency: "USD", timeZone: "America/Los_Angeles" }) }) },
+  "PUT /api/club/settings": {
+    expect: OFFICER_ONLY(200),
+    request: () => ({ init: json("PUT", { name: "Quillmarsh Gulch Prospectors", currency: "USD", timeZone: "America/Los_Angeles" }) }),
+  },
   "GET /api/club/invitations": { expect: OFFICER_ONLY(200), request: () => ({}) },
   // No mail relay in this test: the invitation is kept and the officer is told to resend (503).
   "POST /api/club/invitations": { expect: OFFICER_ONLY([201, 503]), request: () => ({ init: json("POST", { email: `m${Date.now()}@quillmarsh.example` }) }) },
@@ -115,7 +195,6 @@ const MATRIX: Record<string, Row> = {
   "GET /api/club/production": { expect: OFFICER_ONLY(200), request: () => ({ url: "/api/club/production?season=2026" }) },
   "GET /api/club/backup": { expect: OFFICER_ONLY(200), request: () => ({}) },
 };
-
 
 describe("authorization matrix (RELIABILITY 23–25, 30)", () => {
   const handlers = discoverHandlers();
@@ -134,7 +213,9 @@ describe("authorization matrix (RELIABILITY 23–25, 30)", () => {
       const url = r.url ?? route.replace("[id]", r.id ?? "x");
       const headers = new Headers(r.init?.headers);
       if (cookies[role]) headers.set("cookie", cookies[role]);
-      const res = await handler(new Request(new URL(url, "http://localhost:3000"), { ...r.init, headers }), { params: Promise.resolve({ id: r.id ?? "x", nextauth: url.split("/").slice(3) }) });
+      const res = await handler(new Request(new URL(url, "http://localhost:3000"), { ...r.init, headers }), {
+        params: Promise.resolve({ id: r.id ?? "x", nextauth: url.split("/").slice(3) }),
+      });
       const expected = ([] as number[]).concat(row.expect[role]);
       expect(expected, `${key} as ${role} answered ${res.status}`).toContain(res.status);
       expect(res.status, `${key} as ${role}`).not.toBe(500);
@@ -171,7 +252,11 @@ describe("hostile input (RELIABILITY 31)", () => {
     fc.jsonValue(),
     fc.dictionary(fc.string({ maxLength: 12 }), fc.jsonValue({ maxDepth: 2 })),
     fc.record({ method: fc.string(), airGrams: fc.array(fc.oneof(fc.double(), fc.string())), waterGrams: fc.jsonValue() }),
-    fc.record({ protocolVersion: fc.integer(), clientId: fc.string(), mutations: fc.array(fc.record({ id: fc.integer(), name: fc.string(), args: fc.jsonValue() }), { maxLength: 3 }) }),
+    fc.record({
+      protocolVersion: fc.integer(),
+      clientId: fc.string(),
+      mutations: fc.array(fc.record({ id: fc.integer(), name: fc.string(), args: fc.jsonValue() }), { maxLength: 3 }),
+    }),
   );
 
   it.each(jsonEndpoints)("%s answers generated bad bodies with 4xx and field errors, and changes nothing", async (key, route, idKind) => {
@@ -181,7 +266,10 @@ describe("hostile input (RELIABILITY 31)", () => {
     await fc.assert(
       fc.asyncProperty(badBody, async (body) => {
         const method = key.split(" ")[0];
-        const res = await h(req(route.replace("[id]", id), { method, cookie: cookies.officer, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), { params: Promise.resolve({ id }) });
+        const res = await h(
+          req(route.replace("[id]", id), { method, cookie: cookies.officer, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }),
+          { params: Promise.resolve({ id }) },
+        );
         if (key === "POST /api/estimate" && res.status === 200) return; // a random body can be a valid specimen
         expect(res.status).toBeGreaterThanOrEqual(400);
         expect(res.status).toBeLessThan(500);
@@ -190,7 +278,11 @@ describe("hostile input (RELIABILITY 31)", () => {
       }),
       { numRuns: 1000 },
     );
-    const strip = (s: string) => s.split("\n").filter((l) => !l.startsWith("sync_clients:")).join("\n");
+    const strip = (s: string) =>
+      s
+        .split("\n")
+        .filter((l) => !l.startsWith("sync_clients:"))
+        .join("\n");
     expect(strip(databaseChecksum(db))).toBe(strip(before));
   });
 
@@ -198,16 +290,39 @@ describe("hostile input (RELIABILITY 31)", () => {
     const ledger = await handler("GET /api/club/ledger");
     const pull = await handler("GET /api/sync/pull");
     await fc.assert(
-      fc.asyncProperty(fc.dictionary(fc.constantFrom("season", "page", "pageSize", "sort", "dir", "claimId", "from", "to", "kind", "state", "price", "cursor", "limit", "clientId", "protocolVersion", "zzz"), fc.string({ maxLength: 20 })), async (q) => {
-        const qs = new URLSearchParams(q).toString();
-        for (const [h, p] of [
-          [ledger, "/api/club/ledger"],
-          [pull, "/api/sync/pull"],
-        ] as const) {
-          const res = await h(req(`${p}?${qs}`, { cookie: cookies.officer }), {});
-          expect(res.status === 200 || (res.status >= 400 && res.status < 500), `${p}?${qs} → ${res.status}`).toBe(true);
-        }
-      }),
+      fc.asyncProperty(
+        fc.dictionary(
+          fc.constantFrom(
+            "season",
+            "page",
+            "pageSize",
+            "sort",
+            "dir",
+            "claimId",
+            "from",
+            "to",
+            "kind",
+            "state",
+            "price",
+            "cursor",
+            "limit",
+            "clientId",
+            "protocolVersion",
+            "zzz",
+          ),
+          fc.string({ maxLength: 20 }),
+        ),
+        async (q) => {
+          const qs = new URLSearchParams(q).toString();
+          for (const [h, p] of [
+            [ledger, "/api/club/ledger"],
+            [pull, "/api/sync/pull"],
+          ] as const) {
+            const res = await h(req(`${p}?${qs}`, { cookie: cookies.officer }), {});
+            expect(res.status === 200 || (res.status >= 400 && res.status < 500), `${p}?${qs} → ${res.status}`).toBe(true);
+          }
+        },
+      ),
       { numRuns: 1000 },
     );
   });
@@ -222,7 +337,9 @@ describe("hostile input (RELIABILITY 31)", () => {
 describe("uploads (RELIABILITY 28)", () => {
   const put = async (id: string, body: Buffer, type = "image/jpeg") => {
     const { PUT } = await import("@/app/api/photos/[id]/route");
-    return PUT(req("/x", { method: "PUT", cookie: cookies.member, headers: { "content-type": type }, body: new Uint8Array(body) }), { params: Promise.resolve({ id }) });
+    return PUT(req("/x", { method: "PUT", cookie: cookies.member, headers: { "content-type": type }, body: new Uint8Array(body) }), {
+      params: Promise.resolve({ id }),
+    });
   };
   it("refuses HTML named as a photo, SVG with script, a polyglot and a pixel bomb; stores nothing", async () => {
     const html = Buffer.from("<!doctype html><script>alert(1)</script>");
@@ -270,7 +387,14 @@ describe("uploads (RELIABILITY 28)", () => {
 describe("abuse limits (RELIABILITY 29)", () => {
   it("pushes: 429 with Retry-After for the busy account only", async () => {
     const { POST } = await import("@/app/api/sync/push/route");
-    const send = (cookie: string) => POST(req("/api/sync/push", { cookie, ...json("POST", { protocolVersion: 1, clientId: uuidv7(), mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }] }) }), {});
+    const send = (cookie: string) =>
+      POST(
+        req("/api/sync/push", {
+          cookie,
+          ...json("POST", { protocolVersion: 1, clientId: uuidv7(), mutations: [{ id: 1, name: "settings.put", args: { locationSharing: "exact" } }] }),
+        }),
+        {},
+      );
     let limited: Response | undefined;
     for (let i = 0; i < 130 && !limited; i++) {
       const res = await send(cookies.member);
@@ -286,7 +410,15 @@ describe("abuse limits (RELIABILITY 29)", () => {
 describe("cross-site requests (RELIABILITY 27)", () => {
   const attempt = async (headers: Record<string, string>) => {
     const { POST } = await import("@/app/api/sync/push/route");
-    return POST(req("http://localhost:3000/api/sync/push", { method: "POST", cookie: cookies.member, headers: { "content-type": "application/json", ...headers }, body: JSON.stringify({ protocolVersion: 1, clientId: uuidv7(), mutations: [{ id: 1, name: "find.put", args: newFind() }] }) }), {});
+    return POST(
+      req("http://localhost:3000/api/sync/push", {
+        method: "POST",
+        cookie: cookies.member,
+        headers: { "content-type": "application/json", ...headers },
+        body: JSON.stringify({ protocolVersion: 1, clientId: uuidv7(), mutations: [{ id: 1, name: "find.put", args: newFind() }] }),
+      }),
+      {},
+    );
   };
   it("refuses a foreign Origin, a null Origin, a cross-site fetch and a text/plain form post", async () => {
     expect((await attempt({ origin: "https://evil.example" })).status).toBe(403);

@@ -24,7 +24,18 @@ beforeEach(async () => {
 
 const ids = (sql: string, ...args: unknown[]) => (db.$client.prepare(sql).all(...args) as { id: string }[]).map((r) => r.id);
 
-const newPhoto = (findId: string) => ({ id: uuidv7(), findId, sha256: "a".repeat(64), contentType: "image/jpeg", bytes: 1000, width: 100, height: 80, takenAt: null, lat: null, lon: null });
+const newPhoto = (findId: string) => ({
+  id: uuidv7(),
+  findId,
+  sha256: "a".repeat(64),
+  contentType: "image/jpeg",
+  bytes: 1000,
+  width: 100,
+  height: 80,
+  takenAt: null,
+  lat: null,
+  lon: null,
+});
 
 describe("a reference to a record of the wrong kind (RELIABILITY 39)", () => {
   it("is refused with a reason, also when that record was written earlier in the same push", async () => {
@@ -59,13 +70,24 @@ describe("a mutation id used again with other content (RELIABILITY 38)", () => {
     const client = uuidv7();
     const a1 = newFind();
     const a2 = newFind();
-    expect((await push(member, client, [{ id: 1, name: "find.put", args: a1 }, { id: 2, name: "find.put", args: a2 }])).status).toBe(200);
+    expect(
+      (
+        await push(member, client, [
+          { id: 1, name: "find.put", args: a1 },
+          { id: 2, name: "find.put", args: a2 },
+        ])
+      ).status,
+    ).toBe(200);
     const before = databaseChecksum(db);
 
     // A copied profile: the same client id, its own change under id 2, and a fresh one after.
     const b2 = newFind();
     const b3 = newFind();
-    const res = await push(member, client, [{ id: 1, name: "find.put", args: a1 }, { id: 2, name: "find.put", args: b2 }, { id: 3, name: "find.put", args: b3 }]);
+    const res = await push(member, client, [
+      { id: 1, name: "find.put", args: a1 },
+      { id: 2, name: "find.put", args: b2 },
+      { id: 3, name: "find.put", args: b3 },
+    ]);
     expect(res.status).toBe(409);
     expect(res.body.error).toMatchObject({ code: "conflict:client_reused", fields: { reused: ["2"], replayed: ["1"] } });
     expect(databaseChecksum(db)).toBe(before);
@@ -89,13 +111,33 @@ describe("a mutation id used again with other content (RELIABILITY 38)", () => {
 
 describe("random batches with references shuffled across kinds and members (RELIABILITY 39)", () => {
   it("never answer 5xx, and a full pull holds what the server holds", async () => {
-    const others = { finds: ids("select id from finds where member_id = ? limit 3", otherId), outings: ids("select id from outings where member_id = ? limit 3", otherId) };
+    const others = {
+      finds: ids("select id from finds where member_id = ? limit 3", otherId),
+      outings: ids("select id from outings where member_id = ? limit 3", otherId),
+    };
     const claims = ids("select id from claims limit 2");
     // Officers' reviews an answer can name: queries and a verify, of this member's finds and another's.
     const reviews = ids("select id from reviews where action = 'query' limit 4").concat(ids("select id from reviews where action = 'verify' limit 1"));
     await fc.assert(
       fc.asyncProperty(
-        fc.array(fc.record({ kind: fc.constantFrom("outing.put", "find.put", "weighIn.put", "photo.put", "answer.put", "outing.delete", "find.delete", "weighIn.delete", "photo.delete"), pick: fc.nat(), claim: fc.nat() }), { minLength: 1, maxLength: 14 }),
+        fc.array(
+          fc.record({
+            kind: fc.constantFrom(
+              "outing.put",
+              "find.put",
+              "weighIn.put",
+              "photo.put",
+              "answer.put",
+              "outing.delete",
+              "find.delete",
+              "weighIn.delete",
+              "photo.delete",
+            ),
+            pick: fc.nat(),
+            claim: fc.nat(),
+          }),
+          { minLength: 1, maxLength: 14 },
+        ),
         fc.boolean(),
         async (steps, split) => {
           // Ids the batch makes, plus another member's records and the club's claims: any of them
@@ -129,7 +171,12 @@ describe("random batches with references shuffled across kinds and members (RELI
                 return { id, name: s.kind, args: p };
               }
               case "answer.put": {
-                const a = { id: s.pick % 3 === 0 && made.length ? ref(s.claim) : uuidv7(), findId: ref(s.pick), reviewId: s.claim % 2 ? reviews[s.claim % reviews.length] : ref(s.claim), note: "Here." };
+                const a = {
+                  id: s.pick % 3 === 0 && made.length ? ref(s.claim) : uuidv7(),
+                  findId: ref(s.pick),
+                  reviewId: s.claim % 2 ? reviews[s.claim % reviews.length] : ref(s.claim),
+                  note: "Here.",
+                };
                 made.push(a.id);
                 return { id, name: s.kind, args: a };
               }

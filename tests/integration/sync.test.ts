@@ -27,8 +27,13 @@ const count = (sql: string, ...args: unknown[]) => (db.$client.prepare(sql).get(
 async function expectConverged(cookie: string, clientId: string, ownerId: string) {
   const { changes } = await pullAll(cookie, clientId);
   const device = applyChanges(changes);
-  const serverFinds = db.$client.prepare("select id, weight_grams as w from finds where member_id = ? and deleted_at is null order by id").all(ownerId) as { id: string; w: number }[];
-  const deviceFinds = [...(device.get("find")?.values() ?? [])].map((f) => ({ id: f.id as string, w: f.weightGrams as number })).sort((a, b) => a.id.localeCompare(b.id));
+  const serverFinds = db.$client.prepare("select id, weight_grams as w from finds where member_id = ? and deleted_at is null order by id").all(ownerId) as {
+    id: string;
+    w: number;
+  }[];
+  const deviceFinds = [...(device.get("find")?.values() ?? [])]
+    .map((f) => ({ id: f.id as string, w: f.weightGrams as number }))
+    .sort((a, b) => a.id.localeCompare(b.id));
   expect(deviceFinds).toEqual(serverFinds);
   const serverOutings = count("select count(*) n from outings where member_id = ? and deleted_at is null", ownerId);
   expect(device.get("outing")?.size ?? 0).toBe(serverOutings);
@@ -87,9 +92,16 @@ describe("push applies each change exactly once (RELIABILITY 1, 2, 4, 14)", () =
     const client = uuidv7();
     const finds = Array.from({ length: 60 }, () => newFind());
     vi.spyOn(Date, "now").mockReturnValue(Date.UTC(2026, 6, 2));
-    await push(member, client, finds.map((f, i) => ({ id: i + 1, name: "find.put", args: f })));
+    await push(
+      member,
+      client,
+      finds.map((f, i) => ({ id: i + 1, name: "find.put", args: f })),
+    );
     vi.restoreAllMocks();
-    const seqs = db.$client.prepare("select seq from finds where member_id = ? order by seq").all(memberId).map((r) => (r as { seq: number }).seq);
+    const seqs = db.$client
+      .prepare("select seq from finds where member_id = ? order by seq")
+      .all(memberId)
+      .map((r) => (r as { seq: number }).seq);
     expect(new Set(seqs).size).toBe(seqs.length);
     const { changes } = await pullAll(member, client, 0, 7);
     const got = new Set(changes.filter((c) => c.entity === "find").map((c) => (c.op === "put" ? c.value.id : c.id)));
@@ -175,7 +187,11 @@ describe("conflicts between one member's devices (RELIABILITY 10, 11, 15)", () =
 describe("pull (RELIABILITY 13, 16)", () => {
   it("13: a pull cut mid-page resumes from the stored cursor with no gap", async () => {
     const client = uuidv7();
-    await push(member, client, Array.from({ length: 25 }, (_, i) => ({ id: i + 1, name: "find.put", args: newFind() })));
+    await push(
+      member,
+      client,
+      Array.from({ length: 25 }, (_, i) => ({ id: i + 1, name: "find.put", args: newFind() })),
+    );
     const first = await pull(member, client, 0, 10);
     // The second page's answer is "lost": the device asks again from the cursor it stored.
     await pull(member, client, first.body.cursor, 10);
@@ -218,7 +234,11 @@ describe("ownership (RELIABILITY 23, 24, 26)", () => {
     expect(res.body.results.map((r) => r.status)).toEqual(["rejected", "rejected", "rejected", "rejected"]);
     expect(res.body.results[0].reason).toBe("not_owner");
     // Only the client's own bookkeeping moved.
-    const strip = (s: string) => s.split("\n").filter((l) => !l.startsWith("sync_clients:") && !l.startsWith("sync_mutations:")).join("\n");
+    const strip = (s: string) =>
+      s
+        .split("\n")
+        .filter((l) => !l.startsWith("sync_clients:") && !l.startsWith("sync_mutations:"))
+        .join("\n");
     expect(strip(databaseChecksum(db))).toBe(strip(before));
   });
 
@@ -227,7 +247,9 @@ describe("ownership (RELIABILITY 23, 24, 26)", () => {
     for (const c of changes) if (c.op === "put" && "memberId" in c.value) expect(c.value.memberId).toBe(memberId);
     expect((await pull(member, uuidv7(), 0, 10, "club")).status).toBe(403);
     const club = await pull(officer, uuidv7(), 0, 2000, "club");
-    const owners = new Set(club.body.changes.filter((c) => c.entity === "find" && c.op === "put").map((c) => (c as unknown as { value: { memberId: string } }).value.memberId));
+    const owners = new Set(
+      club.body.changes.filter((c) => c.entity === "find" && c.op === "put").map((c) => (c as unknown as { value: { memberId: string } }).value.memberId),
+    );
     expect(owners.size).toBeGreaterThan(3);
   });
 
@@ -264,7 +286,12 @@ describe("weigh-ins", () => {
       { id: 2, name: "weighIn.put", args: honest },
       { id: 3, name: "weighIn.put", args: odd },
     ]);
-    const rows = db.$client.prepare("select id, mismatch, engine_version v, fine_gold_grams g from weigh_ins where find_id = ?").all(f.id) as { id: string; mismatch: number; v: string; g: number }[];
+    const rows = db.$client.prepare("select id, mismatch, engine_version v, fine_gold_grams g from weigh_ins where find_id = ?").all(f.id) as {
+      id: string;
+      mismatch: number;
+      v: string;
+      g: number;
+    }[];
     const byId = Object.fromEntries(rows.map((r) => [r.id, r]));
     expect(byId[honest.id]).toMatchObject({ mismatch: 0, v: honest.deviceEstimate.engineVersion, g: honest.deviceEstimate.fineGoldGrams });
     expect(byId[odd.id].mismatch).toBe(1);
@@ -282,7 +309,12 @@ describe("weigh-ins", () => {
       { id: 2, name: "weighIn.put", args: { ...w, deviceEstimate: older } },
     ]);
     expect(res.body.results?.map((r: { status: string }) => r.status)).toEqual(["applied", "applied"]);
-    const row = db.$client.prepare("select engine_version v, mismatch, device_estimate d, server_estimate s from weigh_ins where id = ?").get(w.id) as { v: string; mismatch: number; d: string; s: string };
+    const row = db.$client.prepare("select engine_version v, mismatch, device_estimate d, server_estimate s from weigh_ins where id = ?").get(w.id) as {
+      v: string;
+      mismatch: number;
+      d: string;
+      s: string;
+    };
     expect(row.v).toBe(ENGINE_VERSION);
     expect(JSON.parse(row.s).engineVersion).toBe(ENGINE_VERSION);
     expect(JSON.parse(row.d).engineVersion).toBe("1.0.0");
@@ -299,7 +331,13 @@ describe("weigh-ins", () => {
       { id: 4, name: "find.delete", args: { id: gone.id } },
       { id: 5, name: "weighIn.put", args: newWeighIn(gone.id) },
     ]);
-    expect(res.body.results?.map((r: { status: string; reason?: string }) => r.reason ?? r.status)).toEqual(["applied", "applied", "applied", "applied", "deleted"]);
+    expect(res.body.results?.map((r: { status: string; reason?: string }) => r.reason ?? r.status)).toEqual([
+      "applied",
+      "applied",
+      "applied",
+      "applied",
+      "deleted",
+    ]);
     const latest = db.$client.prepare("select latest_fine_grams g from finds where id = ?").get(f.id) as { g: number | null };
     expect(latest.g).not.toBeNull();
   });
@@ -317,11 +355,14 @@ describe("weigh-ins", () => {
     expect(ulpOff.specimenDensity).not.toBe(e.specimenDensity);
     const cases = { reordered, lacking, extra, ulpOff };
     const ids: Record<string, string> = {};
-    const mutations = [{ id: 1, name: "find.put", args: f }, ...Object.entries(cases).map(([k, deviceEstimate], i) => {
-      const w = { ...newWeighIn(f.id), deviceEstimate };
-      ids[k] = w.id;
-      return { id: i + 2, name: "weighIn.put", args: w };
-    })];
+    const mutations = [
+      { id: 1, name: "find.put", args: f },
+      ...Object.entries(cases).map(([k, deviceEstimate], i) => {
+        const w = { ...newWeighIn(f.id), deviceEstimate };
+        ids[k] = w.id;
+        return { id: i + 2, name: "weighIn.put", args: w };
+      }),
+    ];
     const res = await push(member, client, mutations);
     expect(res.body.results?.map((r: { status: string }) => r.status)).toEqual(["applied", "applied", "rejected", "rejected", "applied"]);
     const mismatch = (id: string) => (db.$client.prepare("select mismatch from weigh_ins where id = ?").get(id) as { mismatch: number }).mismatch;
@@ -334,7 +375,18 @@ describe("a refused change writes nothing", () => {
   it("every reason a change is refused leaves every table as it was, and the queue still advances", async () => {
     const client = uuidv7();
     const f = newFind();
-    const photo = { id: uuidv7(), findId: f.id, sha256: "a".repeat(64), contentType: "image/jpeg", bytes: 1000, width: 10, height: 10, takenAt: null, lat: null, lon: null };
+    const photo = {
+      id: uuidv7(),
+      findId: f.id,
+      sha256: "a".repeat(64),
+      contentType: "image/jpeg",
+      bytes: 1000,
+      width: 10,
+      height: 10,
+      takenAt: null,
+      lat: null,
+      lon: null,
+    };
     await push(member, client, [
       { id: 1, name: "find.put", args: f },
       { id: 2, name: "photo.put", args: photo },
@@ -355,7 +407,11 @@ describe("a refused change writes nothing", () => {
       { name: "outing.delete", args: { id: "not-an-id" }, reason: "invalid" },
       { name: "settings.put", args: { locationSharing: "nowhere" }, reason: "invalid" },
     ];
-    const res = await push(member, client, refusals.map((r, i) => ({ id: 3 + i, name: r.name, args: r.args })));
+    const res = await push(
+      member,
+      client,
+      refusals.map((r, i) => ({ id: 3 + i, name: r.name, args: r.args })),
+    );
     expect(res.body.results.map((r) => r.reason)).toEqual(refusals.map((r) => r.reason));
     expect(res.body.lastMutationId).toBe(2 + refusals.length);
     expect(databaseChecksum(db).replace(/^sync_(clients|mutations):.*$/gm, "")).toBe(before);

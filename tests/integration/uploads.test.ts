@@ -39,7 +39,18 @@ afterEach(() => {
 /** A photo record (declaring whatever size it likes) pushed with its find, then its bytes uploaded. */
 async function recordPhoto(bytes: Buffer, declared = bytes.length) {
   const find = newFind();
-  const photo = { id: uuidv7(), findId: find.id, sha256: sha(bytes), contentType: "image/jpeg", bytes: declared, width: 10, height: 10, takenAt: null, lat: null, lon: null };
+  const photo = {
+    id: uuidv7(),
+    findId: find.id,
+    sha256: sha(bytes),
+    contentType: "image/jpeg",
+    bytes: declared,
+    width: 10,
+    height: 10,
+    takenAt: null,
+    lat: null,
+    lon: null,
+  };
   const res = await push(member, uuidv7(), [
     { id: 1, name: "find.put", args: find },
     { id: 2, name: "photo.put", args: photo },
@@ -47,7 +58,8 @@ async function recordPhoto(bytes: Buffer, declared = bytes.length) {
   expect(res.body.results.map((r) => r.status)).toEqual(["applied", "applied"]);
   return { photo, find };
 }
-const upload = (id: string, bytes: Buffer) => PUT(req("/x", { method: "PUT", cookie: member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(bytes) }), ctx(id));
+const upload = (id: string, bytes: Buffer) =>
+  PUT(req("/x", { method: "PUT", cookie: member, headers: { "content-type": "image/jpeg" }, body: new Uint8Array(bytes) }), ctx(id));
 const serve = (id: string, cookie = member) => GET(req("/x", { cookie }), ctx(id));
 
 /** Noise compresses badly: a few hundred kB of real JPEG. */
@@ -76,7 +88,9 @@ describe("the photo quota counts the bytes actually stored (RELIABILITY 36)", ()
     const res = await upload(photo.id, third);
     expect(res.status).toBe(413);
     expect((await res.json()).error.code).toBe("too_large:quota");
-    const stored = db.$client.prepare("select stored_bytes as n from photos where member_id = ? and stored_bytes is not null order by uploaded_at desc limit 2").all(memberByEmail(db, MEMBER_EMAIL).id) as { n: number }[];
+    const stored = db.$client
+      .prepare("select stored_bytes as n from photos where member_id = ? and stored_bytes is not null order by uploaded_at desc limit 2")
+      .all(memberByEmail(db, MEMBER_EMAIL).id) as { n: number }[];
     expect(stored.map((r) => r.n).sort()).toEqual([first.length, second.length].sort());
   });
 });
@@ -123,7 +137,13 @@ function exifSegment(): Buffer {
   return withGps.subarray(i, i + 2 + withGps.readUInt16BE(i + 2));
 }
 const xmpSegment = () =>
-  segment(APP1, Buffer.from('http://ns.adobe.com/xap/1.0/\0<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="41,48.074N" exif:GPSLongitude="117,36.7407W"/></rdf:RDF></x:xmpmeta>', "latin1"));
+  segment(
+    APP1,
+    Buffer.from(
+      'http://ns.adobe.com/xap/1.0/\0<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:exif="http://ns.adobe.com/exif/1.0/" exif:GPSLatitude="41,48.074N" exif:GPSLongitude="117,36.7407W"/></rdf:RDF></x:xmpmeta>',
+      "latin1",
+    ),
+  );
 const comment = () => segment(0xfe, Buffer.from("taken at 41.801234 -117.612345", "latin1"));
 
 function layouts(): [string, Buffer][] {

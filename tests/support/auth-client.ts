@@ -54,8 +54,18 @@ export async function postAuth(path: string, body: Body, opts: { jar?: CookieJar
 
 /** A password sign-in through Auth.js's own endpoint. */
 export function signInByPassword(email: string, password: string, opts: { jar?: CookieJar; headers?: Record<string, string> } = {}) {
-  return postAuth("/api/auth/callback/credentials", { form: [["email", email], ["password", password]] }, opts);
+  return postAuth(
+    "/api/auth/callback/credentials",
+    {
+      form: [
+        ["email", email],
+        ["password", password],
+      ],
+    },
+    opts,
+  );
 }
 
 /** Signed in: Auth.js answered with a session cookie. */
-export const signedIn = (res: Response) => res.headers.getSetCookie().some((c) => c.startsWith("authjs.session-token=") || c.startsWith("__Secure-authjs.session-token="));
+export const signedIn = (res: Response) =>
+  res.headers.getSetCookie().some((c) => c.startsWith("authjs.session-token=") || c.startsWith("__Secure-authjs.session-token="));

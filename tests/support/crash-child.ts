@@ -8,7 +8,12 @@ import { PROTOCOL_VERSION } from "../../src/lib/sync/protocol";
 
 const [memberId, clients, starts] = process.argv.slice(2);
 const db = getDb();
-const member = db.$client.prepare("select id, email, name, role from members where id = ?").get(memberId) as { id: string; email: string; name: string; role: "member" };
+const member = db.$client.prepare("select id, email, name, role from members where id = ?").get(memberId) as {
+  id: string;
+  email: string;
+  name: string;
+  role: "member";
+};
 
 /** The find a stream's mutation id writes, so the test can count them per stream. */
 const crashFindId = (stream: number, id: number) => `0190a5f0-0000-7000-800${stream}-${String(id).padStart(12, "0")}`;
@@ -18,7 +23,26 @@ async function stream(index: number, clientId: string, start: number) {
   for (;;) {
     const mutations = Array.from({ length: 20 }, (_, i) => {
       const id = next + i;
-      return { id, name: "find.put", args: { id: crashFindId(index, id), outingId: null, claimId: null, kind: "nugget", weightGrams: id / 100, purity: null, depthCm: null, method: "detecting", notes: "", lat: null, lon: null, accuracyM: null, locationSource: null, foundAt: 1780000000000 + id } };
+      return {
+        id,
+        name: "find.put",
+        args: {
+          id: crashFindId(index, id),
+          outingId: null,
+          claimId: null,
+          kind: "nugget",
+          weightGrams: id / 100,
+          purity: null,
+          depthCm: null,
+          method: "detecting",
+          notes: "",
+          lat: null,
+          lon: null,
+          accuracyM: null,
+          locationSource: null,
+          foundAt: 1780000000000 + id,
+        },
+      };
     });
     const res = await applyPushGrouped(member, { protocolVersion: PROTOCOL_VERSION, clientId, mutations });
     process.stdout.write(`ACK ${index} ${res.lastMutationId}\n`);

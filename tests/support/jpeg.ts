@@ -7,7 +7,11 @@ function rational(value: number): [number, number][] {
   const d = Math.floor(abs);
   const m = Math.floor((abs - d) * 60);
   const s = Math.round(((abs - d) * 60 - m) * 60 * 1000);
-  return [[d, 1], [m, 1], [s, 1000]];
+  return [
+    [d, 1],
+    [m, 1],
+    [s, 1000],
+  ];
 }
 
 const pad = (n: number) => String(n).padStart(2, "0");
@@ -33,7 +37,8 @@ export function makeJpeg(opts: { width: number; height: number; lat?: number; lo
   const exif: Record<string, Record<number, unknown>> = { "0th": {}, Exif: {}, GPS: {} };
   if (opts.takenAt) {
     const t = opts.takenAt;
-    exif.Exif[piexif.ExifIFD.DateTimeOriginal] = `${t.getFullYear()}:${pad(t.getMonth() + 1)}:${pad(t.getDate())} ${pad(t.getHours())}:${pad(t.getMinutes())}:${pad(t.getSeconds())}`;
+    exif.Exif[piexif.ExifIFD.DateTimeOriginal] =
+      `${t.getFullYear()}:${pad(t.getMonth() + 1)}:${pad(t.getDate())} ${pad(t.getHours())}:${pad(t.getMinutes())}:${pad(t.getSeconds())}`;
   }
   if (opts.lat !== undefined && opts.lon !== undefined) {
     exif.GPS[piexif.GPSIFD.GPSLatitudeRef] = opts.lat >= 0 ? "N" : "S";

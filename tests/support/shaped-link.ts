@@ -45,10 +45,11 @@ export async function startShapedLink(opts: { targetPort: number; upBps: number;
     onUpBytes(at, fn) {
       watchers.push({ at, fn });
     },
-    close: () => new Promise<void>((resolve) => {
-      link.cut();
-      server.close(() => resolve());
-    }),
+    close: () =>
+      new Promise<void>((resolve) => {
+        link.cut();
+        server.close(() => resolve());
+      }),
   };
 
   /** Carries `from`'s bytes to `to` over one direction of the link. */
@@ -65,11 +66,14 @@ export async function startShapedLink(opts: { targetPort: number; upBps: number;
         const now = Date.now();
         dir.freeAt = Math.max(dir.freeAt, now) + (piece.length * 8 * 1000) / dir.bps;
         queued += piece.length;
-        setTimeout(() => {
-          queued -= piece.length;
-          if (!to.destroyed) to.write(piece);
-          if (queued < BUFFER && from.isPaused()) from.resume();
-        }, dir.freeAt - now + oneWay);
+        setTimeout(
+          () => {
+            queued -= piece.length;
+            if (!to.destroyed) to.write(piece);
+            if (queued < BUFFER && from.isPaused()) from.resume();
+          },
+          dir.freeAt - now + oneWay,
+        );
       }
       if (queued >= BUFFER) from.pause();
     });

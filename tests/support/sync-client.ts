@@ -12,14 +12,22 @@ export type Mutation = { id: number; name: string; args: unknown };
 
 export async function push(cookie: string, clientId: string, mutations: Mutation[], extra: Record<string, unknown> = {}) {
   const res = await pushHandler(
-    req("/api/sync/push", { method: "POST", cookie, headers: { "content-type": "application/json" }, body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId, mutations, ...extra }) }),
+    req("/api/sync/push", {
+      method: "POST",
+      cookie,
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ protocolVersion: PROTOCOL_VERSION, clientId, mutations, ...extra }),
+    }),
     {} as never,
   );
   return { status: res.status, body: (await res.json()) as PushResponse & { error?: { code: string; message: string; fields?: Record<string, string[]> } } };
 }
 
 export async function pull(cookie: string, clientId: string, cursor = 0, limit = 500, scope: "own" | "club" = "own") {
-  const res = await pullHandler(req(`/api/sync/pull?protocolVersion=${PROTOCOL_VERSION}&clientId=${clientId}&cursor=${cursor}&limit=${limit}&scope=${scope}`, { cookie }), {} as never);
+  const res = await pullHandler(
+    req(`/api/sync/pull?protocolVersion=${PROTOCOL_VERSION}&clientId=${clientId}&cursor=${cursor}&limit=${limit}&scope=${scope}`, { cookie }),
+    {} as never,
+  );
   return { status: res.status, body: (await res.json()) as PullResponse };
 }
 
@@ -77,7 +85,13 @@ export const newFind = (over: Partial<Find> = {}): Find => ({
 });
 
 export function newWeighIn(findId: string) {
-  const input = { method: "hanging" as const, airGrams: [42.5], waterGrams: [26.1], finenessPermille: 825, finenessRangePermille: [700, 950] as [number, number] };
+  const input = {
+    method: "hanging" as const,
+    airGrams: [42.5],
+    waterGrams: [26.1],
+    finenessPermille: 825,
+    finenessRangePermille: [700, 950] as [number, number],
+  };
   return { id: uuidv7(), findId, input, deviceEstimate: estimateSpecimen(input), weighedAt: Date.UTC(2026, 6, 1, 18) };
 }
 

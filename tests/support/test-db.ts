@@ -27,10 +27,10 @@ export async function seededDatabase() {
 
 /** Every user table's rows, in a stable order, as one string: equal strings mean equal data. */
 export function databaseChecksum(db: Db): string {
-  const tables = db.all<{ name: string }>(sql`select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like '__drizzle%' order by name`);
-  return tables
-    .map(({ name }) => `${name}:${JSON.stringify(db.$client.prepare(`select * from "${name}" order by 1`).all())}`)
-    .join("\n");
+  const tables = db.all<{ name: string }>(
+    sql`select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like '__drizzle%' order by name`,
+  );
+  return tables.map(({ name }) => `${name}:${JSON.stringify(db.$client.prepare(`select * from "${name}" order by 1`).all())}`).join("\n");
 }
 
 /** A session cookie exactly as Auth.js would set it after signing in. */
@@ -41,7 +41,12 @@ export async function sessionCookie(member: { id: string; email?: string }, sess
 }
 
 export function memberByEmail(db: Db, email: string) {
-  return db.$client.prepare("select id, email, role, session_version as sv from members where email = ?").get(email) as { id: string; email: string; role: string; sv: number };
+  return db.$client.prepare("select id, email, role, session_version as sv from members where email = ?").get(email) as {
+    id: string;
+    email: string;
+    role: string;
+    sv: number;
+  };
 }
 
 export const OFFICER_EMAIL = "marguerite@quillmarsh.example";

@@ -1,6 +1,17 @@
 import type { LodebookDb, OutboxEntry } from "../device-db";
 import { applyPullPage, beginResync, finishResync } from "./apply-pull";
-import { assignMutationIds, clearServerFault, countServerFault, ensureClient, meta, putBack, recoverFromGap, resetAndResend, setAside, takeNewClientId } from "./recover";
+import {
+  assignMutationIds,
+  clearServerFault,
+  countServerFault,
+  ensureClient,
+  meta,
+  putBack,
+  recoverFromGap,
+  resetAndResend,
+  setAside,
+  takeNewClientId,
+} from "./recover";
 import type { SyncStatus } from "./status";
 import { PARALLEL_UPLOADS, sendPhoto } from "./photo-upload";
 import { fetchPull, sendPush, type Answer } from "./transport";
@@ -141,7 +152,16 @@ async function uploadPhotos(db: LodebookDb, report: Report): Promise<Step<{ byte
   let bytesDone = 0;
   let photosDone = 0;
   let stop: Extract<Answer<unknown>, { ok: false }> | undefined;
-  const emit = () => report({ kind: "syncing", phase: "photos", done: photosDone, total: ready.length, bytesDone, bytesTotal, secondsLeft: secondsLeft(bytesDone, bytesTotal, Date.now() - startedAt) });
+  const emit = () =>
+    report({
+      kind: "syncing",
+      phase: "photos",
+      done: photosDone,
+      total: ready.length,
+      bytesDone,
+      bytesTotal,
+      secondsLeft: secondsLeft(bytesDone, bytesTotal, Date.now() - startedAt),
+    });
   const queue = [...ready];
   const worker = async () => {
     for (let p = queue.shift(); p && !stop; p = queue.shift()) {
@@ -205,6 +225,11 @@ function failure(answer: Extract<Answer<unknown>, { ok: false }>, waiting: numbe
       return { kind: "outdated", waiting };
     default:
       // The scheduler sets the time it will really try again (at least retryAt).
-      return { kind: "error", message: answer.message ?? "The club's server did not answer as expected.", retryAt: Date.now() + (answer.retryAfterS ?? 0) * 1000, waiting };
+      return {
+        kind: "error",
+        message: answer.message ?? "The club's server did not answer as expected.",
+        retryAt: Date.now() + (answer.retryAfterS ?? 0) * 1000,
+        waiting,
+      };
   }
 }

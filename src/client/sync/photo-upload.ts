@@ -21,7 +21,11 @@ const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
  * arrived and goes on from there, so a cut costs only the bytes in flight. `onBytes` is told
  * how the server's count moved.
  */
-export async function sendPhoto(photo: { id: string; blob: Blob }, onBytes: (delta: number) => void, wait: (ms: number) => Promise<unknown> = pause): Promise<{ ok: true } | Failure> {
+export async function sendPhoto(
+  photo: { id: string; blob: Blob },
+  onBytes: (delta: number) => void,
+  wait: (ms: number) => Promise<unknown> = pause,
+): Promise<{ ok: true } | Failure> {
   const size = photo.blob.size;
   let offset = 0;
   let misses = 0;

@@ -28,7 +28,11 @@ export async function ensureClient(db: LodebookDb): Promise<string> {
 export async function assignMutationIds(db: LodebookDb): Promise<void> {
   await db.transaction("rw", db.outbox, db.meta, async () => {
     let next = await meta(db, "nextMutationId", 1);
-    const fresh = await db.outbox.where("state").equals("pending").filter((e) => e.mutationId === undefined).sortBy("id");
+    const fresh = await db.outbox
+      .where("state")
+      .equals("pending")
+      .filter((e) => e.mutationId === undefined)
+      .sortBy("id");
     for (const e of fresh) await db.outbox.update(e.id!, { mutationId: next++ });
     await db.meta.put({ key: "nextMutationId", value: next });
   });
@@ -60,7 +64,13 @@ export async function resetAndResend(db: LodebookDb): Promise<void> {
     const now = Date.now();
     const puts: OutboxEntry[] = [];
     const queue = (entity: RecordEntity, record: { id: string } & object) =>
-      puts.push({ name: `${entity}.put` as MutationName, args: pickRecord(entity, record as Record<string, unknown>), entityId: record.id, createdAt: now, state: "pending" });
+      puts.push({
+        name: `${entity}.put` as MutationName,
+        args: pickRecord(entity, record as Record<string, unknown>),
+        entityId: record.id,
+        createdAt: now,
+        state: "pending",
+      });
     (await db.outings.toArray()).forEach((o) => queue("outing", o));
     (await db.finds.toArray()).forEach((f) => queue("find", f));
     (await db.photos.toArray()).filter((p) => p.blob.size > 0).forEach((p) => queue("photo", p));

@@ -15,7 +15,12 @@ export function backoffMs(attempt: number, random = Math.random): number {
  * server's Retry-After when longer) and the status to show, whose retryAt is that same moment.
  * Offline waits for the online event, counting toward the back-off.
  */
-export function afterOutcome(outcome: SyncStatus, attempt: number, now = Date.now(), random = Math.random): { status: SyncStatus; waitMs: number | null; attempt: number } {
+export function afterOutcome(
+  outcome: SyncStatus,
+  attempt: number,
+  now = Date.now(),
+  random = Math.random,
+): { status: SyncStatus; waitMs: number | null; attempt: number } {
   if (outcome.kind === "error") {
     const waitMs = Math.max(backoffMs(attempt, random), outcome.retryAt - now);
     return { status: { ...outcome, retryAt: now + waitMs }, waitMs, attempt: attempt + 1 };

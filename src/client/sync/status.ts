@@ -3,7 +3,15 @@ export type SyncStatus =
   | { kind: "idle"; waiting: number; rejected: number; lastSyncedAt: number | null }
   | { kind: "offline"; waiting: number; rejected: number; lastSyncedAt: number | null }
   /** Items done of total (changes, or photos in the "photos" phase), photo bytes, and the time left when known. */
-  | { kind: "syncing"; phase: "sending" | "photos" | "receiving"; done: number; total: number; bytesDone: number; bytesTotal: number; secondsLeft?: number | null }
+  | {
+      kind: "syncing";
+      phase: "sending" | "photos" | "receiving";
+      done: number;
+      total: number;
+      bytesDone: number;
+      bytesTotal: number;
+      secondsLeft?: number | null;
+    }
   | { kind: "done"; at: number; sent: number; received: number; rejected: number }
   | { kind: "needs-sign-in"; waiting: number; reason: "expired" | "other-member" }
   | { kind: "outdated"; waiting: number }

@@ -24,7 +24,9 @@ async function call<T>(input: string, init?: RequestInit): Promise<Answer<T>> {
     return { ok: false, kind: "offline" };
   }
   if (res.ok) return { ok: true, body: (await res.json()) as T };
-  const body = (await res.json().catch(() => ({}))) as { error?: { code?: string; message?: string; errorId?: string; fields?: { expected?: string[]; replayed?: string[]; offset?: string[] } } };
+  const body = (await res.json().catch(() => ({}))) as {
+    error?: { code?: string; message?: string; errorId?: string; fields?: { expected?: string[]; replayed?: string[]; offset?: string[] } };
+  };
   const code = body.error?.code ?? "";
   const message = body.error?.message;
   if (res.status === 401) return { ok: false, kind: "unauthorized", message };
@@ -59,5 +61,9 @@ export function photoUploadStatus(id: string) {
 
 /** One chunk of a photo at the offset the server holds; the last one stores it. */
 export function sendPhotoChunk(id: string, offset: number, chunk: Blob) {
-  return call<UploadState>(`/api/photos/${id}/upload?offset=${offset}`, { method: "PUT", headers: { "content-type": "application/octet-stream" }, body: chunk });
+  return call<UploadState>(`/api/photos/${id}/upload?offset=${offset}`, {
+    method: "PUT",
+    headers: { "content-type": "application/octet-stream" },
+    body: chunk,
+  });
 }

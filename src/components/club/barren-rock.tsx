@@ -8,7 +8,11 @@ import { formatWhen } from "@/lib/format";
 import { api } from "./api";
 import type { ClaimProfile } from "./claim-profile-editor";
 
-type Answer = { timeZone: string; pieces: { id: string; memberName: string | null; weighedAt: number; density: number; scaleCheckPassed: boolean | null }[]; proposal: HostProposal | null };
+type Answer = {
+  timeZone: string;
+  pieces: { id: string; memberName: string | null; weighedAt: number; density: number; scaleCheckPassed: boolean | null }[];
+  proposal: HostProposal | null;
+};
 
 /**
  * A claim's barren-rock weigh-ins for the season: each piece's density (the server's), and the
@@ -16,7 +20,10 @@ type Answer = { timeZone: string; pieces: { id: string; memberName: string | nul
  */
 export function BarrenRock({ claim, season }: { claim: ClaimProfile; season: number }) {
   const router = useRouter();
-  const { data } = useQuery({ queryKey: ["barren-rock", claim.id, season], queryFn: () => api<Answer>(`/api/club/barren-rock?claimId=${claim.id}&season=${season}`) });
+  const { data } = useQuery({
+    queryKey: ["barren-rock", claim.id, season],
+    queryFn: () => api<Answer>(`/api/club/barren-rock?claimId=${claim.id}&season=${season}`),
+  });
   const [status, setStatus] = useState<string | null>(null);
   const p = data?.proposal;
 
@@ -66,7 +73,11 @@ export function BarrenRock({ claim, season }: { claim: ClaimProfile; season: num
           </tbody>
         </table>
       )}
-      {data && data.pieces.length > 0 && !p && <p className="text-sm">{data.pieces.length} of at least {MIN_PIECES} pieces weighed: no proposal yet.</p>}
+      {data && data.pieces.length > 0 && !p && (
+        <p className="text-sm">
+          {data.pieces.length} of at least {MIN_PIECES} pieces weighed: no proposal yet.
+        </p>
+      )}
       {p && (
         <div className="rounded-md border-2 border-rule p-2" data-testid="host-proposal">
           <p>

@@ -45,7 +45,8 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
     maxSize: MAX_CLAIM_FILE_BYTES,
     onDrop: async (files) => {
       const file = files[0];
-      if (!file) return setErrors({ boundary: `Drop one .geojson file of at most ${MAX_CLAIM_FILE_BYTES / 1_000_000} MB and ${MAX_CLAIM_POSITIONS} positions.` });
+      if (!file)
+        return setErrors({ boundary: `Drop one .geojson file of at most ${MAX_CLAIM_FILE_BYTES / 1_000_000} MB and ${MAX_CLAIM_POSITIONS} positions.` });
       let parsed: unknown;
       try {
         parsed = JSON.parse(await file.text());
@@ -97,7 +98,11 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
   );
 
   return (
-    <form className="sheet grid gap-3 md:grid-cols-2" onSubmit={(e) => (e.preventDefault(), void save())} aria-label={claim ? `Edit ${claim.name}` : "New claim"}>
+    <form
+      className="sheet grid gap-3 md:grid-cols-2"
+      onSubmit={(e) => (e.preventDefault(), void save())}
+      aria-label={claim ? `Edit ${claim.name}` : "New claim"}
+    >
       {text("name", "Name")}
       {text("agencyRef", "Agency reference (serial number)")}
       <label className="flex flex-col">
@@ -113,13 +118,22 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
       </label>
       <label className="flex flex-col">
         <span className="field-label">Landowner (for the landowner&apos;s statement)</span>
-        <input className="field-input" value={form.landowner} onChange={(e) => setForm({ ...form, landowner: e.target.value })} aria-invalid={!!errors.landowner} />
+        <input
+          className="field-input"
+          value={form.landowner}
+          onChange={(e) => setForm({ ...form, landowner: e.target.value })}
+          aria-invalid={!!errors.landowner}
+        />
         {errors.landowner && <span className="field-error">{errors.landowner}</span>}
       </label>
       <div className="grid grid-cols-2 gap-2">
         <label className="flex flex-col">
           <span className="field-label">Royalty</span>
-          <select className="field-input" value={form.royaltyKind} onChange={(e) => setForm({ ...form, royaltyKind: e.target.value as typeof form.royaltyKind })}>
+          <select
+            className="field-input"
+            value={form.royaltyKind}
+            onChange={(e) => setForm({ ...form, royaltyKind: e.target.value as typeof form.royaltyKind })}
+          >
             <option value="">None</option>
             <option value="percent_of_value">% of the value</option>
             <option value="grams_per_troy_ounce">g per troy ounce</option>
@@ -127,7 +141,13 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
         </label>
         <label className="flex flex-col">
           <span className="field-label">Rate</span>
-          <input inputMode="decimal" className="field-input figure" value={form.royaltyRate} onChange={(e) => setForm({ ...form, royaltyRate: e.target.value })} aria-invalid={!!errors.royaltyRate} />
+          <input
+            inputMode="decimal"
+            className="field-input figure"
+            value={form.royaltyRate}
+            onChange={(e) => setForm({ ...form, royaltyRate: e.target.value })}
+            aria-invalid={!!errors.royaltyRate}
+          />
           {errors.royaltyRate && <span className="field-error">{errors.royaltyRate}</span>}
         </label>
       </div>
@@ -145,7 +165,14 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
       </div>
       <label className="flex flex-col">
         <span className="field-label">…or corners, one per line (latitude, longitude)</span>
-        <textarea rows={4} className="field-input figure" value={form.corners} onChange={(e) => setForm({ ...form, corners: e.target.value })} placeholder={"41.8012, -117.6231\n41.8012, -117.6175"} aria-invalid={!!errors.corners} />
+        <textarea
+          rows={4}
+          className="field-input figure"
+          value={form.corners}
+          onChange={(e) => setForm({ ...form, corners: e.target.value })}
+          placeholder={"41.8012, -117.6231\n41.8012, -117.6175"}
+          aria-invalid={!!errors.corners}
+        />
         {errors.corners && <span className="field-error">{errors.corners}</span>}
       </label>
       <div className="flex items-center gap-3 md:col-span-2">
@@ -162,7 +189,9 @@ export function ClaimEditor({ claim }: { claim?: EditableClaim }) {
           </button>
         </div>
       )}
-      <p className="text-xs text-ink-soft md:col-span-2">A boundary drawn here is the club&apos;s working outline, not a survey. The land agency&apos;s records decide.</p>
+      <p className="text-xs text-ink-soft md:col-span-2">
+        A boundary drawn here is the club&apos;s working outline, not a survey. The land agency&apos;s records decide.
+      </p>
     </form>
   );
 }

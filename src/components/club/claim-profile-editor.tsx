@@ -65,7 +65,12 @@ export function ClaimProfileEditor({ claim, season }: { claim: ClaimProfile; sea
   }
 
   async function refigure() {
-    if (!window.confirm(`Re-figure every ${season} find on ${claim.name} with ${claim.finenessLow}–${claim.finenessHigh} ‰? Their fine-gold figures change, and the change is logged.`)) return;
+    if (
+      !window.confirm(
+        `Re-figure every ${season} find on ${claim.name} with ${claim.finenessLow}–${claim.finenessHigh} ‰? Their fine-gold figures change, and the change is logged.`,
+      )
+    )
+      return;
     try {
       const { finds } = await api<{ finds: number }>(`/api/club/claims/${claim.id}/refigure`, { method: "POST", body: { season } });
       setStatus(`${finds} find${finds === 1 ? "" : "s"} of ${season} re-figured.`);
@@ -78,7 +83,13 @@ export function ClaimProfileEditor({ claim, season }: { claim: ClaimProfile; sea
   const input = (k: Field, label: string, wide = false) => (
     <label className={`flex flex-col ${wide ? "md:col-span-2" : ""}`}>
       <span className="field-label">{label}</span>
-      <input className={`field-input ${wide ? "" : "figure"}`} inputMode={wide ? undefined : "decimal"} value={form[k]} onChange={(e) => setForm({ ...form, [k]: e.target.value })} aria-invalid={!!errors[k]} />
+      <input
+        className={`field-input ${wide ? "" : "figure"}`}
+        inputMode={wide ? undefined : "decimal"}
+        value={form[k]}
+        onChange={(e) => setForm({ ...form, [k]: e.target.value })}
+        aria-invalid={!!errors[k]}
+      />
       {errors[k] && <span className="field-error">{errors[k]}</span>}
     </label>
   );
@@ -105,8 +116,8 @@ export function ClaimProfileEditor({ claim, season }: { claim: ClaimProfile; sea
         {status && <span role="status">{status}</span>}
       </div>
       <p className="text-xs text-ink-soft md:col-span-4">
-        The value used is the middle of each range. Fineness learned from the club&apos;s own melts and assays beats a preset; an estimate is still not
-        an assay.
+        The value used is the middle of each range. Fineness learned from the club&apos;s own melts and assays beats a preset; an estimate is still not an
+        assay.
       </p>
     </form>
   );

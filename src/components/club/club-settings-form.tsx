@@ -34,7 +34,13 @@ export function ClubSettingsForm({ settings }: { settings: Settings }) {
       </label>
       <label className="flex flex-col">
         <span className="field-label">Currency</span>
-        <input className="field-input w-24" maxLength={3} value={form.currency} onChange={(e) => setForm({ ...form, currency: e.target.value })} aria-invalid={!!errors.currency} />
+        <input
+          className="field-input w-24"
+          maxLength={3}
+          value={form.currency}
+          onChange={(e) => setForm({ ...form, currency: e.target.value })}
+          aria-invalid={!!errors.currency}
+        />
         {errors.currency && <span className="field-error">{errors.currency}</span>}
       </label>
       <label className="flex flex-col">

@@ -13,7 +13,21 @@ import { api, ApiError } from "./api";
 
 type FindDetail = {
   timeZone: string;
-  find: { id: string; memberName: string | null; claimName: string | null; kind: keyof typeof KIND_LABELS; weightGrams: number | null; depthCm: number | null; method: string; notes: string; lat: number | null; lon: number | null; accuracyM: number | null; foundAt: number; positionShared: boolean };
+  find: {
+    id: string;
+    memberName: string | null;
+    claimName: string | null;
+    kind: keyof typeof KIND_LABELS;
+    weightGrams: number | null;
+    depthCm: number | null;
+    method: string;
+    notes: string;
+    lat: number | null;
+    lon: number | null;
+    accuracyM: number | null;
+    foundAt: number;
+    positionShared: boolean;
+  };
   photos: { id: string }[];
   weighIns: {
     id: string;
@@ -48,12 +62,12 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
   return (
     <>
       <p>
-        {formatWhen(w.weighedAt, timeZone)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C · host {host.toFixed(2)} ·
-        fineness {Math.round(fineness)} ‰
+        {formatWhen(w.weighedAt, timeZone)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C ·
+        host {host.toFixed(2)} · fineness {Math.round(fineness)} ‰
       </p>
       <p className="font-bold tabular-nums">
-        Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine ± {formatGrams(u, "g", u)} (at worst {formatGrams(server.range.fineGoldGrams[0], "g", u)} –{" "}
-        {formatGrams(server.range.fineGoldGrams[1], "g", u)}), {engineLabel(w.engineVersion)}
+        Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine ± {formatGrams(u, "g", u)} (at worst{" "}
+        {formatGrams(server.range.fineGoldGrams[0], "g", u)} – {formatGrams(server.range.fineGoldGrams[1], "g", u)}), {engineLabel(w.engineVersion)}
       </p>
       <ScaleMark w={w} timeZone={timeZone} />
       {w.mismatch && (
@@ -97,7 +111,8 @@ function ThreadLine({ e, timeZone }: { e: ThreadEvent; timeZone: string }) {
     case "review":
       return (
         <>
-          <strong className={e.action === "query" ? "text-rust" : e.action === "verify" ? "text-moss" : ""}>{ACTION[e.action]}</strong> by {e.by ?? "a former officer"} · {when} {e.note && `— ${e.note}`}
+          <strong className={e.action === "query" ? "text-rust" : e.action === "verify" ? "text-moss" : ""}>{ACTION[e.action]}</strong> by{" "}
+          {e.by ?? "a former officer"} · {when} {e.note && `— ${e.note}`}
         </>
       );
     case "answer":
@@ -166,7 +181,8 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
                   <span className="whitespace-nowrap">{formatDecimal(data.find.lat, data.find.lon)}</span>
                   <br />
                   {/* Latitude and longitude each kept whole; the pair wraps between them if it must. */}
-                  <span className="whitespace-nowrap">{toDms(data.find.lat, "lat")}</span> <span className="whitespace-nowrap">{toDms(data.find.lon, "lon")}</span>
+                  <span className="whitespace-nowrap">{toDms(data.find.lat, "lat")}</span>{" "}
+                  <span className="whitespace-nowrap">{toDms(data.find.lon, "lon")}</span>
                 </>
               ) : data.find.positionShared ? (
                 "not recorded"
@@ -209,7 +225,9 @@ export function FindPanel({ id, onClose }: { id: string; onClose: () => void }) 
               <span className="field-label">Note to the member</span>
               <textarea rows={2} className="field-input" value={note} onChange={(e) => setNote(e.target.value)} />
             </label>
-            {review.error && <p className="field-error">{review.error instanceof ApiError ? (review.error.fields.note?.[0] ?? review.error.message) : String(review.error)}</p>}
+            {review.error && (
+              <p className="field-error">{review.error instanceof ApiError ? (review.error.fields.note?.[0] ?? review.error.message) : String(review.error)}</p>
+            )}
             <div className="flex flex-wrap gap-2">
               <button type="button" className="btn btn-primary" disabled={review.isPending} onClick={() => review.mutate("verify")}>
                 Verify

@@ -4,13 +4,33 @@ import { withoutBidiControls as plain } from "@/lib/text/safe-text";
 import { PrintButton } from "./print-button";
 import { ReportFigures, ReportTotals } from "./report-parts";
 
-type Claim = { name: string; agencyRef: string | null; landowner: string | null; royaltyKind: "percent_of_value" | "grams_per_troy_ounce" | null; royaltyRate: number | null };
+type Claim = {
+  name: string;
+  agencyRef: string | null;
+  landowner: string | null;
+  royaltyKind: "percent_of_value" | "grams_per_troy_ounce" | null;
+  royaltyRate: number | null;
+};
 
 /**
  * The statement of a claim's production for its landowner: the period's totals, how the
  * figures were reached, the royalty the agreement sets on them, and what settles it.
  */
-export function LandownerStatement({ club, claim, claimLabel, period, summary, printedOn }: { club: string; claim: Claim; claimLabel: string; period: string; summary: LedgerSummary; printedOn: string }) {
+export function LandownerStatement({
+  club,
+  claim,
+  claimLabel,
+  period,
+  summary,
+  printedOn,
+}: {
+  club: string;
+  claim: Claim;
+  claimLabel: string;
+  period: string;
+  summary: LedgerSummary;
+  printedOn: string;
+}) {
   const due = royaltyDue(claim, summary);
   const terms =
     claim.royaltyKind === "percent_of_value"
@@ -45,8 +65,8 @@ export function LandownerStatement({ club, claim, claimLabel, period, summary, p
       <footer className="border-t-2 border-ink pt-2 text-sm">
         <p className="font-bold">Estimates are not assays.</p>
         <p>
-          These figures are the club&apos;s estimates of fine gold from its members&apos; records. The agreement between the club and the
-          landowner, and the assays or melts of what was recovered, settle what is owed; the local rules on reporting production apply.
+          These figures are the club&apos;s estimates of fine gold from its members&apos; records. The agreement between the club and the landowner, and the
+          assays or melts of what was recovered, settle what is owed; the local rules on reporting production apply.
         </p>
       </footer>
     </article>

@@ -17,7 +17,17 @@ const grams = (g: number | null) => (g == null ? "—" : formatGrams(g));
 const money = (v: number | null, c: string | null) => (v == null ? "—" : `${v.toFixed(2)} ${c ?? ""}`);
 const STATE_LABEL = { new: "New", verified: "Verified", queried: "Queried", answered: "Answered" } as const;
 
-const SORT_IDS: Record<string, string> = { foundAt: "foundAt", memberName: "member", claimName: "claim", kind: "kind", method: "method", weightGrams: "weight", fineGrams: "fine", value: "value", state: "state" };
+const SORT_IDS: Record<string, string> = {
+  foundAt: "foundAt",
+  memberName: "member",
+  claimName: "claim",
+  kind: "kind",
+  method: "method",
+  weightGrams: "weight",
+  fineGrams: "fine",
+  value: "value",
+  state: "state",
+};
 
 /** A find's fine gold, how it was reached, its range, and a flag when its weigh-in disagrees with its weight. */
 function FineCell({ row }: { row: LedgerRow }) {
@@ -59,7 +69,17 @@ function basisSummary(s: LedgerSummary): string {
 }
 
 /** The officers' club ledger: filtered and paged on the server, totals for everything selected. */
-export function LedgerScreen({ claims, members, seasons, first }: { claims: Option[]; members: Option[]; seasons: number[]; first?: { query: string; page: LedgerPage } }) {
+export function LedgerScreen({
+  claims,
+  members,
+  seasons,
+  first,
+}: {
+  claims: Option[];
+  members: Option[];
+  seasons: number[];
+  first?: { query: string; page: LedgerPage };
+}) {
   const params = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
@@ -92,7 +112,9 @@ export function LedgerScreen({ claims, members, seasons, first }: { claims: Opti
     router.replace(`${pathname}?${next}`, { scroll: false });
   };
 
-  const sorting: SortingState = [{ id: Object.entries(SORT_IDS).find(([, v]) => v === (params.get("sort") ?? "foundAt"))?.[0] ?? "foundAt", desc: (params.get("dir") ?? "desc") === "desc" }];
+  const sorting: SortingState = [
+    { id: Object.entries(SORT_IDS).find(([, v]) => v === (params.get("sort") ?? "foundAt"))?.[0] ?? "foundAt", desc: (params.get("dir") ?? "desc") === "desc" },
+  ];
   const columns = useMemo(
     () => [
       col.accessor("foundAt", { header: "Found", cell: (c) => <span className="whitespace-nowrap">{c.row.original.foundOn}</span> }),
@@ -200,9 +222,24 @@ export function LedgerScreen({ claims, members, seasons, first }: { claims: Opti
         </div>
       </div>
       <form className="sheet grid grid-cols-[repeat(auto-fill,minmax(10rem,1fr))] gap-2" aria-label="Ledger filters" onSubmit={(e) => e.preventDefault()}>
-        {select("claimId", "Claim", claims.map((c) => [c.id, c.name ?? ""]), "All claims")}
-        {select("memberId", "Member", members.map((m) => [m.id, m.name ?? ""]), "All members")}
-        {select("season", "Season", seasons.map((y) => [String(y), String(y)]), "Any season")}
+        {select(
+          "claimId",
+          "Claim",
+          claims.map((c) => [c.id, c.name ?? ""]),
+          "All claims",
+        )}
+        {select(
+          "memberId",
+          "Member",
+          members.map((m) => [m.id, m.name ?? ""]),
+          "All members",
+        )}
+        {select(
+          "season",
+          "Season",
+          seasons.map((y) => [String(y), String(y)]),
+          "Any season",
+        )}
         <label className="flex flex-col text-sm">
           <span className="font-bold">From</span>
           <input type="date" className="field-input" value={params.get("from") ?? ""} onChange={(e) => set({ from: e.target.value || undefined })} />
@@ -211,7 +248,12 @@ export function LedgerScreen({ claims, members, seasons, first }: { claims: Opti
           <span className="font-bold">To</span>
           <input type="date" className="field-input" value={params.get("to") ?? ""} onChange={(e) => set({ to: e.target.value || undefined })} />
         </label>
-        {select("kind", "Kind", FIND_KINDS.map((k) => [k, KIND_LABELS[k]]), "All kinds")}
+        {select(
+          "kind",
+          "Kind",
+          FIND_KINDS.map((k) => [k, KIND_LABELS[k]]),
+          "All kinds",
+        )}
         {select("state", "Review", [...REVIEW_STATES.map((k): [string, string] => [k, STATE_LABEL[k]]), ["changed", "Changed since the query"]], "Any state")}
         {select("price", "Value at", [["today", "today's price"]], "the find's date")}
       </form>
@@ -237,11 +279,13 @@ export function LedgerScreen({ claims, members, seasons, first }: { claims: Opti
             <p className="text-sm text-ink-soft">Value</p>
             <p className="figure text-xl font-bold">{money(s.value, s.currency)}</p>
             <p className="text-sm text-ink-soft tabular-nums">
-              at worst <span className="whitespace-nowrap">{money(s.valueLow, s.currency)}</span> – <span className="whitespace-nowrap">{money(s.valueHigh, s.currency)}</span>
+              at worst <span className="whitespace-nowrap">{money(s.valueLow, s.currency)}</span> –{" "}
+              <span className="whitespace-nowrap">{money(s.valueHigh, s.currency)}</span>
             </p>
           </div>
           <p className="col-span-full text-xs text-ink-soft" data-testid="ledger-bases">
-            {basisSummary(s)}. {s.mismatched > 0 ? `${s.mismatched} weigh-in${s.mismatched === 1 ? "" : "s"} far from the find's weight. ` : ""}Estimates, not assays.
+            {basisSummary(s)}. {s.mismatched > 0 ? `${s.mismatched} weigh-in${s.mismatched === 1 ? "" : "s"} far from the find's weight. ` : ""}Estimates, not
+            assays.
           </p>
         </section>
       )}
@@ -253,7 +297,11 @@ export function LedgerScreen({ claims, members, seasons, first }: { claims: Opti
               {table.getHeaderGroups().map((hg) => (
                 <tr key={hg.id} className="border-b-2 border-rule">
                   {hg.headers.map((h) => (
-                    <th key={h.id} className="whitespace-nowrap py-2 pr-3 align-bottom" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}>
+                    <th
+                      key={h.id}
+                      className="whitespace-nowrap py-2 pr-3 align-bottom"
+                      aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "desc" ? "descending" : "ascending") : undefined}
+                    >
                       {h.column.getCanSort() ? (
                         <button type="button" className="font-bold underline-offset-2 hover:underline" onClick={h.column.getToggleSortingHandler()}>
                           {flexRender(h.column.columnDef.header, h.getContext())}

@@ -55,11 +55,21 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
                   <label className="sr-only" htmlFor={`role-${m.id}`}>
                     Role of {m.name ?? m.email}
                   </label>
-                  <select id={`role-${m.id}`} className="field-input w-auto" value={m.role} onChange={(e) => {
+                  <select
+                    id={`role-${m.id}`}
+                    className="field-input w-auto"
+                    value={m.role}
+                    onChange={(e) => {
                       const role = e.target.value as Role;
-                      if (!window.confirm(`Make ${m.name ?? m.email} ${ROLE_LABELS[role].toLowerCase()}? They are signed out on every device at once and sign in again with the new role.`)) return;
+                      if (
+                        !window.confirm(
+                          `Make ${m.name ?? m.email} ${ROLE_LABELS[role].toLowerCase()}? They are signed out on every device at once and sign in again with the new role.`,
+                        )
+                      )
+                        return;
                       void act(() => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { role } }), "Role changed; their old sessions have ended.");
-                    }}>
+                    }}
+                  >
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
                         {ROLE_LABELS[r]}
@@ -74,8 +84,17 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
                       type="button"
                       className="btn ml-2 px-2 text-sm"
                       onClick={() => {
-                        if (m.active && !window.confirm(`Deactivate ${m.name ?? m.email}? They are signed out on every device at once and cannot sign in; their records stay in the club's ledger. Changes still on their phone are not sent until they are active again.`)) return;
-                        void act(() => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { active: !m.active } }), m.active ? "Deactivated: their records stay, their sessions have ended." : "Active again.");
+                        if (
+                          m.active &&
+                          !window.confirm(
+                            `Deactivate ${m.name ?? m.email}? They are signed out on every device at once and cannot sign in; their records stay in the club's ledger. Changes still on their phone are not sent until they are active again.`,
+                          )
+                        )
+                          return;
+                        void act(
+                          () => api(`/api/club/members/${m.id}`, { method: "PATCH", body: { active: !m.active } }),
+                          m.active ? "Deactivated: their records stay, their sessions have ended." : "Active again.",
+                        );
                       }}
                     >
                       {m.active ? "Deactivate" : "Reactivate"}
@@ -97,7 +116,9 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
           onSubmit={(e) => {
             e.preventDefault();
             // Cleared only once sent: a refusal keeps what was typed.
-            void act(() => api("/api/club/invitations", { method: "POST", body: invite }), `Invitation sent to ${invite.email}.`).then((sent) => sent && setInvite({ email: "", role: "member" }));
+            void act(() => api("/api/club/invitations", { method: "POST", body: invite }), `Invitation sent to ${invite.email}.`).then(
+              (sent) => sent && setInvite({ email: "", role: "member" }),
+            );
           }}
         >
           <label className="flex flex-col">
@@ -128,10 +149,20 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
                 <span>
                   {i.email} · {ROLE_LABELS[i.role]} · sent {formatDay(i.createdAt)}, runs out {formatDay(i.expiresAt)}
                 </span>
-                <button type="button" className="btn px-2 text-sm" onClick={() => act(() => api(`/api/club/invitations/${i.id}`, { method: "POST", body: { action: "resend" } }), "Sent again with a fresh link.")}>
+                <button
+                  type="button"
+                  className="btn px-2 text-sm"
+                  onClick={() =>
+                    act(() => api(`/api/club/invitations/${i.id}`, { method: "POST", body: { action: "resend" } }), "Sent again with a fresh link.")
+                  }
+                >
                   Resend
                 </button>
-                <button type="button" className="btn px-2 text-sm" onClick={() => act(() => api(`/api/club/invitations/${i.id}`, { method: "DELETE" }), "Invitation withdrawn.")}>
+                <button
+                  type="button"
+                  className="btn px-2 text-sm"
+                  onClick={() => act(() => api(`/api/club/invitations/${i.id}`, { method: "DELETE" }), "Invitation withdrawn.")}
+                >
                   Withdraw
                 </button>
               </li>

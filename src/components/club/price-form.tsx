@@ -30,7 +30,10 @@ export function PriceForm({ currency, replacing, onDone }: Props) {
     }
     const value = { effectiveOn: form.effectiveOn, pricePerTroyOunce: price, currency, note: form.note, confirmJump };
     try {
-      await api(replacing ? `/api/club/prices/${replacing.id}` : "/api/club/prices", { method: "POST", body: replacing ? { action: "replace", price: value } : value });
+      await api(replacing ? `/api/club/prices/${replacing.id}` : "/api/club/prices", {
+        method: "POST",
+        body: replacing ? { action: "replace", price: value } : value,
+      });
       setJump(null);
       setDone(replacing ? "Corrected: the old entry is withdrawn." : "Recorded.");
       setForm({ ...form, price: "", note: "" });
@@ -58,12 +61,24 @@ export function PriceForm({ currency, replacing, onDone }: Props) {
     >
       <label className="flex flex-col">
         <span className="field-label">In force from</span>
-        <input type="date" className="field-input" value={form.effectiveOn} onChange={(e) => setForm({ ...form, effectiveOn: e.target.value })} aria-invalid={!!errors.effectiveOn} />
+        <input
+          type="date"
+          className="field-input"
+          value={form.effectiveOn}
+          onChange={(e) => setForm({ ...form, effectiveOn: e.target.value })}
+          aria-invalid={!!errors.effectiveOn}
+        />
         {errors.effectiveOn && <span className="field-error">{errors.effectiveOn}</span>}
       </label>
       <label className="flex flex-col">
         <span className="field-label">Price per troy ounce ({currency})</span>
-        <input inputMode="decimal" className="field-input figure" value={form.price} onChange={(e) => setForm({ ...form, price: e.target.value })} aria-invalid={!!errors.pricePerTroyOunce} />
+        <input
+          inputMode="decimal"
+          className="field-input figure"
+          value={form.price}
+          onChange={(e) => setForm({ ...form, price: e.target.value })}
+          aria-invalid={!!errors.pricePerTroyOunce}
+        />
         {errors.pricePerTroyOunce && <span className="field-error">{errors.pricePerTroyOunce}</span>}
       </label>
       <label className="flex flex-col">

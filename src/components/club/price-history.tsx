@@ -4,7 +4,18 @@ import { useState } from "react";
 import { api } from "./api";
 import { PriceForm } from "./price-form";
 
-export type PriceEntry = { id: string; effectiveOn: string; pricePerTroyOunce: number; currency: string; recordedBy: string | null; createdOn: string; inForce: boolean; withdrawn: boolean; note: string; replaces: string | null };
+export type PriceEntry = {
+  id: string;
+  effectiveOn: string;
+  pricePerTroyOunce: number;
+  currency: string;
+  recordedBy: string | null;
+  createdOn: string;
+  inForce: boolean;
+  withdrawn: boolean;
+  note: string;
+  replaces: string | null;
+};
 
 /** Every price entered, which are in force, and a withdraw or correct for each one in force. */
 export function PriceHistory({ prices, currency }: { prices: PriceEntry[]; currency: string }) {
@@ -66,7 +77,9 @@ export function PriceHistory({ prices, currency }: { prices: PriceEntry[]; curre
                     </button>
                   </span>
                 )}
-                {correcting === p.id && <PriceForm currency={currency} replacing={{ id: p.id, effectiveOn: p.effectiveOn }} onDone={() => setCorrecting(null)} />}
+                {correcting === p.id && (
+                  <PriceForm currency={currency} replacing={{ id: p.id, effectiveOn: p.effectiveOn }} onDone={() => setCorrecting(null)} />
+                )}
               </td>
             </tr>
           ))}

@@ -12,7 +12,18 @@ import { decimalMarkOf, parseNumber } from "@/lib/parse-number";
 import { api, ApiError } from "./api";
 import type { ClaimProfile } from "./claim-profile-editor";
 
-type Recovery = { id: string; kind: "melt" | "assay"; recordedOn: string; fineGrams: number; fineness: number | null; estimatedGrams: number; finds: number; hasDocument: boolean; documentName: string | null; note: string };
+type Recovery = {
+  id: string;
+  kind: "melt" | "assay";
+  recordedOn: string;
+  fineGrams: number;
+  fineness: number | null;
+  estimatedGrams: number;
+  finds: number;
+  hasDocument: boolean;
+  documentName: string | null;
+  note: string;
+};
 type Answer = { recoveries: Recovery[]; comparison: { ratios: number[]; mean: number | null; sd: number | null }; proposal: FinenessProposal | null };
 
 /**
@@ -52,11 +63,25 @@ export function RecoveredGold({ claim, season }: { claim: ClaimProfile; season: 
     try {
       const { id } = await api<{ id: string }>("/api/club/recoveries", {
         method: "POST",
-        body: { kind: form.kind, claimId: claim.id, recordedOn: form.recordedOn, fineGrams: fine, fineness: fineness ?? null, findIds: [...chosen], note: form.note },
+        body: {
+          kind: form.kind,
+          claimId: claim.id,
+          recordedOn: form.recordedOn,
+          fineGrams: fine,
+          fineness: fineness ?? null,
+          findIds: [...chosen],
+          note: form.note,
+        },
       });
       if (document) {
-        const res = await fetch(`/api/club/recoveries/${id}/document`, { method: "PUT", body: document, headers: { "x-file-name": document.name }, credentials: "same-origin" });
-        if (!res.ok) setErrors({ document: ((await res.json().catch(() => ({}))) as { error?: { message?: string } }).error?.message ?? "The document was not kept." });
+        const res = await fetch(`/api/club/recoveries/${id}/document`, {
+          method: "PUT",
+          body: document,
+          headers: { "x-file-name": document.name },
+          credentials: "same-origin",
+        });
+        if (!res.ok)
+          setErrors({ document: ((await res.json().catch(() => ({}))) as { error?: { message?: string } }).error?.message ?? "The document was not kept." });
       }
       setStatus(`Recorded: ${chosen.size} find${chosen.size === 1 ? "" : "s"} now figured from it.`);
       setChosen(new Set());
@@ -118,7 +143,15 @@ export function RecoveredGold({ claim, season }: { claim: ClaimProfile; season: 
                 <td className="figure py-1 pr-2 text-right">{formatGrams(r.estimatedGrams)}</td>
                 <td className="figure py-1 pr-2 text-right">{formatGrams(r.fineGrams)}</td>
                 <td className="figure py-1 pr-2 text-right">{r.estimatedGrams > 0 ? (r.fineGrams / r.estimatedGrams).toFixed(2) : "—"}</td>
-                <td className="py-1">{r.hasDocument ? <a className="underline" href={`/api/club/recoveries/${r.id}/document`}>{r.documentName ?? "document"}</a> : "—"}</td>
+                <td className="py-1">
+                  {r.hasDocument ? (
+                    <a className="underline" href={`/api/club/recoveries/${r.id}/document`}>
+                      {r.documentName ?? "document"}
+                    </a>
+                  ) : (
+                    "—"
+                  )}
+                </td>
               </tr>
             ))}
           </tbody>
@@ -127,7 +160,15 @@ export function RecoveredGold({ claim, season }: { claim: ClaimProfile; season: 
       {c?.mean != null && (
         <p className="text-sm" data-testid="recovery-ratio">
           Recovered ÷ estimated: <span className="figure font-bold">{c.mean.toFixed(2)}</span>
-          {c.sd != null ? <span className="figure"> ± {c.sd.toFixed(2)} over {c.ratios.length}</span> : " (one so far)"}.
+          {c.sd != null ? (
+            <span className="figure">
+              {" "}
+              ± {c.sd.toFixed(2)} over {c.ratios.length}
+            </span>
+          ) : (
+            " (one so far)"
+          )}
+          .
         </p>
       )}
       {data?.proposal && (
@@ -137,8 +178,8 @@ export function RecoveredGold({ claim, season }: { claim: ClaimProfile; season: 
             <span className="figure font-bold">
               {data.proposal.value} ‰ ({data.proposal.low}–{data.proposal.high})
             </span>
-            , from {data.proposal.recoveries} melt{data.proposal.recoveries === 1 ? "" : "s"} or assays. The profile now says {claim.fineness} ‰ ({claim.finenessLow}–
-            {claim.finenessHigh}).
+            , from {data.proposal.recoveries} melt{data.proposal.recoveries === 1 ? "" : "s"} or assays. The profile now says {claim.fineness} ‰ (
+            {claim.finenessLow}–{claim.finenessHigh}).
           </p>
           <button type="button" className="btn mt-2" onClick={() => void accept(data.proposal!)}>
             Use the proposed fineness
@@ -159,17 +200,35 @@ export function RecoveredGold({ claim, season }: { claim: ClaimProfile; season: 
         </label>
         <label className="flex flex-col">
           <span className="field-label">Day</span>
-          <input type="date" className="field-input" value={form.recordedOn} onChange={(e) => setForm({ ...form, recordedOn: e.target.value })} aria-invalid={!!errors.recordedOn} />
+          <input
+            type="date"
+            className="field-input"
+            value={form.recordedOn}
+            onChange={(e) => setForm({ ...form, recordedOn: e.target.value })}
+            aria-invalid={!!errors.recordedOn}
+          />
           {errors.recordedOn && <span className="field-error">{errors.recordedOn}</span>}
         </label>
         <label className="flex flex-col">
           <span className="field-label">Fine gold recovered (g)</span>
-          <input inputMode="decimal" className="field-input figure" value={form.fine} onChange={(e) => setForm({ ...form, fine: e.target.value })} aria-invalid={!!errors.fineGrams} />
+          <input
+            inputMode="decimal"
+            className="field-input figure"
+            value={form.fine}
+            onChange={(e) => setForm({ ...form, fine: e.target.value })}
+            aria-invalid={!!errors.fineGrams}
+          />
           {errors.fineGrams && <span className="field-error">{errors.fineGrams}</span>}
         </label>
         <label className="flex flex-col">
           <span className="field-label">Fineness (‰){form.kind === "melt" ? ", if assayed" : ""}</span>
-          <input inputMode="decimal" className="field-input figure" value={form.fineness} onChange={(e) => setForm({ ...form, fineness: e.target.value })} aria-invalid={!!errors.fineness} />
+          <input
+            inputMode="decimal"
+            className="field-input figure"
+            value={form.fineness}
+            onChange={(e) => setForm({ ...form, fineness: e.target.value })}
+            aria-invalid={!!errors.fineness}
+          />
           {errors.fineness && <span className="field-error">{errors.fineness}</span>}
         </label>
         <fieldset className="md:col-span-4">
@@ -190,7 +249,8 @@ export function RecoveredGold({ claim, season }: { claim: ClaimProfile; season: 
                     setChosen(next);
                   }}
                 />
-                <span className="figure">{r.foundOn}</span> · {r.memberName} · {KIND_LABELS[r.kind as keyof typeof KIND_LABELS]} · {r.weightGrams != null ? formatGrams(r.weightGrams) : "no weight"}
+                <span className="figure">{r.foundOn}</span> · {r.memberName} · {KIND_LABELS[r.kind as keyof typeof KIND_LABELS]} ·{" "}
+                {r.weightGrams != null ? formatGrams(r.weightGrams) : "no weight"}
               </label>
             ))}
           </div>

@@ -24,7 +24,19 @@ type Props = { find: LocalFind; claims: ClaimView[]; settings: MemberSettings; o
  * switch; when it lies outside the chosen claim and every other, says that (boundaries are the
  * club's drawing, so this is a prompt, not a refusal).
  */
-function ClaimCheck({ lat, lon, claimId, claims, onSwitch }: { lat: string; lon: string; claimId: string; claims: ClaimView[]; onSwitch: (id: string) => void }) {
+function ClaimCheck({
+  lat,
+  lon,
+  claimId,
+  claims,
+  onSwitch,
+}: {
+  lat: string;
+  lon: string;
+  claimId: string;
+  claims: ClaimView[];
+  onSwitch: (id: string) => void;
+}) {
   const la = parseTyped(lat ?? "");
   const lo = parseTyped(lon ?? "");
   if (la === undefined || lo === undefined || Number.isNaN(la) || Number.isNaN(lo) || Math.abs(la) > 90 || Math.abs(lo) > 180) return null;

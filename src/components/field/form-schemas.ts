@@ -28,7 +28,6 @@ export const findFormSchema = z
   })
   .refine((v) => (v.lat.trim() === "") === (v.lon.trim() === ""), { message: "Give both latitude and longitude, or neither.", path: ["lat"] });
 
-
 export const outingFormSchema = z.object({
   claimId: z.string(),
   method: methodSchema,

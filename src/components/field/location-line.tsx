@@ -19,7 +19,7 @@ export function LocationLine({ lat, lon, accuracyM, source, claims }: Props) {
       </p>
       <p className="text-sm text-ink-soft">
         {accuracyM != null ? `± ${Math.round(accuracyM)} m, ` : ""}
-        {source ? SOURCE[source] ?? source : ""}
+        {source ? (SOURCE[source] ?? source) : ""}
       </p>
       {claim ? (
         <p className="text-sm font-bold text-moss" data-testid="claim-match">
@@ -27,8 +27,8 @@ export function LocationLine({ lat, lon, accuracyM, source, claims }: Props) {
         </p>
       ) : (
         <p className="rounded-md border-2 border-caution p-2 text-sm font-bold" role="alert" data-testid="outside-claims">
-          This spot is outside every club claim. Check that you may dig here: the claim owner and the land agency decide. (Claim
-          boundaries here are the club&apos;s drawing, not a survey.)
+          This spot is outside every club claim. Check that you may dig here: the claim owner and the land agency decide. (Claim boundaries here are the
+          club&apos;s drawing, not a survey.)
         </p>
       )}
     </div>

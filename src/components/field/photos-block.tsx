@@ -47,7 +47,11 @@ export function PhotosBlock({ db, findId }: { db: LodebookDb; findId: string }) 
       setMessage({ tone: "ok", text: fromPhoto ? "Photo saved. The find's position was taken from the photo." : "Photo saved on this device." });
       requestSync();
     } catch (error) {
-      setMessage({ tone: "bad", text: photosLib && error instanceof photosLib.StorageFullError ? error.message : `That photo could not be read (${(error as Error).message}). Try another.` });
+      setMessage({
+        tone: "bad",
+        text:
+          photosLib && error instanceof photosLib.StorageFullError ? error.message : `That photo could not be read (${(error as Error).message}). Try another.`,
+      });
     } finally {
       setBusy(false);
     }

@@ -22,7 +22,11 @@ type Step =
  */
 export function QueryThread({ db, find, weighIns }: { db: LodebookDb; find: LocalFind; weighIns: LocalWeighIn[] }) {
   const data = useLiveQuery(
-    async () => ({ findId: find.id, reviews: await db.reviews.where("findId").equals(find.id).toArray(), answers: await db.answers.where("findId").equals(find.id).toArray() }),
+    async () => ({
+      findId: find.id,
+      reviews: await db.reviews.where("findId").equals(find.id).toArray(),
+      answers: await db.answers.where("findId").equals(find.id).toArray(),
+    }),
     [db, find.id],
   );
   const [text, setText] = useState("");
@@ -69,7 +73,8 @@ export function QueryThread({ db, find, weighIns }: { db: LodebookDb; find: Loca
             )}
             {s.kind === "answer" && (
               <>
-                <strong>Your answer</strong> · {s.sent ? <time dateTime={new Date(s.at).toISOString()}>{formatWhen(s.at)}</time> : "on this device, goes at the next camp sync"}
+                <strong>Your answer</strong> ·{" "}
+                {s.sent ? <time dateTime={new Date(s.at).toISOString()}>{formatWhen(s.at)}</time> : "on this device, goes at the next camp sync"}
                 <span className="block">{s.note}</span>
               </>
             )}

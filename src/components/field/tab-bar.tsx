@@ -20,7 +20,8 @@ export const MORE_SCREENS = [
   { href: "/about", label: "About and cautions" },
 ] as const;
 
-const tabClass = (active: boolean) => `flex min-h-[52px] w-full items-center justify-center text-sm font-bold no-underline ${active ? "border-t-4 border-ochre text-ochre" : "text-ink"}`;
+const tabClass = (active: boolean) =>
+  `flex min-h-[52px] w-full items-center justify-center text-sm font-bold no-underline ${active ? "border-t-4 border-ochre text-ochre" : "text-ink"}`;
 
 /** Thumb-reach navigation for phones: one row at the bottom, big targets, and "More" for the rest. */
 export function TabBar() {
@@ -33,7 +34,12 @@ export function TabBar() {
         <ul id="more-screens" className="border-b-2 border-rule">
           {MORE_SCREENS.map((s) => (
             <li key={s.href}>
-              <Link href={s.href} onClick={() => setOpen(false)} aria-current={path.startsWith(s.href) ? "page" : undefined} className="flex min-h-[52px] items-center px-4 font-bold no-underline">
+              <Link
+                href={s.href}
+                onClick={() => setOpen(false)}
+                aria-current={path.startsWith(s.href) ? "page" : undefined}
+                className="flex min-h-[52px] items-center px-4 font-bold no-underline"
+              >
                 {s.label}
               </Link>
             </li>

@@ -50,7 +50,12 @@ function FineGoldLine({ find, latestAir, unit }: { find: LocalFind; latestAir: n
 /** Which scale a weigh-in was made on, and what its last setup check said then. */
 function ScaleLine({ scaleCheck, scaleName }: { scaleCheck: LocalWeighIn["scaleCheck"]; scaleName: string | null }) {
   if (!scaleName) return null;
-  if (!scaleCheck) return <span className="w-full text-xs text-ink-soft" data-testid="weigh-in-scale" data-standing="unchecked">On {scaleName}, not checked then.</span>;
+  if (!scaleCheck)
+    return (
+      <span className="w-full text-xs text-ink-soft" data-testid="weigh-in-scale" data-standing="unchecked">
+        On {scaleName}, not checked then.
+      </span>
+    );
   return scaleCheck.passed ? (
     <span className="w-full text-xs text-moss" data-testid="weigh-in-scale" data-standing="passed">
       On {scaleName}, whose setup check passed ({formatWhen(scaleCheck.checkedAt)}).
@@ -66,7 +71,19 @@ function ScaleLine({ scaleCheck, scaleName }: { scaleCheck: LocalWeighIn["scaleC
  * A find's weigh-ins on the phone: its fine gold as the club figured it, each weigh-in with its
  * estimate, engine and scale, and the weigh-in flow. Loaded just after the find's record.
  */
-export function WeighInsBlock({ db, find, weighIns, claims, settings }: { db: LodebookDb; find: LocalFind; weighIns: LocalWeighIn[] | undefined; claims: ClaimView[]; settings: MemberSettings }) {
+export function WeighInsBlock({
+  db,
+  find,
+  weighIns,
+  claims,
+  settings,
+}: {
+  db: LodebookDb;
+  find: LocalFind;
+  weighIns: LocalWeighIn[] | undefined;
+  claims: ClaimView[];
+  settings: MemberSettings;
+}) {
   const scales = useLiveQuery(() => db.scales.toArray(), [db]);
   const [weighing, setWeighing] = useState(false);
   const latest = weighIns?.[weighIns.length - 1];
@@ -109,7 +126,13 @@ export function WeighInsBlock({ db, find, weighIns, claims, settings }: { db: Lo
         <Suspense fallback={<Skeleton />}>
           <WeighInFlow
             claim={claimGoldOf(claims.find((c) => c.id === find.claimId))}
-            initial={{ resolution: settings.scaleResolution, hostPreset: settings.hostPreset, finenessPreset: settings.finenessPreset, tempUnit: settings.tempUnit, readingUnit: "g" }}
+            initial={{
+              resolution: settings.scaleResolution,
+              hostPreset: settings.hostPreset,
+              finenessPreset: settings.finenessPreset,
+              tempUnit: settings.tempUnit,
+              readingUnit: "g",
+            }}
             scales={scales ?? []}
             onSave={async (input, estimate, scale) => {
               await saveWeighIn(db, { id: newId(), findId: find.id, input, deviceEstimate: estimate, weighedAt: Date.now(), ...scale });

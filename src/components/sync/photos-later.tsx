@@ -51,9 +51,7 @@ export function PhotosLater({ db }: { db: LodebookDb }) {
           {photoBytesWords(status)}
         </p>
       )}
-      <p data-testid="photos-waiting">
-        {count === 0 ? "No photos waiting." : `Photos waiting: ${count} (${formatBytes(waiting!.bytes)}).`}
-      </p>
+      <p data-testid="photos-waiting">{count === 0 ? "No photos waiting." : `Photos waiting: ${count} (${formatBytes(waiting!.bytes)}).`}</p>
       {photosLater && count > 0 && (
         <button type="button" className="btn self-start" onClick={() => requestSync({ photosNow: true })}>
           Send photos now

@@ -58,7 +58,10 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
       tone = "text-moss";
       break;
     case "needs-sign-in":
-      line = status.reason === "other-member" ? "Someone else is signed in here. Sign in as yourself to send your changes." : "Your session has ended. Sign in again to send your changes; they are safe here.";
+      line =
+        status.reason === "other-member"
+          ? "Someone else is signed in here. Sign in as yourself to send your changes."
+          : "Your session has ended. Sign in again to send your changes; they are safe here.";
       tone = "text-rust";
       break;
     case "outdated":
@@ -75,7 +78,12 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
   if (!online && status.kind !== "syncing") line = "No signal: everything is kept on this device until camp sync.";
 
   return (
-    <section aria-label="Camp sync" className={`sheet flex flex-col gap-2 ${compact ? "py-2" : ""}`} data-testid="sync-status" data-kind={online ? status.kind : "offline"}>
+    <section
+      aria-label="Camp sync"
+      className={`sheet flex flex-col gap-2 ${compact ? "py-2" : ""}`}
+      data-testid="sync-status"
+      data-kind={online ? status.kind : "offline"}
+    >
       <p className={`font-bold ${tone}`} role="status">
         {line}
       </p>
@@ -94,13 +102,19 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
         {stuck > 0 && (
           <>
             {" "}
-            · <Link href="/sync" className="font-bold text-rust underline">{stuck} stuck on the server</Link>
+            ·{" "}
+            <Link href="/sync" className="font-bold text-rust underline">
+              {stuck} stuck on the server
+            </Link>
           </>
         )}
         {rejected > 0 && (
           <>
             {" "}
-            · <Link href="/sync" className="font-bold text-rust underline">{rejected} refused by the server</Link>
+            ·{" "}
+            <Link href="/sync" className="font-bold text-rust underline">
+              {rejected} refused by the server
+            </Link>
           </>
         )}
       </p>

@@ -23,7 +23,15 @@ const BARREN_PRACTICE = [
 export type BarrenPiece = { input: DensityInput; density: number; scaleId: string | null; scaleCheck: ScaleCheckRef | null };
 
 /** One piece of barren rock weighed as a specimen is, its density by the engine; pieces follow one another. */
-export function BarrenRockFlow({ scales, initial, onSave }: { scales: Scale[]; initial?: Partial<WeighFormValues>; onSave: (piece: BarrenPiece) => void | Promise<void> }) {
+export function BarrenRockFlow({
+  scales,
+  initial,
+  onSave,
+}: {
+  scales: Scale[];
+  initial?: Partial<WeighFormValues>;
+  onSave: (piece: BarrenPiece) => void | Promise<void>;
+}) {
   const { register, control, setValue } = useForm<WeighFormValues>({ defaultValues: { ...DEFAULT_WEIGH_FORM, ...initial } });
   const values = useWatch({ control }) as WeighFormValues;
   const [saving, setSaving] = useState(false);
@@ -31,7 +39,10 @@ export function BarrenRockFlow({ scales, initial, onSave }: { scales: Scale[]; i
   const outcome = useMemo(() => (form.complete ? withFieldErrors(() => measureDensity(form.input), form.errors) : { errors: form.errors }), [form]);
   const scale = scales.find((s) => s.id === values.scaleId);
   const step = parseTyped(values.resolution);
-  const accuracyHint = step !== undefined && step > 0 ? `± ${Number(convertMass(defaultScaleAccuracy(toGrams(step, values.readingUnit)), values.readingUnit).toPrecision(2))}` : "";
+  const accuracyHint =
+    step !== undefined && step > 0
+      ? `± ${Number(convertMass(defaultScaleAccuracy(toGrams(step, values.readingUnit)), values.readingUnit).toPrecision(2))}`
+      : "";
   const e = outcome.errors;
   return (
     <div className="flex flex-col gap-4" data-testid="barren-rock-flow">

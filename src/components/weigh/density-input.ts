@@ -8,7 +8,16 @@ export type DensityForm = { input: DensityInput; errors: Partial<Record<WeighFie
 export function toDensityInput(values: WeighFormValues): DensityForm {
   const { input, errors } = toSpecimenInput(values);
   const { method, airGrams, waterGrams, scaleResolutionGrams, scaleAccuracyGrams, waterTempC, waterTempToleranceC, airBuoyancyCorrection } = input;
-  const density: DensityInput = { method, airGrams, waterGrams, scaleResolutionGrams, scaleAccuracyGrams, waterTempC, waterTempToleranceC, airBuoyancyCorrection };
+  const density: DensityInput = {
+    method,
+    airGrams,
+    waterGrams,
+    scaleResolutionGrams,
+    scaleAccuracyGrams,
+    waterTempC,
+    waterTempToleranceC,
+    airBuoyancyCorrection,
+  };
   // Host and fineness play no part here.
   const { hostDensity: _h, fineness: _f, ...rigErrors } = errors;
   for (const k of Object.keys(density) as (keyof DensityInput)[]) if (density[k] === undefined) delete density[k];

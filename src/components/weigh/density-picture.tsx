@@ -19,8 +19,15 @@ export function DensityPicture({ estimate, specimenGrams, unitLabel }: Props) {
   const xg = (g: number) => PAD + (Math.min(Math.max(g, 0), specimenGrams) / specimenGrams) * (W - 2 * PAD);
   return (
     <figure className="flex flex-col gap-1">
-      <svg viewBox={`0 0 ${W} 120`} className="w-full" role="img" aria-label={`Specimen density ${estimate.specimenDensity.toFixed(2)} g/cm³, between host rock ${hostDensity.toFixed(2)} and gold alloy ${alloyDensity.toFixed(2)}; gold alloy at worst between ${unitLabel(lo)} and ${unitLabel(hi)}.`}>
-        <text x={PAD} y={12} fontSize="11" fill="var(--ink-soft)">Density, g/cm³</text>
+      <svg
+        viewBox={`0 0 ${W} 120`}
+        className="w-full"
+        role="img"
+        aria-label={`Specimen density ${estimate.specimenDensity.toFixed(2)} g/cm³, between host rock ${hostDensity.toFixed(2)} and gold alloy ${alloyDensity.toFixed(2)}; gold alloy at worst between ${unitLabel(lo)} and ${unitLabel(hi)}.`}
+      >
+        <text x={PAD} y={12} fontSize="11" fill="var(--ink-soft)">
+          Density, g/cm³
+        </text>
         <line x1={PAD} x2={W - PAD} y1={30} y2={30} stroke="var(--rule)" strokeWidth={6} strokeLinecap="round" />
         <line x1={xDensity(hostDensity)} x2={xDensity(alloyDensity)} y1={30} y2={30} stroke="var(--ochre)" strokeOpacity={0.35} strokeWidth={6} />
         {[
@@ -39,11 +46,15 @@ export function DensityPicture({ estimate, specimenGrams, unitLabel }: Props) {
           specimen {estimate.specimenDensity.toFixed(3)}
         </text>
 
-        <text x={PAD} y={74} fontSize="11" fill="var(--ink-soft)">Gold alloy in the specimen</text>
+        <text x={PAD} y={74} fontSize="11" fill="var(--ink-soft)">
+          Gold alloy in the specimen
+        </text>
         <rect x={PAD} y={84} width={W - 2 * PAD} height={12} rx={3} fill="var(--rule)" />
         <rect x={xg(lo)} y={84} width={Math.max(2, xg(hi) - xg(lo))} height={12} rx={3} fill="var(--ochre)" fillOpacity={0.45} />
         <line x1={xg(estimate.goldAlloyGrams)} x2={xg(estimate.goldAlloyGrams)} y1={80} y2={100} stroke="var(--ink)" strokeWidth={2.5} />
-        <text x={PAD} y={114} fontSize="10" fill="var(--ink-soft)">0</text>
+        <text x={PAD} y={114} fontSize="10" fill="var(--ink-soft)">
+          0
+        </text>
         <text x={W - PAD} y={114} fontSize="10" textAnchor="end" fill="var(--ink-soft)">
           whole specimen {unitLabel(specimenGrams)}
         </text>

@@ -9,7 +9,15 @@ afterEach(cleanup);
 
 describe("the estimate panel", () => {
   // 100.00 g in air, 62.72 g hung in water, clean quartz, natural gold: ± several tenths of a gram.
-  const estimate = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.72], hostDensity: 2.65, hostDensityRange: [2.62, 2.68], finenessPermille: 825, finenessRangePermille: [700, 950] });
+  const estimate = estimateSpecimen({
+    method: "hanging",
+    airGrams: [100],
+    waterGrams: [62.72],
+    hostDensity: 2.65,
+    hostDensityRange: [2.62, 2.68],
+    finenessPermille: 825,
+    finenessRangePermille: [700, 950],
+  });
 
   it("shows figures to the precision their ± allows, the range as the worst case, and no s.u.", () => {
     expect(estimate.standardUncertainty.fineGoldGrams).toBeGreaterThan(0.1);

@@ -50,9 +50,8 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           ± {fine(u.fineGoldGrams)} · at worst {fine(fLo)} – {fine(fHi)}
         </p>
         <p className="mt-1 text-xs text-ink-soft">
-          ± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it. “At worst” is the
-          lowest and highest your readings and assumptions allow — scale, water temperature, host rock and fineness all at their
-          worst at once.
+          ± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it. “At worst” is the lowest and highest your readings
+          and assumptions allow — scale, water temperature, host rock and fineness all at their worst at once.
         </p>
       </div>
 
@@ -88,8 +87,9 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
       <p className="text-xs text-ink-soft" data-testid="assumptions">
         Worked with: host rock {a.hostDensity.toFixed(2)} g/cm³ ({a.hostDensityRange[0].toFixed(2)}–{a.hostDensityRange[1].toFixed(2)}) · gold{" "}
         {Math.round(a.finenessPermille)} ‰ ({Math.round(a.finenessRangePermille[0])}–{Math.round(a.finenessRangePermille[1])}), alloy{" "}
-        {a.goldAlloyDensity.toFixed(2)} g/cm³ · water {a.waterTempC.toFixed(1)} °C ({a.waterTempRangeC[0].toFixed(1)}–{a.waterTempRangeC[1].toFixed(1)}) · scale ±{" "}
-        {a.scaleAccuracyGrams.toFixed(3)} g a reading · {a.airBuoyancyCorrection ? "air buoyancy corrected (OIML D 28)" : "no air-buoyancy correction (textbook figure)"}
+        {a.goldAlloyDensity.toFixed(2)} g/cm³ · water {a.waterTempC.toFixed(1)} °C ({a.waterTempRangeC[0].toFixed(1)}–{a.waterTempRangeC[1].toFixed(1)}) · scale
+        ± {a.scaleAccuracyGrams.toFixed(3)} g a reading ·{" "}
+        {a.airBuoyancyCorrection ? "air buoyancy corrected (OIML D 28)" : "no air-buoyancy correction (textbook figure)"}
       </p>
 
       {estimate.warnings.length > 0 && (
@@ -108,7 +108,14 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           <label className="sr-only" htmlFor="price">
             Price per troy ounce
           </label>
-          <input id="price" inputMode="decimal" className="field-input figure" placeholder="price per troy oz" value={price} onChange={(e) => setPrice(e.target.value)} />
+          <input
+            id="price"
+            inputMode="decimal"
+            className="field-input figure"
+            placeholder="price per troy oz"
+            value={price}
+            onChange={(e) => setPrice(e.target.value)}
+          />
           <label className="sr-only" htmlFor="currency">
             Currency
           </label>
@@ -121,8 +128,8 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
       </fieldset>
 
       <p className="rounded-md bg-paper p-2 text-sm font-bold">
-        An estimate, not an assay. Hydrostatic weighing assumes two materials and a guessed fineness; only an assay says how much
-        gold there is. Do not buy or sell on this figure alone — and a specimen can be worth more than its melt value.
+        An estimate, not an assay. Hydrostatic weighing assumes two materials and a guessed fineness; only an assay says how much gold there is. Do not buy or
+        sell on this figure alone — and a specimen can be worth more than its melt value.
       </p>
       <p className="text-xs text-ink-soft">Engine {estimate.engineVersion}</p>
     </section>

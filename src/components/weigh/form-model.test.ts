@@ -46,7 +46,11 @@ describe("weigh-in form model", () => {
     expect(DEFAULT_REPEATS).toBe(3);
     expect(DEFAULT_WEIGH_FORM.air).toHaveLength(3);
     expect(DEFAULT_WEIGH_FORM.water).toHaveLength(3);
-    const r = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, air: [{ value: "10" }, { value: "10.01" }, { value: "" }], water: [{ value: "6" }, { value: "" }, { value: "" }] });
+    const r = toSpecimenInput({
+      ...DEFAULT_WEIGH_FORM,
+      air: [{ value: "10" }, { value: "10.01" }, { value: "" }],
+      water: [{ value: "6" }, { value: "" }, { value: "" }],
+    });
     expect(r.input.airGrams).toEqual([10, 10.01]);
     expect(r.input.airBuoyancyCorrection).toBe(true);
     // Blank accuracy leaves the engine's default for the step.
@@ -69,9 +73,18 @@ describe("weigh-in form model", () => {
 });
 
 describe("a find's claim gold profile", () => {
-  const claim = { name: "Larkspur Bench", hostDensity: 2.7, hostRange: [2.66, 2.74] as [number, number], fineness: 890, finenessRange: [860, 920] as [number, number] };
+  const claim = {
+    name: "Larkspur Bench",
+    hostDensity: 2.7,
+    hostRange: [2.66, 2.74] as [number, number],
+    fineness: 890,
+    finenessRange: [860, 920] as [number, number],
+  };
   it("is what the weigh-in takes as host rock and fineness when chosen", () => {
-    const { input } = toSpecimenInput({ ...DEFAULT_WEIGH_FORM, hostPreset: CLAIM_PRESET, finenessPreset: CLAIM_PRESET, air: [{ value: "50" }], water: [{ value: "31" }] }, claim);
+    const { input } = toSpecimenInput(
+      { ...DEFAULT_WEIGH_FORM, hostPreset: CLAIM_PRESET, finenessPreset: CLAIM_PRESET, air: [{ value: "50" }], water: [{ value: "31" }] },
+      claim,
+    );
     expect([input.hostDensity, input.hostDensityRange, input.finenessPermille, input.finenessRangePermille]).toEqual([2.7, [2.66, 2.74], 890, [860, 920]]);
   });
   it("without a profile, a preset is still a preset", () => {

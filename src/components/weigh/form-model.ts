@@ -62,7 +62,6 @@ export function emptyReadings(): { value: string }[] {
   return blankReadings();
 }
 
-
 /** Maps the engine's field names back to the form's. */
 export const ENGINE_FIELD_TO_FORM: Record<string, WeighField> = {
   method: "method",

@@ -29,7 +29,11 @@ export function MethodChoice({ register, method }: { register: Reg; method: Weig
         {(
           [
             ["hanging", "Hung from the scale", "The scale carries the line; the reading with the specimen under water is its weight in water."],
-            ["buoyancy", "Vessel on the scale", "The water vessel sits on the tared scale and the specimen hangs into it from a stand; the reading is the water it pushes aside."],
+            [
+              "buoyancy",
+              "Vessel on the scale",
+              "The water vessel sits on the tared scale and the specimen hangs into it from a stand; the reading is the water it pushes aside.",
+            ],
           ] as const
         ).map(([value, title, text]) => (
           <label key={value} className={`flex cursor-pointer gap-3 rounded-md border-2 p-3 ${method === value ? "border-ochre" : "border-rule"}`}>
@@ -91,21 +95,48 @@ export function ScaleSettings({ register, errors, accuracyHint, locked }: { regi
         </label>
       </div>
       <p id="accuracy-hint" className="text-sm text-ink-soft">
-        How far one reading may be off, from your scale&apos;s specification (repeatability and linearity). Left blank: {accuracyHint || "a default"} for this step.
+        How far one reading may be off, from your scale&apos;s specification (repeatability and linearity). Left blank: {accuracyHint || "a default"} for this
+        step.
       </p>
       {(errors.resolution || errors.accuracy) && <p className="field-error">{errors.resolution ?? errors.accuracy}</p>}
     </>
   );
 }
 
-export function ReadingsPair({ register, control, errors, hanging, unit, what = "specimen" }: { register: Reg; control: Control<WeighFormValues>; errors: Errors; hanging: boolean; unit: string; what?: string }) {
+export function ReadingsPair({
+  register,
+  control,
+  errors,
+  hanging,
+  unit,
+  what = "specimen",
+}: {
+  register: Reg;
+  control: Control<WeighFormValues>;
+  errors: Errors;
+  hanging: boolean;
+  unit: string;
+  what?: string;
+}) {
   return (
     <>
-      <ReadingsField name="air" label="Dry, in air" hint={`The ${what} alone on the scale.`} unit={unit} error={errors.air} control={control} register={register} />
+      <ReadingsField
+        name="air"
+        label="Dry, in air"
+        hint={`The ${what} alone on the scale.`}
+        unit={unit}
+        error={errors.air}
+        control={control}
+        register={register}
+      />
       <ReadingsField
         name="water"
         label={hanging ? "Hung under water" : "Vessel reading with it hung inside"}
-        hint={hanging ? `Tare with the wet line under water first, then hang the ${what} from it.` : `Tare the vessel with the line already in the water, then lower the ${what} in.`}
+        hint={
+          hanging
+            ? `Tare with the wet line under water first, then hang the ${what} from it.`
+            : `Tare the vessel with the line already in the water, then lower the ${what} in.`
+        }
         unit={unit}
         error={errors.water}
         control={control}

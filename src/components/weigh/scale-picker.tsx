@@ -26,7 +26,19 @@ export function CheckStanding({ scale }: { scale: Pick<Scale, "checks"> }) {
  * The member's scale profiles: choosing one fills in its step and accuracy (in the reading
  * unit), and a weigh-in made with it records it and its latest check.
  */
-export function ScalePicker({ scales, register, setValue, scaleId, unit }: { scales: Scale[]; register: UseFormRegister<WeighFormValues>; setValue: UseFormSetValue<WeighFormValues>; scaleId: string; unit: WeighFormValues["readingUnit"] }) {
+export function ScalePicker({
+  scales,
+  register,
+  setValue,
+  scaleId,
+  unit,
+}: {
+  scales: Scale[];
+  register: UseFormRegister<WeighFormValues>;
+  setValue: UseFormSetValue<WeighFormValues>;
+  scaleId: string;
+  unit: WeighFormValues["readingUnit"];
+}) {
   const chosen = scales.find((s) => s.id === scaleId);
   const fill = (id: string, u = unit) => {
     const s = scales.find((x) => x.id === id);

@@ -22,7 +22,19 @@ describe("the setup-check flow", () => {
     await type("air-0", "50.00");
     await type("water-0", "44.52");
     const verdict = await screen.findByTestId("check-verdict");
-    const expected = judgeSetupCheck({ method: "hanging", airGrams: [50], waterGrams: [44.52], scaleResolutionGrams: 0.01, scaleAccuracyGrams: 0.02, waterTempC: 20, waterTempToleranceC: 2, airBuoyancyCorrection: true }, { density: 8.96, uncertainty: 0.02 });
+    const expected = judgeSetupCheck(
+      {
+        method: "hanging",
+        airGrams: [50],
+        waterGrams: [44.52],
+        scaleResolutionGrams: 0.01,
+        scaleAccuracyGrams: 0.02,
+        waterTempC: 20,
+        waterTempToleranceC: 2,
+        airBuoyancyCorrection: true,
+      },
+      { density: 8.96, uncertainty: 0.02 },
+    );
     expect(verdict.dataset.passed).toBe("false");
     expect(screen.getByTestId("check-off").textContent).toContain(`(+${expected.differencePercent.toFixed(2)} %)`);
     await act(async () => {

@@ -26,22 +26,31 @@ const signed = (v: number, digits: number) => `${v >= 0 ? "+" : "−"}${Math.abs
 /** The verdict in the member's words: whether the rig reads true, and how far off it is. */
 export function CheckVerdict({ result }: { result: SetupCheckResult }) {
   return (
-    <section className={`sheet flex flex-col gap-2 border-2 ${result.passed ? "border-moss" : "border-rust"}`} aria-live="polite" data-testid="check-verdict" data-passed={result.passed}>
+    <section
+      className={`sheet flex flex-col gap-2 border-2 ${result.passed ? "border-moss" : "border-rust"}`}
+      aria-live="polite"
+      data-testid="check-verdict"
+      data-passed={result.passed}
+    >
       <h2 className={`text-lg font-bold ${result.passed ? "text-moss" : "text-rust"}`}>{result.passed ? "The rig reads true" : "The rig is off"}</h2>
       <p>
         Measured{" "}
         <span className="figure">
           <strong data-testid="check-measured">{g3(result.measuredDensity)}</strong> ± {g3(result.measuredUncertainty)} g/cm³
         </span>{" "}
-        against the reference&apos;s <span className="figure">{g3(result.referenceDensity)} ± {g3(result.referenceUncertainty)}</span>.
+        against the reference&apos;s{" "}
+        <span className="figure">
+          {g3(result.referenceDensity)} ± {g3(result.referenceUncertainty)}
+        </span>
+        .
       </p>
       <p className="font-bold" data-testid="check-off">
-        Off by <span className="figure">{signed(result.difference, 3)} g/cm³</span> <span className="figure">({signed(result.differencePercent, 2)} %)</span>; expected error{" "}
-        <span className="figure">± {g3(result.allowedDifference)} g/cm³</span>.
+        Off by <span className="figure">{signed(result.difference, 3)} g/cm³</span> <span className="figure">({signed(result.differencePercent, 2)} %)</span>;
+        expected error <span className="figure">± {g3(result.allowedDifference)} g/cm³</span>.
       </p>
       <p className="text-xs text-ink-soft">
-        Expected error: {CHECK_COVERAGE} × the combined standard uncertainty of the measured density (from the readings, the scale&apos;s accuracy and the
-        water temperature) and of the reference&apos;s density. A sound rig lands inside it about 19 times in 20.
+        Expected error: {CHECK_COVERAGE} × the combined standard uncertainty of the measured density (from the readings, the scale&apos;s accuracy and the water
+        temperature) and of the reference&apos;s density. A sound rig lands inside it about 19 times in 20.
       </p>
       {!result.passed && (
         <p className="text-sm">
@@ -62,7 +71,14 @@ export function CheckVerdict({ result }: { result: SetupCheckResult }) {
 export function SetupCheckFlow({ scale, onSave }: { scale: Scale; onSave: (check: SetupCheck) => void | Promise<void> }) {
   const accuracy = scale.accuracyGrams ?? defaultScaleAccuracy(scale.stepGrams);
   const { register, control } = useForm<CheckForm>({
-    defaultValues: { ...DEFAULT_WEIGH_FORM, resolution: String(scale.stepGrams), accuracy: String(accuracy), reference: REFERENCE_OBJECTS[0].id, ownDensity: "", ownUncertainty: "" },
+    defaultValues: {
+      ...DEFAULT_WEIGH_FORM,
+      resolution: String(scale.stepGrams),
+      accuracy: String(accuracy),
+      reference: REFERENCE_OBJECTS[0].id,
+      ownDensity: "",
+      ownUncertainty: "",
+    },
   });
   const values = useWatch({ control }) as CheckForm;
   const [saving, setSaving] = useState(false);

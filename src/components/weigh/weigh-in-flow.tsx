@@ -31,7 +31,6 @@ type Outcome = {
   errors: Partial<Record<WeighField, string>>;
 };
 
-
 function compute(values: WeighFormValues, claim: ClaimGold | null): Outcome {
   const { input, errors, complete } = toSpecimenInput(values, claim);
   if (!complete) return { input, errors };
@@ -166,9 +165,9 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Prop
             Correct for the air&apos;s buoyancy (OIML D 28)
           </label>
           <p id="air-buoyancy-hint" className="text-sm text-ink-soft" data-testid="air-buoyancy-hint">
-            In air the scale reads a little light, by the weight of the air the specimen pushes aside, while the host densities are
-            true densities. Left off, you get the textbook figure, which always makes the specimen look denser and so flatters the
-            gold: a fraction of a per cent on a rich piece, several per cent at low grade.
+            In air the scale reads a little light, by the weight of the air the specimen pushes aside, while the host densities are true densities. Left off,
+            you get the textbook figure, which always makes the specimen look denser and so flatters the gold: a fraction of a per cent on a rich piece, several
+            per cent at low grade.
             {outcome.airEffect && ` ${airEffectText(outcome.airEffect, resultUnit)}`}
           </p>
         </div>
@@ -213,10 +212,14 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Prop
             {saving ? "Saving…" : "Save this weigh-in to the find"}
           </button>
         )}
-        <button type="button" className="btn" onClick={() => {
+        <button
+          type="button"
+          className="btn"
+          onClick={() => {
             setValue("air", emptyReadings());
             setValue("water", emptyReadings());
-          }}>
+          }}
+        >
           Clear the readings
         </button>
       </div>

@@ -1,7 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { boundaryFromCorners, MAX_CLAIM_POSITIONS, readBoundary } from "./geometry";
 
-const square = [[0, 0], [1, 0], [1, 1], [0, 1], [0, 0]];
+const square = [
+  [0, 0],
+  [1, 0],
+  [1, 1],
+  [0, 1],
+  [0, 0],
+];
 
 describe("claim boundaries", () => {
   it("accepts a closed polygon, bare, as a Feature or in a FeatureCollection of one", () => {
@@ -10,20 +16,59 @@ describe("claim boundaries", () => {
     expect(readBoundary({ type: "FeatureCollection", features: [{ type: "Feature", geometry: { type: "Polygon", coordinates: [square] } }] }).ok).toBe(true);
   });
   it("refuses an unclosed ring", () => {
-    const r = readBoundary({ type: "Polygon", coordinates: [[[0, 0], [1, 0], [1, 1], [0, 1]]] });
+    const r = readBoundary({
+      type: "Polygon",
+      coordinates: [
+        [
+          [0, 0],
+          [1, 0],
+          [1, 1],
+          [0, 1],
+        ],
+      ],
+    });
     expect(r).toEqual({ ok: false, message: expect.stringMatching(/not closed/) });
   });
   it("refuses a self-intersecting ring (a bow tie)", () => {
-    const r = readBoundary({ type: "Polygon", coordinates: [[[0, 0], [1, 1], [1, 0], [0, 1], [0, 0]]] });
+    const r = readBoundary({
+      type: "Polygon",
+      coordinates: [
+        [
+          [0, 0],
+          [1, 1],
+          [1, 0],
+          [0, 1],
+          [0, 0],
+        ],
+      ],
+    });
     expect(r).toEqual({ ok: false, message: expect.stringMatching(/crosses itself/) });
   });
   it("refuses junk and positions out of range", () => {
     expect(readBoundary({ type: "Point", coordinates: [0, 0] }).ok).toBe(false);
-    expect(readBoundary({ type: "Polygon", coordinates: [[[0, 0], [200, 0], [1, 1], [0, 0]]] }).ok).toBe(false);
+    expect(
+      readBoundary({
+        type: "Polygon",
+        coordinates: [
+          [
+            [0, 0],
+            [200, 0],
+            [1, 1],
+            [0, 0],
+          ],
+        ],
+      }).ok,
+    ).toBe(false);
   });
   it("builds a closed ring from typed corners (latitude first)", () => {
     const r = boundaryFromCorners("41.80, -117.62\n41.80 -117.61\n41.81, -117.61\n41.81, -117.62");
-    expect(r.ok && r.polygon.coordinates[0]).toEqual([[-117.62, 41.8], [-117.61, 41.8], [-117.61, 41.81], [-117.62, 41.81], [-117.62, 41.8]]);
+    expect(r.ok && r.polygon.coordinates[0]).toEqual([
+      [-117.62, 41.8],
+      [-117.61, 41.8],
+      [-117.61, 41.81],
+      [-117.62, 41.81],
+      [-117.62, 41.8],
+    ]);
     expect(boundaryFromCorners("41.8, x").ok).toBe(false);
   });
 });
@@ -44,10 +89,45 @@ describe("outline size (RELIABILITY 34: bounded work per request)", () => {
 describe("refusals that name the problem (issue 18)", () => {
   it.each([
     [{ type: "Point", coordinates: [-117.6, 41.8] }, /not a point/],
-    [{ type: "LineString", coordinates: [[-117.6, 41.8], [-117.5, 41.8]] }, /closed area/],
+    [
+      {
+        type: "LineString",
+        coordinates: [
+          [-117.6, 41.8],
+          [-117.5, 41.8],
+        ],
+      },
+      /closed area/,
+    ],
     [{ type: "Polygon", coordinates: [] }, /empty/],
-    [{ type: "Polygon", coordinates: [[[41.8, -117.62], [41.8, -117.61], [41.81, -117.61], [41.8, -117.62]]] }, /swapped/],
-    [{ type: "Polygon", coordinates: [[[-217.6, 41.8], [-117.61, 41.8], [-117.61, 41.81], [-217.6, 41.8]]] }, /out of range/],
+    [
+      {
+        type: "Polygon",
+        coordinates: [
+          [
+            [41.8, -117.62],
+            [41.8, -117.61],
+            [41.81, -117.61],
+            [41.8, -117.62],
+          ],
+        ],
+      },
+      /swapped/,
+    ],
+    [
+      {
+        type: "Polygon",
+        coordinates: [
+          [
+            [-217.6, 41.8],
+            [-117.61, 41.8],
+            [-117.61, 41.81],
+            [-217.6, 41.8],
+          ],
+        ],
+      },
+      /out of range/,
+    ],
     [{ type: "Feature", geometry: null }, /no GeoJSON geometry/],
     [{ type: "Polygon", coordinates: [[["a", "b"]]] }, /pairs of numbers/],
   ])("%j", (input, message) => {

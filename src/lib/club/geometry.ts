@@ -21,7 +21,9 @@ function checkRings(rings: number[][][], where: string): string | null {
     const label = `${where}ring ${i + 1}`;
     if (ring.length < 4) return `${label} has ${ring.length} positions; a closed ring needs at least 4 (the first repeated last).`;
     if (!same(ring[0], ring[ring.length - 1])) return `${label} is not closed: its last position must repeat its first.`;
-    for (const p of ring) if (Math.abs(p[0]) > 180 || Math.abs(p[1]) > 90) return `${label} has a position out of range (longitude ±180, latitude ±90; GeoJSON puts longitude first).`;
+    for (const p of ring)
+      if (Math.abs(p[0]) > 180 || Math.abs(p[1]) > 90)
+        return `${label} has a position out of range (longitude ±180, latitude ±90; GeoJSON puts longitude first).`;
   }
   return null;
 }
@@ -45,7 +47,8 @@ function describeShape(g: { type?: string } | null): string | null {
   const type = g.type;
   if (!AREA_TYPES.has(type)) {
     if (type === "Point" || type === "MultiPoint") return `That is a ${type}: a claim needs an area (a Polygon), not a point. Draw its outline.`;
-    if (type === "LineString" || type === "MultiLineString") return `That is a ${type}: a claim needs a closed area (a Polygon). Close the line into an outline.`;
+    if (type === "LineString" || type === "MultiLineString")
+      return `That is a ${type}: a claim needs a closed area (a Polygon). Close the line into an outline.`;
     if (type === "GeometryCollection") return "That is a GeometryCollection: give the claim's outline alone, as one Polygon or MultiPolygon.";
     return `"${type}" is not a GeoJSON area: give a Polygon or MultiPolygon.`;
   }
@@ -56,7 +59,8 @@ function describeShape(g: { type?: string } | null): string | null {
   const outOfRange = numeric.find(([lon, lat]) => Math.abs(lon) > 180 || Math.abs(lat) > 90);
   if (outOfRange) {
     const [lon, lat] = outOfRange;
-    if (Math.abs(lat) > 90 && Math.abs(lat) <= 180 && Math.abs(lon) <= 90) return `A position reads ${lon}, ${lat}: latitude and longitude seem swapped (GeoJSON puts longitude first).`;
+    if (Math.abs(lat) > 90 && Math.abs(lat) <= 180 && Math.abs(lon) <= 90)
+      return `A position reads ${lon}, ${lat}: latitude and longitude seem swapped (GeoJSON puts longitude first).`;
     return `A position (${lon}, ${lat}) is out of range: longitude is within ±180 and latitude within ±90.`;
   }
   return null;
@@ -86,7 +90,8 @@ export function readBoundary(input: unknown): GeometryResult {
     const problem = checkRings(rings, polys.length > 1 ? `Part ${i + 1}, ` : "");
     if (problem) return { ok: false, message: problem.charAt(0).toUpperCase() + problem.slice(1) };
     const crossings = kinks({ type: "Polygon", coordinates: rings }).features.length;
-    if (crossings > 0) return { ok: false, message: `The outline crosses itself (${crossings} crossing${crossings > 1 ? "s" : ""}). Check the order of the corners.` };
+    if (crossings > 0)
+      return { ok: false, message: `The outline crosses itself (${crossings} crossing${crossings > 1 ? "s" : ""}). Check the order of the corners.` };
   }
   return { ok: true, polygon };
 }
@@ -98,7 +103,8 @@ export function boundaryFromCorners(text: string): GeometryResult {
     const line = raw.trim();
     if (!line) continue;
     const parts = line.split(/[\s,;]+/).map(Number);
-    if (parts.length !== 2 || parts.some((n) => !Number.isFinite(n))) return { ok: false, message: `Line ${i + 1}: write "latitude, longitude", e.g. 41.8012, -117.6203.` };
+    if (parts.length !== 2 || parts.some((n) => !Number.isFinite(n)))
+      return { ok: false, message: `Line ${i + 1}: write "latitude, longitude", e.g. 41.8012, -117.6203.` };
     corners.push([parts[1], parts[0]]);
   }
   if (corners.length < 3) return { ok: false, message: "Give at least three corners." };

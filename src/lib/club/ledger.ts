@@ -9,7 +9,11 @@ export const REVIEW_FILTERS = [...REVIEW_STATES, "changed"] as const;
 export const LEDGER_SORTS = ["foundAt", "weight", "fine", "value", "member", "claim", "kind", "method", "state"] as const;
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.");
-const optionalId = z.string().uuid("Not a valid id.").optional().or(z.literal("").transform(() => undefined));
+const optionalId = z
+  .string()
+  .uuid("Not a valid id.")
+  .optional()
+  .or(z.literal("").transform(() => undefined));
 
 /** The club ledger's filters, sort and page, as a query string carries them. */
 export const ledgerQuerySchema = z
@@ -19,8 +23,14 @@ export const ledgerQuerySchema = z
     season: z.coerce.number().int().min(2000).max(2100).optional(),
     from: isoDate.optional(),
     to: isoDate.optional(),
-    kind: z.enum(FIND_KINDS).optional().or(z.literal("").transform(() => undefined)),
-    state: z.enum(REVIEW_FILTERS).optional().or(z.literal("").transform(() => undefined)),
+    kind: z
+      .enum(FIND_KINDS)
+      .optional()
+      .or(z.literal("").transform(() => undefined)),
+    state: z
+      .enum(REVIEW_FILTERS)
+      .optional()
+      .or(z.literal("").transform(() => undefined)),
     sort: z.enum(LEDGER_SORTS).default("foundAt"),
     dir: z.enum(["asc", "desc"]).default("desc"),
     page: z.coerce.number().int().min(1).max(100_000).default(1),
@@ -78,4 +88,32 @@ export type ExportRow = LedgerRow & {
 };
 
 /** Columns of the CSV export, in order. */
-export const LEDGER_CSV_COLUMNS = ["id", "foundOn", "foundAt", "outingId", "outingOn", "lat", "lon", "depthCm", "notes", "memberName", "claimName", "kind", "method", "weightGrams", "alloyGrams", "fineGrams", "fineLow", "fineHigh", "fineBasis", "weighMismatch", "scaleChecked", "outsideClaim", "price", "currency", "value", "state", "changedSinceQuery"] as const;
+export const LEDGER_CSV_COLUMNS = [
+  "id",
+  "foundOn",
+  "foundAt",
+  "outingId",
+  "outingOn",
+  "lat",
+  "lon",
+  "depthCm",
+  "notes",
+  "memberName",
+  "claimName",
+  "kind",
+  "method",
+  "weightGrams",
+  "alloyGrams",
+  "fineGrams",
+  "fineLow",
+  "fineHigh",
+  "fineBasis",
+  "weighMismatch",
+  "scaleChecked",
+  "outsideClaim",
+  "price",
+  "currency",
+  "value",
+  "state",
+  "changedSinceQuery",
+] as const;

@@ -15,12 +15,21 @@ export const claimInputSchema = z
     /** Set once the officer has seen which claims the outline overlaps, and means it. */
     acceptOverlap: z.boolean().default(false),
     landowner: z.string().trim().max(200, "At most 200 characters.").nullable().default(null),
-    royaltyKind: z.enum(["percent_of_value", "grams_per_troy_ounce"], { error: "Choose a share of the value or grams per troy ounce." }).nullable().default(null),
+    royaltyKind: z
+      .enum(["percent_of_value", "grams_per_troy_ounce"], { error: "Choose a share of the value or grams per troy ounce." })
+      .nullable()
+      .default(null),
     royaltyRate: z.number({ error: "Give the royalty as a number." }).min(0, "A royalty cannot be negative.").max(100, "At most 100.").nullable().default(null),
   })
   .strict()
-  .refine((c) => (c.royaltyKind === null) === (c.royaltyRate === null), { message: "Give both the kind of royalty and its rate, or neither.", path: ["royaltyRate"] })
-  .refine((c) => c.royaltyKind !== "grams_per_troy_ounce" || (c.royaltyRate ?? 0) <= 31.1034768, { message: "At most 31.1 g per troy ounce (all of it).", path: ["royaltyRate"] });
+  .refine((c) => (c.royaltyKind === null) === (c.royaltyRate === null), {
+    message: "Give both the kind of royalty and its rate, or neither.",
+    path: ["royaltyRate"],
+  })
+  .refine((c) => c.royaltyKind !== "grams_per_troy_ounce" || (c.royaltyRate ?? 0) <= 31.1034768, {
+    message: "At most 31.1 g per troy ounce (all of it).",
+    path: ["royaltyRate"],
+  });
 
 /**
  * A claim's gold profile as an officer sets it: each quantity as its range, whose middle is its
@@ -31,8 +40,14 @@ export const claimProfileInputSchema = z
     finenessLow: z.number({ error: "Fineness, lowest: a number of ‰." }).min(1, "Fineness is more than 0 ‰.").max(1000, "Fineness is at most 1000 ‰."),
     finenessHigh: z.number({ error: "Fineness, highest: a number of ‰." }).min(1, "Fineness is more than 0 ‰.").max(1000, "Fineness is at most 1000 ‰."),
     finenessSource: z.string().trim().min(3, "Say where the fineness comes from (an assay, a melt, a preset).").max(300, "At most 300 characters."),
-    hostDensityLow: z.number({ error: "Host density, lowest: a number of g/cm³." }).min(1.5, "Host rock is denser than 1.5 g/cm³.").max(8, "Host rock is at most 8 g/cm³."),
-    hostDensityHigh: z.number({ error: "Host density, highest: a number of g/cm³." }).min(1.5, "Host rock is denser than 1.5 g/cm³.").max(8, "Host rock is at most 8 g/cm³."),
+    hostDensityLow: z
+      .number({ error: "Host density, lowest: a number of g/cm³." })
+      .min(1.5, "Host rock is denser than 1.5 g/cm³.")
+      .max(8, "Host rock is at most 8 g/cm³."),
+    hostDensityHigh: z
+      .number({ error: "Host density, highest: a number of g/cm³." })
+      .min(1.5, "Host rock is denser than 1.5 g/cm³.")
+      .max(8, "Host rock is at most 8 g/cm³."),
     hostDensitySource: z.string().trim().min(3, "Say where the host density comes from (barren-rock weigh-ins, a preset).").max(300, "At most 300 characters."),
   })
   .strict()
@@ -54,7 +69,10 @@ export const reviewInputSchema = z
 export const priceInputSchema = z
   .object({
     effectiveOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
-    pricePerTroyOunce: z.number({ error: "Enter the price as a number." }).positive("The price must be more than 0.").max(1_000_000, "That price is implausible: at most 1 000 000 an ounce."),
+    pricePerTroyOunce: z
+      .number({ error: "Enter the price as a number." })
+      .positive("The price must be more than 0.")
+      .max(1_000_000, "That price is implausible: at most 1 000 000 an ounce."),
     currency: z.string().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, like USD."),
     note: z.string().trim().max(300, "At most 300 characters.").default(""),
     /** Set when the officer has seen the warning about a jump of more than half from the price then in force. */
@@ -102,7 +120,12 @@ export const recoveryInputSchema = z
     claimId: z.uuid("Choose the claim.").nullable(),
     recordedOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
     fineGrams: z.number({ error: "Enter the fine gold in grams." }).positive("Fine gold must be more than 0 g.").max(1_000_000, "At most 1000 kg."),
-    fineness: z.number({ error: "Enter the fineness in ‰." }).min(1, "Fineness is more than 0 ‰.").max(1000, "Fineness is at most 1000 ‰.").nullable().default(null),
+    fineness: z
+      .number({ error: "Enter the fineness in ‰." })
+      .min(1, "Fineness is more than 0 ‰.")
+      .max(1000, "Fineness is at most 1000 ‰.")
+      .nullable()
+      .default(null),
     findIds: z.array(z.uuid()).min(1, "Choose the finds that went in.").max(5000, "At most 5000 finds in one melt."),
     note: z.string().trim().max(500, "At most 500 characters.").default(""),
   })

@@ -9,6 +9,15 @@ describe("the phone's tally, from the server's figures", () => {
       { weightGrams: 3, figure: null },
       { weightGrams: null },
     ]);
-    expect(t).toEqual({ finds: 4, weightGrams: 93, fineGrams: 10.35, fineLow: 8.6, fineHigh: 12.1, figured: 2, mismatched: 1, byBasis: { claim_fineness: 1, weighed: 1 } });
+    expect(t).toEqual({
+      finds: 4,
+      weightGrams: 93,
+      fineGrams: 10.35,
+      fineLow: 8.6,
+      fineHigh: 12.1,
+      figured: 2,
+      mismatched: 1,
+      byBasis: { claim_fineness: 1, weighed: 1 },
+    });
   });
 });

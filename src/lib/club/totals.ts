@@ -34,7 +34,10 @@ export function addTotals(a: Totals, b: Totals): Totals {
 }
 
 /** A find as a device holds it: its weight, and the server's figure as of the last pull. */
-export type DeviceFindFigures = { weightGrams: number | null; figure?: { basis: FineBasis | null; fineGrams: number | null; low: number | null; high: number | null; weighMismatch: boolean } | null };
+export type DeviceFindFigures = {
+  weightGrams: number | null;
+  figure?: { basis: FineBasis | null; fineGrams: number | null; low: number | null; high: number | null; weighMismatch: boolean } | null;
+};
 
 /**
  * The same totals over the finds a device holds (the phone's tally), from the figures the

@@ -11,7 +11,15 @@ import { weighInSchema } from "./weigh-in";
 
 describe("the sync key lists", () => {
   it("name exactly each entity schema's fields", () => {
-    const schemas = { outing: outingSchema, find: findSchema, photo: photoSchema, weighIn: weighInSchema, scale: scaleSchema, barrenRock: barrenRockSchema, answer: answerSchema };
+    const schemas = {
+      outing: outingSchema,
+      find: findSchema,
+      photo: photoSchema,
+      weighIn: weighInSchema,
+      scale: scaleSchema,
+      barrenRock: barrenRockSchema,
+      answer: answerSchema,
+    };
     for (const [entity, schema] of Object.entries(schemas)) {
       expect([...RECORD_KEYS[entity as keyof typeof schemas]].sort(), entity).toEqual(Object.keys(schema.shape).sort());
     }

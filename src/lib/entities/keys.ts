@@ -11,13 +11,58 @@ import type { WeighIn } from "./weigh-in";
 // engine's chunk does not carry the validator. keys.test.ts holds each list equal to its
 // schema: a field added to a schema and forgotten here fails there, not on a member's device.
 
-export const OUTING_KEYS = ["id", "claimId", "startedAt", "endedAt", "companions", "method", "hours", "conditions", "notes"] as const satisfies readonly (keyof Outing)[];
-export const FIND_KEYS = ["id", "outingId", "claimId", "kind", "weightGrams", "purity", "depthCm", "method", "notes", "lat", "lon", "accuracyM", "locationSource", "foundAt"] as const satisfies readonly (keyof Find)[];
-export const PHOTO_KEYS = ["id", "findId", "sha256", "contentType", "bytes", "width", "height", "takenAt", "lat", "lon"] as const satisfies readonly (keyof Photo)[];
+export const OUTING_KEYS = [
+  "id",
+  "claimId",
+  "startedAt",
+  "endedAt",
+  "companions",
+  "method",
+  "hours",
+  "conditions",
+  "notes",
+] as const satisfies readonly (keyof Outing)[];
+export const FIND_KEYS = [
+  "id",
+  "outingId",
+  "claimId",
+  "kind",
+  "weightGrams",
+  "purity",
+  "depthCm",
+  "method",
+  "notes",
+  "lat",
+  "lon",
+  "accuracyM",
+  "locationSource",
+  "foundAt",
+] as const satisfies readonly (keyof Find)[];
+export const PHOTO_KEYS = [
+  "id",
+  "findId",
+  "sha256",
+  "contentType",
+  "bytes",
+  "width",
+  "height",
+  "takenAt",
+  "lat",
+  "lon",
+] as const satisfies readonly (keyof Photo)[];
 export const WEIGH_IN_KEYS = ["id", "findId", "input", "deviceEstimate", "weighedAt", "scaleId", "scaleCheck"] as const satisfies readonly (keyof WeighIn)[];
 export const SCALE_KEYS = ["id", "name", "stepGrams", "accuracyGrams", "checks"] as const satisfies readonly (keyof Scale)[];
 export const ANSWER_KEYS = ["id", "findId", "reviewId", "note"] as const satisfies readonly (keyof Answer)[];
-export const BARREN_ROCK_KEYS = ["id", "claimId", "input", "deviceDensity", "weighedAt", "scaleId", "scaleCheck", "notes"] as const satisfies readonly (keyof BarrenRock)[];
+export const BARREN_ROCK_KEYS = [
+  "id",
+  "claimId",
+  "input",
+  "deviceDensity",
+  "weighedAt",
+  "scaleId",
+  "scaleCheck",
+  "notes",
+] as const satisfies readonly (keyof BarrenRock)[];
 
 /** A claim as devices keep it (read-only there; officers change claims on the server). */
 export const CLAIM_KEYS = [

@@ -48,7 +48,10 @@ export const scaleSchema = z
   .object({
     id: idSchema,
     name: z.string().trim().min(1, "Give the scale a name.").max(80, "At most 80 characters."),
-    stepGrams: z.number({ error: "Enter the scale's step in grams." }).positive("The step must be more than zero.").max(MAX_STEP_GRAMS, `At most ${MAX_STEP_GRAMS} g.`),
+    stepGrams: z
+      .number({ error: "Enter the scale's step in grams." })
+      .positive("The step must be more than zero.")
+      .max(MAX_STEP_GRAMS, `At most ${MAX_STEP_GRAMS} g.`),
     accuracyGrams: z.number().min(0, "At least 0 g.").max(MAX_STEP_GRAMS, `At most ${MAX_STEP_GRAMS} g.`).nullable(),
     checks: z.array(setupCheckSchema).max(200, "At most 200 checks kept per scale."),
   })

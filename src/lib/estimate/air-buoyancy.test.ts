@@ -4,7 +4,13 @@ import { composeSpecimen } from "./test-specimen";
 
 // Readings as a real scale shows them: OIML D 28 conventional values (air 1.2 kg/m³,
 // reference weights 8000 kg/m³), made by composeSpecimen independently of the engine.
-const exact = { scaleResolutionGrams: 1e-9, scaleAccuracyGrams: 1e-9, waterTempToleranceC: 0, hostDensity: 2.65, hostDensityRange: [2.65, 2.65] as [number, number] };
+const exact = {
+  scaleResolutionGrams: 1e-9,
+  scaleAccuracyGrams: 1e-9,
+  waterTempToleranceC: 0,
+  hostDensity: 2.65,
+  hostDensityRange: [2.65, 2.65] as [number, number],
+};
 
 describe("air-buoyancy correction (OIML D 28)", () => {
   // REFERENCES.md "The method and its errors": at 1 % grade, leaving the correction out

@@ -12,11 +12,7 @@ export const SILVER_DENSITY = 10.49;
  */
 export function goldAlloyDensity(finenessPermille: number): number {
   if (!Number.isFinite(finenessPermille) || finenessPermille <= 0 || finenessPermille > 1000) {
-    throw new EstimateInputError(
-      "fineness_out_of_range",
-      "finenessPermille",
-      "Gold fineness must be more than 0 and at most 1000 parts per thousand.",
-    );
+    throw new EstimateInputError("fineness_out_of_range", "finenessPermille", "Gold fineness must be more than 0 and at most 1000 parts per thousand.");
   }
   const w = finenessPermille / 1000;
   return 1 / (w / GOLD_DENSITY + (1 - w) / SILVER_DENSITY);

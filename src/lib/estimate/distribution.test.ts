@@ -19,7 +19,19 @@ describe("the headline agrees with the uncertainty and with Monte Carlo", () => 
   // 300 g of vein rock holding some 30 g of gold, weighed on a 0.01 g scale with repeats.
   const base: SpecimenInput = { method: "hanging", airGrams: [300.02, 300.03, 300.02], waterGrams: [212.5, 212.51, 212.5], waterTempC: 18 };
   const cases: [string, SpecimenInput][] = [
-    ...HOST_PRESETS.map((h) => [`host ${h.id}, natural gold`, { ...base, hostDensity: h.density, hostDensityRange: h.range, finenessPermille: FINENESS_PRESETS[0].fineness, finenessRangePermille: FINENESS_PRESETS[0].range }] as [string, SpecimenInput]),
+    ...HOST_PRESETS.map(
+      (h) =>
+        [
+          `host ${h.id}, natural gold`,
+          {
+            ...base,
+            hostDensity: h.density,
+            hostDensityRange: h.range,
+            finenessPermille: FINENESS_PRESETS[0].fineness,
+            finenessRangePermille: FINENESS_PRESETS[0].range,
+          },
+        ] as [string, SpecimenInput],
+    ),
     // As older devices sent them: the value off the centre of its range.
     ["an off-centre host and fineness", { ...base, hostDensity: 2.7, hostDensityRange: [2.39, 2.8], finenessPermille: 850, finenessRangePermille: [700, 950] }],
   ];

@@ -23,7 +23,14 @@ describe("pure gold is not refused because of scale rounding", () => {
   const coins = Array.from({ length: 200 }, () => {
     const tempC = 16 + rand() * 8;
     const s = composeSpecimen({ goldGrams: 31.1034768 + (rand() - 0.5) * 0.06, fineness: 999.9, hostGrams: 0, hostDensity: 2.65, tempC });
-    return { method: "hanging", airGrams: [roundToStep(s.air, 0.01)], waterGrams: [roundToStep(s.hangingWater, 0.01)], scaleResolutionGrams: 0.01, finenessPermille: 999.9, waterTempC: tempC } satisfies SpecimenInput;
+    return {
+      method: "hanging",
+      airGrams: [roundToStep(s.air, 0.01)],
+      waterGrams: [roundToStep(s.hangingWater, 0.01)],
+      scaleResolutionGrams: 0.01,
+      finenessPermille: 999.9,
+      waterTempC: tempC,
+    } satisfies SpecimenInput;
   });
 
   it("never refuses a 999.9 coin, and finds nearly all of it gold", () => {
@@ -86,8 +93,14 @@ describe("the host density's bound is physical", () => {
   it("separates gold from a silver host (denser than 10 g/cm³)", () => {
     const s = composeSpecimen({ goldGrams: 800, fineness: 1000, hostGrams: 200, hostDensity: 10.495 });
     const e = estimateSpecimen({
-      method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], hostDensity: 10.495, hostDensityRange: [10.49, 10.5],
-      finenessPermille: 1000, scaleResolutionGrams: 1e-9, waterTempToleranceC: 0,
+      method: "hanging",
+      airGrams: [s.air],
+      waterGrams: [s.hangingWater],
+      hostDensity: 10.495,
+      hostDensityRange: [10.49, 10.5],
+      finenessPermille: 1000,
+      scaleResolutionGrams: 1e-9,
+      waterTempToleranceC: 0,
     });
     expect(e.goldAlloyGrams).toBeCloseTo(800, 6);
     expect(e.range.goldAlloyGrams[0]).toBeLessThan(800);
@@ -96,7 +109,15 @@ describe("the host density's bound is physical", () => {
 
   it("refuses a host whose highest density reaches the alloy's at the lowest fineness", () => {
     // 100 ‰ gold: 1/(0.1/19.32 + 0.9/10.49) = 10.99 g/cm³, below the host's 11.
-    const input: SpecimenInput = { method: "hanging", airGrams: [100], waterGrams: [88], hostDensity: 7.5, hostDensityRange: [4, 11], finenessPermille: 200, finenessRangePermille: [100, 300] };
+    const input: SpecimenInput = {
+      method: "hanging",
+      airGrams: [100],
+      waterGrams: [88],
+      hostDensity: 7.5,
+      hostDensityRange: [4, 11],
+      finenessPermille: 200,
+      finenessRangePermille: [100, 300],
+    };
     expect(refusal(input)).toMatchObject({ code: "host_not_below_gold", field: "hostDensityRange" });
     expect(refusal({ ...input, hostDensityRange: [4, 10.9], hostDensity: 7.45 })).toBeUndefined();
   });

@@ -28,7 +28,14 @@ describe("estimateSpecimen — worked example of our own", () => {
     // ρs = 2.677593; ρg(850 ‰) = 1/(0.85/19.32 + 0.15/10.49) = 17.15407;
     // m_g = 100·ρg·(ρs − 2.65)/(ρs·(ρg − 2.65)) = 1.2188 g.
     // The textbook figure: no air-buoyancy correction (air-buoyancy.test.ts checks that one).
-    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.72], finenessPermille: 850, hostDensity: 2.65, airBuoyancyCorrection: false });
+    const e = estimateSpecimen({
+      method: "hanging",
+      airGrams: [100],
+      waterGrams: [62.72],
+      finenessPermille: 850,
+      hostDensity: 2.65,
+      airBuoyancyCorrection: false,
+    });
     expect(e.volumeCm3).toBeCloseTo(37.34697, 4);
     expect(e.specimenDensity).toBeCloseTo(2.677593, 5);
     expect(e.goldAlloyGrams).toBeCloseTo(1.2188, 3);
@@ -101,7 +108,12 @@ describe("estimateSpecimen — impossible input names its field", () => {
     ["hot", { method: "hanging", airGrams: [10], waterGrams: [6], waterTempC: 45 }, "waterTempC", "temperature_out_of_range"],
     ["denser than gold", { method: "hanging", airGrams: [100], waterGrams: [95] }, "waterGrams", "denser_than_gold"],
     ["fineness", { method: "hanging", airGrams: [10], waterGrams: [6], finenessPermille: 1200 }, "finenessPermille", "fineness_out_of_range"],
-    ["host range", { method: "hanging", airGrams: [10], waterGrams: [6], hostDensity: 2.65, hostDensityRange: [2.7, 2.8] }, "hostDensityRange", "range_excludes_value"],
+    [
+      "host range",
+      { method: "hanging", airGrams: [10], waterGrams: [6], hostDensity: 2.65, hostDensityRange: [2.7, 2.8] },
+      "hostDensityRange",
+      "range_excludes_value",
+    ],
   ];
   it.each(bad)("%s", (_label, input, field, code) => {
     let caught: unknown;
@@ -195,8 +207,14 @@ describe("estimateSpecimen — properties", () => {
 describe("standard uncertainty", () => {
   // JCGM 100:2008 (GUM) linear propagation against JCGM 101:2008 Monte Carlo propagation.
   const cases: [string, SpecimenInput][] = [
-    ["rich lode piece", { method: "hanging", airGrams: [152.31], waterGrams: [96.8], finenessPermille: 820, finenessRangePermille: [760, 880], waterTempC: 18 }],
-    ["modest specimen, repeats", { method: "buoyancy", airGrams: [48.62, 48.63, 48.62], waterGrams: [17.21, 17.2, 17.22], finenessPermille: 880, finenessRangePermille: [850, 910] }],
+    [
+      "rich lode piece",
+      { method: "hanging", airGrams: [152.31], waterGrams: [96.8], finenessPermille: 820, finenessRangePermille: [760, 880], waterTempC: 18 },
+    ],
+    [
+      "modest specimen, repeats",
+      { method: "buoyancy", airGrams: [48.62, 48.63, 48.62], waterGrams: [17.21, 17.2, 17.22], finenessPermille: 880, finenessRangePermille: [850, 910] },
+    ],
     ["low grade, coarse scale", { method: "hanging", airGrams: [310.4], waterGrams: [196.3], scaleResolutionGrams: 0.1, hostDensity: 2.66 }],
   ];
   it.each(cases)("GUM agrees with a seeded Monte Carlo within 10 %% (%s)", (_name, input) => {

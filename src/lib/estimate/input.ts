@@ -7,7 +7,6 @@ import { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS, MAX_STEP_GRAMS } fro
 
 export { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS, MAX_STEP_GRAMS };
 
-
 /**
  * An uncertain input: its central value, its extremes, and its standard uncertainty (k = 1).
  * Every assumption is rectangular over [lo, hi] and its value is the centre of that range, so
@@ -62,7 +61,11 @@ function checkReadings(values: unknown, field: "airGrams" | "waterGrams", label:
     if (typeof v !== "number" || !Number.isFinite(v)) fail("reading_not_finite", field, `Every ${label} reading must be a number.`);
     if (v <= 0) fail("reading_not_positive", field, `Every ${label} reading must be more than zero.`);
     if (v > MAX_READING_GRAMS) {
-      fail("reading_implausible", field, `The ${label} reading ${v} g is more than a specimen scale weighs (at most ${grouped(MAX_READING_GRAMS)} g). Check the number and its unit.`);
+      fail(
+        "reading_implausible",
+        field,
+        `The ${label} reading ${v} g is more than a specimen scale weighs (at most ${grouped(MAX_READING_GRAMS)} g). Check the number and its unit.`,
+      );
     }
   }
   return values as number[];

@@ -55,7 +55,14 @@ describe("the range contains every point of the input box", () => {
     // 30 g of 900 ‰ gold with 1 g of quartz, read to the gram: the capped gold is highest
     // where the specimen's density meets the alloy's, between the corners of the readings.
     const s = composeSpecimen({ goldGrams: 30, fineness: 900, hostGrams: 1, hostDensity: 2.65 });
-    const input: SpecimenInput = { method: "hanging", airGrams: [roundToStep(s.air, 1)], waterGrams: [roundToStep(s.hangingWater, 1)], scaleResolutionGrams: 1, finenessPermille: 900, finenessRangePermille: [850, 950] };
+    const input: SpecimenInput = {
+      method: "hanging",
+      airGrams: [roundToStep(s.air, 1)],
+      waterGrams: [roundToStep(s.hangingWater, 1)],
+      scaleResolutionGrams: 1,
+      finenessPermille: 900,
+      finenessRangePermille: [850, 950],
+    };
     expectRangeHoldsGrid(input, 81, 5);
   });
 

@@ -12,7 +12,15 @@ function refusal(input: SpecimenInput): EstimateInputError | undefined {
 }
 
 // A rich specimen weighed once on a 0.01 g scale: its range comes mostly from the readings.
-const rich: SpecimenInput = { method: "hanging", airGrams: [52.31], waterGrams: [44.06], finenessPermille: 900, hostDensity: 2.65, hostDensityRange: [2.65, 2.65], waterTempToleranceC: 0 };
+const rich: SpecimenInput = {
+  method: "hanging",
+  airGrams: [52.31],
+  waterGrams: [44.06],
+  finenessPermille: 900,
+  hostDensity: 2.65,
+  hostDensityRange: [2.65, 2.65],
+  waterTempToleranceC: 0,
+};
 
 describe("the scale's accuracy beyond its display step", () => {
   it("has a default per step size, reported with the result", () => {

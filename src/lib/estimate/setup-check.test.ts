@@ -9,7 +9,9 @@ const RHO_W_20 = 0.9982067;
 // Kell, J. Chem. Eng. Data 20 (1975) 97 (as in Jones & Harris, J. Res. NIST 97 (1992) 335),
 // g/cm³: agrees with Tanaka within about 3 ppm over 0–40 °C; used here for dρw/dT.
 function kell(t: number): number {
-  return (999.83952 + 16.945176 * t - 7.9870401e-3 * t ** 2 - 46.170461e-6 * t ** 3 + 105.56302e-9 * t ** 4 - 280.54253e-12 * t ** 5) / (1 + 16.87985e-3 * t) / 1000;
+  return (
+    (999.83952 + 16.945176 * t - 7.9870401e-3 * t ** 2 - 46.170461e-6 * t ** 3 + 105.56302e-9 * t ** 4 - 280.54253e-12 * t ** 5) / (1 + 16.87985e-3 * t) / 1000
+  );
 }
 // OIML D 28: air 1.2 kg/m³, reference weights 8000 kg/m³; a scale shows m_c = (m − ρa·V)/(1 − ρa/ρref).
 const AIR = 0.0012;
@@ -33,7 +35,15 @@ describe("measuring a density (the setup check's reading)", () => {
   it("has the standard uncertainty of the hand-derived sensitivities (GUM, JCGM 100:2008 eq. 10)", () => {
     const A = 50;
     const W = 44.42;
-    const m = measureDensity({ method: "hanging", airGrams: [A], waterGrams: [W], waterTempC: 20, waterTempToleranceC: 2, scaleResolutionGrams: 0.01, airBuoyancyCorrection: false });
+    const m = measureDensity({
+      method: "hanging",
+      airGrams: [A],
+      waterGrams: [W],
+      waterTempC: 20,
+      waterTempToleranceC: 2,
+      scaleResolutionGrams: 0.01,
+      airBuoyancyCorrection: false,
+    });
     // ∂ρ/∂A = −W·ρw/(A − W)², ∂ρ/∂W = A·ρw/(A − W)², ∂ρ/∂ρw = A/(A − W); dρw/dT from Kell.
     // Each reading: rectangular over ± 0.02 g (the default accuracy of a 0.01 g scale, 2 steps), u = 0.02/√3.
     // Temperature: rectangular over 20 ± 2 °C, u = 2/√3.
@@ -51,7 +61,7 @@ describe("measuring a density (the setup check's reading)", () => {
     const m = measureDensity({ method: "hanging", airGrams: [A], waterGrams: [W], waterTempC: 20, waterTempToleranceC: 2, airBuoyancyCorrection: false });
     // A plain linear congruential generator of our own; Kell's water for each drawn temperature.
     let seed = 12345;
-    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const rand = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
     const n = 40_000;
     let sum = 0;
     let sum2 = 0;
@@ -125,7 +135,9 @@ describe("the setup check's verdict", () => {
   });
 
   it("refuses a reference that is not a density", () => {
-    expect(() => judgeSetupCheck({ method: "hanging", airGrams: [10], waterGrams: [6] }, { density: 0.5, uncertainty: 0 })).toThrow(/reference object's density/);
+    expect(() => judgeSetupCheck({ method: "hanging", airGrams: [10], waterGrams: [6] }, { density: 0.5, uncertainty: 0 })).toThrow(
+      /reference object's density/,
+    );
     expect(() => judgeSetupCheck({ method: "hanging", airGrams: [10], waterGrams: [6] }, { density: 2.65, uncertainty: -1 })).toThrow(/uncertainty/);
   });
 });

@@ -23,7 +23,16 @@ export type MeasuredDensity = {
   volumeCm3: number;
 };
 
-const DENSITY_KEYS = ["method", "airGrams", "waterGrams", "scaleResolutionGrams", "scaleAccuracyGrams", "waterTempC", "waterTempToleranceC", "airBuoyancyCorrection"] as const;
+const DENSITY_KEYS = [
+  "method",
+  "airGrams",
+  "waterGrams",
+  "scaleResolutionGrams",
+  "scaleAccuracyGrams",
+  "waterTempC",
+  "waterTempToleranceC",
+  "airBuoyancyCorrection",
+] as const;
 
 /** The input's density fields only: a host rock or fineness it carries plays no part. */
 function densityOnly(input: DensityInput): DensityInput {

@@ -46,11 +46,22 @@ describe("warnings that point the right way", () => {
   it("the small-specimen warning fires when the scale matters to the gold figure, not for every small nugget", () => {
     // 3 g of 900 ‰ gold with 0.1 g of quartz on a 0.01 g scale: the fineness dominates.
     const nugget = composeSpecimen({ goldGrams: 3, fineness: 900, hostGrams: 0.1, hostDensity: 2.65 });
-    const n: SpecimenInput = { method: "hanging", airGrams: [roundToStep(nugget.air, 0.01)], waterGrams: [roundToStep(nugget.hangingWater, 0.01)], finenessPermille: 900, finenessRangePermille: [850, 950] };
+    const n: SpecimenInput = {
+      method: "hanging",
+      airGrams: [roundToStep(nugget.air, 0.01)],
+      waterGrams: [roundToStep(nugget.hangingWater, 0.01)],
+      finenessPermille: 900,
+      finenessRangePermille: [850, 950],
+    };
     expect(codes(n)).not.toContain("specimen_too_small");
     // 5 g of rock holding 0.25 g of gold on the same scale: the readings dominate.
     const rock = composeSpecimen({ goldGrams: 0.25, fineness: 900, hostGrams: 4.75, hostDensity: 2.65 });
-    const r = estimateSpecimen({ method: "hanging", airGrams: [roundToStep(rock.air, 0.01)], waterGrams: [roundToStep(rock.hangingWater, 0.01)], finenessPermille: 900 });
+    const r = estimateSpecimen({
+      method: "hanging",
+      airGrams: [roundToStep(rock.air, 0.01)],
+      waterGrams: [roundToStep(rock.hangingWater, 0.01)],
+      finenessPermille: 900,
+    });
     const w = r.warnings.find((x) => x.code === "specimen_too_small");
     expect(w).toBeDefined();
     expect(w!.params.scaleShare).toBeGreaterThan(0.25);

@@ -48,7 +48,12 @@ export function collectWarnings(r: ResolvedInput, central: ModelResult, ranges: 
   if (scale2 > 0 && scale2 >= SCALE_SHARE * total2 && (central.alloy <= 0 || u.scaleAlloy > SCALE_RELATIVE * central.alloy)) {
     warnings.push({
       code: "specimen_too_small",
-      params: { displacedGrams: displacedGrams(r.settings.method, r.air.value, r.water.value), accuracyGrams: r.air.bound, scaleShare: scale2 / total2, scaleGrams: u.scaleAlloy },
+      params: {
+        displacedGrams: displacedGrams(r.settings.method, r.air.value, r.water.value),
+        accuracyGrams: r.air.bound,
+        scaleShare: scale2 / total2,
+        scaleGrams: u.scaleAlloy,
+      },
     });
   }
   for (const [reading, which] of [

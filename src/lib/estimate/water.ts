@@ -16,11 +16,7 @@ export const WATER_TEMP_MAX_C = 40;
 /** Density of water in g/cm³ at tempC (°C). Arithmetic only, so every engine rounds alike. */
 export function waterDensity(tempC: number): number {
   if (!Number.isFinite(tempC) || tempC < WATER_TEMP_MIN_C || tempC > WATER_TEMP_MAX_C) {
-    throw new EstimateInputError(
-      "temperature_out_of_range",
-      "waterTempC",
-      `Water temperature must be between ${WATER_TEMP_MIN_C} and ${WATER_TEMP_MAX_C} °C.`,
-    );
+    throw new EstimateInputError("temperature_out_of_range", "waterTempC", `Water temperature must be between ${WATER_TEMP_MIN_C} and ${WATER_TEMP_MAX_C} °C.`);
   }
   const t1 = tempC + A1;
   const kgPerM3 = A5 * (1 - (t1 * t1 * (tempC + A2)) / (A3 * (tempC + A4)));

@@ -5,18 +5,29 @@
 export type ClaimGold = { name: string; hostDensity: number; hostRange: [number, number]; fineness: number; finenessRange: [number, number] };
 
 /** The profile a device holds for a claim, or null when its server sent none. */
-export function claimGoldOf(claim: {
-  name: string;
-  hostDensity?: number;
-  hostDensityLow?: number;
-  hostDensityHigh?: number;
-  fineness?: number;
-  finenessLow?: number;
-  finenessHigh?: number;
-} | null | undefined): ClaimGold | null {
+export function claimGoldOf(
+  claim:
+    | {
+        name: string;
+        hostDensity?: number;
+        hostDensityLow?: number;
+        hostDensityHigh?: number;
+        fineness?: number;
+        finenessLow?: number;
+        finenessHigh?: number;
+      }
+    | null
+    | undefined,
+): ClaimGold | null {
   if (!claim || claim.hostDensity == null || claim.hostDensityLow == null || claim.hostDensityHigh == null) return null;
   if (claim.fineness == null || claim.finenessLow == null || claim.finenessHigh == null) return null;
-  return { name: claim.name, hostDensity: claim.hostDensity, hostRange: [claim.hostDensityLow, claim.hostDensityHigh], fineness: claim.fineness, finenessRange: [claim.finenessLow, claim.finenessHigh] };
+  return {
+    name: claim.name,
+    hostDensity: claim.hostDensity,
+    hostRange: [claim.hostDensityLow, claim.hostDensityHigh],
+    fineness: claim.fineness,
+    finenessRange: [claim.finenessLow, claim.finenessHigh],
+  };
 }
 
 /** The weigh-in flow's preset id for "this claim's figures". */

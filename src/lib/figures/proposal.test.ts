@@ -1,7 +1,14 @@
 import { describe, expect, it } from "vitest";
 import { MIN_HALF_RANGE, proposeFineness, recoveryRatios } from "./proposal";
 
-const melt = (weight: number, fine: number, estimated = 0) => ({ kind: "melt" as const, fineGrams: fine, fineness: null, estimatedGrams: estimated, grossGrams: weight, placerGrams: weight });
+const melt = (weight: number, fine: number, estimated = 0) => ({
+  kind: "melt" as const,
+  fineGrams: fine,
+  fineness: null,
+  estimatedGrams: estimated,
+  grossGrams: weight,
+  placerGrams: weight,
+});
 
 describe("a claim's fineness proposed from the club's melts and assays", () => {
   it("two melts, checked by hand", () => {

@@ -14,13 +14,21 @@
  */
 export const MIN_HALF_RANGE = 15;
 
-export type RecoveryFigures = { kind: "melt" | "assay"; fineGrams: number; fineness: number | null; estimatedGrams: number; grossGrams: number; placerGrams: number };
+export type RecoveryFigures = {
+  kind: "melt" | "assay";
+  fineGrams: number;
+  fineness: number | null;
+  estimatedGrams: number;
+  grossGrams: number;
+  placerGrams: number;
+};
 
 export type FinenessProposal = { value: number; low: number; high: number; recoveries: number; weightGrams: number };
 
 function impliedFineness(r: RecoveryFigures): { f: number; w: number } | null {
   if (r.kind === "assay" && r.fineness !== null && r.grossGrams > 0) return { f: r.fineness, w: r.grossGrams };
-  if (r.kind === "melt" && r.placerGrams > 0 && r.placerGrams === r.grossGrams) return { f: Math.min(1000, (1000 * r.fineGrams) / r.placerGrams), w: r.placerGrams };
+  if (r.kind === "melt" && r.placerGrams > 0 && r.placerGrams === r.grossGrams)
+    return { f: Math.min(1000, (1000 * r.fineGrams) / r.placerGrams), w: r.placerGrams };
   return null;
 }
 

@@ -44,7 +44,8 @@ export const pullQuerySchema = z
 export type PullEntity = "claim" | "outing" | "find" | "photo" | "weighIn" | "scale" | "barrenRock" | "review" | "answer" | "price" | "settings";
 
 /** One change in a pull page: a record as it stands now, or a tombstone. */
-export type PullChange = { seq: number; entity: PullEntity; op: "put"; value: Record<string, unknown> } | { seq: number; entity: PullEntity; op: "del"; id: string };
+export type PullChange =
+  { seq: number; entity: PullEntity; op: "put"; value: Record<string, unknown> } | { seq: number; entity: PullEntity; op: "del"; id: string };
 
 export type PullResponse = {
   changes: PullChange[];

@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { toSafeCsv, withoutBidiControls } from "./safe-text";
 
 describe("CSV that is safe to open (RELIABILITY 37; OWASP CSV Injection)", () => {
-  const hostile = ["=HYPERLINK(\"https://evil.example\",\"click\")", "+cmd|' /C calc'!A0", "-2+3", "@SUM(A1:A9)", "\t=1+1", "\r=1+1", "=1"];
+  const hostile = ['=HYPERLINK("https://evil.example","click")', "+cmd|' /C calc'!A0", "-2+3", "@SUM(A1:A9)", "\t=1+1", "\r=1+1", "=1"];
 
   it.each(hostile)("neutralises %j so it reads back as the same text, not a formula", (cell) => {
     const csv = toSafeCsv(["memberName", "claimName"], [[cell, cell]]);

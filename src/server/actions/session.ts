@@ -34,20 +34,27 @@ function afterSignIn(from: unknown): string {
 }
 
 export const signInWithPassword = defineAction({ public: true }, passwordForm, async (input) =>
-  withSignInScope(async (scope): Promise<ActionState | void> => {
-    try {
-      await signIn("credentials", { email: input.email, password: input.password, redirectTo: afterSignIn(input.from) });
-    } catch (error) {
-      if (error instanceof AuthError) {
-        if (scope.refused) return { ok: false, message: scope.refused.message };
-        return { ok: false, message: "That e-mail and password do not match an active member. Check both and try again.", fields: { password: ["Wrong e-mail or password."] } };
+  withSignInScope(
+    async (scope): Promise<ActionState | void> => {
+      try {
+        await signIn("credentials", { email: input.email, password: input.password, redirectTo: afterSignIn(input.from) });
+      } catch (error) {
+        if (error instanceof AuthError) {
+          if (scope.refused) return { ok: false, message: scope.refused.message };
+          return {
+            ok: false,
+            message: "That e-mail and password do not match an active member. Check both and try again.",
+            fields: { password: ["Wrong e-mail or password."] },
+          };
+        }
+        if (!isRedirect(error)) throw error;
+        // Signed in (Auth.js redirects by throwing): remember this browser for the member.
+        await keepDeviceCookies(scope);
+        throw error;
       }
-      if (!isRedirect(error)) throw error;
-      // Signed in (Auth.js redirects by throwing): remember this browser for the member.
-      await keepDeviceCookies(scope);
-      throw error;
-    }
-  }, await headers()),
+    },
+    await headers(),
+  ),
 );
 
 const linkForm = z.object({ email: z.email("Enter your e-mail address.").max(254), from: z.string().max(500).optional() });
@@ -63,7 +70,10 @@ export const sendSignInLink = defineAction({ public: true }, linkForm, async (in
     // Unknown addresses and per-account limits skip the mail silently in the signIn callback
     // (counted against this caller's address): the answer is the same either way, so the form
     // cannot be used to learn who belongs to the club.
-    await withSignInScope(() => signIn("nodemailer", { email: input.email.trim().toLowerCase(), redirectTo: afterSignIn(input.from), redirect: false }), await headers());
+    await withSignInScope(
+      () => signIn("nodemailer", { email: input.email.trim().toLowerCase(), redirectTo: afterSignIn(input.from), redirect: false }),
+      await headers(),
+    );
   } catch (error) {
     if (!(error instanceof AuthError)) throw error;
   }

@@ -27,7 +27,14 @@ const credentialsSchema = z.object({ email: z.string().trim().toLowerCase().pipe
 
 function activeMemberByEmail(email: string) {
   return getDb()
-    .select({ id: members.id, email: members.email, name: members.name, passwordHash: members.passwordHash, active: members.active, sv: members.sessionVersion })
+    .select({
+      id: members.id,
+      email: members.email,
+      name: members.name,
+      passwordHash: members.passwordHash,
+      active: members.active,
+      sv: members.sessionVersion,
+    })
     .from(members)
     .where(eq(members.email, email.trim().toLowerCase()))
     .get();

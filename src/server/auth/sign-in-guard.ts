@@ -155,11 +155,21 @@ function countFailure(a: Attempt, by = 1): void {
   if (a.device) {
     const c = deviceCounts.get(a.device);
     const fresh = !c || a.now - c.since >= SIGN_IN_POLICY.deviceWindowS * 1000;
-    remember(deviceCounts, a.device, fresh ? { failures: Math.max(0, by), since: a.now } : { failures: Math.max(0, c.failures + by), since: c.since }, (v) => Date.now() - v.since < SIGN_IN_POLICY.deviceWindowS * 1000);
+    remember(
+      deviceCounts,
+      a.device,
+      fresh ? { failures: Math.max(0, by), since: a.now } : { failures: Math.max(0, c.failures + by), since: c.since },
+      (v) => Date.now() - v.since < SIGN_IN_POLICY.deviceWindowS * 1000,
+    );
     return;
   }
   const d = unknownDelays.get(a.email);
-  remember(unknownDelays, a.email, { failures: Math.max(0, (d?.failures ?? 0) + by), lastAt: by > 0 ? a.now : (d?.lastAt ?? a.now) }, (v) => v.failures > 0 && Date.now() - v.lastAt < SIGN_IN_POLICY.forgetAfterS * 1000);
+  remember(
+    unknownDelays,
+    a.email,
+    { failures: Math.max(0, (d?.failures ?? 0) + by), lastAt: by > 0 ? a.now : (d?.lastAt ?? a.now) },
+    (v) => v.failures > 0 && Date.now() - v.lastAt < SIGN_IN_POLICY.forgetAfterS * 1000,
+  );
 }
 
 function limited(retryAfterS: number, email: string, by: string): never {
@@ -188,7 +198,9 @@ export function attemptFailed(_a: Attempt): void {}
 export function attemptSucceeded(a: Attempt): void {
   unknownDelays.delete(a.email);
   if (a.device) deviceCounts.delete(a.device);
-  scope.getStore()?.setCookies.push({ name: deviceCookieName(a.email), value: deviceCookieValue(a.email, a.now), maxAgeS: SIGN_IN_POLICY.deviceCookieDays * 86_400 });
+  scope
+    .getStore()
+    ?.setCookies.push({ name: deviceCookieName(a.email), value: deviceCookieValue(a.email, a.now), maxAgeS: SIGN_IN_POLICY.deviceCookieDays * 86_400 });
 }
 
 /**

@@ -17,7 +17,13 @@ export function claimBarrenRock(claimId: string, season: number) {
   const { timeZone } = clubSettings();
   const { start, end } = seasonBounds(season, timeZone);
   const pieces = db
-    .select({ id: t.barrenRocks.id, memberName: t.members.name, weighedAt: t.barrenRocks.weighedAt, density: t.barrenRocks.density, scaleCheckPassed: t.barrenRocks.scaleCheckPassed })
+    .select({
+      id: t.barrenRocks.id,
+      memberName: t.members.name,
+      weighedAt: t.barrenRocks.weighedAt,
+      density: t.barrenRocks.density,
+      scaleCheckPassed: t.barrenRocks.scaleCheckPassed,
+    })
     .from(t.barrenRocks)
     .innerJoin(t.members, eq(t.members.id, t.barrenRocks.memberId))
     .where(and(eq(t.barrenRocks.claimId, claimId), isNull(t.barrenRocks.deletedAt), gte(t.barrenRocks.weighedAt, start), lt(t.barrenRocks.weighedAt, end)))

@@ -85,7 +85,10 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
       .from(t.claims)
       .where(and(sql`lower(trim(${t.claims.name})) = lower(trim(${input.name}))`, id ? ne(t.claims.id, id) : undefined))
       .get();
-    if (sameName) throw new AppError("conflict:claim", `The club already has a claim named ${input.name.trim()}. Give this one another name.`, { name: ["already a claim of that name"] });
+    if (sameName)
+      throw new AppError("conflict:claim", `The club already has a claim named ${input.name.trim()}. Give this one another name.`, {
+        name: ["already a claim of that name"],
+      });
     if (boundary && !input.acceptOverlap) {
       const others = tx.select({ id: t.claims.id, name: t.claims.name, boundary: t.claims.boundary }).from(t.claims).where(eq(t.claims.active, true)).all();
       const overlaps = others
@@ -94,7 +97,9 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
         .filter((o) => o.m2 >= 1);
       if (overlaps.length) {
         const list = overlaps.map((o) => `${o.name} (about ${Math.round(o.m2).toLocaleString("en-US")} m²)`).join(", ");
-        throw new AppError("conflict:claim_overlap", `This outline overlaps ${list}. Check the corners; save again to accept the overlap.`, { boundary: [`overlaps ${list}`] });
+        throw new AppError("conflict:claim_overlap", `This outline overlaps ${list}. Check the corners; save again to accept the overlap.`, {
+          boundary: [`overlaps ${list}`],
+        });
       }
     }
     const values = {
@@ -111,13 +116,18 @@ export function saveClaim(actor: Actor, id: string | null, input: ClaimInput) {
     if (id) {
       const before = tx.select().from(t.claims).where(eq(t.claims.id, id)).get();
       if (!before) throw new AppError("not_found:claim", "No such claim.");
-      tx.update(t.claims).set({ ...values, updatedAt: Date.now(), seq: nextSeq(db.$client) }).where(eq(t.claims.id, id)).run();
+      tx.update(t.claims)
+        .set({ ...values, updatedAt: Date.now(), seq: nextSeq(db.$client) })
+        .where(eq(t.claims.id, id))
+        .run();
       if (boundary !== undefined) refreshOutsideClaim(db.$client, id);
       audit(tx, { actorId: actor.id, action: "claim.update", entity: "claim", entityId: id, before, after: values });
       return { id };
     }
     const newId = uuidv7();
-    tx.insert(t.claims).values({ id: newId, ...values, boundary: boundary ?? null, seq: nextSeq(db.$client) }).run();
+    tx.insert(t.claims)
+      .values({ id: newId, ...values, boundary: boundary ?? null, seq: nextSeq(db.$client) })
+      .run();
     audit(tx, { actorId: actor.id, action: "claim.create", entity: "claim", entityId: newId, after: values });
     return { id: newId };
   });
@@ -142,7 +152,10 @@ export function saveClaimProfile(actor: Actor, id: string, input: z.infer<typeof
       hostDensityHigh: input.hostDensityHigh,
       hostDensitySource: input.hostDensitySource,
     };
-    tx.update(t.claims).set({ ...after, updatedAt: Date.now(), seq: nextSeq(db.$client) }).where(eq(t.claims.id, id)).run();
+    tx.update(t.claims)
+      .set({ ...after, updatedAt: Date.now(), seq: nextSeq(db.$client) })
+      .where(eq(t.claims.id, id))
+      .run();
     audit(tx, { actorId: actor.id, action: "claim.profile", entity: "claim", entityId: id, before, after });
     return after;
   });
@@ -152,11 +165,21 @@ export function saveClaimProfile(actor: Actor, id: string, input: z.infer<typeof
 export function refigureSeason(actor: Actor, id: string, season: number) {
   const db = getDb();
   return db.transaction((tx) => {
-    const claim = tx.select({ id: t.claims.id, ...PROFILE_COLUMNS }).from(t.claims).where(eq(t.claims.id, id)).get();
+    const claim = tx
+      .select({ id: t.claims.id, ...PROFILE_COLUMNS })
+      .from(t.claims)
+      .where(eq(t.claims.id, id))
+      .get();
     if (!claim) throw new AppError("not_found:claim", "No such claim.");
     const { start, end } = seasonBounds(season, clubSettings().timeZone);
     const finds = refigureFineness(db.$client, { claimId: id, start, end });
-    audit(tx, { actorId: actor.id, action: "claim.refigure", entity: "claim", entityId: id, after: { season, finds, fineness: claim.fineness, finenessLow: claim.finenessLow, finenessHigh: claim.finenessHigh } });
+    audit(tx, {
+      actorId: actor.id,
+      action: "claim.refigure",
+      entity: "claim",
+      entityId: id,
+      after: { season, finds, fineness: claim.fineness, finenessLow: claim.finenessLow, finenessHigh: claim.finenessHigh },
+    });
     return { finds };
   });
 }

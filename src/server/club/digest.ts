@@ -24,10 +24,10 @@ export type Digest = {
 export function buildDigest(now = Date.now(), days = 7): Digest {
   const db = getDb();
   const since = now - days * DAY;
-  const newFinds = totalsBy<{ k0: string | null; k1: string | null }>(sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.created_at >= ${since}`, [
-    sql`f.claim_id`,
-    sql`c.name`,
-  ])
+  const newFinds = totalsBy<{ k0: string | null; k1: string | null }>(
+    sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.created_at >= ${since}`,
+    [sql`f.claim_id`, sql`c.name`],
+  )
     .map((r) => ({ claimName: r.k1, totals: r.totals }))
     .sort((a, b) => (a.claimName ?? "\uffff").localeCompare(b.claimName ?? "\uffff"));
   // Each find whose latest verify or query is a query, with the member's latest answer to it.
@@ -63,7 +63,9 @@ export function digestText(d: Digest): string {
   if (d.newFinds.length === 0) lines.push("  none");
   for (const f of d.newFinds) {
     const t = f.totals;
-    lines.push(`  ${f.claimName ? plain(f.claimName) : "off-claim"}: ${t.finds} find${t.finds === 1 ? "" : "s"}, ${formatGrams(t.fineGrams)} fine gold estimated (at worst ${formatGrams(t.fineLow)} to ${formatGrams(t.fineHigh)}), ${formatGrams(t.weightGrams)} recorded`);
+    lines.push(
+      `  ${f.claimName ? plain(f.claimName) : "off-claim"}: ${t.finds} find${t.finds === 1 ? "" : "s"}, ${formatGrams(t.fineGrams)} fine gold estimated (at worst ${formatGrams(t.fineLow)} to ${formatGrams(t.fineHigh)}), ${formatGrams(t.weightGrams)} recorded`,
+    );
   }
   lines.push("", "Queries still open:");
   if (d.openQueries.length === 0) lines.push("  none");
@@ -77,7 +79,11 @@ export function digestText(d: Digest): string {
 
 /** Sends the digest to every active officer; returns how many were sent. */
 export async function sendDigest(now = Date.now()): Promise<number> {
-  const officers = getDb().select({ email: members.email }).from(members).where(and(eq(members.role, "officer"), eq(members.active, true))).all();
+  const officers = getDb()
+    .select({ email: members.email })
+    .from(members)
+    .where(and(eq(members.role, "officer"), eq(members.active, true)))
+    .all();
   const text = digestText(buildDigest(now));
   for (const o of officers) await sendMail({ to: o.email, subject: "Lodebook: the club's week", text });
   return officers.length;

@@ -35,7 +35,16 @@ export function refreshWeighInFigures(sqlite: Sqlite, findId: string): void {
  */
 export function weighInAdded(
   sqlite: Sqlite,
-  w: { id: string; findId: string; weighedAt: number; alloyGrams: number; fineGrams: number; fineRange: readonly [number, number]; airGrams: number; scaleChecked: boolean },
+  w: {
+    id: string;
+    findId: string;
+    weighedAt: number;
+    alloyGrams: number;
+    fineGrams: number;
+    fineRange: readonly [number, number];
+    airGrams: number;
+    scaleChecked: boolean;
+  },
 ): void {
   statement(
     sqlite,
@@ -51,10 +60,24 @@ export function weighInAdded(
  */
 export function claimFacts(sqlite: Sqlite, claimId: string | null): ClaimFacts {
   if (claimId) {
-    const row = statement(sqlite, "select fineness, fineness_low, fineness_high, boundary from claims where id = ?").raw().get(claimId) as [number, number, number, string | null] | undefined;
-    if (row) return { finenessUsed: row[0], finenessUsedLow: row[1], finenessUsedHigh: row[2], finenessUsedBasis: "claim_fineness", boundary: row[3] ? (JSON.parse(row[3]) as Polygon) : null };
+    const row = statement(sqlite, "select fineness, fineness_low, fineness_high, boundary from claims where id = ?").raw().get(claimId) as
+      [number, number, number, string | null] | undefined;
+    if (row)
+      return {
+        finenessUsed: row[0],
+        finenessUsedLow: row[1],
+        finenessUsedHigh: row[2],
+        finenessUsedBasis: "claim_fineness",
+        boundary: row[3] ? (JSON.parse(row[3]) as Polygon) : null,
+      };
   }
-  return { finenessUsed: CLUB_FINENESS.value, finenessUsedLow: CLUB_FINENESS.low, finenessUsedHigh: CLUB_FINENESS.high, finenessUsedBasis: "club_fineness", boundary: null };
+  return {
+    finenessUsed: CLUB_FINENESS.value,
+    finenessUsedLow: CLUB_FINENESS.low,
+    finenessUsedHigh: CLUB_FINENESS.high,
+    finenessUsedBasis: "club_fineness",
+    boundary: null,
+  };
 }
 
 export type ClaimFacts = FinenessUsed & { boundary: Polygon | null };

@@ -16,9 +16,23 @@ export function findForOfficer(id: string) {
   const db = getDb();
   const find = db
     .select({
-      id: t.finds.id, memberId: t.finds.memberId, memberName: t.members.name, sharing: t.members.locationSharing, claimId: t.finds.claimId, claimName: t.claims.name,
-      kind: t.finds.kind, weightGrams: t.finds.weightGrams, depthCm: t.finds.depthCm, method: t.finds.method, notes: t.finds.notes,
-      lat: t.finds.lat, lon: t.finds.lon, accuracyM: t.finds.accuracyM, locationSource: t.finds.locationSource, foundAt: t.finds.foundAt, deletedAt: t.finds.deletedAt,
+      id: t.finds.id,
+      memberId: t.finds.memberId,
+      memberName: t.members.name,
+      sharing: t.members.locationSharing,
+      claimId: t.finds.claimId,
+      claimName: t.claims.name,
+      kind: t.finds.kind,
+      weightGrams: t.finds.weightGrams,
+      depthCm: t.finds.depthCm,
+      method: t.finds.method,
+      notes: t.finds.notes,
+      lat: t.finds.lat,
+      lon: t.finds.lon,
+      accuracyM: t.finds.accuracyM,
+      locationSource: t.finds.locationSource,
+      foundAt: t.finds.foundAt,
+      deletedAt: t.finds.deletedAt,
     })
     .from(t.finds)
     .innerJoin(t.members, eq(t.members.id, t.finds.memberId))
@@ -32,13 +46,26 @@ export function findForOfficer(id: string) {
     /** The club's zone: the console shows every time on the club's clock. */
     timeZone: clubSettings().timeZone,
     find: { ...rest, ...position, positionShared: sharing === "exact" },
-    photos: db.select({ id: t.photos.id, width: t.photos.width, height: t.photos.height, uploaded: t.photos.uploadedAt }).from(t.photos).where(eq(t.photos.findId, id)).all().filter((p) => p.uploaded),
+    photos: db
+      .select({ id: t.photos.id, width: t.photos.width, height: t.photos.height, uploaded: t.photos.uploadedAt })
+      .from(t.photos)
+      .where(eq(t.photos.findId, id))
+      .all()
+      .filter((p) => p.uploaded),
     weighIns: db
       .select({
-        id: t.weighIns.id, weighedAt: t.weighIns.weighedAt, input: t.weighIns.input, deviceEstimate: t.weighIns.deviceEstimate, serverEstimate: t.weighIns.serverEstimate,
-        engineVersion: t.weighIns.engineVersion, mismatch: t.weighIns.mismatch, deletedAt: t.weighIns.deletedAt,
+        id: t.weighIns.id,
+        weighedAt: t.weighIns.weighedAt,
+        input: t.weighIns.input,
+        deviceEstimate: t.weighIns.deviceEstimate,
+        serverEstimate: t.weighIns.serverEstimate,
+        engineVersion: t.weighIns.engineVersion,
+        mismatch: t.weighIns.mismatch,
+        deletedAt: t.weighIns.deletedAt,
         // The scale it was made on and the server's verdict on that scale's latest check then.
-        scaleName: t.scales.name, scaleCheck: t.weighIns.scaleCheck, scaleCheckPassed: t.weighIns.scaleCheckPassed,
+        scaleName: t.scales.name,
+        scaleCheck: t.weighIns.scaleCheck,
+        scaleCheckPassed: t.weighIns.scaleCheckPassed,
       })
       .from(t.weighIns)
       .leftJoin(t.scales, eq(t.scales.id, t.weighIns.scaleId))

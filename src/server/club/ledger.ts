@@ -112,7 +112,10 @@ function groupedSummaries(q: LedgerQuery, spans: Span[], keys: SQL[]): { key: un
 /** Subtotals per member or per claim, for the report. */
 export function ledgerSubtotals(q: LedgerQuery, by: "member" | "claim"): { id: string | null; summary: LedgerSummary }[] {
   return getDb().transaction(() =>
-    groupedSummaries(q, priceSpans(q.price), [by === "member" ? sql`f.member_id` : sql`f.claim_id`]).map((g) => ({ id: g.key[0] as string | null, summary: g.summary })),
+    groupedSummaries(q, priceSpans(q.price), [by === "member" ? sql`f.member_id` : sql`f.claim_id`]).map((g) => ({
+      id: g.key[0] as string | null,
+      summary: g.summary,
+    })),
   );
 }
 
@@ -170,7 +173,17 @@ function withPrices(list: UnpricedRow[], spans: Span[], tz = clubSettings().time
       else hi = mid - 1;
     }
     const { price, currency } = spans[lo];
-    return { ...r, foundOn: clubDay(r.foundAt, tz), weighMismatch: !!r.weighMismatch, outsideClaim: !!r.outsideClaim, changedSinceQuery: !!r.changedSinceQuery, scaleChecked: r.scaleChecked === null ? null : !!r.scaleChecked, price, currency, value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS };
+    return {
+      ...r,
+      foundOn: clubDay(r.foundAt, tz),
+      weighMismatch: !!r.weighMismatch,
+      outsideClaim: !!r.outsideClaim,
+      changedSinceQuery: !!r.changedSinceQuery,
+      scaleChecked: r.scaleChecked === null ? null : !!r.scaleChecked,
+      price,
+      currency,
+      value: price === null || r.fineGrams === null ? null : (r.fineGrams * price) / TROY_OUNCE_GRAMS,
+    };
   });
 }
 
@@ -202,13 +215,23 @@ const EXPORT_COLUMNS = sql.raw(`f.outing_id as outingId, o.started_at as outingS
 export function ledgerExportRows(q: LedgerQuery, max = 200_000): ExportRow[] {
   return getDb().transaction(() => {
     const tz = clubSettings().timeZone;
-    const list = getDb().all<UnpricedRow & { outingId: string | null; outingStartedAt: number | null; depthCm: number | null; notes: string; lat: number | null; lon: number | null }>(
+    const list = getDb().all<
+      UnpricedRow & { outingId: string | null; outingStartedAt: number | null; depthCm: number | null; notes: string; lat: number | null; lon: number | null }
+    >(
       sql`select ${ROW_COLUMNS}, ${EXPORT_COLUMNS} from finds f ${ROW_JOINS} left join outings o on o.id = f.outing_id where ${where(q)} order by f.found_at, f.id limit ${max}`,
     );
     const priced = withPrices(list, priceSpans(q.price, tz), tz);
     return priced.map((r, i) => {
       const x = list[i];
-      return { ...r, outingId: x.outingId, outingOn: x.outingStartedAt === null ? null : clubDay(x.outingStartedAt, tz), depthCm: x.depthCm, notes: x.notes, lat: x.lat, lon: x.lon };
+      return {
+        ...r,
+        outingId: x.outingId,
+        outingOn: x.outingStartedAt === null ? null : clubDay(x.outingStartedAt, tz),
+        depthCm: x.depthCm,
+        notes: x.notes,
+        lat: x.lat,
+        lon: x.lon,
+      };
     });
   });
 }
@@ -220,7 +243,9 @@ export function ledgerRows(q: LedgerQuery, max = 200_000): LedgerRow[] {
 
 /** Seasons (of the club's days) from the first find to the last, newest first, for the filters. */
 export function ledgerSeasons(): number[] {
-  const span = getDb().get<{ first: number | null; last: number | null }>(sql`select min(found_at) as first, max(found_at) as last from finds where deleted_at is null`);
+  const span = getDb().get<{ first: number | null; last: number | null }>(
+    sql`select min(found_at) as first, max(found_at) as last from finds where deleted_at is null`,
+  );
   if (span.first === null || span.last === null) return [];
   const tz = clubSettings().timeZone;
   const seasons: number[] = [];

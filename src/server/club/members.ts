@@ -28,7 +28,15 @@ export function listOpenInvitations() {
 
 export function listInvitations() {
   return getDb()
-    .select({ id: t.invitations.id, email: t.invitations.email, role: t.invitations.role, createdAt: t.invitations.createdAt, expiresAt: t.invitations.expiresAt, acceptedAt: t.invitations.acceptedAt, revokedAt: t.invitations.revokedAt })
+    .select({
+      id: t.invitations.id,
+      email: t.invitations.email,
+      role: t.invitations.role,
+      createdAt: t.invitations.createdAt,
+      expiresAt: t.invitations.expiresAt,
+      acceptedAt: t.invitations.acceptedAt,
+      revokedAt: t.invitations.revokedAt,
+    })
     .from(t.invitations)
     .orderBy(desc(t.invitations.createdAt))
     .all();
@@ -50,8 +58,13 @@ export async function invite(actor: Actor, input: z.infer<typeof invitationInput
   const id = uuidv7();
   db.transaction((tx) => {
     // A new invitation replaces any still open for the same address.
-    tx.update(t.invitations).set({ revokedAt: Date.now() }).where(and(eq(t.invitations.email, email), isNull(t.invitations.acceptedAt), isNull(t.invitations.revokedAt))).run();
-    tx.insert(t.invitations).values({ id, email, role: input.role, tokenHash: hashToken(token), invitedBy: actor.id, expiresAt: Date.now() + INVITATION_DAYS * 86_400_000 }).run();
+    tx.update(t.invitations)
+      .set({ revokedAt: Date.now() })
+      .where(and(eq(t.invitations.email, email), isNull(t.invitations.acceptedAt), isNull(t.invitations.revokedAt)))
+      .run();
+    tx.insert(t.invitations)
+      .values({ id, email, role: input.role, tokenHash: hashToken(token), invitedBy: actor.id, expiresAt: Date.now() + INVITATION_DAYS * 86_400_000 })
+      .run();
     audit(tx, { actorId: actor.id, action: "invitation.create", entity: "invitation", entityId: id, after: { email, role: input.role } });
   });
   try {
@@ -82,7 +95,11 @@ export function revokeInvitation(actor: Actor, id: string) {
 
 /** The invitation behind a link, if it still works. */
 export function openInvitation(token: string) {
-  const row = getDb().select().from(t.invitations).where(eq(t.invitations.tokenHash, hashToken(token))).get();
+  const row = getDb()
+    .select()
+    .from(t.invitations)
+    .where(eq(t.invitations.tokenHash, hashToken(token)))
+    .get();
   if (!row || row.acceptedAt || row.revokedAt || row.expiresAt < Date.now()) return null;
   return row;
 }
@@ -94,11 +111,19 @@ export async function acceptInvitation(token: string, name: string, password: st
   const passwordHash = await hashPassword(password);
   const db = getDb();
   return db.transaction((tx) => {
-    const row = tx.select().from(t.invitations).where(eq(t.invitations.tokenHash, hashToken(token))).get();
+    const row = tx
+      .select()
+      .from(t.invitations)
+      .where(eq(t.invitations.tokenHash, hashToken(token)))
+      .get();
     if (!row || row.acceptedAt || row.revokedAt || row.expiresAt < Date.now()) throw new AppError("gone:invitation", GONE_MESSAGE);
     const existing = tx.select({ id: t.members.id }).from(t.members).where(eq(t.members.email, row.email)).get();
     const id = existing?.id ?? uuidv7();
-    if (existing) tx.update(t.members).set({ name, passwordHash, role: row.role, active: true, sessionVersion: sql`${t.members.sessionVersion} + 1` }).where(eq(t.members.id, id)).run();
+    if (existing)
+      tx.update(t.members)
+        .set({ name, passwordHash, role: row.role, active: true, sessionVersion: sql`${t.members.sessionVersion} + 1` })
+        .where(eq(t.members.id, id))
+        .run();
     else tx.insert(t.members).values({ id, email: row.email, name, role: row.role, passwordHash, active: true }).run();
     tx.update(t.invitations).set({ acceptedAt: Date.now() }).where(eq(t.invitations.id, row.id)).run();
     audit(tx, { actorId: id, action: "invitation.accept", entity: "member", entityId: id, after: { email: row.email, role: row.role } });
@@ -114,10 +139,17 @@ export function changeMember(actor: Actor, memberId: string, change: z.infer<typ
     if (!before) throw new AppError("not_found:member", "No such member.");
     const after = { role: change.role ?? before.role, active: change.active ?? before.active };
     if (before.role === "officer" && before.active && (after.role !== "officer" || !after.active)) {
-      const officers = tx.select({ n: sql<number>`count(*)` }).from(t.members).where(and(eq(t.members.role, "officer"), eq(t.members.active, true))).get()!.n;
+      const officers = tx
+        .select({ n: sql<number>`count(*)` })
+        .from(t.members)
+        .where(and(eq(t.members.role, "officer"), eq(t.members.active, true)))
+        .get()!.n;
       if (officers <= 1) throw new AppError("conflict:member", "The club needs at least one active officer.");
     }
-    tx.update(t.members).set({ ...after, sessionVersion: sql`${t.members.sessionVersion} + 1` }).where(eq(t.members.id, memberId)).run();
+    tx.update(t.members)
+      .set({ ...after, sessionVersion: sql`${t.members.sessionVersion} + 1` })
+      .where(eq(t.members.id, memberId))
+      .run();
     audit(tx, { actorId: actor.id, action: "member.change", entity: "member", entityId: memberId, before, after });
     return after;
   });

@@ -63,19 +63,29 @@ function priceOn(tx: Tx, day: string, currency: string) {
 function insertPrice(tx: Tx, actor: Actor, input: PriceInput, replaces: string | null): string {
   const { currency } = clubSettings();
   if (input.currency !== currency) {
-    throw new AppError("bad_request:price", `The club keeps its prices in ${currency}. Record this one in ${currency}, or change the club's currency in its settings.`, { currency: [`must be ${currency}`] });
+    throw new AppError(
+      "bad_request:price",
+      `The club keeps its prices in ${currency}. Record this one in ${currency}, or change the club's currency in its settings.`,
+      { currency: [`must be ${currency}`] },
+    );
   }
   const then = priceOn(tx, input.effectiveOn, currency);
   if (then && !input.confirmJump && Math.abs(input.pricePerTroyOunce / then.price - 1) > PRICE_JUMP) {
     const pct = Math.round(Math.abs(input.pricePerTroyOunce / then.price - 1) * 100);
     const way = input.pricePerTroyOunce > then.price ? "above" : "below";
-    throw new AppError("conflict:price_jump", `That is ${pct} % ${way} the price in force then (${then.price.toFixed(2)} ${currency} from ${then.on}). Check it; record it anyway if it is right.`, {
-      pricePerTroyOunce: [`${pct} % ${way} the price then`],
-    });
+    throw new AppError(
+      "conflict:price_jump",
+      `That is ${pct} % ${way} the price in force then (${then.price.toFixed(2)} ${currency} from ${then.on}). Check it; record it anyway if it is right.`,
+      {
+        pricePerTroyOunce: [`${pct} % ${way} the price then`],
+      },
+    );
   }
   const id = uuidv7();
   const { confirmJump: _confirmed, ...values } = input;
-  tx.insert(t.referencePrices).values({ id, ...values, replaces, recordedBy: actor.id, seq: nextSeq(getDb().$client) }).run();
+  tx.insert(t.referencePrices)
+    .values({ id, ...values, replaces, recordedBy: actor.id, seq: nextSeq(getDb().$client) })
+    .run();
   return id;
 }
 

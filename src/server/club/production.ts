@@ -11,10 +11,10 @@ import { totalsBy } from "./totals";
  */
 export function productionByMonth(season: number): MonthlyProduction[] {
   return seasonMonths(season, clubSettings().timeZone).flatMap(({ month, start, end }) =>
-    totalsBy<{ k0: string | null; k1: string | null }>(sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}`, [
-      sql`f.claim_id`,
-      sql`c.name`,
-    ])
+    totalsBy<{ k0: string | null; k1: string | null }>(
+      sql`from finds f left join claims c on c.id = f.claim_id where f.deleted_at is null and f.found_at >= ${start} and f.found_at < ${end}`,
+      [sql`f.claim_id`, sql`c.name`],
+    )
       .map((r) => ({ month, claimId: r.k0, claimName: r.k1, ...r.totals }))
       .sort((a, b) => (a.claimName ?? "").localeCompare(b.claimName ?? "")),
   );

@@ -113,6 +113,12 @@ export function mailQueryIfAsked(findId: string, officerName: string | null, not
     return;
   }
   const club = clubSettings();
-  const message = queryMessage({ link, club: club.name, officer: officerName, note, find: `${KIND_LABELS[row.kind].toLowerCase()} found ${clubDay(row.foundAt, club.timeZone)}` });
+  const message = queryMessage({
+    link,
+    club: club.name,
+    officer: officerName,
+    note,
+    find: `${KIND_LABELS[row.kind].toLowerCase()} found ${clubDay(row.foundAt, club.timeZone)}`,
+  });
   sendMailLater({ to: row.email, ...message }, "query mail");
 }

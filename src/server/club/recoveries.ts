@@ -26,24 +26,47 @@ export function recordRecovery(actor: Actor, input: RecoveryInput) {
   const db = getDb();
   return db.transaction((tx) => {
     const finds = tx
-      .select({ id: t.finds.id, claimId: t.finds.claimId, kind: t.finds.kind, weight: t.finds.weightGrams, fine: t.finds.latestFineGrams, basis: t.finds.fineBasis })
+      .select({
+        id: t.finds.id,
+        claimId: t.finds.claimId,
+        kind: t.finds.kind,
+        weight: t.finds.weightGrams,
+        fine: t.finds.latestFineGrams,
+        basis: t.finds.fineBasis,
+      })
       .from(t.finds)
       .where(and(inArray(t.finds.id, input.findIds), isNull(t.finds.deletedAt)))
       .all();
     const missing = input.findIds.filter((id) => !finds.some((f) => f.id === id));
-    if (missing.length) throw new AppError("bad_request:recovery", `${missing.length} of the chosen finds are not on the server (or were deleted).`, { findIds: ["unknown finds"] });
+    if (missing.length)
+      throw new AppError("bad_request:recovery", `${missing.length} of the chosen finds are not on the server (or were deleted).`, {
+        findIds: ["unknown finds"],
+      });
     if (input.claimId && finds.some((f) => f.claimId !== input.claimId)) {
       throw new AppError("bad_request:recovery", "Every find in it must be on the chosen claim.", { findIds: ["finds from another claim"] });
     }
     const already = tx.select({ id: t.recoveryFinds.findId }).from(t.recoveryFinds).where(inArray(t.recoveryFinds.findId, input.findIds)).all();
-    if (already.length) throw new AppError("conflict:recovery", `${already.length} of the chosen finds are already in a melt or assay.`, { findIds: ["already recovered"] });
+    if (already.length)
+      throw new AppError("conflict:recovery", `${already.length} of the chosen finds are already in a melt or assay.`, { findIds: ["already recovered"] });
 
     const estimated = finds.reduce((n, f) => n + (f.fine ?? 0), 0);
     const gross = finds.reduce((n, f) => n + (f.weight ?? 0), 0);
     const placer = finds.filter((f) => f.kind !== "specimen").reduce((n, f) => n + (f.weight ?? 0), 0);
     const id = uuidv7();
     tx.insert(t.recoveries)
-      .values({ id, kind: input.kind, claimId: input.claimId, recordedOn: input.recordedOn, fineGrams: input.fineGrams, fineness: input.fineness, estimatedGrams: estimated, grossGrams: gross, placerGrams: placer, note: input.note, recordedBy: actor.id })
+      .values({
+        id,
+        kind: input.kind,
+        claimId: input.claimId,
+        recordedOn: input.recordedOn,
+        fineGrams: input.fineGrams,
+        fineness: input.fineness,
+        estimatedGrams: estimated,
+        grossGrams: gross,
+        placerGrams: placer,
+        note: input.note,
+        recordedBy: actor.id,
+      })
       .run();
     for (const f of finds) {
       const share = estimated > 0 ? (f.fine ?? 0) / estimated : gross > 0 ? (f.weight ?? 0) / gross : 1 / finds.length;

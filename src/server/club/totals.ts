@@ -29,13 +29,27 @@ export function toTotals(row: TotalsRow): Totals {
     const n = row[`basis_${b}`];
     if (n) byBasis[b] = n;
   }
-  return { finds: row.finds, weightGrams: row.weightGrams, fineGrams: row.fineGrams, fineLow: row.fineLow, fineHigh: row.fineHigh, figured: row.figured, mismatched: row.mismatched, byBasis };
+  return {
+    finds: row.finds,
+    weightGrams: row.weightGrams,
+    fineGrams: row.fineGrams,
+    fineLow: row.fineLow,
+    fineHigh: row.fineHigh,
+    figured: row.figured,
+    mismatched: row.mismatched,
+    byBasis,
+  };
 }
 
 /** Totals grouped by the given key expressions, with the key values as `k0`, `k1`… */
 export function totalsBy<K extends Record<string, unknown>>(from: SQL, keys: SQL[]): (K & { totals: Totals })[] {
   const select = keys.length ? sql.join([...keys.map((k, i) => sql`${k} as ${sql.raw(`k${i}`)}`), TOTAL_COLUMNS], sql`, `) : TOTAL_COLUMNS;
-  const group = keys.length ? sql` group by ${sql.join(keys.map((_, i) => sql.raw(`k${i}`)), sql`, `)}` : sql``;
+  const group = keys.length
+    ? sql` group by ${sql.join(
+        keys.map((_, i) => sql.raw(`k${i}`)),
+        sql`, `,
+      )}`
+    : sql``;
   return getDb()
     .all<TotalsRow & Record<string, unknown>>(sql`select ${select} ${from}${group}`)
     .map((r) => {

@@ -9,7 +9,9 @@ import { inBoundary } from "../../lib/geo";
  * Runs over one claim's finds when its boundary changes, or over all of them.
  */
 export function refreshOutsideClaim(sqlite: Database.Database, claimId?: string): number {
-  const claims = (claimId ? sqlite.prepare("select id, boundary from claims where id = ?").all(claimId) : sqlite.prepare("select id, boundary from claims").all()) as { id: string; boundary: string | null }[];
+  const claims = (
+    claimId ? sqlite.prepare("select id, boundary from claims where id = ?").all(claimId) : sqlite.prepare("select id, boundary from claims").all()
+  ) as { id: string; boundary: string | null }[];
   const finds = sqlite.prepare("select id, lat, lon from finds where claim_id = ? and lat is not null and lon is not null");
   const mark = sqlite.prepare("update finds set outside_claim = ? where id = ? and outside_claim <> ?");
   let changed = 0;

@@ -13,7 +13,11 @@ export async function listCaughtMail(limit = 50): Promise<CaughtMail[]> {
   const dir = caughtMailDir();
   if (!dir) return [];
   const names = await fs.readdir(dir).catch(() => [] as string[]);
-  const files = names.filter((n) => n.endsWith(".json")).sort().reverse().slice(0, limit);
+  const files = names
+    .filter((n) => n.endsWith(".json"))
+    .sort()
+    .reverse()
+    .slice(0, limit);
   const out: CaughtMail[] = [];
   for (const name of files) {
     out.push(JSON.parse(await fs.readFile(path.join(dir, name), "utf8")) as CaughtMail);

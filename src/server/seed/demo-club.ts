@@ -17,7 +17,13 @@ const METRES_PER_DEG_LAT = 111_320;
 /** A rectangle turned about its centre, as a closed GeoJSON ring (longitude, latitude). */
 export function claimPolygon(c: { lat: number; lon: number; halfW: number; halfH: number; turn: number }): t.GeoJsonPolygon {
   const mPerDegLon = METRES_PER_DEG_LAT * Math.cos((c.lat * Math.PI) / 180);
-  const corners = [[-1, -1], [1, -1], [1, 1], [-1, 1], [-1, -1]].map(([sx, sy]) => {
+  const corners = [
+    [-1, -1],
+    [1, -1],
+    [1, 1],
+    [-1, 1],
+    [-1, -1],
+  ].map(([sx, sy]) => {
     const x = sx * c.halfW;
     const y = sy * c.halfH;
     const xr = x * Math.cos(c.turn) - y * Math.sin(c.turn);
@@ -44,7 +50,7 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
   const now = opts.now ?? Date.now();
   const seasonStart = now - 200 * DAY;
   const idAt = (ms: number) => uuidv7({ msecs: Math.floor(ms), random: Uint8Array.from({ length: 16 }, () => Math.floor(rand() * 256)) });
-  const pick = <T,>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
+  const pick = <T>(list: readonly T[]) => list[Math.floor(rand() * list.length)];
   let finds = 0;
   let weighIns = 0;
   let nuggets = 0;
@@ -56,16 +62,31 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
       return { id, role: p.role, email: p.email };
     });
     const officers = memberIds.filter((m) => m.role === "officer");
-    tx.insert(t.clubSettings).values({ id: 1, name: DEMO_CLUB, currency: "USD", timeZone: "UTC" }).onConflictDoUpdate({ target: t.clubSettings.id, set: { name: DEMO_CLUB } }).run();
+    tx.insert(t.clubSettings)
+      .values({ id: 1, name: DEMO_CLUB, currency: "USD", timeZone: "UTC" })
+      .onConflictDoUpdate({ target: t.clubSettings.id, set: { name: DEMO_CLUB } })
+      .run();
 
     const claimRows = DEMO_CLAIMS.map((c) => {
       const id = idAt(seasonStart - 20 * DAY);
       // Each claim's gold profile, as if learned from the club's earlier melts (invented).
       const [low, high] = c.kind === "lode" ? [760, 880] : [840, 940];
-      tx.insert(t.claims).values({
-        id, name: c.name, kind: c.kind, agencyRef: c.agencyRef, rules: c.rules, boundary: claimPolygon(c), active: true, seq: nextSeq(db.$client),
-        fineness: (low + high) / 2, finenessLow: low, finenessHigh: high, finenessSource: "Demo club: two invented melts of the 2025 season",
-      }).run();
+      tx.insert(t.claims)
+        .values({
+          id,
+          name: c.name,
+          kind: c.kind,
+          agencyRef: c.agencyRef,
+          rules: c.rules,
+          boundary: claimPolygon(c),
+          active: true,
+          seq: nextSeq(db.$client),
+          fineness: (low + high) / 2,
+          finenessLow: low,
+          finenessHigh: high,
+          finenessSource: "Demo club: two invented melts of the 2025 season",
+        })
+        .run();
       return { id, ...c };
     });
 
@@ -75,7 +96,16 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
       { daysAgo: 45, price: 2512 },
     ].forEach((p) => {
       const on = new Date(now - p.daysAgo * DAY).toISOString().slice(0, 10);
-      tx.insert(t.referencePrices).values({ id: idAt(now - p.daysAgo * DAY), effectiveOn: on, pricePerTroyOunce: p.price, currency: "USD", recordedBy: officers[0].id, seq: nextSeq(db.$client) }).run();
+      tx.insert(t.referencePrices)
+        .values({
+          id: idAt(now - p.daysAgo * DAY),
+          effectiveOn: on,
+          pricePerTroyOunce: p.price,
+          currency: "USD",
+          recordedBy: officers[0].id,
+          seq: nextSeq(db.$client),
+        })
+        .run();
     });
 
     for (const member of memberIds) {
@@ -86,16 +116,31 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
         const hours = round2(3 + rand() * 6);
         const method = claim.kind === "lode" ? "detecting" : pick(["detecting", "panning", "sluicing", "drywashing"] as const);
         const outingId = idAt(start);
-        tx.insert(t.outings).values({
-          id: outingId, memberId: member.id, claimId: claim.id, startedAt: start, endedAt: start + hours * 3_600_000, hours, method,
-          companions: rand() < 0.4 ? "went with a club partner" : "", conditions: pick(["clear, hot", "overcast, breezy", "clear, cool morning", "thunderheads to the west by noon"]),
-          notes: "", seq: nextSeq(db.$client),
-        }).run();
+        tx.insert(t.outings)
+          .values({
+            id: outingId,
+            memberId: member.id,
+            claimId: claim.id,
+            startedAt: start,
+            endedAt: start + hours * 3_600_000,
+            hours,
+            method,
+            companions: rand() < 0.4 ? "went with a club partner" : "",
+            conditions: pick(["clear, hot", "overcast, breezy", "clear, cool morning", "thunderheads to the west by noon"]),
+            notes: "",
+            seq: nextSeq(db.$client),
+          })
+          .run();
         const findCount = Math.floor(rand() * 4);
         for (let f = 0; f < findCount; f++) {
           // Whole milliseconds, as a device records them (the find form keeps them when saved).
           const foundAt = Math.round(start + rand() * hours * 3_600_000);
-          const kind = claim.kind === "lode" ? "specimen" : method === "detecting" ? pick(["nugget", "nugget", "specimen"] as const) : pick(["flakes", "fines", "nugget"] as const);
+          const kind =
+            claim.kind === "lode"
+              ? "specimen"
+              : method === "detecting"
+                ? pick(["nugget", "nugget", "specimen"] as const)
+                : pick(["flakes", "fines", "nugget"] as const);
           const mPerDegLon = METRES_PER_DEG_LAT * Math.cos((claim.lat * Math.PI) / 180);
           const dx = (rand() - 0.5) * claim.halfW;
           const dy = (rand() - 0.5) * claim.halfH;
@@ -103,32 +148,59 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
           const weight = kind === "specimen" ? round2(20 + rand() * 180) : kind === "nugget" ? round2(0.3 + rand() * rand() * 12) : round2(0.05 + rand() * 1.5);
           // Now and then a member knows a nugget's purity (a buyer's acid test); no extra draw.
           const purity = kind === "nugget" && ++nuggets % 5 === 0 ? 868 : null;
-          tx.insert(t.finds).values({
-            id: findId, memberId: member.id, outingId, claimId: claim.id, kind, weightGrams: weight, purity, method,
-            depthCm: method === "detecting" ? Math.round(5 + rand() * 35) : null, notes: "",
-            lat: round6(claim.lat + (dx * Math.sin(claim.turn) + dy * Math.cos(claim.turn)) / METRES_PER_DEG_LAT),
-            lon: round6(claim.lon + (dx * Math.cos(claim.turn) - dy * Math.sin(claim.turn)) / mPerDegLon),
-            accuracyM: round2(3 + rand() * 12), foundAt, seq: nextSeq(db.$client),
-          }).run();
+          tx.insert(t.finds)
+            .values({
+              id: findId,
+              memberId: member.id,
+              outingId,
+              claimId: claim.id,
+              kind,
+              weightGrams: weight,
+              purity,
+              method,
+              depthCm: method === "detecting" ? Math.round(5 + rand() * 35) : null,
+              notes: "",
+              lat: round6(claim.lat + (dx * Math.sin(claim.turn) + dy * Math.cos(claim.turn)) / METRES_PER_DEG_LAT),
+              lon: round6(claim.lon + (dx * Math.cos(claim.turn) - dy * Math.sin(claim.turn)) / mPerDegLon),
+              accuracyM: round2(3 + rand() * 12),
+              foundAt,
+              seq: nextSeq(db.$client),
+            })
+            .run();
           finds++;
           if (kind === "specimen") {
             const input = specimenReadings(weight, rand);
             const estimate = estimateSpecimen(input);
-            tx.insert(t.weighIns).values({
-              id: idAt(foundAt + DAY / 3), memberId: member.id, findId, input, deviceEstimate: estimate, serverEstimate: estimate,
-              engineVersion: estimate.engineVersion, fineGoldGrams: estimate.fineGoldGrams, goldAlloyGrams: estimate.goldAlloyGrams,
-              airGrams: input.airGrams.reduce((a, b) => a + b, 0) / input.airGrams.length,
-              weighedAt: foundAt + DAY / 3, seq: nextSeq(db.$client),
-            }).run();
+            tx.insert(t.weighIns)
+              .values({
+                id: idAt(foundAt + DAY / 3),
+                memberId: member.id,
+                findId,
+                input,
+                deviceEstimate: estimate,
+                serverEstimate: estimate,
+                engineVersion: estimate.engineVersion,
+                fineGoldGrams: estimate.fineGoldGrams,
+                goldAlloyGrams: estimate.goldAlloyGrams,
+                airGrams: input.airGrams.reduce((a, b) => a + b, 0) / input.airGrams.length,
+                weighedAt: foundAt + DAY / 3,
+                seq: nextSeq(db.$client),
+              })
+              .run();
             weighIns++;
             if (rand() < 0.35) {
               const action = rand() < 0.7 ? "verify" : "query";
               const reviewId = idAt(foundAt + 2 * DAY);
-              tx.insert(t.reviews).values({
-                id: reviewId, findId, officerId: pick(officers).id, action,
-                note: action === "query" ? "Readings look close together: please weigh again with the line tared under water." : "",
-                seq: nextSeq(db.$client),
-              }).run();
+              tx.insert(t.reviews)
+                .values({
+                  id: reviewId,
+                  findId,
+                  officerId: pick(officers).id,
+                  action,
+                  note: action === "query" ? "Readings look close together: please weigh again with the line tared under water." : "",
+                  seq: nextSeq(db.$client),
+                })
+                .run();
             }
           }
         }
@@ -147,13 +219,33 @@ export function seedDemoClub(db: Db, opts: { passwordHashes: { officer: string; 
  */
 function demoThread(tx: Pick<Db, "insert">, sqlite: Db["$client"], memberId: string, officerId: string) {
   const find = sqlite
-    .prepare("select id, found_at foundAt from finds where member_id = ? and not exists (select 1 from reviews r where r.find_id = finds.id) order by found_at desc limit 1")
+    .prepare(
+      "select id, found_at foundAt from finds where member_id = ? and not exists (select 1 from reviews r where r.find_id = finds.id) order by found_at desc limit 1",
+    )
     .get(memberId) as { id: string; foundAt: number } | undefined;
   if (!find) return;
   const fixedId = (ms: number, fill: number) => uuidv7({ msecs: Math.floor(ms), random: new Uint8Array(16).fill(fill) });
   const reviewId = fixedId(find.foundAt + DAY, 5);
-  tx.insert(t.reviews).values({ id: reviewId, findId: find.id, officerId, action: "query", note: "The weight looks high for this find: was it weighed dry, with no sand left on it?", seq: nextSeq(sqlite) }).run();
-  tx.insert(t.answers).values({ id: fixedId(find.foundAt + 2 * DAY, 7), memberId, findId: find.id, reviewId, note: "Dried and brushed it, then weighed it again at camp: the same weight, so it stands.", seq: nextSeq(sqlite) }).run();
+  tx.insert(t.reviews)
+    .values({
+      id: reviewId,
+      findId: find.id,
+      officerId,
+      action: "query",
+      note: "The weight looks high for this find: was it weighed dry, with no sand left on it?",
+      seq: nextSeq(sqlite),
+    })
+    .run();
+  tx.insert(t.answers)
+    .values({
+      id: fixedId(find.foundAt + 2 * DAY, 7),
+      memberId,
+      findId: find.id,
+      reviewId,
+      note: "Dried and brushed it, then weighed it again at camp: the same weight, so it stands.",
+      seq: nextSeq(sqlite),
+    })
+    .run();
 }
 
 /**

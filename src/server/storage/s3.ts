@@ -22,7 +22,9 @@ export class S3Storage implements PhotoStorage {
   }
 
   async put(key: string, bytes: Buffer, contentType: string): Promise<void> {
-    await this.client.send(new PutObjectCommand({ Bucket: this.s.bucket, Key: this.key(key), Body: bytes, ContentType: contentType, ContentLength: bytes.length }));
+    await this.client.send(
+      new PutObjectCommand({ Bucket: this.s.bucket, Key: this.key(key), Body: bytes, ContentType: contentType, ContentLength: bytes.length }),
+    );
   }
 
   async get(key: string): Promise<Buffer | null> {

@@ -20,13 +20,35 @@ import { judgeChecks, namedCheckVerdict, serverDensity } from "./scale-checks";
  * the finds and outings this push has written and not deleted (the member's own, alive), so a
  * weigh-in or photo sent with its find needs no lookup of it.
  */
-export type PushTx = { db: Sqlite; seq: () => number; written: Map<string, "find" | "outing">; resendFindsOf: Set<string>; claims: Map<string | null, ClaimFacts> };
+export type PushTx = {
+  db: Sqlite;
+  seq: () => number;
+  written: Map<string, "find" | "outing">;
+  resendFindsOf: Set<string>;
+  claims: Map<string | null, ClaimFacts>;
+};
 type Owned = { id: string; memberId: string; deletedAt: number | null };
 type Entity = RecordEntity;
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks | typeof t.answers;
 
-const ENTITY: Record<Entity, Table> = { outing: t.outings, find: t.finds, photo: t.photos, weighIn: t.weighIns, scale: t.scales, barrenRock: t.barrenRocks, answer: t.answers };
-const TABLE_NAME: Record<Entity, string> = { outing: "outings", find: "finds", photo: "photos", weighIn: "weigh_ins", scale: "scales", barrenRock: "barren_rocks", answer: "answers" };
+const ENTITY: Record<Entity, Table> = {
+  outing: t.outings,
+  find: t.finds,
+  photo: t.photos,
+  weighIn: t.weighIns,
+  scale: t.scales,
+  barrenRock: t.barrenRocks,
+  answer: t.answers,
+};
+const TABLE_NAME: Record<Entity, string> = {
+  outing: "outings",
+  find: "finds",
+  photo: "photos",
+  weighIn: "weigh_ins",
+  scale: "scales",
+  barrenRock: "barren_rocks",
+  answer: "answers",
+};
 
 /**
  * Loads a member record for a write. Another member's record is refused (and logged);
@@ -66,7 +88,8 @@ function requireOwnedParent(tx: PushTx, parent: "find" | "outing", id: string, a
 
 function requireClaim(tx: PushTx, claimId: string | null) {
   if (claimId === null) return;
-  if (!statement(tx.db, "select 1 from claims where id = ?").get(claimId)) throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
+  if (!statement(tx.db, "select 1 from claims where id = ?").get(claimId))
+    throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
 }
 
 /**
@@ -194,13 +217,35 @@ const MUTATORS: Mutators = {
     const airGrams = w.input.airGrams.reduce((a, b) => a + b, 0) / w.input.airGrams.length;
     const scaleCheckPassed = namedCheckVerdict(tx.db, actor.id, w.scaleId, w.scaleCheck);
     return () => {
-      const fields = { deviceEstimate, serverEstimate: server, engineVersion: server.engineVersion, fineGoldGrams: server.fineGoldGrams, goldAlloyGrams: server.goldAlloyGrams, airGrams, mismatch, scaleCheckPassed, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() };
+      const fields = {
+        deviceEstimate,
+        serverEstimate: server,
+        engineVersion: server.engineVersion,
+        fineGoldGrams: server.fineGoldGrams,
+        goldAlloyGrams: server.goldAlloyGrams,
+        airGrams,
+        mismatch,
+        scaleCheckPassed,
+        memberId: actor.id,
+        seq: tx.seq(),
+        updatedAt: Date.now(),
+      };
       upsert(tx, "weighIn", existing, w, actor, fields);
       // A weigh-in moved to another find leaves its first find's figures to be worked out again.
       const movedFrom = (existing as (Owned & { findId?: string }) | undefined)?.findId;
       if (movedFrom && movedFrom !== w.findId) refreshWeighInFigures(tx.db, movedFrom);
       if (existing) refreshWeighInFigures(tx.db, w.findId);
-      else weighInAdded(tx.db, { id: w.id, findId: w.findId, weighedAt: w.weighedAt, alloyGrams: server.goldAlloyGrams, fineGrams: server.fineGoldGrams, fineRange: server.range.fineGoldGrams, airGrams, scaleChecked: scaleCheckPassed === true });
+      else
+        weighInAdded(tx.db, {
+          id: w.id,
+          findId: w.findId,
+          weighedAt: w.weighedAt,
+          alloyGrams: server.goldAlloyGrams,
+          fineGrams: server.fineGoldGrams,
+          fineRange: server.range.fineGoldGrams,
+          airGrams,
+          scaleChecked: scaleCheckPassed === true,
+        });
     };
   },
   "weighIn.delete": (tx, actor, { id }) =>
@@ -216,7 +261,8 @@ const MUTATORS: Mutators = {
   "scale.delete": (tx, actor, { id }) => tombstone(tx, "scale", id, actor),
   "barrenRock.put": (tx, actor, b) => {
     const existing = loadForWrite(tx, "barrenRock", b.id, actor, b);
-    if (!statement(tx.db, "select 1 from claims where id = ?").get(b.claimId)) throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
+    if (!statement(tx.db, "select 1 from claims where id = ?").get(b.claimId))
+      throw new RejectError("unknown_claim", "That claim is not one of the club's.", "claimId");
     const scaleCheckPassed = namedCheckVerdict(tx.db, actor.id, b.scaleId, b.scaleCheck);
     const density = serverDensity(b.input, b.deviceDensity, b.id);
     return () => upsert(tx, "barrenRock", existing, b, actor, { density, scaleCheckPassed, memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
@@ -239,13 +285,16 @@ const MUTATORS: Mutators = {
   "settings.put": (tx, actor, s) => () => {
     if (s.mailOnQuery !== undefined) statement(tx.db, "update members set mail_on_query = ? where id = ?").run(s.mailOnQuery ? 1 : 0, actor.id);
     if (s.locationSharing === undefined) return;
-    const changed = statement(tx.db, "update members set location_sharing = ? where id = ? and location_sharing <> ?").run(s.locationSharing, actor.id, s.locationSharing).changes;
+    const changed = statement(tx.db, "update members set location_sharing = ? where id = ? and location_sharing <> ?").run(
+      s.locationSharing,
+      actor.id,
+      s.locationSharing,
+    ).changes;
     // Officers' copies of this member's finds change with the setting: they are re-sent once
     // at the end of the push (resendFinds), however many settings changes it holds.
     if (changed > 0) tx.resendFindsOf.add(actor.id);
   },
 };
-
 
 /** Deep equality of JSON values, to the last bit of every number (the device's figures against the server's). */
 function sameValue(a: unknown, b: unknown): boolean {

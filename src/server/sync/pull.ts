@@ -31,26 +31,57 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
   const db = getDb();
   return db.transaction((tx) => {
     const head = tx.get<{ value: number | null }>(sql`select value from ${t.sequences} where name = 'change'`)?.value ?? 0;
-    const client = tx.select({ memberId: t.syncClients.memberId, last: t.syncClients.lastMutationId }).from(t.syncClients).where(eq(t.syncClients.id, opts.clientId)).get();
+    const client = tx
+      .select({ memberId: t.syncClients.memberId, last: t.syncClients.lastMutationId })
+      .from(t.syncClients)
+      .where(eq(t.syncClients.id, opts.clientId))
+      .get();
     const lastMutationId = client && client.memberId === actor.id ? client.last : 0;
     if (opts.cursor > head) return { changes: [], cursor: 0, more: true, lastMutationId, reset: true, resync: false };
-    if (opts.cursor > 0 && opts.cursor < tombstoneHorizon(db.$client)) return { changes: [], cursor: 0, more: true, lastMutationId, reset: false, resync: true };
+    if (opts.cursor > 0 && opts.cursor < tombstoneHorizon(db.$client))
+      return { changes: [], cursor: 0, more: true, lastMutationId, reset: false, resync: true };
 
     const take = opts.limit + 1;
     const after = (table: { seq: AnySQLiteColumn }) => gt(table.seq, opts.cursor);
     const mine = (table: { memberId: AnySQLiteColumn }): SQL | undefined => (opts.scope === "club" ? undefined : eq(table.memberId, actor.id));
-    const page = <T extends typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks | typeof t.answers>(table: T) =>
-      tx.select().from(table as typeof t.finds).where(and(after(table), mine(table))).orderBy(asc(table.seq)).limit(take).all() as unknown as Row[];
+    const page = <
+      T extends typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks | typeof t.answers,
+    >(
+      table: T,
+    ) =>
+      tx
+        .select()
+        .from(table as typeof t.finds)
+        .where(and(after(table), mine(table)))
+        .orderBy(asc(table.seq))
+        .limit(take)
+        .all() as unknown as Row[];
 
     const hidden = opts.scope === "club" ? positionsHiddenFor(tx, actor) : new Set<string>();
     const changes: PullChange[] = [
       ...changesOf("claim", tx.select().from(t.claims).where(after(t.claims)).orderBy(asc(t.claims.seq)).limit(take).all() as unknown as Row[]),
       // A withdrawn price leaves devices as a deletion; the history stays on the server.
-      ...changesOf("price", tx.select().from(t.referencePrices).where(after(t.referencePrices)).orderBy(asc(t.referencePrices.seq)).limit(take).all().map((p) => ({ ...p, deletedAt: p.withdrawnAt })) as unknown as Row[]),
+      ...changesOf(
+        "price",
+        tx
+          .select()
+          .from(t.referencePrices)
+          .where(after(t.referencePrices))
+          .orderBy(asc(t.referencePrices.seq))
+          .limit(take)
+          .all()
+          .map((p) => ({ ...p, deletedAt: p.withdrawnAt })) as unknown as Row[],
+      ),
       ...changesOf("outing", page(t.outings)),
-      ...changesOf("find", page(t.finds), (r) => (hidden.has(r.memberId as string) ? { ...publicRecord(r), lat: null, lon: null, accuracyM: null } : publicRecord(r))),
+      ...changesOf("find", page(t.finds), (r) =>
+        hidden.has(r.memberId as string) ? { ...publicRecord(r), lat: null, lon: null, accuracyM: null } : publicRecord(r),
+      ),
       // `stored`: whether the bytes are here, so a device re-sends them if not (a cut upload, a restored server).
-      ...changesOf("photo", page(t.photos), (r) => ({ ...publicRecord(r), stored: r.storageKey != null, ...(hidden.has(r.memberId as string) ? { lat: null, lon: null } : {}) })),
+      ...changesOf("photo", page(t.photos), (r) => ({
+        ...publicRecord(r),
+        stored: r.storageKey != null,
+        ...(hidden.has(r.memberId as string) ? { lat: null, lon: null } : {}),
+      })),
       ...changesOf("weighIn", page(t.weighIns)),
       ...changesOf("scale", page(t.scales)),
       ...changesOf("barrenRock", page(t.barrenRocks)),
@@ -67,7 +98,15 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
 
 function reviewsAfter(tx: Tx, actor: Actor, opts: { cursor: number; scope: "own" | "club" }, take: number): Row[] {
   return tx
-    .select({ id: t.reviews.id, seq: t.reviews.seq, findId: t.reviews.findId, action: t.reviews.action, note: t.reviews.note, createdAt: t.reviews.createdAt, officerName: t.members.name })
+    .select({
+      id: t.reviews.id,
+      seq: t.reviews.seq,
+      findId: t.reviews.findId,
+      action: t.reviews.action,
+      note: t.reviews.note,
+      createdAt: t.reviews.createdAt,
+      officerName: t.members.name,
+    })
     .from(t.reviews)
     .innerJoin(t.finds, eq(t.finds.id, t.reviews.findId))
     .leftJoin(t.members, eq(t.members.id, t.reviews.officerId))
@@ -79,6 +118,10 @@ function reviewsAfter(tx: Tx, actor: Actor, opts: { cursor: number; scope: "own"
 
 /** Members who share only the claim, not the exact spot, with officers. */
 function positionsHiddenFor(tx: Tx, actor: Actor): Set<string> {
-  const rows = tx.select({ id: t.members.id }).from(t.members).where(inArray(t.members.locationSharing, ["claim"])).all();
+  const rows = tx
+    .select({ id: t.members.id })
+    .from(t.members)
+    .where(inArray(t.members.locationSharing, ["claim"]))
+    .all();
   return new Set(rows.map((r) => r.id).filter((id) => id !== actor.id));
 }

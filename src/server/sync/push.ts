@@ -24,7 +24,12 @@ export const DIGEST_WINDOW = 2 * 1000;
 
 /** A change's fingerprint: its name and its arguments as sent (a resend sends the same JSON). */
 export function mutationDigest(name: string, args: unknown): string {
-  return createHash("sha256").update(name).update("\0").update(JSON.stringify(args) ?? "").digest("base64url").slice(0, 22);
+  return createHash("sha256")
+    .update(name)
+    .update("\0")
+    .update(JSON.stringify(args) ?? "")
+    .digest("base64url")
+    .slice(0, 22);
 }
 
 /**
@@ -44,10 +49,14 @@ function checkReplays(sqlite: Sqlite, clientId: string, seen: PushRequest["mutat
   }
   if (reused.length > 0) {
     logger.warn({ code: "conflict:client_reused", clientId, reused: reused.length }, "two devices share one client id");
-    throw new AppError("conflict:client_reused", "Another device is using this device's sync id (a copied browser profile?). This device takes a new one and sends its changes again.", {
-      reused,
-      replayed,
-    });
+    throw new AppError(
+      "conflict:client_reused",
+      "Another device is using this device's sync id (a copied browser profile?). This device takes a new one and sends its changes again.",
+      {
+        reused,
+        replayed,
+      },
+    );
   }
   return seen.map((m) => ({ id: m.id, status: "skipped" }));
 }
@@ -64,8 +73,7 @@ function applyPushIn(sqlite: Sqlite, actor: Actor, push: PushRequest): PushRespo
     throw new AppError("conflict:member", "These changes belong to another member. Sign in as that member to send them.");
   }
   const client = statement(sqlite, "select member_id as memberId, last_mutation_id as lastMutationId from sync_clients where id = ?").get(push.clientId) as
-    | { memberId: string; lastMutationId: number }
-    | undefined;
+    { memberId: string; lastMutationId: number } | undefined;
   if (client && client.memberId !== actor.id) {
     logger.warn({ code: "forbidden:client", actor: actor.id }, "push named another member's client");
     throw new AppError("forbidden:client", "This device id belongs to another member.");

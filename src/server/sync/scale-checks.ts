@@ -43,7 +43,9 @@ export function namedCheckVerdict(db: Sqlite, memberId: string, scaleId: string 
   const row = statement(db, "select member_id from scales where id = ?").raw().get(scaleId) as [string] | undefined;
   if (!row || row[0] !== memberId) throw new RejectError("unknown_parent", "The scale this was weighed on is not on the server.", "scaleId");
   if (check === null) return null;
-  const found = statement(db, "select c.value from scales s, json_each(s.checks) c where s.id = ? and json_extract(c.value, '$.id') = ?").raw().get(scaleId, check.id) as [string] | undefined;
+  const found = statement(db, "select c.value from scales s, json_each(s.checks) c where s.id = ? and json_extract(c.value, '$.id') = ?")
+    .raw()
+    .get(scaleId, check.id) as [string] | undefined;
   if (!found) throw new RejectError("unknown_parent", "That setup check is not in the scale's history on the server.", "scaleCheck");
   const stored = JSON.parse(found[0]) as SetupCheck;
   try {

@@ -55,7 +55,9 @@ export function purgeTombstones(now = Date.now(), days = tombstoneDays()): { pur
           if (storageKey) statement(sqlite, "insert or ignore into photo_bytes_to_delete (storage_key, since) values (?, ?)").run(storageKey, now);
         }
       }
-      statement(sqlite, "insert into sequences (name, value) values ('tombstone_horizon', ?) on conflict(name) do update set value = excluded.value").run(horizon);
+      statement(sqlite, "insert into sequences (name, value) values ('tombstone_horizon', ?) on conflict(name) do update set value = excluded.value").run(
+        horizon,
+      );
       return { purged, horizon };
     })
     .immediate();

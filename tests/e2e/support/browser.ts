@@ -23,7 +23,10 @@ export async function launchBrowser(): Promise<Browser> {
 }
 
 /** A persistent context (its own profile folder), for tests that restart the browser. */
-export async function launchPersistent(userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-profile-")), options: BrowserContextOptions = {}): Promise<{ context: BrowserContext; userDataDir: string }> {
+export async function launchPersistent(
+  userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), "lodebook-profile-")),
+  options: BrowserContextOptions = {},
+): Promise<{ context: BrowserContext; userDataDir: string }> {
   const context = await chromium.launchPersistentContext(userDataDir, { executablePath: CHROMIUM, args: ARGS, ...options });
   return { context, userDataDir };
 }

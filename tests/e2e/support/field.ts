@@ -8,10 +8,14 @@ export async function signInToField(page: Page, baseUrl: string, who = DEMO.memb
   await signIn.open();
   await signIn.signIn(who.email, who.password);
   await page.getByRole("heading", { name: `Good day, ${who.firstName}` }).waitFor();
-  await page.waitForFunction(async () => {
-    const reg = await navigator.serviceWorker.ready;
-    return reg.active?.state === "activated" && navigator.serviceWorker.controller !== null;
-  }, undefined, { timeout: 60_000 });
+  await page.waitForFunction(
+    async () => {
+      const reg = await navigator.serviceWorker.ready;
+      return reg.active?.state === "activated" && navigator.serviceWorker.controller !== null;
+    },
+    undefined,
+    { timeout: 60_000 },
+  );
 }
 
 export async function waitForSyncDone(page: Page) {
@@ -27,9 +31,15 @@ export async function tab(page: Page, name: "Today" | "Finds" | "Outings" | "Map
 export async function axeViolations(page: Page) {
   await page.addScriptTag({ content: fs.readFileSync("node_modules/axe-core/axe.min.js", "utf8") });
   return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
+    const axe = (
+      window as unknown as {
+        axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> };
+      }
+    ).axe;
     const result = await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] } });
-    return result.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+    return result.violations
+      .filter((v) => v.impact === "serious" || v.impact === "critical")
+      .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
   });
 }
 
@@ -40,7 +50,9 @@ export async function firstPage(context: BrowserContext) {
 export type DeviceFind = { id: string; notes: string; weightGrams: number | null; kind: string };
 
 /** What a device's own database holds (read straight from IndexedDB, not through the UI). */
-export async function deviceRecords(page: Page): Promise<{ memberId: string; finds: DeviceFind[]; photos: { id: string; sha256: string; uploaded: number }[]; outbox: number }> {
+export async function deviceRecords(
+  page: Page,
+): Promise<{ memberId: string; finds: DeviceFind[]; photos: { id: string; sha256: string; uploaded: number }[]; outbox: number }> {
   return page.evaluate(async () => {
     const member = JSON.parse(localStorage.getItem("lodebook-member") ?? "null") as { id: string };
     const db = await new Promise<IDBDatabase>((resolve, reject) => {
@@ -48,7 +60,7 @@ export async function deviceRecords(page: Page): Promise<{ memberId: string; fin
       r.onsuccess = () => resolve(r.result);
       r.onerror = () => reject(r.error);
     });
-    const all = <T,>(store: string) =>
+    const all = <T>(store: string) =>
       new Promise<T[]>((resolve) => {
         const q = db.transaction(store).objectStore(store).getAll();
         q.onsuccess = () => resolve(q.result as T[]);

@@ -32,7 +32,13 @@ export class SignInPage {
 export async function waitForMail(mailDir: string, to: string, timeoutMs = 15_000): Promise<{ subject: string; text: string }> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const files = fs.existsSync(mailDir) ? fs.readdirSync(mailDir).filter((f) => f.endsWith(".json")).sort().reverse() : [];
+    const files = fs.existsSync(mailDir)
+      ? fs
+          .readdirSync(mailDir)
+          .filter((f) => f.endsWith(".json"))
+          .sort()
+          .reverse()
+      : [];
     for (const f of files) {
       const m = JSON.parse(fs.readFileSync(path.join(mailDir, f), "utf8"));
       if (m.to.includes(to)) return m;

@@ -36,6 +36,9 @@ export class WeighPage {
     return this.page.getByTestId("estimate").getByTestId(testId).textContent();
   }
   warnings() {
-    return this.page.getByTestId("warnings").locator("li").evaluateAll((els) => els.map((e) => e.getAttribute("data-code")));
+    return this.page
+      .getByTestId("warnings")
+      .locator("li")
+      .evaluateAll((els) => els.map((e) => e.getAttribute("data-code")));
   }
 }

@@ -36,7 +36,15 @@ export function JoinForm() {
   const field = (name: keyof typeof values, label: string, type: string, autoComplete: string) => (
     <label className="flex flex-col">
       <span className="field-label">{label}</span>
-      <input name={name} type={type} autoComplete={autoComplete} className="field-input" value={values[name]} onChange={(e) => setValues({ ...values, [name]: e.target.value })} aria-invalid={!!state.fields?.[name]} />
+      <input
+        name={name}
+        type={type}
+        autoComplete={autoComplete}
+        className="field-input"
+        value={values[name]}
+        onChange={(e) => setValues({ ...values, [name]: e.target.value })}
+        aria-invalid={!!state.fields?.[name]}
+      />
       <FieldError messages={state.fields?.[name]} />
     </label>
   );

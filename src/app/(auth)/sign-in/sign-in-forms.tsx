@@ -49,7 +49,15 @@ export function SignInForms({ from }: { from: string }) {
         <label htmlFor="password" className="field-label">
           Password
         </label>
-        <input id="password" name="password" type="password" autoComplete="current-password" required className="field-input" aria-invalid={!!pwState.fields?.password} />
+        <input
+          id="password"
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          className="field-input"
+          aria-invalid={!!pwState.fields?.password}
+        />
         <FieldError messages={pwState.fields?.password} />
       </div>
       {pwState.message && !pwState.ok && (

@@ -100,7 +100,6 @@ export default async function ClubConsolePage() {
           <ClaimsMap claims={claims} labels={labels} />
         </section>
       </div>
-
     </div>
   );
 }

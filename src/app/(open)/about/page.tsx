@@ -8,8 +8,8 @@ export default function AboutPage() {
     <article className="sheet flex flex-col gap-3">
       <h1 className="text-2xl font-bold">About Lodebook</h1>
       <p>
-        Lodebook is the field logbook and production ledger of a small gold prospecting club: members log outings, finds and specimen
-        weigh-ins on the claim, with or without signal, and the club&apos;s officers review production by claim and season.
+        Lodebook is the field logbook and production ledger of a small gold prospecting club: members log outings, finds and specimen weigh-ins on the claim,
+        with or without signal, and the club&apos;s officers review production by claim and season.
       </p>
       <h2 className="heading-bar self-start text-lg">Cautions</h2>
       <ul className="list-disc pl-5">

@@ -89,7 +89,16 @@ export function BarrenRockScreen() {
             scales={scales ?? []}
             initial={{ resolution: settings.scaleResolution, tempUnit: settings.tempUnit, readingUnit: "g" }}
             onSave={async (piece) => {
-              await saveBarrenRock(db, { id: newId(), claimId: claim.id, input: piece.input, deviceDensity: piece.density, weighedAt: Date.now(), scaleId: piece.scaleId, scaleCheck: piece.scaleCheck, notes: "" });
+              await saveBarrenRock(db, {
+                id: newId(),
+                claimId: claim.id,
+                input: piece.input,
+                deviceDensity: piece.density,
+                weighedAt: Date.now(),
+                scaleId: piece.scaleId,
+                scaleCheck: piece.scaleCheck,
+                notes: "",
+              });
               requestSync();
             }}
           />

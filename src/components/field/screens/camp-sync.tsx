@@ -111,8 +111,9 @@ function StuckChanges({ entries, onRetry }: { entries: OutboxEntry[]; onRetry: (
         Stuck: the server fails on {entries.length === 1 ? "this change" : "these changes"}
       </h2>
       <p className="text-sm">
-        The club&apos;s server ran into a problem each time {entries.length === 1 ? "this change was" : "these changes were"} sent. Nothing is lost: {entries.length === 1 ? "it is" : "they are"} kept
-        on this device, and your other changes went on. Send the report to the club so an officer can look into it, then try again later.
+        The club&apos;s server ran into a problem each time {entries.length === 1 ? "this change was" : "these changes were"} sent. Nothing is lost:{" "}
+        {entries.length === 1 ? "it is" : "they are"} kept on this device, and your other changes went on. Send the report to the club so an officer can look
+        into it, then try again later.
       </p>
       <ul className="text-sm">
         {entries.map((e) => (

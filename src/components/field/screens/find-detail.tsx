@@ -72,7 +72,14 @@ export function FindDetailScreen() {
   const useHere = async () => {
     if (position.kind !== "found") return locate();
     const p = position.position;
-    await save({ ...stripLocal(find), lat: p.lat, lon: p.lon, accuracyM: p.accuracyM, locationSource: "device", claimId: claimAt(p.lat, p.lon, claims)?.id ?? find.claimId });
+    await save({
+      ...stripLocal(find),
+      lat: p.lat,
+      lon: p.lon,
+      accuracyM: p.accuracyM,
+      locationSource: "device",
+      claimId: claimAt(p.lat, p.lon, claims)?.id ?? find.claimId,
+    });
   };
 
   return (

@@ -23,9 +23,29 @@ function gridLines(bounds: LngLatBounds): FeatureCollection {
   const features: FeatureCollection["features"] = [];
   const [w, s, e, n] = [bounds.getWest(), bounds.getSouth(), bounds.getEast(), bounds.getNorth()];
   for (let lon = Math.floor(w / GRID_STEP) * GRID_STEP; lon <= e; lon += GRID_STEP)
-    features.push({ type: "Feature", properties: {}, geometry: { type: "LineString", coordinates: [[lon, s], [lon, n]] } });
+    features.push({
+      type: "Feature",
+      properties: {},
+      geometry: {
+        type: "LineString",
+        coordinates: [
+          [lon, s],
+          [lon, n],
+        ],
+      },
+    });
   for (let lat = Math.floor(s / GRID_STEP) * GRID_STEP; lat <= n; lat += GRID_STEP)
-    features.push({ type: "Feature", properties: {}, geometry: { type: "LineString", coordinates: [[w, lat], [e, lat]] } });
+    features.push({
+      type: "Feature",
+      properties: {},
+      geometry: {
+        type: "LineString",
+        coordinates: [
+          [w, lat],
+          [e, lat],
+        ],
+      },
+    });
   return { type: "FeatureCollection", features };
 }
 
@@ -51,7 +71,9 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
     if (!box.current) return;
     setWorkerUrl("/maplibre-gl-worker.mjs");
     const bounds = new LngLatBounds();
-    claims.forEach((c) => (c.boundary?.type === "Polygon" ? c.boundary.coordinates[0] : c.boundary?.coordinates.flat(1)[0] ?? []).forEach((p) => bounds.extend([p[0], p[1]])));
+    claims.forEach((c) =>
+      (c.boundary?.type === "Polygon" ? c.boundary.coordinates[0] : (c.boundary?.coordinates.flat(1)[0] ?? [])).forEach((p) => bounds.extend([p[0], p[1]])),
+    );
     finds.forEach((f) => f.lat !== null && f.lon !== null && bounds.extend([f.lon, f.lat]));
     if (me) bounds.extend([me.lon, me.lat]);
     if (bounds.isEmpty()) bounds.extend([0, 0]);
@@ -64,7 +86,10 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
         grid: { type: "geojson", data: gridLines(padded) },
         claims: {
           type: "geojson",
-          data: { type: "FeatureCollection", features: claims.filter((c) => c.boundary).map((c) => ({ type: "Feature", properties: { id: c.id, name: c.name }, geometry: c.boundary! })) },
+          data: {
+            type: "FeatureCollection",
+            features: claims.filter((c) => c.boundary).map((c) => ({ type: "Feature", properties: { id: c.id, name: c.name }, geometry: c.boundary! })),
+          },
         },
         finds: {
           type: "geojson",
@@ -72,10 +97,18 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
           clusterRadius: 40,
           data: {
             type: "FeatureCollection",
-            features: finds.filter((f) => f.lat !== null && f.lon !== null).map((f) => ({ type: "Feature", properties: { id: f.id, kind: f.kind }, geometry: { type: "Point", coordinates: [f.lon!, f.lat!] } })),
+            features: finds
+              .filter((f) => f.lat !== null && f.lon !== null)
+              .map((f) => ({ type: "Feature", properties: { id: f.id, kind: f.kind }, geometry: { type: "Point", coordinates: [f.lon!, f.lat!] } })),
           },
         },
-        me: { type: "geojson", data: { type: "FeatureCollection", features: me ? [{ type: "Feature", properties: {}, geometry: { type: "Point", coordinates: [me.lon, me.lat] } }] : [] } },
+        me: {
+          type: "geojson",
+          data: {
+            type: "FeatureCollection",
+            features: me ? [{ type: "Feature", properties: {}, geometry: { type: "Point", coordinates: [me.lon, me.lat] } }] : [],
+          },
+        },
       },
       layers: [
         { id: "paper", type: "background", paint: { "background-color": css("--paper") } },
@@ -83,9 +116,26 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
         { id: "grid", type: "line", source: "grid", paint: { "line-color": css("--rule"), "line-width": 1 } },
         { id: "claims-fill", type: "fill", source: "claims", paint: { "fill-color": css("--ochre"), "fill-opacity": 0.15 } },
         { id: "claims-line", type: "line", source: "claims", paint: { "line-color": css("--ochre"), "line-width": 3 } },
-        { id: "clusters", type: "circle", source: "finds", filter: ["has", "point_count"], paint: { "circle-color": css("--ink"), "circle-opacity": 0.75, "circle-radius": ["step", ["get", "point_count"], 12, 10, 16, 50, 22] } },
-        { id: "finds", type: "circle", source: "finds", filter: ["!", ["has", "point_count"]], paint: { "circle-color": "#e0aa22", "circle-radius": 7, "circle-stroke-color": css("--ink"), "circle-stroke-width": 2 } },
-        { id: "me", type: "circle", source: "me", paint: { "circle-color": "#2f6fd6", "circle-radius": 8, "circle-stroke-color": "#fff", "circle-stroke-width": 3 } },
+        {
+          id: "clusters",
+          type: "circle",
+          source: "finds",
+          filter: ["has", "point_count"],
+          paint: { "circle-color": css("--ink"), "circle-opacity": 0.75, "circle-radius": ["step", ["get", "point_count"], 12, 10, 16, 50, 22] },
+        },
+        {
+          id: "finds",
+          type: "circle",
+          source: "finds",
+          filter: ["!", ["has", "point_count"]],
+          paint: { "circle-color": "#e0aa22", "circle-radius": 7, "circle-stroke-color": css("--ink"), "circle-stroke-width": 2 },
+        },
+        {
+          id: "me",
+          type: "circle",
+          source: "me",
+          paint: { "circle-color": "#2f6fd6", "circle-radius": 8, "circle-stroke-color": "#fff", "circle-stroke-width": 3 },
+        },
       ],
     };
 
@@ -114,5 +164,13 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
     };
   }, [claims, finds, me, tileUrl, labels]);
 
-  return <div ref={box} className="h-[65dvh] w-full overflow-hidden rounded-md border-2 border-rule" data-testid="map" role="application" aria-label="Map of the club's claims and your finds" />;
+  return (
+    <div
+      ref={box}
+      className="h-[65dvh] w-full overflow-hidden rounded-md border-2 border-rule"
+      data-testid="map"
+      role="application"
+      aria-label="Map of the club's claims and your finds"
+    />
+  );
 }

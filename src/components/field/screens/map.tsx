@@ -66,7 +66,14 @@ export function MapScreen() {
           You: {formatDecimal(me.lat, me.lon)} · {toDms(me.lat, "lat")} {toDms(me.lon, "lon")} (± {Math.round(me.accuracyM)} m)
         </p>
       )}
-      <MapView claims={claims} finds={finds} me={me} tileUrl={settings.tileUrl} onPick={pickFor ? pick : undefined} onOpenFind={pickFor ? undefined : (id) => router.push(`/finds/view#id=${id}`)} />
+      <MapView
+        claims={claims}
+        finds={finds}
+        me={me}
+        tileUrl={settings.tileUrl}
+        onPick={pickFor ? pick : undefined}
+        onOpenFind={pickFor ? undefined : (id) => router.push(`/finds/view#id=${id}`)}
+      />
       <section className="sheet" aria-labelledby="legend-title" data-testid="map-legend">
         <h2 id="legend-title" className="heading-bar mb-2 text-lg">
           Your finds by claim

@@ -95,7 +95,15 @@ export function QuickFindScreen() {
         <label htmlFor="weight" className="field-label">
           Weight ({unit}) — optional
         </label>
-        <input id="weight" inputMode="decimal" autoComplete="off" className="field-input figure text-xl" value={weight} onChange={(e) => setWeight(e.target.value)} aria-invalid={!!errors.weightGrams} />
+        <input
+          id="weight"
+          inputMode="decimal"
+          autoComplete="off"
+          className="field-input figure text-xl"
+          value={weight}
+          onChange={(e) => setWeight(e.target.value)}
+          aria-invalid={!!errors.weightGrams}
+        />
         <FieldError messages={errors.weightGrams} />
       </div>
 

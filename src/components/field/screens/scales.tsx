@@ -34,9 +34,9 @@ function ScaleCard({ scale }: { scale: LocalScale }) {
           <ul className="text-sm" data-testid="check-history">
             {history.map((c) => (
               <li key={c.id} className="border-b border-rule py-1" data-passed={c.result.passed}>
-                {formatWhen(c.checkedAt)} · {c.reference.label} · <strong className={c.result.passed ? "text-moss" : "text-rust"}>{c.result.passed ? "passed" : "failed"}</strong>
-                {" "}
-                · <span className="figure">{c.result.measuredDensity.toFixed(3)}</span> for <span className="figure">{c.reference.density} g/cm³</span>{" "}
+                {formatWhen(c.checkedAt)} · {c.reference.label} ·{" "}
+                <strong className={c.result.passed ? "text-moss" : "text-rust"}>{c.result.passed ? "passed" : "failed"}</strong> ·{" "}
+                <span className="figure">{c.result.measuredDensity.toFixed(3)}</span> for <span className="figure">{c.reference.density} g/cm³</span>{" "}
                 <span className="figure">
                   ({c.result.differencePercent >= 0 ? "+" : "−"}
                   {Math.abs(c.result.differencePercent).toFixed(2)} %)
@@ -124,7 +124,8 @@ function AddScale() {
         <input inputMode="decimal" className="field-input figure" value={accuracy} placeholder={hint} onChange={(e) => setAccuracy(e.target.value)} />
       </label>
       <p className="text-sm text-ink-soft sm:col-span-3">
-        The accuracy is how far one reading may be off, from the scale&apos;s specification (repeatability and linearity). Left blank: {hint || "a default"} for this step.
+        The accuracy is how far one reading may be off, from the scale&apos;s specification (repeatability and linearity). Left blank: {hint || "a default"} for
+        this step.
       </p>
       {error && <p className="field-error sm:col-span-3">{error}</p>}
       <button type="submit" className="btn btn-primary self-start">
@@ -142,8 +143,8 @@ export function ScalesScreen() {
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Scales and setup checks</h1>
       <p className="text-ink-soft">
-        A setup check weighs an object of known density on your rig. If the rig reads it true, a poor estimate is the specimen&apos;s, not a wet line, a
-        bubble, a drifting scale or a basket touching the cup. Weigh-ins record the scale and its last check.
+        A setup check weighs an object of known density on your rig. If the rig reads it true, a poor estimate is the specimen&apos;s, not a wet line, a bubble,
+        a drifting scale or a basket touching the cup. Weigh-ins record the scale and its last check.
       </p>
       {scales === undefined ? (
         <Skeleton />

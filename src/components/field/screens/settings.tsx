@@ -29,14 +29,18 @@ function StorageBlock() {
         Storage on this device
       </h2>
       <p>
-        Lodebook keeps your logbook and photos on this device until camp sync. A browser short of space may clear a website&apos;s data
-        unless it is told the data matters. Asking for <strong>lasting storage</strong> tells it so.
+        Lodebook keeps your logbook and photos on this device until camp sync. A browser short of space may clear a website&apos;s data unless it is told the
+        data matters. Asking for <strong>lasting storage</strong> tells it so.
       </p>
       <p data-testid="storage-used">
         Using {mb(state.usage)} of {mb(state.quota)} available.
       </p>
       <p className="font-bold" data-testid="storage-persisted">
-        {state.persisted ? "Lasting storage: granted." : state.persisted === false ? "Lasting storage: not yet granted." : "Lasting storage: unknown in this browser."}
+        {state.persisted
+          ? "Lasting storage: granted."
+          : state.persisted === false
+            ? "Lasting storage: not yet granted."
+            : "Lasting storage: unknown in this browser."}
       </p>
       {!state.persisted && (
         <button
@@ -79,7 +83,11 @@ export function SettingsScreen() {
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Settings</h1>
       <section className="sheet grid gap-3 sm:grid-cols-2" aria-label="Units and weigh-in defaults">
-        {select("massUnit", "Weights in", MASS_UNITS.map((u) => [u, MASS_UNIT_LABELS[u]]))}
+        {select(
+          "massUnit",
+          "Weights in",
+          MASS_UNITS.map((u) => [u, MASS_UNIT_LABELS[u]]),
+        )}
         {select("tempUnit", "Temperatures in", [
           ["C", "°C"],
           ["F", "°F"],
@@ -89,8 +97,16 @@ export function SettingsScreen() {
           ["0.01", "0.01 g"],
           ["0.001", "0.001 g"],
         ])}
-        {select("hostPreset", "Usual host rock", HOST_PRESETS.map((p) => [p.id, p.label]))}
-        {select("finenessPreset", "Usual gold", FINENESS_PRESETS.map((p) => [p.id, p.label]))}
+        {select(
+          "hostPreset",
+          "Usual host rock",
+          HOST_PRESETS.map((p) => [p.id, p.label]),
+        )}
+        {select(
+          "finenessPreset",
+          "Usual gold",
+          FINENESS_PRESETS.map((p) => [p.id, p.label]),
+        )}
       </section>
       <section className="sheet flex flex-wrap gap-2" aria-label="Rig and rock">
         <Link className="btn" href="/scales">
@@ -121,7 +137,9 @@ export function SettingsScreen() {
             onBlur={(e) => void change({ tileUrl: e.target.value.trim() })}
           />
         </label>
-        <p className="text-sm text-ink-soft">The map works without tiles: claims, finds and a coordinate grid. Add a tile address only if you have one you may use.</p>
+        <p className="text-sm text-ink-soft">
+          The map works without tiles: claims, finds and a coordinate grid. Add a tile address only if you have one you may use.
+        </p>
       </section>
       <StorageBlock />
       {saved && (

@@ -171,8 +171,8 @@ export function TodayScreen() {
       )}
 
       <Caution title="Before you head out">
-        Tell someone where you are going and when you will be back. Stay out of old mine workings, watch dry washes for flash floods,
-        and carry water. Claim rules differ by place and land agency: your club officer and the local authority have the last word.
+        Tell someone where you are going and when you will be back. Stay out of old mine workings, watch dry washes for flash floods, and carry water. Claim
+        rules differ by place and land agency: your club officer and the local authority have the last word.
       </Caution>
     </div>
   );

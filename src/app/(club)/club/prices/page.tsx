@@ -29,8 +29,8 @@ export default async function PricesPage() {
       <h1 className="text-2xl font-bold">Club and reference price</h1>
       <ClubSettingsForm settings={settings} />
       <p className="text-ink-soft">
-        The club&apos;s own price for valuing estimated fine gold in the ledger and reports, in {settings.currency}. Not a quote: buyers pay their own
-        prices. A wrong entry is corrected or withdrawn, never erased.
+        The club&apos;s own price for valuing estimated fine gold in the ledger and reports, in {settings.currency}. Not a quote: buyers pay their own prices. A
+        wrong entry is corrected or withdrawn, never erased.
       </p>
       <PriceForm currency={settings.currency} />
       <PriceHistory prices={prices} currency={settings.currency} />

@@ -45,7 +45,16 @@ export default async function ReportPage({ searchParams }: Props) {
   const period = q.season ? `Season ${q.season}` : q.from || q.to ? `${q.from ?? "…"} to ${q.to ?? "…"}` : "All seasons";
   if (form === "landowner") {
     if (!claim) return <p className="field-error">Choose a claim in the ledger&apos;s filters for its landowner&apos;s statement.</p>;
-    return <LandownerStatement club={plain(club.name)} claim={claim} claimLabel={claimLabel.get(claim.id) ?? claim.name} period={period} summary={summary} printedOn={printedOn} />;
+    return (
+      <LandownerStatement
+        club={plain(club.name)}
+        claim={claim}
+        claimLabel={claimLabel.get(claim.id) ?? claim.name}
+        period={period}
+        summary={summary}
+        printedOn={printedOn}
+      />
+    );
   }
   const byMember = ledgerSubtotals(q, "member").map((g) => ({ label: memberName.get(g.id ?? "") ?? "—", summary: g.summary }));
   const byClaim = ledgerSubtotals(q, "claim").map((g) => ({ label: g.id ? (claimLabel.get(g.id) ?? "—") : "Off the club's claims", summary: g.summary }));
@@ -55,9 +64,7 @@ export default async function ReportPage({ searchParams }: Props) {
       <header className="flex items-start justify-between gap-4">
         <div>
           <p className="font-bold">{plain(club.name)}</p>
-          <h1 className="text-2xl font-bold">
-            Production report — {claim ? claimLabel.get(claim.id) : member ? memberName.get(member.id) : "whole club"}
-          </h1>
+          <h1 className="text-2xl font-bold">Production report — {claim ? claimLabel.get(claim.id) : member ? memberName.get(member.id) : "whole club"}</h1>
           <p>
             {period}
             {q.kind ? ` · ${KIND_LABELS[q.kind]} only` : ""}
@@ -117,10 +124,10 @@ export default async function ReportPage({ searchParams }: Props) {
       <footer className="border-t-2 border-ink pt-2 text-sm">
         <p className="font-bold">Estimates are not assays.</p>
         <p>
-          Fine gold is estimated for every find: specimens from members&apos; hydrostatic weigh-ins (assuming a host-rock density and a gold
-          fineness), other gold from its recorded weight at the purity the member recorded or the claim&apos;s fineness. &ldquo;At worst&rdquo; is the
-          range over those assumptions. Only an assay or a melt establishes gold content; sell on a buyer&apos;s test, not on this report. Claim
-          boundaries are the club&apos;s drawing, not a survey; reporting duties differ by place and land agency.
+          Fine gold is estimated for every find: specimens from members&apos; hydrostatic weigh-ins (assuming a host-rock density and a gold fineness), other
+          gold from its recorded weight at the purity the member recorded or the claim&apos;s fineness. &ldquo;At worst&rdquo; is the range over those
+          assumptions. Only an assay or a melt establishes gold content; sell on a buyer&apos;s test, not on this report. Claim boundaries are the club&apos;s
+          drawing, not a survey; reporting duties differ by place and land agency.
         </p>
       </footer>
     </article>

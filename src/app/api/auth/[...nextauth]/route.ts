@@ -24,7 +24,9 @@ export const POST = route(async (req) => {
   return withSignInScope(async (scope) => {
     const res = await handlers.POST(forwarded);
     if (scope.refused) {
-      throw new AppError(scope.refused.status === 429 ? "rate_limited:sign_in" : "unavailable:sign_in", scope.refused.message, { retryAfter: [String(scope.refused.retryAfterS)] });
+      throw new AppError(scope.refused.status === 429 ? "rate_limited:sign_in" : "unavailable:sign_in", scope.refused.message, {
+        retryAfter: [String(scope.refused.retryAfterS)],
+      });
     }
     const secure = siteOrigin()?.startsWith("https:") ? "; Secure" : "";
     for (const c of scope.setCookies) res.headers.append("Set-Cookie", `${c.name}=${c.value}; Path=/; Max-Age=${c.maxAgeS}; HttpOnly; SameSite=Lax${secure}`);

@@ -9,7 +9,10 @@ import { parseSearchParams, route } from "@/server/http";
 export const GET = route(async (req) => {
   const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   await requireActor(req, "viewLedger", "club");
-  const csv = toSafeCsv(LEDGER_CSV_COLUMNS, ledgerExportRows(query).map((r) => exportCells(r, LEDGER_CSV_COLUMNS)));
+  const csv = toSafeCsv(
+    LEDGER_CSV_COLUMNS,
+    ledgerExportRows(query).map((r) => exportCells(r, LEDGER_CSV_COLUMNS)),
+  );
   return new Response(csv, {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",

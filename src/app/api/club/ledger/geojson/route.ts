@@ -18,14 +18,36 @@ export const GET = route(async (req) => {
     .map((c) => ({
       type: "Feature" as const,
       geometry: c.boundary,
-      properties: { kind: "claim", id: c.id, name: plain(c.name), claimKind: c.kind, agencyRef: c.agencyRef, active: c.active, fineness: c.fineness, finenessLow: c.finenessLow, finenessHigh: c.finenessHigh, hostDensity: c.hostDensity },
+      properties: {
+        kind: "claim",
+        id: c.id,
+        name: plain(c.name),
+        claimKind: c.kind,
+        agencyRef: c.agencyRef,
+        active: c.active,
+        fineness: c.fineness,
+        finenessLow: c.finenessLow,
+        finenessHigh: c.finenessHigh,
+        hostDensity: c.hostDensity,
+      },
     }));
   const finds = ledgerExportRows(query)
     .filter((r) => r.lat !== null && r.lon !== null)
     .map((r) => ({
       type: "Feature" as const,
       geometry: { type: "Point" as const, coordinates: [Number(r.lon!.toFixed(6)), Number(r.lat!.toFixed(6))] },
-      properties: { kind: "find", id: r.id, foundOn: r.foundOn, member: plain(r.memberName ?? ""), claim: r.claimName ? plain(r.claimName) : null, findKind: r.kind, weightGrams: r.weightGrams, fineGrams: r.fineGrams === null ? null : Number(r.fineGrams.toFixed(3)), fineBasis: r.fineBasis, outsideClaim: r.outsideClaim },
+      properties: {
+        kind: "find",
+        id: r.id,
+        foundOn: r.foundOn,
+        member: plain(r.memberName ?? ""),
+        claim: r.claimName ? plain(r.claimName) : null,
+        findKind: r.kind,
+        weightGrams: r.weightGrams,
+        fineGrams: r.fineGrams === null ? null : Number(r.fineGrams.toFixed(3)),
+        fineBasis: r.fineBasis,
+        outsideClaim: r.outsideClaim,
+      },
     }));
   return new Response(JSON.stringify({ type: "FeatureCollection", features: [...claims, ...finds] }), {
     headers: {

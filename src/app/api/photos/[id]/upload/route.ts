@@ -7,7 +7,13 @@ import { requireSameOrigin } from "@/server/origin";
 import { receiveChunk, uploadStatus } from "@/server/photo-uploads";
 
 type Ctx = { params: Promise<{ id: string }> };
-const chunkQuery = z.object({ offset: z.coerce.number({ error: "offset must be a number of bytes" }).int("offset must be a whole number of bytes").min(0, "offset cannot be negative").max(1e9) });
+const chunkQuery = z.object({
+  offset: z.coerce
+    .number({ error: "offset must be a number of bytes" })
+    .int("offset must be a whole number of bytes")
+    .min(0, "offset cannot be negative")
+    .max(1e9),
+});
 
 /** Where a chunked upload stands, so a device resumes after a cut link: bytes held of the total. */
 export const GET = route<Ctx>(async (req, ctx) => {
@@ -21,7 +27,8 @@ export const PUT = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
   const id = await routeId(ctx, "photo", "No such photo.");
   const { offset } = parseSearchParams(req, chunkQuery, "offset");
-  if (!(req.headers.get("content-type") ?? "").startsWith("application/octet-stream")) throw new AppError("unsupported:chunk", "Send a chunk as application/octet-stream.", { contentType: ["not application/octet-stream"] });
+  if (!(req.headers.get("content-type") ?? "").startsWith("application/octet-stream"))
+    throw new AppError("unsupported:chunk", "Send a chunk as application/octet-stream.", { contentType: ["not application/octet-stream"] });
   const actor = await requireActor(req, "logFinds", "photo");
   await spend([["photoPerAccount", actor.id]]);
   const result = await receiveChunk(actor, id, offset, req);
