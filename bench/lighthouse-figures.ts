@@ -42,41 +42,49 @@ const details = (list: Run[]) => `LCP ${(med(list, "lcp") / 1000).toFixed(1)} s,
  * bare page, total blocking time at most twice the bare page's plus 150 ms, CLS ≤ 0.1.
  * Console screens on the desktop preset (signed in as an officer): performance ≥ 90, CLS ≤ 0.1.
  */
-export async function lighthouseScores(baseUrl: string, memberCookie: string, officerCookie: string) {
+export async function lighthouseScores(baseUrl: string, memberCookie: string, officerCookie: string, which = { mobile: true, desktop: true }) {
   const chrome = await chromeLauncher.launch({
     chromePath: CHROMIUM,
     chromeFlags: ["--headless=new", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"],
   });
   try {
-    const bareMobile = await runs(chrome.port, `${baseUrl}/about`, memberCookie, "mobile");
-    const bareScore = med(bareMobile, "score");
-    const bareTbt = med(bareMobile, "tbt");
-    for (const screen of MEMBER_SCREENS) {
-      const list = await runs(chrome.port, `${baseUrl}${screen}`, memberCookie, "mobile");
-      const score = med(list, "score");
-      const pass = score >= bareScore - 8 && med(list, "tbt") <= 2 * bareTbt + 150 && med(list, "cls") <= 0.1;
-      report(`Lighthouse mobile ${screen}`, {
-        value: list.map((r) => r.score),
-        unit: `performance (${details(list)})`,
-        ratio: list.map((r) => r.score - bareScore),
-        ratioLabel: `points beside the bare page (${bareScore}; ${details(bareMobile)})`,
-        goal: `within 8 points, TBT ≤ ${(2 * bareTbt + 150).toFixed(0)} ms, CLS ≤ 0.1`,
-        pass,
-      });
-    }
-    const bareDesktop = await runs(chrome.port, `${baseUrl}/about`, officerCookie, "desktop");
-    for (const screen of CONSOLE_SCREENS) {
-      const list = await runs(chrome.port, `${baseUrl}${screen}`, officerCookie, "desktop");
-      report(`Lighthouse desktop ${screen}`, {
-        value: list.map((r) => r.score),
-        unit: `performance (${details(list)})`,
-        ratio: list.map((r) => r.score - med(bareDesktop, "score")),
-        ratioLabel: `points beside the bare page (${med(bareDesktop, "score")})`,
-        goal: "performance ≥ 90, CLS ≤ 0.1",
-        pass: med(list, "score") >= 90 && med(list, "cls") <= 0.1,
-      });
-    }
+    if (which.mobile) await memberScreens(chrome.port, baseUrl, memberCookie);
+    if (which.desktop) await consoleScreens(chrome.port, baseUrl, officerCookie);
   } finally {
     chrome.kill();
+  }
+}
+
+async function memberScreens(port: number, baseUrl: string, memberCookie: string) {
+  const bareMobile = await runs(port, `${baseUrl}/about`, memberCookie, "mobile");
+  const bareScore = med(bareMobile, "score");
+  const bareTbt = med(bareMobile, "tbt");
+  for (const screen of MEMBER_SCREENS) {
+    const list = await runs(port, `${baseUrl}${screen}`, memberCookie, "mobile");
+    const score = med(list, "score");
+    const pass = score >= bareScore - 8 && med(list, "tbt") <= 2 * bareTbt + 150 && med(list, "cls") <= 0.1;
+    report(`Lighthouse mobile ${screen}`, {
+      value: list.map((r) => r.score),
+      unit: `performance (${details(list)})`,
+      ratio: list.map((r) => r.score - bareScore),
+      ratioLabel: `points beside the bare page (${bareScore}; ${details(bareMobile)})`,
+      goal: `within 8 points, TBT ≤ ${(2 * bareTbt + 150).toFixed(0)} ms, CLS ≤ 0.1`,
+      pass,
+    });
+  }
+}
+
+async function consoleScreens(port: number, baseUrl: string, officerCookie: string) {
+  const bareDesktop = await runs(port, `${baseUrl}/about`, officerCookie, "desktop");
+  for (const screen of CONSOLE_SCREENS) {
+    const list = await runs(port, `${baseUrl}${screen}`, officerCookie, "desktop");
+    report(`Lighthouse desktop ${screen}`, {
+      value: list.map((r) => r.score),
+      unit: `performance (${details(list)})`,
+      ratio: list.map((r) => r.score - med(bareDesktop, "score")),
+      ratioLabel: `points beside the bare page (${med(bareDesktop, "score")})`,
+      goal: "performance ≥ 90, CLS ≤ 0.1",
+      pass: med(list, "score") >= 90 && med(list, "cls") <= 0.1,
+    });
   }
 }

@@ -36,7 +36,8 @@ const FIGURES = [
   "offline-open",
   "device-lists",
   "poor-link",
-  "lighthouse",
+  "lighthouse-mobile",
+  "lighthouse-desktop",
 ] as const;
 const only = process.argv
   .find((a) => a.startsWith("--only="))
@@ -110,9 +111,12 @@ try {
   if (want("offline-open")) await offlineOpen(browser, app.url);
   if (want("device-lists")) await deviceLists(browser, app.url);
   if (want("poor-link")) await poorLink(browser, appPort, env.DATABASE_URL!);
-  if (want("lighthouse")) {
+  if (want("lighthouse-mobile") || want("lighthouse-desktop")) {
     const member = getDb().$client.prepare("select id, email from members where email = 'ines@quillmarsh.example'").get() as { id: string; email: string };
-    await lighthouseScores(app.url, await memberCookie(member), await memberCookie(officer));
+    await lighthouseScores(app.url, await memberCookie(member), await memberCookie(officer), {
+      mobile: want("lighthouse-mobile"),
+      desktop: want("lighthouse-desktop"),
+    });
   }
 } finally {
   await browser.close();
