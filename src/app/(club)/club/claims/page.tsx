@@ -1,9 +1,6 @@
 import type { Metadata } from "next";
-import { BarrenRock } from "@/components/club/barren-rock";
-import { ClaimEditor } from "@/components/club/claim-editor";
-import { ClaimProfileEditor } from "@/components/club/claim-profile-editor";
+import { ClaimSection } from "@/components/club/claim-section";
 import { ClaimsMap } from "@/components/club/claims-map";
-import { RecoveredGold } from "@/components/club/recovered-gold";
 import { requirePageActor } from "@/server/auth/current";
 import { listClaims } from "@/server/club/claims";
 import { clubSettings } from "@/server/club/settings";
@@ -20,20 +17,14 @@ export default async function ClaimsPage() {
       <h1 className="text-2xl font-bold">Claims</h1>
       <ClaimsMap claims={claims} labels={Object.fromEntries(claims.map((c) => [c.id, c.name]))} />
       {claims.map((c) => (
-        <details key={c.id} className="sheet">
-          <summary className="cursor-pointer font-bold">
-            {c.name} · {c.kind} {c.agencyRef ? `· ${c.agencyRef}` : ""} {c.active ? "" : "· inactive"} · gold {c.finenessLow}–{c.finenessHigh} ‰
-          </summary>
-          <div className="mt-3 flex flex-col gap-3">
-            <ClaimEditor claim={{ ...c, boundary: c.boundary ?? null }} />
-            <ClaimProfileEditor claim={c} season={season} />
-            <RecoveredGold claim={c} season={season} />
-            <BarrenRock claim={c} season={season} />
-          </div>
-        </details>
+        <ClaimSection
+          key={c.id}
+          claim={{ ...c, boundary: c.boundary ?? null }}
+          season={season}
+          summary={`${c.name} · ${c.kind}${c.agencyRef ? ` · ${c.agencyRef}` : ""}${c.active ? "" : " · inactive"} · gold ${c.finenessLow}–${c.finenessHigh} ‰`}
+        />
       ))}
-      <h2 className="heading-bar self-start text-lg">Add a claim</h2>
-      <ClaimEditor />
+      <ClaimSection summary={<span className="heading-bar text-lg">Add a claim</span>} season={season} startOpen={claims.length === 0} />
     </div>
   );
 }
