@@ -10,7 +10,8 @@ import { FIND_KINDS, KIND_LABELS } from "@/lib/entities/constants";
 import type { Find } from "@/lib/entities/find";
 import { convertMass, toGrams } from "@/lib/estimate/units";
 import { claimAt } from "@/lib/geo";
-import { toLocalInput } from "@/lib/format";
+import { formatWhen, toLocalInput } from "@/lib/format";
+import { beyondClockSlack } from "@/lib/time/ahead";
 import type { FindFormValues } from "./form-schemas";
 import { lazyZodResolver } from "./lazy-resolver";
 import { ClaimOptions, MethodOptions } from "./options";
@@ -87,9 +88,18 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
   const [typedLat, typedLon, chosenClaim] = useWatch({ control, name: ["lat", "lon", "claimId"] });
   // Not formState.isSubmitSuccessful: saving changes the record, and new values reset the form.
   const [saved, setSaved] = useState(false);
+  // A date more than a day ahead of this phone's clock is saved only once the member says it is right.
+  const [aheadConfirmed, setAheadConfirmed] = useState<number | null>(null);
+  const [aheadAsked, setAheadAsked] = useState<number | null>(null);
 
   const submit = handleSubmit(async (v) => {
     setSaved(false);
+    const foundAt = v.foundAt === toLocalInput(find.foundAt) ? Math.round(find.foundAt) : new Date(v.foundAt).getTime();
+    if (foundAt !== Math.round(find.foundAt) && beyondClockSlack(foundAt) && aheadConfirmed !== foundAt) {
+      setAheadAsked(foundAt);
+      setError("foundAt", { message: `That is ${formatWhen(foundAt)}, more than a day after this phone's clock. Check the date, or confirm it below.` });
+      return;
+    }
     const lat = parseTyped(v.lat) ?? null;
     const lon = parseTyped(v.lon) ?? null;
     const moved = lat !== find.lat || lon !== find.lon;
@@ -110,7 +120,7 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
         accuracyM: moved ? null : find.accuracyM,
         locationSource: lat === null ? null : moved ? "typed" : find.locationSource,
         // The field holds minutes: unchanged, it keeps the find's time to the millisecond (else every edit moved it).
-        foundAt: v.foundAt === toLocalInput(find.foundAt) ? Math.round(find.foundAt) : new Date(v.foundAt).getTime(),
+        foundAt,
       });
       setSaved(true);
     } catch (error) {
@@ -170,6 +180,17 @@ export function FindForm({ find, claims, settings, onSave }: Props) {
           <input type="datetime-local" className="field-input" aria-invalid={!!e.foundAt} {...register("foundAt")} />
           <FieldError messages={e.foundAt?.message ? [e.foundAt.message] : undefined} />
         </label>
+        {aheadAsked !== null && (
+          <label className="col-span-2 flex items-center gap-2" data-testid="confirm-ahead">
+            <input
+              type="checkbox"
+              className="size-6"
+              checked={aheadConfirmed === aheadAsked}
+              onChange={(ev) => setAheadConfirmed(ev.target.checked ? aheadAsked : null)}
+            />
+            The date is right: keep {formatWhen(aheadAsked)}
+          </label>
+        )}
         <label className="flex flex-col">
           <span className="field-label">Latitude</span>
           <input inputMode="decimal" className="field-input figure" aria-invalid={!!e.lat} {...register("lat")} />
