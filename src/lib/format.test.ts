@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { countOf, decimalsForUncertainty, formatGrams } from "./format";
+import { countOf, decimalsForUncertainty, formatDay, formatGrams, formatMonth, formatWhen } from "./format";
 
 describe("figures shown to the precision their uncertainty allows", () => {
   // JCGM 100:2008, 7.2.6: the uncertainty with at most two significant digits, the figure to match.
@@ -31,5 +31,28 @@ describe("figures shown to the precision their uncertainty allows", () => {
 describe("countOf", () => {
   it("counts in English: one find, otherwise finds (zero included)", () => {
     expect([0, 1, 2, 21].map((n) => countOf(n, "find", "finds"))).toEqual(["0 finds", "1 find", "2 finds", "21 finds"]);
+  });
+});
+
+describe("formatMonth", () => {
+  it("names the month in the given locale, whatever the server's zone", () => {
+    expect(formatMonth("2026-06", "en-GB")).toBe("Jun 2026");
+    expect(formatMonth("2026-12", "de-DE")).toBe("Dez. 2026");
+    expect(formatMonth("2026-01", "en-US")).toBe("Jan 2026");
+  });
+});
+
+describe("dates in one format per locale", () => {
+  // 2026-06-13 03:30 UTC is the evening of the 12th in Denver (UTC−6 in summer).
+  const evening = Date.UTC(2026, 5, 13, 3, 30);
+  it("gives the day in the viewer's locale, on the given clock", () => {
+    expect(formatDay(evening, "UTC", "en-GB")).toBe("13 Jun 2026");
+    expect(formatDay(evening, "America/Denver", "en-GB")).toBe("12 Jun 2026");
+    expect(formatDay(evening, "America/Denver", "en-US")).toBe("Jun 12, 2026");
+    expect(formatDay(evening, "UTC", "de-DE")).toBe("13.06.2026");
+  });
+  it("gives the day and time the same way", () => {
+    expect(formatWhen(evening, "America/Denver", "en-GB")).toBe("12 Jun 2026, 21:30");
+    expect(formatWhen(evening, "UTC", "de-DE")).toBe("13.06.2026, 03:30");
   });
 });

@@ -34,13 +34,24 @@ export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGram
   return `${convertMass(grams, unit).toFixed(digits)} ${unit}`;
 }
 
-export function formatDay(ms: number): string {
-  return new Date(ms).toISOString().slice(0, 10);
+/**
+ * Every date and time shown goes through these two, in the viewer's locale (Intl's medium date:
+ * "3 Dec 2026", "Dec 3, 2026", "03.12.2026"), on the device's clock or in a given zone (the
+ * club's). Machine-readable dates (CSV, file names, `<time dateTime>`) stay ISO 8601.
+ */
+export function formatDay(ms: number, timeZone?: string, locale?: string): string {
+  return new Date(ms).toLocaleDateString(locale, { dateStyle: "medium", timeZone });
 }
 
 /** Date and time in the viewer's locale: on the device's clock, or in a given zone (the club's). */
-export function formatWhen(ms: number, timeZone?: string): string {
-  return new Date(ms).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short", timeZone });
+export function formatWhen(ms: number, timeZone?: string, locale?: string): string {
+  return new Date(ms).toLocaleString(locale, { dateStyle: "medium", timeStyle: "short", timeZone });
+}
+
+/** A month ("2026-06") as the viewer's locale names it: "Jun 2026". */
+export function formatMonth(month: string, locale?: string): string {
+  const [year, m] = month.split("-").map(Number);
+  return new Date(Date.UTC(year, m - 1, 1)).toLocaleDateString(locale, { month: "short", year: "numeric", timeZone: "UTC" });
 }
 
 /** For <input type="datetime-local">, in local time. */

@@ -2,11 +2,21 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/roles";
-import { formatDay } from "@/lib/format";
 import { api, ApiError } from "./api";
 
 type Member = { id: string; email: string; name: string | null; role: Role; active: boolean };
-type Invitation = { id: string; email: string; role: Role; createdAt: number; expiresAt: number; acceptedAt: number | null; revokedAt: number | null };
+type Invitation = {
+  id: string;
+  email: string;
+  role: Role;
+  createdAt: number;
+  expiresAt: number;
+  acceptedAt: number | null;
+  revokedAt: number | null;
+  /** Written by the page on the server, in the club's zone. */
+  sentOn: string;
+  runsOutOn: string;
+};
 
 /** The roll (roles, deactivation) and invitations (send, resend, withdraw). */
 export function MembersAdmin({ members, invitations, selfId }: { members: Member[]; invitations: Invitation[]; selfId: string }) {
@@ -147,7 +157,7 @@ export function MembersAdmin({ members, invitations, selfId }: { members: Member
             {open.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center gap-2">
                 <span>
-                  {i.email} · {ROLE_LABELS[i.role]} · sent {formatDay(i.createdAt)}, runs out {formatDay(i.expiresAt)}
+                  {i.email} · {ROLE_LABELS[i.role]} · sent {i.sentOn}, runs out {i.runsOutOn}
                 </span>
                 <button
                   type="button"

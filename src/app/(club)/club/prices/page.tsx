@@ -18,7 +18,7 @@ export default async function PricesPage() {
     pricePerTroyOunce: p.pricePerTroyOunce,
     currency: p.currency,
     recordedBy: p.recordedBy,
-    createdOn: formatDay(p.createdAt),
+    createdOn: formatDay(p.createdAt, settings.timeZone),
     inForce: p.inForce,
     withdrawn: p.withdrawnAt !== null,
     note: p.note,
