@@ -14,7 +14,7 @@ export function ClaimsMap({ claims, labels }: { claims: Pick<ClaimView, "id" | "
   const byId = new Map(claims.map((c) => [c.id, c]));
   const unmapped = claims.filter((c) => !plan.claims.some((p) => p.id === c.id));
   return (
-    <figure className="flex flex-col gap-2">
+    <figure className="flex w-full max-w-4xl flex-col gap-2">
       <div
         className="relative w-full overflow-hidden rounded-md border-2 border-edge bg-paper"
         style={{ aspectRatio: `${plan.width} / ${plan.height}` }}
@@ -51,7 +51,7 @@ export function ClaimsMap({ claims, labels }: { claims: Pick<ClaimView, "id" | "
         {plan.claims.map((c) => (
           <span
             key={c.id}
-            className="absolute max-w-[45%] -translate-x-1/2 -translate-y-1/2 rounded bg-sheet/90 px-1.5 text-center text-sm font-bold text-ink shadow"
+            className={`absolute max-w-[45%] -translate-x-1/2 rounded bg-sheet/90 px-1.5 text-center text-sm font-bold text-ink shadow ${c.label.above ? "-translate-y-[calc(100%+4px)]" : "translate-y-1"}`}
             style={{ left: `${(c.label.x / plan.width) * 100}%`, top: `${(c.label.y / plan.height) * 100}%` }}
           >
             {labels[c.id] ?? byId.get(c.id)?.name}

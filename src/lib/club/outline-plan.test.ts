@@ -29,7 +29,26 @@ describe("claim outlines on a flat plan", () => {
     // The first corner is the south-west one: lowest on the plan (largest y).
     expect(ys[0]).toBe(Math.max(...ys));
     expect(plan.claims[0].label.x).toBeCloseTo((Math.max(...xs) + Math.min(...xs)) / 2, 0);
-    expect(plan.claims[0].label.y).toBeCloseTo((Math.max(...ys) + Math.min(...ys)) / 2, 0);
+  });
+
+  it("puts each label under its outline, or over it near the plan's foot, never on it", () => {
+    const plan = planOutlines(
+      [
+        { id: "north", boundary: square(-120.5, 39.25, 0.005) },
+        { id: "south", boundary: square(-120.5, 39.2, 0.005) },
+      ],
+      800,
+    );
+    const ysOf = (id: string) =>
+      plan.claims
+        .find((c) => c.id === id)!
+        .path.match(/-?\d+(\.\d+)?/g)!
+        .map(Number)
+        .filter((_, i) => i % 2 === 1);
+    const north = plan.claims.find((c) => c.id === "north")!.label;
+    const south = plan.claims.find((c) => c.id === "south")!.label;
+    expect(north).toMatchObject({ above: false, y: Math.max(...ysOf("north")) });
+    expect(south).toMatchObject({ above: true, y: Math.min(...ysOf("south")) });
   });
 
   it("fits every claim inside the plan with a margin, and leaves out claims with no outline", () => {

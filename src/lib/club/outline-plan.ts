@@ -1,10 +1,16 @@
 import type { Polygon } from "../entities/claim";
 
-/** A claim drawn on a plan: its rings as SVG path data and where its label sits, in plan units. */
-export type PlannedClaim = { id: string; path: string; label: { x: number; y: number } };
+/**
+ * A claim drawn on a plan: its rings as SVG path data, in plan units, and where its label goes:
+ * centred under the outline (`y` its lowest point), or over it (`above`, at its highest) when
+ * the outline is too near the plan's foot, so the label never covers the ground it names.
+ */
+export type PlannedClaim = { id: string; path: string; label: { x: number; y: number; above: boolean } };
 export type OutlinePlan = { width: number; height: number; claims: PlannedClaim[]; scale: { metres: number; length: number } | null };
 
 const METRES_PER_DEGREE = 111_320; // at the equator, per degree of latitude (WGS 84 mean; common practice for small areas)
+/** Plan units kept under an outline for its label; nearer the foot, the label goes above. */
+const LABEL_ROOM = 56;
 const NICE_LENGTHS = [10, 20, 50, 100, 200, 500, 1000, 2000, 5000, 10_000, 20_000, 50_000];
 
 function ringsOf(boundary: Polygon): number[][][] {
@@ -68,8 +74,10 @@ export function planOutlines(claims: { id: string; boundary: Polygon | null }[],
     const path = rings.map((r) => `M${r.map(([x, y]) => `${round(x)},${round(y)}`).join("L")}Z`).join("");
     const outer = c.boundary.type === "Polygon" ? [rings[0]] : c.boundary.coordinates.map((poly) => poly[0].map(project));
     const biggest = outer.reduce((a, b) => (Math.abs(ringArea(b)) > Math.abs(ringArea(a)) ? b : a));
-    const [x, y] = ringCentroid(biggest);
-    return { id: c.id, path, label: { x: round(x), y: round(y) } };
+    const [x] = ringCentroid(biggest);
+    const ys = rings.flat().map((p) => p[1]);
+    const above = Math.max(...ys) > height - LABEL_ROOM;
+    return { id: c.id, path, label: { x: round(x), y: round(above ? Math.min(...ys) : Math.max(...ys)), above } };
   });
 
   const metresPerUnit = METRES_PER_DEGREE / unit;
