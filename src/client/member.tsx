@@ -60,11 +60,20 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
   useEffect(() => {
     if (!ready) return;
     const sync = startSync(ready.db, ready.member.id);
-    // The validator comes in its own chunk; have it ready before the member first saves. A
-    // failure here shows again, with its reason, at that save.
-    const idle = requestIdleCallback(() => void loadValidation().catch(() => undefined));
+    // The validator (zod and every entity schema, a few hundred milliseconds of evaluation on a
+    // mid-range phone) comes in its own chunk. It is loaded at the member's first touch or key,
+    // which comes before any save, rather than at start, where it held the main thread while
+    // the first screen and the first camp sync needed it. Saves await it too; a failure here
+    // shows again, with its reason, at that save.
+    const warm = () => {
+      stopWarming();
+      void loadValidation().catch(() => undefined);
+    };
+    const events = ["pointerdown", "keydown", "focusin"] as const;
+    const stopWarming = () => events.forEach((e) => window.removeEventListener(e, warm, true));
+    events.forEach((e) => window.addEventListener(e, warm, { capture: true, passive: true }));
     return () => {
-      cancelIdleCallback(idle);
+      stopWarming();
       sync.stop();
     };
   }, [ready?.db, ready?.member.id]); // eslint-disable-line react-hooks/exhaustive-deps
