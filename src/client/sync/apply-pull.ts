@@ -1,6 +1,6 @@
 import { CLAIM_KEYS, pickRecord } from "@/lib/entities/keys";
 import type { PullChange } from "@/lib/sync/protocol";
-import type { LodebookDb, ServerFigure } from "../device-db";
+import type { LocalPhoto, LodebookDb, ServerFigure } from "../device-db";
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- claims arrive as JSON; the keys are CLAIM_KEYS, held equal to the schema
 const pick = (value: Record<string, unknown>, keys: readonly string[]): any => Object.fromEntries(keys.map((k) => [k, value[k] ?? null]));
@@ -14,6 +14,43 @@ const figureOf = (v: Record<string, unknown>): ServerFigure => ({
   weighMismatch: !!v.weighMismatch,
 });
 
+/** The device's row for a pulled record. */
+function rowFor(entity: Exclude<PullChange["entity"], "settings">, id: string, v: Record<string, unknown>, localPhoto?: LocalPhoto): unknown {
+  const updatedAt = typeof v.updatedAt === "number" ? v.updatedAt : Date.now();
+  switch (entity) {
+    case "outing":
+      return { ...pickRecord("outing", v), updatedAt };
+    case "find":
+      return { ...pickRecord("find", v), updatedAt, figure: figureOf(v) };
+    case "photo": {
+      // Bytes of a photo taken on another device are fetched when shown, not here.
+      const uploaded = v.stored === true ? 1 : localPhoto && localPhoto.blob.size > 0 ? 0 : 1;
+      return { ...pickRecord("photo", v), updatedAt, blob: localPhoto?.blob ?? new Blob(), thumb: localPhoto?.thumb ?? new Blob(), uploaded };
+    }
+    case "weighIn":
+      return { ...pickRecord("weighIn", v), updatedAt };
+    case "scale":
+      return { ...pickRecord("scale", v), updatedAt };
+    case "barrenRock":
+      return { ...pickRecord("barrenRock", v), updatedAt };
+    case "claim":
+      return pick(v, CLAIM_KEYS);
+    case "review":
+      return {
+        id,
+        findId: v.findId as string,
+        action: v.action as "verify",
+        note: (v.note as string) ?? "",
+        officerName: (v.officerName as string) ?? null,
+        createdAt: v.createdAt as number,
+      };
+    case "answer":
+      return { ...pickRecord("answer", v), updatedAt, createdAt: v.createdAt as number };
+    case "price":
+      return { id, effectiveOn: v.effectiveOn as string, pricePerTroyOunce: v.pricePerTroyOunce as number, currency: v.currency as string };
+  }
+}
+
 /**
  * Applies one pull page and stores its cursor in the same transaction. A record with a change
  * still waiting on this device is left as the device has it: that change goes up next.
@@ -24,71 +61,43 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
     [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.answers, db.prices, db.outbox, db.meta],
     async () => {
       const pendingIds = new Set((await db.outbox.where("state").equals("pending").toArray()).map((e) => e.entityId));
+      // Each table's changes, last one wins per id (as applying them in order would), written
+      // with one bulk call per table: a put per record held the main thread for a first pull.
+      const tables = {
+        outing: db.outings,
+        find: db.finds,
+        photo: db.photos,
+        weighIn: db.weighIns,
+        scale: db.scales,
+        barrenRock: db.barrenRocks,
+        claim: db.claims,
+        review: db.reviews,
+        answer: db.answers,
+        price: db.prices,
+      } as const;
+      type Entity = keyof typeof tables;
+      const latest = new Map<Entity, Map<string, Record<string, unknown> | null>>();
       for (const c of changes) {
+        if (c.entity === "settings") continue;
         const id = c.op === "put" ? (c.value.id as string) : c.id;
         if (pendingIds.has(id)) continue;
-        if (c.op === "del") {
-          const table = {
-            outing: db.outings,
-            find: db.finds,
-            photo: db.photos,
-            weighIn: db.weighIns,
-            scale: db.scales,
-            barrenRock: db.barrenRocks,
-            claim: db.claims,
-            review: db.reviews,
-            answer: db.answers,
-            price: db.prices,
-            settings: undefined,
-          }[c.entity];
-          await table?.delete(id);
-          continue;
+        let byId = latest.get(c.entity);
+        if (!byId) latest.set(c.entity, (byId = new Map()));
+        byId.delete(id); // keep arrival order for the last change of each id
+        byId.set(id, c.op === "put" ? c.value : null);
+      }
+      const photoIds = [...(latest.get("photo")?.entries() ?? [])].filter(([, v]) => v !== null).map(([id]) => id);
+      const localPhotos = new Map((await db.photos.bulkGet(photoIds)).flatMap((p) => (p ? [[p.id, p] as const] : [])));
+      for (const [entity, byId] of latest) {
+        const puts: unknown[] = [];
+        const dels: string[] = [];
+        for (const [id, v] of byId) {
+          if (v === null) dels.push(id);
+          else puts.push(rowFor(entity, id, v, localPhotos.get(id)));
         }
-        const v = c.value;
-        const updatedAt = typeof v.updatedAt === "number" ? v.updatedAt : Date.now();
-        switch (c.entity) {
-          case "outing":
-            await db.outings.put({ ...pickRecord("outing", v), updatedAt });
-            break;
-          case "find":
-            await db.finds.put({ ...pickRecord("find", v), updatedAt, figure: figureOf(v) });
-            break;
-          case "photo": {
-            // Bytes of a photo taken on another device are fetched when shown, not here.
-            const local = await db.photos.get(id);
-            const uploaded = v.stored === true ? 1 : local && local.blob.size > 0 ? 0 : 1;
-            await db.photos.put({ ...pickRecord("photo", v), updatedAt, blob: local?.blob ?? new Blob(), thumb: local?.thumb ?? new Blob(), uploaded });
-            break;
-          }
-          case "weighIn":
-            await db.weighIns.put({ ...pickRecord("weighIn", v), updatedAt });
-            break;
-          case "scale":
-            await db.scales.put({ ...pickRecord("scale", v), updatedAt });
-            break;
-          case "barrenRock":
-            await db.barrenRocks.put({ ...pickRecord("barrenRock", v), updatedAt });
-            break;
-          case "claim":
-            await db.claims.put(pick(v, CLAIM_KEYS) as never);
-            break;
-          case "review":
-            await db.reviews.put({
-              id,
-              findId: v.findId as string,
-              action: v.action as "verify",
-              note: (v.note as string) ?? "",
-              officerName: (v.officerName as string) ?? null,
-              createdAt: v.createdAt as number,
-            });
-            break;
-          case "answer":
-            await db.answers.put({ ...pickRecord("answer", v), updatedAt, createdAt: v.createdAt as number });
-            break;
-          case "price":
-            await db.prices.put({ id, effectiveOn: v.effectiveOn as string, pricePerTroyOunce: v.pricePerTroyOunce as number, currency: v.currency as string });
-            break;
-        }
+        const table = tables[entity] as unknown as { bulkPut(rows: unknown[]): Promise<unknown>; bulkDelete(ids: string[]): Promise<void> };
+        if (dels.length) await table.bulkDelete(dels);
+        if (puts.length) await table.bulkPut(puts);
       }
       // A full resync marks what it brings; what it never brings is dropped at its end.
       const resync = (await db.meta.get("resync"))?.value as string[] | undefined;
