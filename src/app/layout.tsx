@@ -13,6 +13,9 @@ export const metadata: Metadata = {
 export const viewport: Viewport = {
   width: "device-width",
   initialScale: 1,
+  // The on-screen keyboard shrinks the layout, so bars stuck to the bottom (a weigh-in's Save)
+  // stay above it instead of behind it.
+  interactiveWidget: "resizes-content",
   themeColor: [
     { media: "(prefers-color-scheme: light)", color: "#f6f1e4" },
     { media: "(prefers-color-scheme: dark)", color: "#121416" },

@@ -44,6 +44,8 @@ describe("the field logbook with no signal", () => {
     await page.screenshot({ path: shotPath("logbook-quick-find-phone"), fullPage: true });
     await page.getByRole("button", { name: "Save the find" }).click();
     await page.getByText("Find saved on this device.").waitFor();
+    // The next find is one tap away.
+    expect(await page.getByRole("link", { name: "Log another find" }).getAttribute("href")).toBe("/finds/new");
     // Said once: the mark leaves the address, so a reload shows the find without it.
     expect(new URL(page.url()).hash).not.toContain("saved");
     await page.reload();

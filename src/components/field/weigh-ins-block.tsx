@@ -139,6 +139,7 @@ export function WeighInsBlock({
               setWeighing(false);
               requestSync();
             }}
+            onCancel={() => setWeighing(false)}
           />
         </Suspense>
       ) : (

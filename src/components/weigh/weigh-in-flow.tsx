@@ -1,5 +1,5 @@
 "use client";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { DEFAULTS, defaultScaleAccuracy, estimateSpecimen, EstimateInputError, type SpecimenEstimate, type SpecimenInput } from "@/lib/estimate";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
@@ -21,6 +21,8 @@ type Props = {
   scales?: Scale[];
   /** Where the flow is part of a find, the finished weigh-in is handed here, with the scale it was made on. */
   onSave?: (input: SpecimenInput, estimate: SpecimenEstimate, scale: { scaleId: string | null; scaleCheck: ScaleCheckRef | null }) => void | Promise<void>;
+  /** Where the flow is part of a find: leave it without saving. */
+  onCancel?: () => void;
 };
 
 type Outcome = {
@@ -68,13 +70,29 @@ function airEffectText({ correctedGrams, textbookGrams }: AirEffect, unit: MassU
 }
 
 /** The weigh-in: readings in, the estimate out, recomputed as each number is typed. */
-export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Props) {
+export function WeighInFlow({ initial, claim = null, scales = [], onSave, onCancel }: Props) {
   const fromClaim = claim ? { hostPreset: CLAIM_PRESET, finenessPreset: CLAIM_PRESET } : {};
   const { register, control, setValue } = useForm<WeighFormValues>({ defaultValues: { ...DEFAULT_WEIGH_FORM, ...initial, ...fromClaim } });
   const values = useWatch({ control }) as WeighFormValues;
   const outcome = useMemo(() => compute(values, claim), [values, claim]);
   const [resultUnit, setResultUnit] = useState<MassUnit>("g");
   const [saving, setSaving] = useState(false);
+  const [confirmClear, setConfirmClear] = useState(false);
+  const readingsRef = useRef<HTMLDivElement>(null);
+  // Inside a find, the flow opens at its readings: the method and practice are above them.
+  useEffect(() => {
+    if (onSave) readingsRef.current?.scrollIntoView?.({ block: "start" });
+  }, []); // eslint-disable-line react-hooks/exhaustive-deps
+  const typed = [...(values.air ?? []), ...(values.water ?? [])].some((r) => (r?.value ?? "").trim() !== "");
+  const save = async () => {
+    if (!onSave || !outcome.estimate) return;
+    setSaving(true);
+    try {
+      await onSave(outcome.input, outcome.estimate, { scaleId: scale?.id ?? null, scaleCheck: checkRefOf(scale) });
+    } finally {
+      setSaving(false);
+    }
+  };
 
   const hanging = values.method === "hanging";
   const scale = scales.find((x) => x.id === values.scaleId);
@@ -89,7 +107,7 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Prop
         <MethodChoice register={register} method={values.method} />
         <PracticeList />
 
-        <div className="sheet flex flex-col gap-4">
+        <div ref={readingsRef} className="sheet flex scroll-mt-4 flex-col gap-4">
           {scales.length > 0 && <ScalePicker scales={scales} register={register} setValue={setValue} scaleId={values.scaleId} unit={unit} />}
           <ScaleSettings register={register} errors={e} accuracyHint={accuracyHint} locked={!!scale} />
           <ReadingsPair register={register} control={control} errors={e} hanging={hanging} unit={unit} />
@@ -174,16 +192,19 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Prop
       </form>
 
       {outcome.estimate && (
-        <a
-          href="#estimate-title"
-          className="sheet figure sticky bottom-2 z-10 flex items-baseline justify-between gap-2 font-bold no-underline shadow-lg lg:hidden"
-          aria-label="Jump to the estimate"
-        >
-          <span>Fine gold ≈ {formatGrams(outcome.estimate.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}</span>
-          <span className="text-sm text-ink-soft">
-            ± {formatGrams(outcome.estimate.standardUncertainty.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}
-          </span>
-        </a>
+        <div className="sheet sticky bottom-2 z-10 flex items-center justify-between gap-2 shadow-lg lg:hidden" data-testid="estimate-bar">
+          <a href="#estimate-title" className="figure flex flex-col font-bold no-underline" aria-label="Jump to the estimate">
+            <span>Fine gold ≈ {formatGrams(outcome.estimate.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}</span>
+            <span className="text-sm text-ink-soft">
+              ± {formatGrams(outcome.estimate.standardUncertainty.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}
+            </span>
+          </a>
+          {onSave && (
+            <button type="button" className="btn btn-primary shrink-0" disabled={saving} onClick={save}>
+              {saving ? "Saving…" : "Save"}
+            </button>
+          )}
+        </div>
       )}
       <div id="estimate" className="flex flex-col gap-3 lg:sticky lg:top-4 lg:self-start">
         {scale && <FailedCheckNotice scale={scale} />}
@@ -196,32 +217,38 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave }: Prop
           </section>
         )}
         {onSave && outcome.estimate && (
-          <button
-            type="button"
-            className="btn btn-primary"
-            disabled={saving}
-            onClick={async () => {
-              setSaving(true);
-              try {
-                await onSave(outcome.input, outcome.estimate!, { scaleId: scale?.id ?? null, scaleCheck: checkRefOf(scale) });
-              } finally {
-                setSaving(false);
-              }
-            }}
-          >
+          <button type="button" className="btn btn-primary" disabled={saving} onClick={save}>
             {saving ? "Saving…" : "Save this weigh-in to the find"}
           </button>
         )}
-        <button
-          type="button"
-          className="btn"
-          onClick={() => {
-            setValue("air", emptyReadings());
-            setValue("water", emptyReadings());
-          }}
-        >
-          Clear the readings
-        </button>
+        {confirmClear ? (
+          <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Clear the readings?">
+            <span className="font-bold">Clear every reading typed?</span>
+            <button
+              type="button"
+              className="btn"
+              onClick={() => {
+                setValue("air", emptyReadings());
+                setValue("water", emptyReadings());
+                setConfirmClear(false);
+              }}
+            >
+              Yes, clear them
+            </button>
+            <button type="button" className="btn" onClick={() => setConfirmClear(false)}>
+              Keep them
+            </button>
+          </div>
+        ) : (
+          <button type="button" className="btn" disabled={!typed} onClick={() => setConfirmClear(true)}>
+            Clear the readings
+          </button>
+        )}
+        {onCancel && (
+          <button type="button" className="btn" onClick={onCancel}>
+            Cancel this weigh-in
+          </button>
+        )}
       </div>
     </div>
   );

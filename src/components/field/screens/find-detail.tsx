@@ -92,9 +92,14 @@ export function FindDetailScreen() {
         <span className="text-ink-soft">{formatWhen(find.foundAt)}</span>
       </header>
       {justSaved && (
-        <p role="status" className="sheet font-bold text-moss">
-          Find saved on this device. It goes to the club at the next camp sync.
-        </p>
+        <div className="sheet flex flex-wrap items-center justify-between gap-2">
+          <p role="status" className="font-bold text-moss">
+            Find saved on this device. It goes to the club at the next camp sync.
+          </p>
+          <Link href="/finds/new" className="btn btn-primary">
+            Log another find
+          </Link>
+        </div>
       )}
 
       <Suspense fallback={null}>
