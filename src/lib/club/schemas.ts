@@ -1,10 +1,11 @@
 import { z } from "zod";
+import { CLAIM_KINDS, RECOVERY_KINDS, REVIEW_ACTIONS, ROYALTY_KINDS } from "../entities/constants";
 import { ROLES } from "../roles";
 
 export const claimInputSchema = z
   .object({
     name: z.string().trim().min(1, "Give the claim a name.").max(120, "At most 120 characters."),
-    kind: z.enum(["placer", "lode"], { error: "Choose placer or lode." }),
+    kind: z.enum(CLAIM_KINDS, { error: "Choose placer or lode." }),
     agencyRef: z.string().trim().max(120, "At most 120 characters.").nullable().default(null),
     rules: z.string().max(8000, "At most 8000 characters.").default(""),
     active: z.boolean().default(true),
@@ -15,10 +16,7 @@ export const claimInputSchema = z
     /** Set once the officer has seen which claims the outline overlaps, and means it. */
     acceptOverlap: z.boolean().default(false),
     landowner: z.string().trim().max(200, "At most 200 characters.").nullable().default(null),
-    royaltyKind: z
-      .enum(["percent_of_value", "grams_per_troy_ounce"], { error: "Choose a share of the value or grams per troy ounce." })
-      .nullable()
-      .default(null),
+    royaltyKind: z.enum(ROYALTY_KINDS, { error: "Choose a share of the value or grams per troy ounce." }).nullable().default(null),
     royaltyRate: z.number({ error: "Give the royalty as a number." }).min(0, "A royalty cannot be negative.").max(100, "At most 100.").nullable().default(null),
   })
   .strict()
@@ -60,7 +58,7 @@ export const refigureInputSchema = z.object({ season: z.number().int().min(2000)
 
 export const reviewInputSchema = z
   .object({
-    action: z.enum(["verify", "query", "note"], { error: "Choose verify, query or note." }),
+    action: z.enum(REVIEW_ACTIONS, { error: "Choose verify, query or note." }),
     note: z.string().trim().max(2000, "At most 2000 characters.").default(""),
   })
   .strict()
@@ -116,7 +114,7 @@ export const memberChangeSchema = z
 /** A melt of a batch of finds or an assay of one, as an officer records it. */
 export const recoveryInputSchema = z
   .object({
-    kind: z.enum(["melt", "assay"], { error: "Choose melt or assay." }),
+    kind: z.enum(RECOVERY_KINDS, { error: "Choose melt or assay." }),
     claimId: z.uuid("Choose the claim.").nullable(),
     recordedOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
     fineGrams: z.number({ error: "Enter the fine gold in grams." }).positive("Fine gold must be more than 0 g.").max(1_000_000, "At most 1000 kg."),

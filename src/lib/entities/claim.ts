@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { CLAIM_KINDS } from "./constants";
 
 /** [longitude, latitude] (an optional altitude is allowed and ignored), WGS 84. */
 const position = z
@@ -17,7 +18,7 @@ export const polygonSchema = z.union([
 export const claimViewSchema = z.object({
   id: z.string(),
   name: z.string(),
-  kind: z.enum(["placer", "lode"]),
+  kind: z.enum(CLAIM_KINDS),
   agencyRef: z.string().nullable(),
   boundary: polygonSchema.nullable(),
   rules: z.string(),

@@ -10,6 +10,16 @@ export const KIND_LABELS: Record<(typeof FIND_KINDS)[number], string> = {
   crystalline: "Crystalline",
 };
 export const LOCATION_SOURCES = ["device", "photo", "map", "typed"] as const;
+/** What a member shares of a find's position with the club. */
+export const LOCATION_SHARING = ["exact", "claim"] as const;
+
+export const CLAIM_KINDS = ["placer", "lode"] as const;
+export const ROYALTY_KINDS = ["percent_of_value", "grams_per_troy_ounce"] as const;
+/** Where the fineness a find was figured with came from. */
+export const FINENESS_USED_BASES = ["claim_fineness", "club_fineness"] as const;
+export const REVIEW_ACTIONS = ["verify", "query", "note"] as const;
+/** Gold recovered from finds: a melt of several, or an assay. */
+export const RECOVERY_KINDS = ["melt", "assay"] as const;
 
 export const OUTING_METHODS = ["detecting", "panning", "sluicing", "drywashing", "other"] as const;
 export const METHOD_LABELS: Record<(typeof OUTING_METHODS)[number], string> = {

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { idSchema } from "../entities/common";
+import { LOCATION_SHARING } from "../entities/constants";
 import { answerSchema } from "../entities/answer";
 import { barrenRockSchema } from "../entities/barren-rock";
 import { findSchema } from "../entities/find";
@@ -11,7 +12,7 @@ import { weighInSchema } from "../entities/weigh-in";
 /** Member settings the club's server needs to know (the rest stay on the device). */
 export const memberSettingsSchema = z
   .object({
-    locationSharing: z.enum(["exact", "claim"]).optional(),
+    locationSharing: z.enum(LOCATION_SHARING).optional(),
     /** Tell the member by e-mail when an officer queries one of their finds. */
     mailOnQuery: z.boolean().optional(),
   })

@@ -1,7 +1,21 @@
 import { sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { index, integer, primaryKey, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { REVIEW_STATES } from "../../lib/club/ledger";
+import {
+  CLAIM_KINDS,
+  FIND_KINDS,
+  FINENESS_USED_BASES,
+  LOCATION_SHARING,
+  LOCATION_SOURCES,
+  OUTING_METHODS,
+  PHOTO_TYPES,
+  RECOVERY_KINDS,
+  REVIEW_ACTIONS,
+  ROYALTY_KINDS,
+} from "../../lib/entities/constants";
 import { FINE_BASES } from "../../lib/figures/fine-basis";
+import { ROLES } from "../../lib/roles";
 import { CLAIM_PROFILE_DEFAULTS } from "../../lib/figures/claim-profile";
 
 // Time stamps are milliseconds since the epoch, set by the server. Syncable tables carry
@@ -20,17 +34,13 @@ export const members = sqliteTable("members", {
   name: text("name"),
   emailVerified: integer("email_verified", { mode: "timestamp_ms" }),
   image: text("image"),
-  role: text("role", { enum: ["member", "officer"] })
-    .notNull()
-    .default("member"),
+  role: text("role", { enum: ROLES }).notNull().default("member"),
   passwordHash: text("password_hash"),
   active: integer("active", { mode: "boolean" }).notNull().default(true),
   /** Bumped to end every session of the member at once (deactivation, role change). */
   sessionVersion: integer("session_version").notNull().default(0),
   /** What officers see of this member's find positions. */
-  locationSharing: text("location_sharing", { enum: ["exact", "claim"] })
-    .notNull()
-    .default("exact"),
+  locationSharing: text("location_sharing", { enum: LOCATION_SHARING }).notNull().default("exact"),
   /** The member asked to be told by e-mail when an officer queries one of their finds. */
   mailOnQuery: integer("mail_on_query", { mode: "boolean" }).notNull().default(false),
   createdAt: createdAt(),
@@ -78,9 +88,7 @@ export const verificationTokens = sqliteTable(
 export const invitations = sqliteTable("invitations", {
   id: text("id").primaryKey(),
   email: text("email").notNull(),
-  role: text("role", { enum: ["member", "officer"] })
-    .notNull()
-    .default("member"),
+  role: text("role", { enum: ROLES }).notNull().default("member"),
   tokenHash: text("token_hash").notNull().unique(),
   invitedBy: text("invited_by").references(() => members.id),
   expiresAt: integer("expires_at").notNull(),
@@ -94,7 +102,7 @@ export const claims = sqliteTable(
   {
     id: text("id").primaryKey(),
     name: text("name").notNull(),
-    kind: text("kind", { enum: ["placer", "lode"] }).notNull(),
+    kind: text("kind", { enum: CLAIM_KINDS }).notNull(),
     agencyRef: text("agency_ref"),
     /** GeoJSON Polygon or MultiPolygon, WGS 84 longitude/latitude. */
     boundary: text("boundary", { mode: "json" }).$type<GeoJsonPolygon>(),
@@ -113,7 +121,7 @@ export const claims = sqliteTable(
     // The landowner's agreement, when the claim's land has one: to whom, and the royalty it sets
     // (a share of the value, or grams owed per troy ounce of fine gold).
     landowner: text("landowner"),
-    royaltyKind: text("royalty_kind", { enum: ["percent_of_value", "grams_per_troy_ounce"] }),
+    royaltyKind: text("royalty_kind", { enum: ROYALTY_KINDS }),
     royaltyRate: real("royalty_rate"),
     createdAt: createdAt(),
     updatedAt: integer("updated_at").notNull().default(now),
@@ -123,9 +131,6 @@ export const claims = sqliteTable(
 );
 
 export type GeoJsonPolygon = { type: "Polygon"; coordinates: number[][][] } | { type: "MultiPolygon"; coordinates: number[][][][] };
-
-const OUTING_METHODS = ["detecting", "panning", "sluicing", "drywashing", "other"] as const;
-const FIND_KINDS = ["nugget", "specimen", "flakes", "fines", "crystalline"] as const;
 
 export const outings = sqliteTable(
   "outings",
@@ -167,7 +172,7 @@ export const finds = sqliteTable(
     lat: real("lat"),
     lon: real("lon"),
     accuracyM: real("accuracy_m"),
-    locationSource: text("location_source", { enum: ["device", "photo", "map", "typed"] }),
+    locationSource: text("location_source", { enum: LOCATION_SOURCES }),
     foundAt: integer("found_at").notNull(),
     /** The member's own figure for the gold's fineness (‰), when they know it. */
     purity: real("purity"),
@@ -188,7 +193,7 @@ export const finds = sqliteTable(
     finenessUsed: real("fineness_used"),
     finenessUsedLow: real("fineness_used_low"),
     finenessUsedHigh: real("fineness_used_high"),
-    finenessUsedBasis: text("fineness_used_basis", { enum: ["claim_fineness", "club_fineness"] }),
+    finenessUsedBasis: text("fineness_used_basis", { enum: FINENESS_USED_BASES }),
     // Then the figure itself, worked out by SQLite from the inputs above with one rule
     // (FINE_FIGURE, db/fine-figure.ts), by triggers on every insert and on every change of an
     // input, so it always equals a recomputation. Plain columns, not generated ones: SQLite
@@ -212,9 +217,7 @@ export const finds = sqliteTable(
      * The query thread's state, from the latest verify or query (club/figures.ts): "answered"
      * when the member has answered that query.
      */
-    reviewState: text("review_state", { enum: ["new", "verified", "queried", "answered"] })
-      .notNull()
-      .default("new"),
+    reviewState: text("review_state", { enum: REVIEW_STATES }).notNull().default("new"),
     createdAt: createdAt(),
     updatedAt: integer("updated_at").notNull().default(now),
     deletedAt: integer("deleted_at"),
@@ -254,7 +257,7 @@ export const photos = sqliteTable(
       .notNull()
       .references(() => finds.id),
     sha256: text("sha256").notNull(),
-    contentType: text("content_type").notNull(),
+    contentType: text("content_type", { enum: PHOTO_TYPES }).notNull(),
     bytes: integer("bytes").notNull(),
     width: integer("width"),
     height: integer("height"),
@@ -381,7 +384,7 @@ export const reviews = sqliteTable(
     officerId: text("officer_id")
       .notNull()
       .references(() => members.id),
-    action: text("action", { enum: ["verify", "query", "note"] }).notNull(),
+    action: text("action", { enum: REVIEW_ACTIONS }).notNull(),
     note: text("note").notNull().default(""),
     createdAt: createdAt(),
     seq: seq(),
@@ -449,7 +452,7 @@ export const recoveries = sqliteTable(
   "recoveries",
   {
     id: text("id").primaryKey(),
-    kind: text("kind", { enum: ["melt", "assay"] }).notNull(),
+    kind: text("kind", { enum: RECOVERY_KINDS }).notNull(),
     claimId: text("claim_id").references(() => claims.id),
     /** The club day of the melt or the assay report. */
     recordedOn: text("recorded_on").notNull(),
