@@ -27,7 +27,8 @@ export type PushTx = {
   resendFindsOf: Set<string>;
   claims: Map<string | null, ClaimFacts>;
 };
-type Owned = { id: string; memberId: string; deletedAt: number | null };
+/** A stored record as the push reads it: its owner and tombstone, and the rest of its columns. */
+type Owned = { id: string; memberId: string; deletedAt: number | null } & Record<string, unknown>;
 type Entity = RecordEntity;
 type Table = typeof t.outings | typeof t.finds | typeof t.photos | typeof t.weighIns | typeof t.scales | typeof t.barrenRocks | typeof t.answers;
 
@@ -100,7 +101,7 @@ function upsert(tx: PushTx, entity: Entity, existing: Owned | undefined, values:
   const table = ENTITY[entity];
   const extra = server ?? (entity === "photo" ? { memberId: actor.id, seq: tx.seq() } : { memberId: actor.id, seq: tx.seq(), updatedAt: Date.now() });
   if (existing) {
-    keepHistory(tx.db, entity, existing.id, actor.id, existing as unknown as Record<string, unknown>);
+    keepHistory(tx.db, entity, existing.id, actor.id, existing);
     updateRow(tx.db, table, existing.id, values as Record<string, unknown>, extra);
   } else {
     insertRow(tx.db, table, values as Record<string, unknown>, extra);
@@ -186,7 +187,7 @@ const MUTATORS: Mutators = {
   "photo.put": (tx, actor, p) => {
     const existing = loadForWrite(tx, "photo", p.id, actor, p);
     requireOwnedParent(tx, "find", p.findId, actor, "findId");
-    if (existing && (existing as unknown as { sha256: string }).sha256 !== p.sha256) {
+    if (existing && existing.sha256 !== p.sha256) {
       throw new RejectError("photo_changed", "A photo cannot change its bytes; add a new photo instead.", "sha256");
     }
     return () => upsert(tx, "photo", existing, p, actor);

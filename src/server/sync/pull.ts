@@ -55,11 +55,11 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
         .where(and(after(table), mine(table)))
         .orderBy(asc(table.seq))
         .limit(take)
-        .all() as unknown as Row[];
+        .all();
 
     const hidden = opts.scope === "club" ? positionsHiddenFor(tx, actor) : new Set<string>();
     const changes: PullChange[] = [
-      ...changesOf("claim", tx.select().from(t.claims).where(after(t.claims)).orderBy(asc(t.claims.seq)).limit(take).all() as unknown as Row[]),
+      ...changesOf("claim", tx.select().from(t.claims).where(after(t.claims)).orderBy(asc(t.claims.seq)).limit(take).all()),
       // A withdrawn price leaves devices as a deletion; the history stays on the server.
       ...changesOf(
         "price",
@@ -70,7 +70,7 @@ export function pullChanges(actor: Actor, opts: { clientId: string; cursor: numb
           .orderBy(asc(t.referencePrices.seq))
           .limit(take)
           .all()
-          .map((p) => ({ ...p, deletedAt: p.withdrawnAt })) as unknown as Row[],
+          .map((p) => ({ ...p, deletedAt: p.withdrawnAt })),
       ),
       ...changesOf("outing", page(t.outings)),
       ...changesOf("find", page(t.finds), (r) =>
@@ -113,7 +113,7 @@ function reviewsAfter(tx: Tx, actor: Actor, opts: { cursor: number; scope: "own"
     .where(and(gt(t.reviews.seq, opts.cursor), opts.scope === "club" ? undefined : eq(t.finds.memberId, actor.id)))
     .orderBy(asc(t.reviews.seq))
     .limit(take)
-    .all() as unknown as Row[];
+    .all();
 }
 
 /** Members who share only the claim, not the exact spot, with officers. */
