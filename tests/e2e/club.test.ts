@@ -87,7 +87,7 @@ describe("the club console", () => {
     await phone.context().close();
   });
 
-  it("the ledger's first page arrives with the page (no jump when it loads): rows and totals are there before any script runs", async () => {
+  it("the ledger's first page, the monthly bars and the claims plan arrive with the page: there before any script runs", async () => {
     const context = await browser().newContext(LAPTOP);
     const officer = await context.newPage();
     const signIn = new SignInPage(officer, baseUrl);
@@ -96,6 +96,7 @@ describe("the club console", () => {
     await officer.getByRole("heading", { name: /Club console/ }).waitFor();
     const db = new Database(inject("databaseUrl"), { readonly: true });
     const kept = (db.prepare("select count(*) n from finds where deleted_at is null and kind = 'nugget'").get() as { n: number }).n;
+    const outlined = (db.prepare("select count(*) n from claims where boundary is not null").get() as { n: number }).n;
     db.close();
     // The same session, with scripts off: what the server sent is all there is.
     const plain = await browser().newContext({ ...LAPTOP, javaScriptEnabled: false, storageState: await context.storageState() });
@@ -103,6 +104,18 @@ describe("the club console", () => {
     await page.goto(`${baseUrl}/club/ledger?kind=nugget`);
     expect(await page.getByTestId("total-finds").textContent()).toBe(String(kept));
     expect(await page.getByTestId("ledger-table").locator("tbody tr").count()).toBe(Math.min(kept, 50));
+
+    // The season at a glance is drawn on the server too: the bars with their figures, and the
+    // claims plan with every outlined claim named in text of at least 14 px.
+    await page.goto(`${baseUrl}/club`);
+    const chart = page.getByTestId("production-chart");
+    const monthRows = await chart.locator("tbody tr").count();
+    expect(monthRows).toBeGreaterThan(0);
+    const plan = page.getByTestId("claims-plan");
+    expect(await plan.locator("svg path[fill-rule]").count()).toBe(outlined);
+    const labels = plan.locator("span", { hasText: / fine$/ });
+    expect(await labels.count()).toBe(outlined);
+    for (const size of await labels.evaluateAll((els) => els.map((e) => parseFloat(getComputedStyle(e).fontSize)))) expect(size).toBeGreaterThanOrEqual(14);
     await plain.close();
     await context.close();
   });
