@@ -87,6 +87,7 @@ describe("the club's basemap on its server", () => {
     const whole = await read(member);
     expect(whole.status).toBe(200);
     expect(whole.headers.get("content-length")).toBe(String(archive.bytes.length));
+    expect(whole.headers.get("x-basemap-bytes")).toBe(String(archive.bytes.length));
     expect(whole.headers.get("etag")).toBe(stored.etag);
     expect(whole.headers.get("accept-ranges")).toBe("bytes");
     expect(whole.headers.get("cache-control")).toMatch(/no-store/);

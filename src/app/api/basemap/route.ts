@@ -36,6 +36,9 @@ export const GET = route(async (req) => {
       "Cache-Control": "private, no-store",
       "Content-Disposition": 'attachment; filename="basemap.pmtiles"',
       "X-Content-Type-Options": "nosniff",
+      // Next drops Content-Length from a handler's answer: the archive's size rides here too,
+      // for a device's download progress (Content-Range carries it in a range's answer).
+      "X-Basemap-Bytes": String(info.bytes),
     };
     if (range === "unsatisfiable") {
       await handle.close();
