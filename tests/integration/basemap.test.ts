@@ -3,7 +3,7 @@ import zlib from "node:zlib";
 import fc from "fast-check";
 import { PMTiles, type Source } from "pmtiles";
 import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
-import { DELETE, GET } from "@/app/api/basemap/route";
+import { DELETE, GET, HEAD } from "@/app/api/basemap/route";
 import { GET as INFO } from "@/app/api/basemap/info/route";
 import { GET as STATUS, PUT } from "@/app/api/basemap/upload/route";
 import { basemapPath } from "@/server/basemap/files";
@@ -92,12 +92,20 @@ describe("the club's basemap on its server", () => {
     expect(whole.headers.get("accept-ranges")).toBe("bytes");
     expect(whole.headers.get("cache-control")).toMatch(/no-store/);
     expect(Buffer.from(await whole.arrayBuffer())).toEqual(archive.bytes);
+    const head = await HEAD(req("/api/basemap", { method: "HEAD", cookie: member }), {});
+    expect([head.status, head.headers.get("etag"), head.headers.get("x-basemap-bytes"), head.body]).toEqual([
+      200,
+      stored.etag,
+      String(archive.bytes.length),
+      null,
+    ]);
+    expect((await HEAD(req("/api/basemap", { method: "HEAD" }), {})).status).toBe(401);
 
     // The reader's first request: 16 kB of a smaller archive is what there is (RFC 9110 §14.1.2).
-    const head = await read(member, { range: "bytes=0-16383" });
-    expect(head.status).toBe(206);
-    expect(head.headers.get("content-range")).toBe(`bytes 0-${archive.bytes.length - 1}/${archive.bytes.length}`);
-    expect(Buffer.from(await head.arrayBuffer())).toEqual(archive.bytes);
+    const opening = await read(member, { range: "bytes=0-16383" });
+    expect(opening.status).toBe(206);
+    expect(opening.headers.get("content-range")).toBe(`bytes 0-${archive.bytes.length - 1}/${archive.bytes.length}`);
+    expect(Buffer.from(await opening.arrayBuffer())).toEqual(archive.bytes);
     const middle = await read(member, { range: "bytes=127-226" });
     expect(middle.headers.get("content-length")).toBe("100");
     expect(Buffer.from(await middle.arrayBuffer())).toEqual(archive.bytes.subarray(127, 227));

@@ -109,8 +109,9 @@ async function startAfresh(memberId: string, total: number): Promise<void> {
     const stat = await fs.stat(file).catch(() => null);
     if (name.startsWith(`${memberId}-`) || (stat && now - stat.mtimeMs > PARTIAL_KEEP_MS)) await fs.rm(file, { force: true });
   }
-  const disk = await fs.statfs(dir);
-  const free = disk.bavail * disk.bsize;
+  // A file system that cannot say how much room it has is not checked (the write will say).
+  const disk = await fs.statfs(dir).catch(() => null);
+  const free = disk ? disk.bavail * disk.bsize : Infinity;
   if (free < total + DISK_MARGIN_BYTES)
     throw new AppError("unavailable:disk", `The server has ${Math.floor(free / 1024 / 1024)} MB free: too little for this basemap. Make room first.`, {
       size: ["more than the server's free space"],

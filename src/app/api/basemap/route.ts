@@ -15,7 +15,12 @@ import { requireSameOrigin } from "@/server/origin";
  * Not kept by browsers' HTTP caches: a device keeps its own copy, and the service worker never
  * caches API answers.
  */
-export const GET = route(async (req) => {
+export const GET = route((req) => answer(req, true));
+
+/** The same headers with no body: a HEAD answered by GET would open a stream nobody reads. */
+export const HEAD = route((req) => answer(req, false));
+
+async function answer(req: Request, withBody: boolean): Promise<Response> {
   await requireActor(req, undefined, "basemap");
   const open = await openBasemap();
   if (open.kind === "none") throw new AppError("not_found:basemap", "The club has no basemap yet.");
@@ -49,16 +54,21 @@ export const GET = route(async (req) => {
       });
     }
     const { start, end } = range ?? { start: 0, end: info.bytes - 1 };
-    const stream = handle.createReadStream({ start, end, autoClose: true });
-    return new Response(Readable.toWeb(stream) as ReadableStream<Uint8Array>, {
+    const init = {
       status: range ? 206 : 200,
       headers: { ...headers, "Content-Length": String(end - start + 1), ...(range ? { "Content-Range": `bytes ${start}-${end}/${info.bytes}` } : {}) },
-    });
+    };
+    if (!withBody) {
+      await handle.close();
+      return new Response(null, init);
+    }
+    const stream = handle.createReadStream({ start, end, autoClose: true });
+    return new Response(Readable.toWeb(stream) as ReadableStream<Uint8Array>, init);
   } catch (error) {
     await handle.close();
     throw error;
   }
-});
+}
 
 /** An officer removes the club's basemap. Devices keep their copies until their members remove them. */
 export const DELETE = route(async (req) => {
