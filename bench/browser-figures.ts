@@ -41,9 +41,12 @@ async function firstLoadJs(baseUrl: string, route: string): Promise<{ gzip: numb
 export async function pageWeight(baseUrl: string) {
   const bare = await firstLoadJs(baseUrl, "/about");
   const withMap: string[] = [];
+  const withReader: string[] = [];
   for (const route of MEMBER_SCREENS) {
     const page = await firstLoadJs(baseUrl, route);
     if (page.sources.some((s) => s.includes("maplibregl") || s.includes("MapLibre GL JS"))) withMap.push(route);
+    // A message of the pmtiles package's own, kept by minifiers.
+    if (page.sources.some((s) => s.includes("Wrong magic number for PMTiles archive"))) withReader.push(route);
     const ratio = page.gzip / bare.gzip;
     report(`page weight ${route}`, {
       value: [page.gzip / 1024],
@@ -59,6 +62,12 @@ export async function pageWeight(baseUrl: string) {
     unit: `screens (${withMap.join(", ") || "none"}): it loads with the map screen only`,
     goal: "0",
     pass: withMap.length === 0,
+  });
+  report("PMTiles reader in a first load", {
+    value: [withReader.length],
+    unit: `screens (${withReader.join(", ") || "none"}): it loads with the map screen only`,
+    goal: "0",
+    pass: withReader.length === 0,
   });
 }
 

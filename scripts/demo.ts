@@ -1,6 +1,7 @@
 import path from "node:path";
 import { closeDb, getDb } from "../src/server/db";
 import { hashPassword } from "../src/server/auth/password";
+import { writeDemoBasemap } from "../src/server/seed/demo-basemap";
 import { DEMO_PASSWORDS, seedDemoClub } from "../src/server/seed/demo-club";
 import { DEMO_CLUB, DEMO_PEOPLE } from "../src/server/seed/people";
 import { buildApp, startApp } from "./lib/app-server";
@@ -18,8 +19,11 @@ process.env.LODEBOOK_MAIL_DIR ??= mailDir;
 const seeded = seedDemoClub(getDb(), {
   passwordHashes: { officer: await hashPassword(DEMO_PASSWORDS.officer), member: await hashPassword(DEMO_PASSWORDS.member) },
 });
+// The club's invented basemap, beside the database, made with the club (an officer may replace or remove it).
+const basemapBytes = seeded.seeded ? await writeDemoBasemap() : 0;
 closeDb();
 console.log(seeded.seeded ? `Seeded ${DEMO_CLUB}: ${seeded.finds} finds, ${seeded.weighIns} weigh-ins.` : `${DEMO_CLUB} is already in the database.`);
+if (basemapBytes) console.log(`Wrote its invented basemap (${Math.ceil(basemapBytes / 1024)} kB) beside the database.`);
 
 if (process.env.LODEBOOK_SKIP_BUILD !== "1") await buildApp();
 const mail = await startMailCatcher({ port: Number(process.env.SMTP_PORT), dir: process.env.LODEBOOK_MAIL_DIR });

@@ -1,6 +1,7 @@
 import { parseArgs } from "node:util";
 import { closeDb, getDb } from "../src/server/db";
 import { hashPassword } from "../src/server/auth/password";
+import { writeDemoBasemap } from "../src/server/seed/demo-basemap";
 import { DEMO_PASSWORDS, seedDemoClub } from "../src/server/seed/demo-club";
 import { seedLargeClub } from "../src/server/seed/large-club";
 import { applyLocalDefaults } from "./lib/env";
@@ -16,9 +17,10 @@ if (values.size === "large") {
   const result = seedDemoClub(getDb(), {
     passwordHashes: { officer: await hashPassword(DEMO_PASSWORDS.officer), member: await hashPassword(DEMO_PASSWORDS.member) },
   });
+  const basemapBytes = result.seeded ? await writeDemoBasemap() : 0;
   console.log(
     result.seeded
-      ? `Seeded the demo club: ${result.members} people, ${result.finds} finds, ${result.weighIns} weigh-ins.`
+      ? `Seeded the demo club: ${result.members} people, ${result.finds} finds, ${result.weighIns} weigh-ins, a ${Math.ceil(basemapBytes / 1024)} kB invented basemap.`
       : "The demo club is already there; nothing changed.",
   );
 }

@@ -40,6 +40,8 @@ const envSchema = z.object({
   /** Photo bytes each member may keep on the server, in MB (deleted photos count until purged). */
   LODEBOOK_PHOTO_QUOTA_MB: z.coerce.number().positive().max(1_000_000).default(500),
   LODEBOOK_TOMBSTONE_DAYS: z.coerce.number().positive().default(180),
+  /** The largest basemap (PMTiles archive) an officer may upload, in MB. */
+  LODEBOOK_BASEMAP_MAX_MB: z.coerce.number().positive().max(16_384).default(300),
   LODEBOOK_S3_BUCKET: z.string().min(1).optional(),
   LODEBOOK_S3_REGION: z.string().min(1).default("us-east-1"),
   LODEBOOK_S3_ENDPOINT: z.url().optional(),

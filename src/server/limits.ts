@@ -19,6 +19,8 @@ export const LIMITS = {
   pushPerAccount: { points: 120, duration: 60 },
   pushPerAddress: { points: 240, duration: 60 },
   photoPerAccount: { points: 120, duration: 60 },
+  /** Basemap chunks (4 MB each) from one officer, a minute: 2 GB, far above any real upload. */
+  basemapChunkPerAccount: { points: 500, duration: 60 },
 } as const;
 
 type LimitName = keyof typeof LIMITS;

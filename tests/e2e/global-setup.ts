@@ -49,6 +49,8 @@ export default async function setup(project: TestProject) {
   const { hashPassword } = await import("../../src/server/auth/password");
   const { seedDemoClub, DEMO_PASSWORDS } = await import("../../src/server/seed/demo-club");
   seedDemoClub(getDb(), { passwordHashes: { officer: await hashPassword(DEMO_PASSWORDS.officer), member: await hashPassword(DEMO_PASSWORDS.member) } });
+  const { writeDemoBasemap } = await import("../../src/server/seed/demo-basemap");
+  await writeDemoBasemap();
   closeDb();
 
   if (process.env.LODEBOOK_E2E_SKIP_BUILD !== "1") await buildApp(env);

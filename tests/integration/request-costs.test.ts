@@ -80,6 +80,7 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
         "POST /api/club/recoveries",
         "POST /api/estimate",
         "POST /api/sync/push",
+        "PUT /api/basemap/upload",
         "PUT /api/club/claims/[id]",
         "PUT /api/club/claims/[id]/profile",
         "PUT /api/club/recoveries/[id]/document",
@@ -99,7 +100,10 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
       key
         .split(" ")[1]
         .replace("[id]", isPhoto ? photoId : uuidv7())
-        .replace("[...nextauth]", "callback/credentials") + (isChunk ? "?offset=0" : "");
+        .replace("[...nextauth]", "callback/credentials") +
+      (isChunk ? "?offset=0" : "") +
+      // A basemap chunk names the archive's size: one as large as the hostile body.
+      (key.includes("basemap") ? `&size=${HOSTILE_BYTES}` : "");
     const type = isChunk
       ? "application/octet-stream"
       : isPhoto
@@ -116,7 +120,7 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
     const res = await handler(request, { params: Promise.resolve({ id: isPhoto ? photoId : uuidv7(), nextauth: ["callback", "credentials"] }) });
     expect(res.status).toBeGreaterThanOrEqual(400);
     expect(res.status).toBeLessThan(500);
-    // The largest body any handler accepts is a 4 MB photo; nothing reads far past its limit.
+    // The largest body any handler accepts is 4 MB (a photo, a basemap chunk); nothing reads far past its limit.
     expect(sent()).toBeLessThanOrEqual(4 * 1024 * 1024 + 2 * CHUNK);
   });
 });

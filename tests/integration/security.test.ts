@@ -6,6 +6,8 @@ import { v7 as uuidv7 } from "uuid";
 import { beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { resetLimits } from "@/server/limits";
 import type { Db } from "@/server/db";
+import { basemapPath } from "@/server/basemap/files";
+import { testArchive } from "../support/basemap";
 import { makeJpeg } from "../support/jpeg";
 import { newFind, push } from "../support/sync-client";
 import { discoverHandlers } from "../support/handlers";
@@ -131,6 +133,27 @@ const MATRIX: Record<string, Row> = {
     request: () => ({ id: fixture.photoToRead, url: `/api/photos/${fixture.photoToRead}/upload` }),
   },
   "GET /api/photos/[id]": { expect: { anonymous: 401, member: 200, other: 404, officer: 200 }, request: () => ({ id: fixture.photoToRead }) },
+  // The basemap: any member reads it (put in place before each read, whatever ran before); officers change it.
+  "GET /api/basemap": {
+    expect: SIGNED_IN(200),
+    request: () => {
+      fs.writeFileSync(basemapPath(), testArchive().bytes);
+      return {};
+    },
+  },
+  "GET /api/basemap/info": { expect: SIGNED_IN(200), request: () => ({}) },
+  "DELETE /api/basemap": { expect: OFFICER_ONLY(200), request: () => ({ init: { method: "DELETE" } }) },
+  "PUT /api/basemap/upload": {
+    expect: OFFICER_ONLY(201),
+    request: () => {
+      const { bytes } = testArchive();
+      return {
+        url: `/api/basemap/upload?offset=0&size=${bytes.length}`,
+        init: { method: "PUT", headers: { "content-type": "application/octet-stream" }, body: new Uint8Array(bytes) },
+      };
+    },
+  },
+  "GET /api/basemap/upload": { expect: OFFICER_ONLY(200), request: () => ({ url: "/api/basemap/upload?size=1000" }) },
   "GET /api/club/members": { expect: OFFICER_ONLY(200), request: () => ({}) },
   "PATCH /api/club/members/[id]": { expect: OFFICER_ONLY(200), request: () => ({ id: fixture.bystander, init: json("PATCH", { active: true }) }) },
   "GET /api/club/ledger": { expect: OFFICER_ONLY(200), request: () => ({ url: "/api/club/ledger?pageSize=200" }) },
@@ -219,8 +242,8 @@ describe("authorization matrix (RELIABILITY 23–25, 30)", () => {
       const expected = ([] as number[]).concat(row.expect[role]);
       expect(expected, `${key} as ${role} answered ${res.status}`).toContain(res.status);
       expect(res.status, `${key} as ${role}`).not.toBe(500);
-      // Photos and the officers' database backup are binary by design (the backup is the whole database).
-      const binary = /image|sqlite/.test(res.headers.get("content-type") ?? "");
+      // Photos, the basemap and the officers' database backup are binary by design (the backup is the whole database).
+      const binary = /image|sqlite|pmtiles/.test(res.headers.get("content-type") ?? "");
       const text = binary ? "" : await res.text();
       expect(text).not.toMatch(/password_?hash|\$2[aby]\$\d\d\$/i);
       const theirs = role === "other" ? fixture.memberLat : fixture.otherLat;

@@ -4,7 +4,9 @@ import type { FeatureCollection } from "geojson";
 import { LngLatBounds, Map as MapLibre, Marker, setWorkerUrl, type StyleSpecification } from "maplibre-gl";
 import { useEffect, useRef } from "react";
 import type { LocalFind } from "@/client/device-db";
+import { claimLabelAnchor } from "@/lib/claim-label";
 import type { ClaimView } from "@/lib/entities/claim";
+import { chooseBasemap } from "./map-basemap";
 
 type Props = {
   claims: ClaimView[];
@@ -49,16 +51,13 @@ function gridLines(bounds: LngLatBounds): FeatureCollection {
   return { type: "FeatureCollection", features };
 }
 
-function ringCentre(claim: ClaimView): [number, number] | null {
-  const ring = claim.boundary?.type === "Polygon" ? claim.boundary.coordinates[0] : claim.boundary?.coordinates[0]?.[0];
-  if (!ring?.length) return null;
-  const pts = ring.slice(0, -1);
-  return [pts.reduce((a, p) => a + p[0], 0) / pts.length, pts.reduce((a, p) => a + p[1], 0) / pts.length];
-}
-
 const css = (name: string) => getComputedStyle(document.documentElement).getPropertyValue(name).trim() || "#888";
 
-/** MapLibre with an inline style: needs no tile server, no glyphs, no network. */
+/**
+ * MapLibre with an inline style: needs no tile server, no glyphs, no network. The club's
+ * basemap (kept on the device, else from the server) goes under everything once it is found;
+ * a tile address from Settings draws above it, so with no signal the basemap shows through.
+ */
 export default function MapView({ claims, finds, me, tileUrl, labels, onPick, onOpenFind }: Props) {
   const box = useRef<HTMLDivElement>(null);
   const mapRef = useRef<MapLibre | null>(null);
@@ -141,13 +140,17 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
 
     const map = new MapLibre({ container: box.current, style, bounds: padded, attributionControl: false });
     mapRef.current = map;
+    // Names are HTML, not a symbol layer: the style carries no glyphs, which would need a
+    // network. Each hangs above its claim's northern edge (never over its finds) and lets
+    // taps through to the map.
     const markers = claims.flatMap((c) => {
-      const centre = ringCentre(c);
-      if (!centre) return [];
+      const anchor = claimLabelAnchor(c.boundary);
+      if (!anchor) return [];
       const el = document.createElement("div");
-      el.className = "rounded bg-sheet px-1 text-xs font-bold text-ink shadow";
+      el.className = "pointer-events-none whitespace-nowrap rounded bg-sheet px-1 text-sm font-bold text-ink shadow";
+      el.dataset.claimLabel = c.id;
       el.textContent = labels?.[c.id] ?? c.name;
-      return [new Marker({ element: el }).setLngLat(centre).addTo(map)];
+      return [new Marker({ element: el, anchor: "bottom", offset: [0, -3] }).setLngLat(anchor).addTo(map)];
     });
     map.on("click", (e) => {
       const hit = map.queryRenderedFeatures(e.point, { layers: ["finds"] })[0];
@@ -157,7 +160,27 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
       handlers.current.onPick?.(e.lngLat.lat, e.lngLat.lng);
     });
     map.on("load", () => box.current?.setAttribute("data-map-ready", "true"));
+    let live = true;
+    box.current.removeAttribute("data-basemap");
+    box.current.removeAttribute("data-basemap-tiles");
+    const loaded = new Promise<void>((resolve) => (map.loaded() ? resolve() : map.once("load", () => resolve())));
+    void Promise.all([chooseBasemap(), loaded])
+      .then(([basemap]) => {
+        if (!live || !basemap) return;
+        map.addSource("basemap", { type: "raster", url: basemap.url, tileSize: 256 });
+        map.addLayer({ id: "basemap", type: "raster", source: "basemap" }, tileUrl ? "tiles" : "grid");
+        // For tests and the curious: which basemap drew, once its tiles have.
+        let tiles = 0;
+        map.on("sourcedata", (e) => {
+          if (e.sourceId !== "basemap" || !e.tile) return;
+          box.current?.setAttribute("data-basemap", basemap.kind);
+          box.current?.setAttribute("data-basemap-tiles", String(++tiles));
+        });
+      })
+      // Without its basemap the map is still whole: outlines, finds and grid on paper.
+      .catch((error: unknown) => console.warn("basemap not shown", error));
     return () => {
+      live = false;
       markers.forEach((m) => m.remove());
       map.remove();
       mapRef.current = null;

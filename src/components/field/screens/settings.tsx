@@ -1,12 +1,15 @@
 "use client";
 import Link from "next/link";
-import { useEffect, useState } from "react";
+import { lazy, Suspense, useEffect, useState } from "react";
 import { useSettings } from "@/client/hooks";
 import { useMember } from "@/client/member";
 import { saveSettings, type MemberSettings } from "@/client/settings";
 import { requestSync } from "@/client/sync/scheduler";
 import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import { MASS_UNIT_LABELS, MASS_UNITS } from "@/lib/estimate/units";
+
+// The basemap's download part loads on its own: Settings' first view does not need it.
+const BasemapOffline = lazy(() => import("../basemap-offline"));
 
 type StorageState = { persisted: boolean | null; usage: number | null; quota: number | null };
 
@@ -16,12 +19,12 @@ async function readStorage(): Promise<StorageState> {
   return { persisted, usage: est?.usage ?? null, quota: est?.quota ?? null };
 }
 
-function StorageBlock() {
+function StorageBlock({ basemapBytes }: { basemapBytes: number | null }) {
   const [state, setState] = useState<StorageState>({ persisted: null, usage: null, quota: null });
   const refresh = () => readStorage().then(setState);
   useEffect(() => {
     readStorage().then(setState);
-  }, []);
+  }, [basemapBytes]);
   const mb = (n: number | null) => (n === null ? "unknown" : `${(n / 1024 / 1024).toFixed(1)} MB`);
   return (
     <section className="sheet flex flex-col gap-2" aria-labelledby="storage-title">
@@ -33,7 +36,7 @@ function StorageBlock() {
         data matters. Asking for <strong>lasting storage</strong> tells it so.
       </p>
       <p data-testid="storage-used">
-        Using {mb(state.usage)} of {mb(state.quota)} available.
+        Using {mb(state.usage)} of {mb(state.quota)} available{basemapBytes !== null && <>, of which the offline basemap {mb(basemapBytes)}</>}.
       </p>
       <p className="font-bold" data-testid="storage-persisted">
         {state.persisted
@@ -62,6 +65,7 @@ export function SettingsScreen() {
   const { db } = useMember();
   const settings = useSettings(db);
   const [saved, setSaved] = useState(false);
+  const [basemapBytes, setBasemapBytes] = useState<number | null>(null);
   const change = async (changes: Partial<MemberSettings>) => {
     await saveSettings(db, changes);
     setSaved(true);
@@ -140,8 +144,11 @@ export function SettingsScreen() {
         <p className="text-sm text-ink-soft">
           The map works without tiles: claims, finds and a coordinate grid. Add a tile address only if you have one you may use.
         </p>
+        <Suspense fallback={<p className="text-ink-soft">Loading the basemap&apos;s part…</p>}>
+          <BasemapOffline onStored={setBasemapBytes} />
+        </Suspense>
       </section>
-      <StorageBlock />
+      <StorageBlock basemapBytes={basemapBytes} />
       {saved && (
         <p role="status" className="font-bold text-moss">
           Saved on this device.

@@ -1,7 +1,10 @@
 import type { Metadata } from "next";
+import { BasemapUpload } from "@/components/club/basemap-upload";
 import { ClaimSection } from "@/components/club/claim-section";
 import { ClaimsMap } from "@/components/club/claims-map";
 import { requirePageActor } from "@/server/auth/current";
+import { describeBasemap } from "@/server/basemap/archive-file";
+import { maxBasemapBytes } from "@/server/basemap/files";
 import { listClaims } from "@/server/club/claims";
 import { clubSettings } from "@/server/club/settings";
 import { seasonNow } from "@/lib/season";
@@ -12,10 +15,12 @@ export default async function ClaimsPage() {
   await requirePageActor("manageClaims", "/club/claims");
   const claims = listClaims();
   const season = seasonNow(clubSettings().timeZone);
+  const basemap = await describeBasemap();
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Claims</h1>
       <ClaimsMap claims={claims} labels={Object.fromEntries(claims.map((c) => [c.id, c.name]))} />
+      <BasemapUpload initial={basemap.info} problem={basemap.problem} maxBytes={maxBasemapBytes()} />
       {claims.map((c) => (
         <ClaimSection
           key={c.id}

@@ -1,0 +1,117 @@
+import fs from "node:fs";
+import { afterAll, describe, expect, inject, it } from "vitest";
+import { makeDemoBasemap } from "@/server/seed/demo-basemap";
+import { launchPersistent, LAPTOP, PHONE, shotPath } from "./support/browser";
+import { firstPage, signInToField, waitForSyncDone } from "./support/field";
+import { DEMO, SignInPage } from "./support/pages";
+
+const baseUrl = inject("baseUrl");
+const dirs: string[] = [];
+afterAll(() => dirs.forEach((d) => fs.rmSync(d, { recursive: true, force: true })));
+
+/** The map, once its basemap of the given kind has drawn tiles. */
+async function mapWithBasemap(page: import("playwright-core").Page, kind: "offline" | "online") {
+  const map = page.locator(`[data-testid=map][data-map-ready][data-basemap="${kind}"]`);
+  await map.waitFor({ timeout: 30_000 });
+  expect(Number(await map.getAttribute("data-basemap-tiles"))).toBeGreaterThan(0);
+  return map;
+}
+
+describe("the club's basemap on the phone (issue 19)", () => {
+  it("a member keeps the basemap on the phone, and the map draws the ground with no signal", async () => {
+    const { context, userDataDir } = await launchPersistent(undefined, PHONE);
+    dirs.push(userDataDir);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await waitForSyncDone(page);
+
+    // With signal and nothing kept: the map reads the club's server.
+    await page.goto(`${baseUrl}/map`);
+    await mapWithBasemap(page, "online");
+
+    // Settings: the size before, progress while it comes, then counted in the storage line.
+    await page.goto(`${baseUrl}/settings`);
+    const section = page.getByTestId("basemap-section");
+    const keep = section.getByRole("button", { name: /^Keep the basemap on this device \(0\.[1-9] MB\)$/ });
+    await keep.waitFor();
+    const size = (await keep.textContent())!.match(/\((.+)\)/)![1];
+    await page.screenshot({ path: shotPath("basemap-settings-before-phone"), fullPage: true });
+    await keep.click();
+    await section.getByText("Kept on this device. The map shows the ground with no signal.").waitFor();
+    expect(await section.getByTestId("basemap-stored").textContent()).toMatch(new RegExp(`^On this device: ${size}, kept .+, the club's latest\\.$`));
+    await page
+      .getByTestId("storage-used")
+      .filter({ hasText: `of which the offline basemap ${size}.` })
+      .waitFor();
+
+    // No signal from here on: the map draws the kept copy.
+    await context.setOffline(true);
+    await page.goto(`${baseUrl}/map`);
+    const map = await mapWithBasemap(page, "offline");
+    // Claim names: at least 14 px, hung above their claims, never taking taps from the map.
+    const labels = map.locator("[data-claim-label]");
+    expect(await labels.count()).toBe(4);
+    for (const style of await labels.evaluateAll((els) => els.map((el) => getComputedStyle(el)))) {
+      expect(parseFloat(style.fontSize)).toBeGreaterThanOrEqual(14);
+      expect(style.pointerEvents).toBe("none");
+    }
+    await page.screenshot({ path: shotPath("basemap-map-offline-phone"), fullPage: true });
+    await map.screenshot({ path: shotPath("basemap-map-offline-phone-map") });
+    await context.close();
+  });
+
+  it("an officer replaces the basemap in the console; the member's phone says a newer one is there, fetches it or removes its copy", async () => {
+    const officer = await launchPersistent(undefined, LAPTOP);
+    dirs.push(officer.userDataDir);
+    const desk = await firstPage(officer.context);
+    const signIn = new SignInPage(desk, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await desk.getByRole("heading", { name: /Club console/ }).waitFor();
+    await desk.goto(`${baseUrl}/club/claims`);
+    const console_ = desk.getByTestId("basemap-upload");
+    expect(await console_.getByTestId("basemap-current").textContent()).toMatch(/In place: \d+ kB, PNG tiles at zoom 12–15/);
+
+    // A wrong file is refused with its field named, and the basemap in place stays.
+    await console_.getByLabel("PMTiles archive").setInputFiles({ name: "ground.pmtiles", mimeType: "application/octet-stream", buffer: Buffer.alloc(4000, 7) });
+    await console_.getByRole("button", { name: "Replace the basemap" }).click();
+    await console_.getByRole("alert").filter({ hasText: "its magic does not start with" }).waitFor();
+
+    const phone = await launchPersistent(undefined, PHONE);
+    dirs.push(phone.userDataDir);
+    const page = await firstPage(phone.context);
+    await signInToField(page, baseUrl);
+    await page.goto(`${baseUrl}/settings`);
+    const section = page.getByTestId("basemap-section");
+    await section.getByRole("button", { name: /^Keep the basemap on this device/ }).click();
+    await section.getByTestId("basemap-stored").waitFor();
+
+    // Zoom 12–14 only: another archive of the same ground.
+    await console_
+      .getByLabel("PMTiles archive")
+      .setInputFiles({ name: "ground.pmtiles", mimeType: "application/octet-stream", buffer: makeDemoBasemap([12, 13, 14]) });
+    await console_.getByRole("button", { name: "Replace the basemap" }).click();
+    await console_.getByRole("status").filter({ hasText: "The basemap is in place." }).waitFor();
+    expect(await console_.getByTestId("basemap-current").textContent()).toMatch(/zoom 12–14/);
+    await desk.screenshot({ path: shotPath("basemap-console-laptop"), fullPage: true });
+
+    await page.reload();
+    await section.getByTestId("basemap-newer").waitFor();
+    await page.screenshot({ path: shotPath("basemap-settings-newer-phone"), fullPage: true });
+    await section.getByRole("button", { name: /^Get the newer basemap/ }).click();
+    await section.getByText("Kept on this device.").waitFor();
+    expect(await section.getByTestId("basemap-newer").count()).toBe(0);
+
+    await section.getByRole("button", { name: "Remove it from this device" }).click();
+    await section.getByText(/Removed from this device/).waitFor();
+    expect(await section.getByTestId("basemap-stored").count()).toBe(0);
+    expect(await page.getByTestId("storage-used").textContent()).not.toMatch(/basemap/);
+
+    // Put the demo's own basemap back for the files that follow.
+    await console_.getByLabel("PMTiles archive").setInputFiles({ name: "ground.pmtiles", mimeType: "application/octet-stream", buffer: makeDemoBasemap() });
+    await console_.getByRole("button", { name: "Replace the basemap" }).click();
+    await console_.getByTestId("basemap-current").filter({ hasText: "zoom 12–15" }).waitFor();
+    await officer.context.close();
+    await phone.context.close();
+  });
+});
