@@ -57,6 +57,13 @@ describe("PMTiles v3 header and directory checks", () => {
       { tileId: 9, runLength: 0, length: 40, offset: 100 },
     ]);
     expect(() => decodeDirectory(Uint8Array.from([3, 1, 1]))).toThrow(RangeError);
+    // A hostile count (8.4 million entries) over a few kilobytes of zeros is refused before any
+    // entry is made, not decoded into hundreds of megabytes.
+    const hostile = new Uint8Array(8192);
+    hostile.set([0x80, 0x80, 0x80, 0x04]);
+    expect(() => decodeDirectory(hostile)).toThrow(/more entries than it has bytes/);
+    // Four bytes an entry is the least there can be: exactly that is read.
+    expect(decodeDirectory(Uint8Array.from([1, 7, 1, 3, 1]))).toEqual([{ tileId: 7, runLength: 1, length: 3, offset: 0 }]);
     expect(() => decodeDirectory(Uint8Array.from([200, 1]))).toThrow(RangeError);
   });
 

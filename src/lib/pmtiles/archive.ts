@@ -156,8 +156,10 @@ function readVarint(bytes: Uint8Array, pos: { at: number }): number {
 export function decodeDirectory(bytes: Uint8Array): DirectoryEntry[] {
   const pos = { at: 0 };
   const count = readVarint(bytes, pos);
-  // Each entry takes at least four bytes: a count beyond that is a corrupt directory.
-  if (count > bytes.length) throw new RangeError("directory claims more entries than it has bytes");
+  // Each entry takes at least four bytes (four numbers of at least one byte each): a count
+  // beyond what the bytes left can hold is a corrupt or hostile directory, refused before any
+  // entry is made.
+  if (count * 4 > bytes.length - pos.at) throw new RangeError("directory claims more entries than it has bytes");
   const entries: DirectoryEntry[] = [];
   let tileId = 0;
   for (let i = 0; i < count; i++) {

@@ -14,8 +14,12 @@ import {
 
 export type Inspection = { ok: true; header: ArchiveHeader } | { ok: false; problem: ArchiveProblem };
 
-/** Directories and metadata of a raster archive are small; more than this unpacked is not a basemap. */
-const MAX_UNPACKED_BYTES = 8 * 1024 * 1024;
+/**
+ * A root directory is at most 16 kB packed (spec §3); unpacked, a few times that. 512 kB (32
+ * times) is ample, and bounds what a hostile file can make the server decode: at four bytes an
+ * entry at least, 131 072 entries.
+ */
+const MAX_UNPACKED_BYTES = 512 * 1024;
 const MAX_METADATA_BYTES = 1024 * 1024;
 
 async function readAt(handle: FileHandle, offset: number, length: number): Promise<Uint8Array> {
@@ -24,9 +28,9 @@ async function readAt(handle: FileHandle, offset: number, length: number): Promi
   return buffer.subarray(0, bytesRead);
 }
 
-function unpack(bytes: Uint8Array, compression: number): Uint8Array {
+function unpack(bytes: Uint8Array, compression: number, limit = MAX_UNPACKED_BYTES): Uint8Array {
   if (compression !== COMPRESSION.gzip) return bytes;
-  return zlib.gunzipSync(bytes, { maxOutputLength: MAX_UNPACKED_BYTES });
+  return zlib.gunzipSync(bytes, { maxOutputLength: limit });
 }
 
 /** The header alone, from an archive's first bytes (an upload checks it as soon as they arrive). */
@@ -62,7 +66,7 @@ export async function inspectArchive(handle: FileHandle, size: number): Promise<
   if (header.metadataLength > 0 && header.metadataLength <= MAX_METADATA_BYTES) {
     try {
       const text = new TextDecoder("utf-8", { fatal: true }).decode(
-        unpack(await readAt(handle, header.metadataOffset, header.metadataLength), header.internalCompression),
+        unpack(await readAt(handle, header.metadataOffset, header.metadataLength), header.internalCompression, MAX_METADATA_BYTES),
       );
       const meta: unknown = JSON.parse(text);
       if (typeof meta !== "object" || meta === null || Array.isArray(meta)) return problem("metadata", "is not a JSON object");
