@@ -1,5 +1,6 @@
 "use client";
 import { useRef, useState } from "react";
+import { formatWhen } from "@/lib/format";
 import { api, ApiError } from "./api";
 
 export type BasemapFacts = { bytes: number; etag: string; updatedAt: string; minZoom: number; maxZoom: number; tileType: string };
@@ -28,7 +29,23 @@ async function sendChunk(file: File, offset: number, signal: AbortSignal): Promi
  * The club's basemap in the console: what is there, uploading a PMTiles archive in chunks with
  * progress (going on from where a dropped link stopped), and removing it.
  */
-export function BasemapUpload({ initial, problem, maxBytes }: { initial: BasemapFacts | null; problem: Problem | null; maxBytes: number }) {
+/**
+ * `initialSince` is the basemap's date as the page wrote it on the server, in the club's zone:
+ * the same text renders and hydrates. A basemap uploaded here is dated in the browser.
+ */
+export function BasemapUpload({
+  initial,
+  initialSince,
+  timeZone,
+  problem,
+  maxBytes,
+}: {
+  initial: BasemapFacts | null;
+  initialSince: string;
+  timeZone: string;
+  problem: Problem | null;
+  maxBytes: number;
+}) {
   const [current, setCurrent] = useState(initial);
   const [shownProblem, setShownProblem] = useState(problem);
   const [file, setFile] = useState<File | null>(null);
@@ -99,7 +116,7 @@ export function BasemapUpload({ initial, problem, maxBytes }: { initial: Basemap
       </p>
       <p data-testid="basemap-current">
         {current
-          ? `In place: ${size(current.bytes)}, ${current.tileType.toUpperCase()} tiles at zoom ${current.minZoom}–${current.maxZoom}, since ${new Date(current.updatedAt).toLocaleString()}.`
+          ? `In place: ${size(current.bytes)}, ${current.tileType.toUpperCase()} tiles at zoom ${current.minZoom}–${current.maxZoom}, since ${current === initial ? initialSince : formatWhen(Date.parse(current.updatedAt), timeZone)}.`
           : "No basemap yet: members' maps show the claims on plain paper."}
       </p>
       {shownProblem && (

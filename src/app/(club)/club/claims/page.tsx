@@ -7,6 +7,7 @@ import { describeBasemap } from "@/server/basemap/archive-file";
 import { maxBasemapBytes } from "@/server/basemap/files";
 import { listClaims } from "@/server/club/claims";
 import { clubSettings } from "@/server/club/settings";
+import { formatWhen } from "@/lib/format";
 import { seasonNow } from "@/lib/season";
 
 export const metadata: Metadata = { title: "Claims" };
@@ -14,13 +15,20 @@ export const metadata: Metadata = { title: "Claims" };
 export default async function ClaimsPage() {
   await requirePageActor("manageClaims", "/club/claims");
   const claims = listClaims();
-  const season = seasonNow(clubSettings().timeZone);
+  const { timeZone } = clubSettings();
+  const season = seasonNow(timeZone);
   const basemap = await describeBasemap();
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Claims</h1>
       <ClaimsMap claims={claims} labels={Object.fromEntries(claims.map((c) => [c.id, c.name]))} />
-      <BasemapUpload initial={basemap.info} problem={basemap.problem} maxBytes={maxBasemapBytes()} />
+      <BasemapUpload
+        initial={basemap.info}
+        initialSince={basemap.info ? formatWhen(Date.parse(basemap.info.updatedAt), timeZone) : ""}
+        timeZone={timeZone}
+        problem={basemap.problem}
+        maxBytes={maxBasemapBytes()}
+      />
       {claims.map((c) => (
         <ClaimSection
           key={c.id}
