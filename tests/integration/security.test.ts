@@ -141,6 +141,13 @@ const MATRIX: Record<string, Row> = {
       return {};
     },
   },
+  "HEAD /api/basemap": {
+    expect: SIGNED_IN(200),
+    request: () => {
+      fs.writeFileSync(basemapPath(), testArchive().bytes);
+      return { init: { method: "HEAD" } };
+    },
+  },
   "GET /api/basemap/info": { expect: SIGNED_IN(200), request: () => ({}) },
   "DELETE /api/basemap": { expect: OFFICER_ONLY(200), request: () => ({ init: { method: "DELETE" } }) },
   "PUT /api/basemap/upload": {

@@ -14,7 +14,7 @@ export function discoverHandlers(): { key: string; file: string; method: string 
       else if (e.name === "route.ts") {
         const src = fs.readFileSync(full, "utf8");
         const route = "/api/" + path.relative(root, dir).split(path.sep).join("/");
-        for (const m of ["GET", "POST", "PUT", "PATCH", "DELETE"])
+        for (const m of ["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"])
           if (new RegExp(`export const (\\{[^}]*\\b${m}\\b[^}]*\\}|${m}\\b)`).test(src)) out.push({ key: `${m} ${route}`, file: full, method: m });
       }
     }
