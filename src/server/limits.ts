@@ -21,6 +21,8 @@ export const LIMITS = {
   photoPerAccount: { points: 120, duration: 60 },
   /** Basemap chunks (4 MB each) from one officer, a minute: 2 GB, far above any real upload. */
   basemapChunkPerAccount: { points: 500, duration: 60 },
+  /** Whole-basemap downloads (up to 300 MB each) by one member, an hour: a phone keeps one copy; this leaves room for retries. Ranges (tiles) are not counted. */
+  basemapWholePerAccount: { points: 10, duration: 3600 },
 } as const;
 
 type LimitName = keyof typeof LIMITS;

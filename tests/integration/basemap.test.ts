@@ -119,6 +119,22 @@ describe("the club's basemap on its server", () => {
     expect((await read(member, { range: "bytes=0-9", "if-range": stored.etag })).status).toBe(206);
   });
 
+  it("counts a member's whole downloads (ten an hour), never the ranges a map reads", async () => {
+    expect((await upload(testArchive().bytes)).body.complete).toBe(true);
+    for (let i = 0; i < 10; i++) {
+      const res = await read(member);
+      expect(res.status).toBe(200);
+      await res.body?.cancel();
+    }
+    const over = await read(member);
+    expect(over.status).toBe(429);
+    expect(over.headers.get("retry-after")).toMatch(/^\d+$/);
+    const range = await read(member, { range: "bytes=0-126" });
+    expect(range.status).toBe(206);
+    await range.body?.cancel();
+    expect((await read(officer)).status).toBe(200); // another account's count is its own
+  });
+
   it("serves every tile to the pmtiles reader through range requests", async () => {
     expect((await upload(archive.bytes)).status).toBe(201);
     const source: Source = {

@@ -7,6 +7,7 @@ import { removeBasemap } from "@/server/basemap/upload";
 import { getDb } from "@/server/db";
 import { AppError } from "@/server/errors";
 import { json, route } from "@/server/http";
+import { spend } from "@/server/limits";
 import { requireSameOrigin } from "@/server/origin";
 
 /**
@@ -21,7 +22,8 @@ export const GET = route((req) => answer(req, true));
 export const HEAD = route((req) => answer(req, false));
 
 async function answer(req: Request, withBody: boolean): Promise<Response> {
-  await requireActor(req, undefined, "basemap");
+  const actor = await requireActor(req, undefined, "basemap");
+  if (withBody && !req.headers.get("range")) await spend([["basemapWholePerAccount", actor.id]]);
   const open = await openBasemap();
   if (open.kind === "none") throw new AppError("not_found:basemap", "The club has no basemap yet.");
   if (open.kind === "refused") {
