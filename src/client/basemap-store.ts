@@ -73,13 +73,21 @@ export async function downloadBasemap(onProgress: (received: number, total: numb
   const estimate = await navigator.storage?.estimate?.();
   if (estimate?.quota !== undefined && estimate.usage !== undefined && estimate.quota - estimate.usage < total * 1.1)
     throw new BasemapError(`This device has ${mb(estimate.quota - estimate.usage)} free for Lodebook; the basemap needs ${mb(total)}.`);
+  // A captive portal's page or a proxy's error is not a basemap: refused before anything is kept.
+  if (!(res.headers.get("content-type") ?? "").startsWith("application/vnd.pmtiles"))
+    throw new BasemapError("What arrived is not the club's basemap (a sign-in page of the network?). The copy kept before, if any, is unchanged.");
   let received = 0;
   const counted = res.body.pipeThrough(
     new TransformStream<Uint8Array, Uint8Array>({
       transform(chunk, out) {
+        if (received === 0 && chunk.byteLength >= 7 && new TextDecoder().decode(chunk.subarray(0, 7)) !== "PMTiles") throw new Error("not a PMTiles archive");
         received += chunk.byteLength;
         onProgress(received, total);
         out.enqueue(chunk);
+      },
+      // A body that ends short fails the stream, so the cache never replaces the copy it holds.
+      flush() {
+        if (total > 0 && received !== total) throw new Error(`only ${received} of ${total} bytes arrived`);
       },
     }),
   );
@@ -97,10 +105,6 @@ export async function downloadBasemap(onProgress: (received: number, total: numb
     throw new BasemapError(
       `The download stopped at ${mb(received)} of ${mb(total)} (${error instanceof Error ? error.message : "the link dropped"}). Try again.`,
     );
-  }
-  if (total > 0 && received !== total) {
-    await cache.delete(KEY);
-    throw new BasemapError(`Only ${mb(received)} of ${mb(total)} arrived. Try again.`);
   }
   return stored;
 }
