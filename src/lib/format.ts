@@ -35,9 +35,11 @@ export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGram
 }
 
 /**
- * Every date and time shown goes through these two, in the viewer's locale (Intl's medium date:
- * "3 Dec 2026", "Dec 3, 2026", "03.12.2026"), on the device's clock or in a given zone (the
- * club's). Machine-readable dates (CSV, file names, `<time dateTime>`) stay ISO 8601.
+ * Every date and time shown goes through these two, in Intl's medium date ("3 Dec 2026",
+ * "Dec 3, 2026", "03.12.2026") of the given locale, else the runtime's: the member's own on
+ * the phone, the server's on console pages it writes (in the club's zone, so the text the
+ * server renders is the text that hydrates). Machine-readable dates (CSV, file names,
+ * `<time dateTime>`) stay ISO 8601.
  */
 export function formatDay(ms: number, timeZone?: string, locale?: string): string {
   return new Date(ms).toLocaleDateString(locale, { dateStyle: "medium", timeZone });

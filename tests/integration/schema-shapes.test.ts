@@ -10,6 +10,9 @@ import { outingSchema } from "@/lib/entities/outing";
 import { photoSchema } from "@/lib/entities/photo";
 import { scaleSchema } from "@/lib/entities/scale";
 import { weighInSchema } from "@/lib/entities/weigh-in";
+import { REVIEW_STATES } from "@/lib/club/ledger";
+import { FINENESS_USED_BASES, LOCATION_SHARING, RECOVERY_KINDS, REVIEW_ACTIONS, ROYALTY_KINDS } from "@/lib/entities/constants";
+import { ROLES } from "@/lib/roles";
 import * as t from "@/server/db/schema";
 
 // A record's shape is written twice, on purpose: the zod entity in src/lib (shared with the
@@ -66,8 +69,14 @@ describe("entity schemas and database tables", () => {
     expect(looser.sort(), JSON.stringify(looser)).toEqual(LOOSER_COLUMNS);
   });
 
-  it("the review state, roles and claim kinds are one list each", () => {
-    expect(t.finds.reviewState.enumValues).toEqual(["new", "verified", "queried", "answered"]);
-    expect(t.members.role.enumValues).toEqual(t.invitations.role.enumValues);
+  it("tables that are no entity's take their lists from src/lib too", () => {
+    expect(t.finds.reviewState.enumValues).toEqual([...REVIEW_STATES]);
+    expect(t.members.role.enumValues).toEqual([...ROLES]);
+    expect(t.invitations.role.enumValues).toEqual([...ROLES]);
+    expect(t.members.locationSharing.enumValues).toEqual([...LOCATION_SHARING]);
+    expect(t.reviews.action.enumValues).toEqual([...REVIEW_ACTIONS]);
+    expect(t.recoveries.kind.enumValues).toEqual([...RECOVERY_KINDS]);
+    expect(t.claims.royaltyKind.enumValues).toEqual([...ROYALTY_KINDS]);
+    expect(t.finds.finenessUsedBasis.enumValues).toEqual([...FINENESS_USED_BASES]);
   });
 });

@@ -41,7 +41,7 @@ export function ProductionChart({ months: rows }: { months: MonthlyProduction[] 
                   aria-hidden="true"
                 >
                   {series.map((s, k) =>
-                    s.values[i] > 0 ? <div key={s.name} style={{ height: `${(s.values[i] / sum) * 100}%`, background: colour(k) }} /> : null,
+                    s.values[i] > 0 ? <div key={s.id} style={{ height: `${(s.values[i] / sum) * 100}%`, background: colour(k) }} /> : null,
                   )}
                 </div>
               );
@@ -59,7 +59,7 @@ export function ProductionChart({ months: rows }: { months: MonthlyProduction[] 
       <figcaption className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
         <span className="text-ink-soft">Grams of fine gold (estimated), {formatGrams(total)} in all:</span>
         {series.map((s, k) => (
-          <span key={s.name} className="flex items-center gap-1">
+          <span key={s.id} className="flex items-center gap-1">
             <span className="inline-block size-3 rounded-sm" style={{ background: colour(k) }} aria-hidden="true" />
             {s.name}
           </span>
@@ -73,7 +73,7 @@ export function ProductionChart({ months: rows }: { months: MonthlyProduction[] 
               <tr className="border-b-2 border-rule">
                 <th className="py-1 pr-3">Month</th>
                 {series.map((s) => (
-                  <th key={s.name} className="py-1 pr-3 text-right">
+                  <th key={s.id} className="py-1 pr-3 text-right">
                     {s.name}
                   </th>
                 ))}
@@ -84,7 +84,7 @@ export function ProductionChart({ months: rows }: { months: MonthlyProduction[] 
                 <tr key={month} className="border-b border-rule">
                   <th className="py-1 pr-3 font-normal">{formatMonth(month)}</th>
                   {series.map((s) => (
-                    <td key={s.name} className="figure py-1 pr-3 text-right">
+                    <td key={s.id} className="figure py-1 pr-3 text-right">
                       {formatGrams(s.values[i])}
                     </td>
                   ))}

@@ -2,15 +2,23 @@ import { describe, expect, it } from "vitest";
 import { monthBars } from "./month-bars";
 import { NO_TOTALS } from "./totals";
 
-const row = (month: string, claimName: string | null, fineGrams: number) => ({ ...NO_TOTALS, month, claimId: claimName, claimName, fineGrams });
+const row = (month: string, claimName: string | null, fineGrams: number, claimId = claimName) => ({ ...NO_TOTALS, month, claimId, claimName, fineGrams });
 
 describe("fine gold per month, stacked by claim", () => {
   it("sums each claim's rows per month, months in order, off-claim finds named", () => {
     const bars = monthBars([row("2026-06", "Larkspur", 2), row("2026-05", "Larkspur", 1.5), row("2026-06", null, 0.25), row("2026-06", "Larkspur", 1)]);
     expect(bars.months).toEqual(["2026-05", "2026-06"]);
     expect(bars.series).toEqual([
-      { name: "Larkspur", values: [1.5, 3] },
-      { name: "Off-claim", values: [0, 0.25] },
+      { id: "Larkspur", name: "Larkspur", values: [1.5, 3] },
+      { id: "", name: "Off-claim", values: [0, 0.25] },
+    ]);
+  });
+
+  it("keeps two claims of the same name apart", () => {
+    const bars = monthBars([row("2026-06", "Bench", 1, "c1"), row("2026-06", "Bench", 2, "c2")]);
+    expect(bars.series.map((s) => [s.id, s.values[0]])).toEqual([
+      ["c1", 1],
+      ["c2", 2],
     ]);
   });
 

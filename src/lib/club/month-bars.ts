@@ -2,7 +2,7 @@ import type { MonthlyProduction } from "./production";
 
 export type MonthBars = {
   months: string[];
-  series: { name: string; values: number[] }[];
+  series: { id: string; name: string; values: number[] }[];
   /** The top of the scale and its gridlines, in grams: round numbers above the tallest month. */
   top: number;
   ticks: number[];
@@ -20,10 +20,12 @@ function niceStep(max: number, count: number): number {
 /** Fine gold per month stacked by claim, in months' order, with a scale of round gridlines. */
 export function monthBars(rows: MonthlyProduction[], gridlines = 4): MonthBars {
   const months = [...new Set(rows.map((m) => m.month))].sort();
-  const names = [...new Set(rows.map((m) => m.claimName ?? OFF_CLAIM))];
-  const series = names.map((name) => ({
-    name,
-    values: months.map((month) => rows.filter((m) => m.month === month && (m.claimName ?? OFF_CLAIM) === name).reduce((n, m) => n + m.fineGrams, 0)),
+  // One series per claim (by id: two claims may share a name), named by the claim.
+  const ids = [...new Set(rows.map((m) => m.claimId))];
+  const series = ids.map((id) => ({
+    id: id ?? "",
+    name: rows.find((m) => m.claimId === id)?.claimName ?? OFF_CLAIM,
+    values: months.map((month) => rows.filter((m) => m.month === month && m.claimId === id).reduce((n, m) => n + m.fineGrams, 0)),
   }));
   const tallest = Math.max(0, ...months.map((_, i) => series.reduce((n, s) => n + s.values[i], 0)));
   if (tallest <= 0) return { months, series, top: 0, ticks: [] };

@@ -94,6 +94,18 @@ describe("claim outlines on a flat plan", () => {
     expect([10, 20, 50, 100, 200, 500, 1000, 2000, 5000]).toContain(plan.scale!.metres);
   });
 
+  it("lays out more positions than a function call can take as arguments", () => {
+    // 80 claims at the 2000-position limit each: 160 000 positions.
+    const ring = Array.from({ length: 1999 }, (_, i) => [10 + 0.01 * Math.cos((i / 1999) * 2 * Math.PI), 45 + 0.01 * Math.sin((i / 1999) * 2 * Math.PI)]);
+    const claims = Array.from({ length: 80 }, (_, i) => ({
+      id: `c${i}`,
+      boundary: { type: "Polygon" as const, coordinates: [[...ring.map(([x, y]) => [x + i * 0.03, y]), [ring[0][0] + i * 0.03, ring[0][1]]]] },
+    }));
+    const plan = planOutlines(claims);
+    expect(plan.claims).toHaveLength(80);
+    expect(plan.claims.every((c) => Number.isFinite(c.label.x) && Number.isFinite(c.label.y))).toBe(true);
+  });
+
   it("has nothing to draw without outlines", () => {
     expect(planOutlines([{ id: "a", boundary: null }]).claims).toEqual([]);
   });

@@ -54,11 +54,17 @@ export function planOutlines(claims: { id: string; boundary: Polygon | null }[],
   const drawn = claims.filter((c): c is { id: string; boundary: Polygon } => c.boundary !== null && ringsOf(c.boundary).some((r) => r.length > 0));
   if (drawn.length === 0) return { width, height: Math.round(width / 2), claims: [], scale: null };
   const all = drawn.flatMap((c) => ringsOf(c.boundary).flat());
-  const lats = all.map((p) => p[1]);
-  const meanLat = lats.reduce((s, v) => s + v, 0) / lats.length;
-  const k = Math.cos((meanLat * Math.PI) / 180);
-  const xs = all.map((p) => p[0] * k);
-  const [minX, maxX, minY, maxY] = [Math.min(...xs), Math.max(...xs), Math.min(...lats), Math.max(...lats)];
+  // Loops, not Math.min(...): a club's outlines together can pass the engine's argument limit.
+  let sumLat = 0;
+  for (const p of all) sumLat += p[1];
+  const k = Math.cos(((sumLat / all.length) * Math.PI) / 180);
+  let [minX, maxX, minY, maxY] = [Infinity, -Infinity, Infinity, -Infinity];
+  for (const p of all) {
+    minX = Math.min(minX, p[0] * k);
+    maxX = Math.max(maxX, p[0] * k);
+    minY = Math.min(minY, p[1]);
+    maxY = Math.max(maxY, p[1]);
+  }
   const spanX = Math.max(maxX - minX, 1e-6);
   const spanY = Math.max(maxY - minY, 1e-6);
   const margin = 0.08;
@@ -75,9 +81,10 @@ export function planOutlines(claims: { id: string; boundary: Polygon | null }[],
     const outer = c.boundary.type === "Polygon" ? [rings[0]] : c.boundary.coordinates.map((poly) => poly[0].map(project));
     const biggest = outer.reduce((a, b) => (Math.abs(ringArea(b)) > Math.abs(ringArea(a)) ? b : a));
     const [x] = ringCentroid(biggest);
-    const ys = rings.flat().map((p) => p[1]);
-    const above = Math.max(...ys) > height - LABEL_ROOM;
-    return { id: c.id, path, label: { x: round(x), y: round(above ? Math.min(...ys) : Math.max(...ys)), above } };
+    let [top, foot] = [Infinity, -Infinity];
+    for (const ring of rings) for (const p of ring) [top, foot] = [Math.min(top, p[1]), Math.max(foot, p[1])];
+    const above = foot > height - LABEL_ROOM;
+    return { id: c.id, path, label: { x: round(x), y: round(above ? top : foot), above } };
   });
 
   const metresPerUnit = METRES_PER_DEGREE / unit;
