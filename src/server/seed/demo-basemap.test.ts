@@ -16,7 +16,7 @@ describe("the demo club's basemap", () => {
     expect(bytes.length).toBeLessThan(400 * 1024);
     const archive = reader(bytes);
     const header = await archive.getHeader();
-    expect([header.minZoom, header.maxZoom]).toEqual([12, 15]);
+    expect([header.minZoom, header.maxZoom]).toEqual([9, 15]);
     // Larkspur Bench's centre (41.8, -117.62) lies inside.
     expect(header.minLon).toBeLessThan(-117.62);
     expect(header.maxLon).toBeGreaterThan(-117.62);

@@ -7,13 +7,13 @@ import { writePmtiles, type Tile } from "./pmtiles-writer";
 
 // The demo club's basemap: invented ground painted from formulas (no real map, elevation
 // model or imagery is used), shaded relief with contours, the dry wash the Tinderbox Wash
-// claim is named for, and a two-track road between the claims. Raster tiles at zoom 12–15.
+// claim is named for, and a two-track road between the claims. Raster tiles at zoom 9–15: from the whole district down to a spot.
 
 const LAT0 = 41.803;
 const LON0 = -117.616;
 const M_PER_DEG_LAT = 111_320;
 const M_PER_DEG_LON = M_PER_DEG_LAT * Math.cos((LAT0 * Math.PI) / 180);
-export const DEMO_BASEMAP_ZOOMS = [12, 13, 14, 15] as const;
+export const DEMO_BASEMAP_ZOOMS = [9, 10, 11, 12, 13, 14, 15] as const;
 
 const gauss = (dx: number, dy: number, r: number) => Math.exp(-(dx * dx + dy * dy) / (2 * r * r));
 
