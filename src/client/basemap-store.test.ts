@@ -29,7 +29,7 @@ const archive = (n: number) => {
 function serve(body: Uint8Array, declared: number, contentType = "application/vnd.pmtiles", etag = '"v2"') {
   vi.stubGlobal(
     "fetch",
-    vi.fn(async () => new Response(body, { headers: { "content-type": contentType, "x-basemap-bytes": String(declared), etag } })),
+    vi.fn(async () => new Response(new Uint8Array(body), { headers: { "content-type": contentType, "x-basemap-bytes": String(declared), etag } })),
   );
 }
 
