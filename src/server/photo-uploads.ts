@@ -2,6 +2,7 @@ import "server-only";
 import fs from "node:fs/promises";
 import path from "node:path";
 import type { Actor } from "./auth/actor";
+import { appendChunk } from "./append-chunk";
 import { AppError } from "./errors";
 import { discardPartial, heldBytes, partialPath, sweepNowAndThen, withPhotoLock } from "./photo-partials";
 import { checkQuota, photoFor, storeCheckedPhoto } from "./photos";
@@ -55,39 +56,8 @@ export async function receiveChunk(actor: Actor, id: string, offset: number, req
   });
 }
 
-/**
- * Appends the request body to the partial file as it streams, at most `room` bytes (the rest
- * of the record's size) and MAX_CHUNK_BYTES. A body cut off by the link keeps what arrived;
- * one that runs past its limit is undone to where it started.
- */
+/** The chunk, appended as it streams, flushed before the server says it holds it. */
 async function appendBody(req: Request, file: string, room: number): Promise<number> {
   await fs.mkdir(path.dirname(file), { recursive: true });
-  const handle = await fs.open(file, "a");
-  let written = 0;
-  try {
-    if (!req.body) return 0;
-    const reader = req.body.getReader();
-    for (;;) {
-      let part: ReadableStreamReadResult<Uint8Array>;
-      try {
-        part = await reader.read();
-      } catch {
-        break; // the link was cut: keep what arrived, the device asks where to resume
-      }
-      if (part.done) break;
-      if (written + part.value.byteLength > Math.min(room, MAX_CHUNK_BYTES)) {
-        await reader.cancel().catch(() => undefined);
-        await handle.truncate((await handle.stat()).size - written);
-        throw written + part.value.byteLength > room
-          ? new AppError("bad_request:offset", "This chunk runs past the photo's size in its record.", { offset: ["past the end"] })
-          : new AppError("too_large:chunk", `A chunk may be at most ${MAX_CHUNK_BYTES} bytes.`, { chunk: ["too large"] });
-      }
-      await handle.write(part.value);
-      written += part.value.byteLength;
-    }
-    await handle.datasync();
-    return written;
-  } finally {
-    await handle.close();
-  }
+  return appendChunk(req, file, { room, maxChunk: MAX_CHUNK_BYTES, pastEnd: "This chunk runs past the photo's size in its record.", durable: true });
 }

@@ -3,6 +3,7 @@ import fs from "node:fs/promises";
 import path from "node:path";
 import { HEADER_BYTES, type ArchiveProblem } from "@/lib/pmtiles/archive";
 import type { Actor } from "../auth/actor";
+import { appendChunk } from "../append-chunk";
 import { AppError } from "../errors";
 import { describeBasemap, forgetInspections, type BasemapInfo } from "./archive-file";
 import { basemapPath, basemapUploadDir, installBasemap, MAX_BASEMAP_CHUNK_BYTES, maxBasemapBytes } from "./files";
@@ -118,39 +119,9 @@ async function startAfresh(memberId: string, total: number): Promise<void> {
     });
 }
 
-/**
- * Appends the body to the partial file as it streams, at most `room` bytes (the rest of the
- * archive) and one chunk. A body cut off by the link keeps what arrived; one that runs past
- * its limit is undone to where it started.
- */
-async function appendBody(req: Request, file: string, room: number): Promise<number> {
-  const handle = await fs.open(file, "a");
-  let written = 0;
-  try {
-    if (!req.body) return 0;
-    const reader = req.body.getReader();
-    for (;;) {
-      let part: ReadableStreamReadResult<Uint8Array>;
-      try {
-        part = await reader.read();
-      } catch {
-        break; // the link was cut: keep what arrived, the console asks where to go on
-      }
-      if (part.done) break;
-      if (written + part.value.byteLength > Math.min(room, MAX_BASEMAP_CHUNK_BYTES)) {
-        await reader.cancel().catch(() => undefined);
-        await handle.truncate((await handle.stat()).size - written);
-        throw written + part.value.byteLength > room
-          ? new AppError("bad_request:offset", "This chunk runs past the archive's announced size.", { offset: ["past the end"] })
-          : new AppError("too_large:chunk", `A chunk may be at most ${MAX_BASEMAP_CHUNK_BYTES} bytes.`, { chunk: ["too large"] });
-      }
-      await handle.write(part.value);
-      written += part.value.byteLength;
-    }
-    return written;
-  } finally {
-    await handle.close();
-  }
+/** The chunk, appended as it streams; the archive is flushed once whole, when it is installed. */
+function appendBody(req: Request, file: string, room: number): Promise<number> {
+  return appendChunk(req, file, { room, maxChunk: MAX_BASEMAP_CHUNK_BYTES, pastEnd: "This chunk runs past the archive's announced size." });
 }
 
 /** Removes the club's basemap; devices keep their copies until their members remove them. */
