@@ -1,3 +1,4 @@
+import "server-only";
 import { Readable } from "node:stream";
 import { byteRange } from "@/lib/web/byte-range";
 import { audit } from "@/server/audit";

@@ -1,3 +1,4 @@
+import "server-only";
 import { z } from "zod";
 import { audit } from "@/server/audit";
 import { requireActor } from "@/server/auth/actor";
