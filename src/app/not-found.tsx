@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { Wordmark } from "@/components/wordmark";
 
 export default function NotFound() {
@@ -8,9 +8,9 @@ export default function NotFound() {
       <section className="sheet flex flex-col gap-2">
         <h1 className="text-2xl font-bold">Nothing here</h1>
         <p>This page does not exist, or you may not see it.</p>
-        <Link href="/" className="btn btn-primary">
+        <IntentLink href="/" className="btn btn-primary">
           Back to today
-        </Link>
+        </IntentLink>
       </section>
     </main>
   );

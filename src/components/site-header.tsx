@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { can, ROLE_LABELS, type Role } from "@/lib/roles";
 import { SignOutButton } from "./sign-out-button";
 import { ThemeToggle } from "./theme-toggle";
@@ -13,51 +13,51 @@ export function SiteHeader({ actor }: { actor: HeaderPerson | null }) {
   return (
     <header className="no-print border-b-2 border-rule bg-sheet">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-x-2 gap-y-1 px-3 py-2">
-        <Link href="/" className="no-underline" aria-label="Lodebook home">
+        <IntentLink href="/" className="no-underline" aria-label="Lodebook home">
           <Wordmark compact />
-        </Link>
+        </IntentLink>
         <nav aria-label="Main" className="order-last hidden w-full flex-wrap items-center gap-1 md:order-none md:flex md:w-auto">
           {actor && (
-            <Link href="/" className={linkClass}>
+            <IntentLink href="/" className={linkClass}>
               Today
-            </Link>
+            </IntentLink>
           )}
           {actor ? (
             <>
-              <Link href="/finds" className={linkClass}>
+              <IntentLink href="/finds" className={linkClass}>
                 Finds
-              </Link>
-              <Link href="/outings" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/outings" className={linkClass}>
                 Outings
-              </Link>
-              <Link href="/map" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/map" className={linkClass}>
                 Map
-              </Link>
-              <Link href="/sync" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/sync" className={linkClass}>
                 Camp sync
-              </Link>
-              <Link href="/weigh" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/weigh" className={linkClass}>
                 Weigh
-              </Link>
-              <Link href="/scales" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/scales" className={linkClass}>
                 Scales
-              </Link>
-              <Link href="/barren-rock" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/barren-rock" className={linkClass}>
                 Barren rock
-              </Link>
-              <Link href="/settings" className={linkClass}>
+              </IntentLink>
+              <IntentLink href="/settings" className={linkClass}>
                 Settings
-              </Link>
+              </IntentLink>
             </>
           ) : (
-            <Link href="/weigh" className={linkClass}>
+            <IntentLink href="/weigh" className={linkClass}>
               Weigh a specimen
-            </Link>
+            </IntentLink>
           )}
           {can(actor?.role, "viewLedger") && (
-            <Link href="/club" className={linkClass}>
+            <IntentLink href="/club" className={linkClass}>
               Club console
-            </Link>
+            </IntentLink>
           )}
         </nav>
         <div className="flex items-center gap-2">
@@ -70,9 +70,9 @@ export function SiteHeader({ actor }: { actor: HeaderPerson | null }) {
           {actor ? (
             <SignOutButton />
           ) : (
-            <Link href="/sign-in" className="btn btn-primary">
+            <IntentLink href="/sign-in" className="btn btn-primary">
               Sign in
-            </Link>
+            </IntentLink>
           )}
         </div>
       </div>

@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { ThemeToggle } from "@/components/theme-toggle";
 import { Wordmark } from "@/components/wordmark";
 
@@ -8,14 +8,14 @@ export default function OpenLayout({ children }: { children: React.ReactNode }) 
     <>
       <header className="no-print border-b-2 border-rule bg-sheet">
         <div className="mx-auto flex max-w-6xl items-center justify-between gap-2 px-3 py-2">
-          <Link href="/" className="no-underline" aria-label="Lodebook home">
+          <IntentLink href="/" className="no-underline" aria-label="Lodebook home">
             <Wordmark compact />
-          </Link>
+          </IntentLink>
           <div className="flex items-center gap-2">
             <ThemeToggle />
-            <Link href="/" className="btn">
+            <IntentLink href="/" className="btn">
               My logbook
-            </Link>
+            </IntentLink>
           </div>
         </div>
       </header>

@@ -1,5 +1,5 @@
 "use client";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { usePathname } from "next/navigation";
 import { useState } from "react";
 
@@ -34,14 +34,14 @@ export function TabBar() {
         <ul id="more-screens" className="border-b-2 border-rule">
           {MORE_SCREENS.map((s) => (
             <li key={s.href}>
-              <Link
+              <IntentLink
                 href={s.href}
                 onClick={() => setOpen(false)}
                 aria-current={path.startsWith(s.href) ? "page" : undefined}
                 className="flex min-h-[52px] items-center px-4 font-bold no-underline"
               >
                 {s.label}
-              </Link>
+              </IntentLink>
             </li>
           ))}
         </ul>
@@ -51,9 +51,9 @@ export function TabBar() {
           const active = t.href === "/" ? path === "/" : path.startsWith(t.href);
           return (
             <li key={t.href}>
-              <Link href={t.href} aria-current={active ? "page" : undefined} className={tabClass(active)} onClick={() => setOpen(false)}>
+              <IntentLink href={t.href} aria-current={active ? "page" : undefined} className={tabClass(active)} onClick={() => setOpen(false)}>
                 {t.label}
-              </Link>
+              </IntentLink>
             </li>
           );
         })}

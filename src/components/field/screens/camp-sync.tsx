@@ -1,6 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { discardRefusedChange } from "@/client/logbook";
 import { requestSync } from "@/client/sync/scheduler";
 import type { LodebookDb, OutboxEntry } from "@/client/device-db";
@@ -50,9 +50,9 @@ export function CampSyncScreen() {
                   </span>
                   <span className="flex gap-2">
                     {link && (
-                      <Link className="btn" href={link(e.entityId)}>
+                      <IntentLink className="btn" href={link(e.entityId)}>
                         Fix it
-                      </Link>
+                      </IntentLink>
                     )}
                     <button type="button" className="btn" onClick={() => discardRefusedChange(db, e.id!)}>
                       Let it go

@@ -1,6 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { useRouter } from "next/navigation";
 import { lazy, Suspense, useEffect, useState } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
@@ -59,9 +59,9 @@ export function FindDetailScreen() {
     return (
       <section className="sheet">
         <h1 className="text-xl font-bold">This find is not on this device</h1>
-        <Link href="/finds" className="btn mt-2">
+        <IntentLink href="/finds" className="btn mt-2">
           Back to finds
-        </Link>
+        </IntentLink>
       </section>
     );
 
@@ -96,9 +96,9 @@ export function FindDetailScreen() {
           <p role="status" className="font-bold text-moss">
             Find saved on this device. It goes to the club at the next camp sync.
           </p>
-          <Link href="/finds/new" className="btn btn-primary">
+          <IntentLink href="/finds/new" className="btn btn-primary">
             Log another find
-          </Link>
+          </IntentLink>
         </div>
       )}
 
@@ -115,9 +115,9 @@ export function FindDetailScreen() {
           <button type="button" className="btn" onClick={useHere}>
             {position.kind === "found" ? "Use this position now" : position.kind === "finding" ? "Finding…" : "Use my position"}
           </button>
-          <Link className="btn" href={`/map#pick=${find.id}`}>
+          <IntentLink className="btn" href={`/map#pick=${find.id}`}>
             Pick on the map
-          </Link>
+          </IntentLink>
         </div>
         {position.kind === "found" && (
           <p className="text-sm">

@@ -1,6 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { lazy, Suspense, useMemo, useState, type ReactElement } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
 import type { LocalFind } from "@/client/device-db";
@@ -45,7 +45,7 @@ export function FindsListScreen() {
 
   const row = (f: LocalFind) => (
     <div key={f.id} style={{ height: ROW_HEIGHT }} className="pb-2">
-      <Link href={`/finds/view#id=${f.id}`} className="sheet flex h-full items-center justify-between gap-2 no-underline">
+      <IntentLink href={`/finds/view#id=${f.id}`} className="sheet flex h-full items-center justify-between gap-2 no-underline">
         <span>
           <span className="font-bold">{KIND_LABELS[f.kind]}</span> <QueryMark state={queries?.get(f.id)} />
           <span className="block text-sm text-ink-soft">
@@ -53,7 +53,7 @@ export function FindsListScreen() {
           </span>
         </span>
         <span className="figure font-bold">{f.weightGrams != null ? formatGrams(f.weightGrams, settings.massUnit) : "—"}</span>
-      </Link>
+      </IntentLink>
     </div>
   );
 
@@ -61,9 +61,9 @@ export function FindsListScreen() {
     <div className="flex flex-col gap-3">
       <div className="flex items-center justify-between">
         <h1 className="text-2xl font-bold">Your finds</h1>
-        <Link href="/finds/new" className="btn btn-primary">
+        <IntentLink href="/finds/new" className="btn btn-primary">
           Log a find
-        </Link>
+        </IntentLink>
       </div>
       <div className="grid grid-cols-1 gap-2 sm:grid-cols-3" role="search">
         <label className="flex flex-col">

@@ -1,6 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { useRouter } from "next/navigation";
 import { lazy, Suspense } from "react";
 import { useClaims } from "@/client/hooks";
@@ -55,9 +55,9 @@ export function OutingDetailScreen() {
       <section className="flex flex-col gap-2">
         <h2 className="heading-bar self-start text-lg">Finds on this outing</h2>
         {(finds ?? []).map((f) => (
-          <Link key={f.id} className="sheet no-underline" href={`/finds/view#id=${f.id}`}>
+          <IntentLink key={f.id} className="sheet no-underline" href={`/finds/view#id=${f.id}`}>
             {KIND_LABELS[f.kind]} · {formatWhen(f.foundAt)}
-          </Link>
+          </IntentLink>
         ))}
       </section>
       <button

@@ -1,6 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { useClaims } from "@/client/hooks";
 import { useMember } from "@/client/member";
 import { METHOD_LABELS } from "@/lib/entities/constants";
@@ -21,9 +21,9 @@ export function OutingsScreen() {
     <div className="flex flex-col gap-3">
       <div className="flex items-center justify-between gap-2">
         <h1 className="text-2xl font-bold">Outings</h1>
-        <Link href="/" className="btn">
+        <IntentLink href="/" className="btn">
           Start one from Today
-        </Link>
+        </IntentLink>
       </div>
       {outings === undefined ? (
         <Skeleton />
@@ -33,13 +33,13 @@ export function OutingsScreen() {
         <ul className="flex flex-col gap-2">
           {outings.map((o) => (
             <li key={o.id}>
-              <Link href={`/outings/view#id=${o.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
+              <IntentLink href={`/outings/view#id=${o.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
                 <span>
                   <span className="font-bold">{formatDay(o.startedAt)}</span> · {METHOD_LABELS[o.method]} on {claimName(o.claimId)}
                   {o.endedAt === null && <span className="ml-2 font-bold text-moss">under way</span>}
                 </span>
                 <span className="text-sm">{countOf(counts?.get(o.id) ?? 0, "find", "finds")}</span>
-              </Link>
+              </IntentLink>
             </li>
           ))}
         </ul>

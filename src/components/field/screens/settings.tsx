@@ -1,5 +1,5 @@
 "use client";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { lazy, Suspense, useEffect, useState } from "react";
 import { useSettings } from "@/client/hooks";
 import { useMember } from "@/client/member";
@@ -113,12 +113,12 @@ export function SettingsScreen() {
         )}
       </section>
       <section className="sheet flex flex-wrap gap-2" aria-label="Rig and rock">
-        <Link className="btn" href="/scales">
+        <IntentLink className="btn" href="/scales">
           Scales and setup checks
-        </Link>
-        <Link className="btn" href="/barren-rock">
+        </IntentLink>
+        <IntentLink className="btn" href="/barren-rock">
           Barren-rock weigh-ins
-        </Link>
+        </IntentLink>
       </section>
       <section className="sheet flex flex-col gap-2" aria-label="Privacy">
         {select("locationSharing", "What officers see of where you found things", [
