@@ -5,23 +5,25 @@ import { useLiveQuery } from "dexie-react-hooks";
 import type { LodebookDb } from "./device-db";
 import { DEFAULT_SETTINGS, readSettings, type MemberSettings } from "./settings";
 
+/** The club's claims, by name. */
+export const readClaims = (db: LodebookDb) => db.claims.toArray().then((c) => c.sort((a, b) => a.name.localeCompare(b.name)));
+
+/** The outing not yet ended, if any: where quick finds go. */
+export const readCurrentOuting = async (db: LodebookDb) =>
+  (await db.outings
+    .orderBy("startedAt")
+    .reverse()
+    .filter((o) => o.endedAt === null)
+    .first()) ?? null;
+
 export function useClaims(db: LodebookDb) {
-  return useLiveQuery(() => db.claims.toArray().then((c) => c.sort((a, b) => a.name.localeCompare(b.name))), [db]);
+  return useLiveQuery(() => readClaims(db), [db]);
 }
 
 export function useSettings(db: LodebookDb): MemberSettings {
   return useLiveQuery(() => readSettings(db), [db]) ?? DEFAULT_SETTINGS;
 }
 
-/** The outing not yet ended, if any: where quick finds go. */
 export function useCurrentOuting(db: LodebookDb) {
-  return useLiveQuery(
-    async () =>
-      (await db.outings
-        .orderBy("startedAt")
-        .reverse()
-        .filter((o) => o.endedAt === null)
-        .first()) ?? null,
-    [db],
-  );
+  return useLiveQuery(() => readCurrentOuting(db), [db]);
 }

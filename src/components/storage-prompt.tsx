@@ -35,10 +35,9 @@ export function StoragePrompt() {
       <h2 id="keep-title" className="font-bold">
         Keep your logbook on this device?
       </h2>
-      <p className="text-sm">
-        Your finds, photos and weigh-ins live on this device until camp sync sends them. A browser short of space may clear a website&apos;s data unless it was
-        asked to keep it. Allow Lodebook to keep its data so nothing waiting is lost.
-      </p>
+      {/* Two short lines: the prompt arrives after Today is drawn and must not become the
+          screen's largest paint (the field caution is), which would count as a late first view. */}
+      <p className="text-sm">Finds wait on this device until camp sync. Allowed to keep its data, a browser short of space will not clear them.</p>
       <div className="flex flex-wrap gap-2">
         <button type="button" className="btn btn-primary" onClick={() => void navigator.storage.persist().then((ok) => done(ok ? "granted" : "refused"))}>
           Keep it on this device

@@ -2,7 +2,9 @@
 import { usePathname } from "next/navigation";
 import { MemberProvider, useMemberState } from "@/client/member";
 import { lazy, Suspense } from "react";
+import { IntentLink } from "../intent-link";
 import { SiteHeader } from "../site-header";
+import { HeadOutCaution } from "./head-out-caution";
 import { Skeleton } from "./skeleton";
 import { TabBar } from "./tab-bar";
 
@@ -11,6 +13,26 @@ const StoragePrompt = lazy(() => import("../storage-prompt").then((m) => ({ defa
 
 // Shows only when a new version waits: loaded just after the frame, never in a first load.
 const UpdatePrompt = lazy(() => import("../update-prompt").then((m) => ({ default: m.UpdatePrompt })));
+
+/**
+ * Home's first frame, in the page's own HTML: the greeting, the main action and the field
+ * caution, drawn before the member is known (the device's database opening, or a new device
+ * asking the server who is signed in). The caution is the screen's largest text and Today
+ * shows it at the same size, so the first paint is the largest one; a phone on camp signal
+ * sees the screen's shape at once instead of grey bars.
+ */
+function HomeFrame() {
+  return (
+    <div className="flex flex-col gap-5">
+      <h1 className="text-2xl font-bold">Good day</h1>
+      <IntentLink href="/finds/new" className="btn btn-primary min-h-[64px] text-xl">
+        Log a find
+      </IntentLink>
+      <Skeleton lines={3} />
+      <HeadOutCaution />
+    </div>
+  );
+}
 
 function Body({ children }: { children: React.ReactNode }) {
   const state = useMemberState();
@@ -24,7 +46,7 @@ function Body({ children }: { children: React.ReactNode }) {
             <StoragePrompt />
           </Suspense>
         )}
-        {state.status === "ready" ? children : <Skeleton />}
+        {state.status === "ready" ? children : path === "/" ? <HomeFrame /> : <Skeleton />}
       </main>
       {state.status === "ready" && <TabBar />}
       <Suspense fallback={null}>

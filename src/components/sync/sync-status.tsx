@@ -1,6 +1,6 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
+import { IntentLink } from "@/components/intent-link";
 import { useSyncExternalStore } from "react";
 import type { LodebookDb } from "@/client/device-db";
 import { syncStatus } from "@/client/sync/status";
@@ -33,14 +33,26 @@ const until = (at: number) => {
   return s < 60 ? `in ${s} s` : `in ${Math.round(s / 60)} min`;
 };
 
+const NO_COUNTS = { waiting: 0, rejected: 0, stuck: 0, photos: 0 };
+
+/** What waits, in one read: a sync that changes the outbox re-reads it and redraws once. */
+const readCounts = (db: LodebookDb) =>
+  db.transaction("r", [db.outbox, db.photos], async () => {
+    const state = (s: string) => db.outbox.where("state").equals(s).count();
+    const [waiting, rejected, stuck, photos] = await Promise.all([
+      state("pending"),
+      state("rejected"),
+      state("stuck"),
+      db.photos.where("uploaded").equals(0).count(),
+    ]);
+    return { waiting, rejected, stuck, photos };
+  });
+
 /** The one place that says what camp sync is doing, from the one status union. */
 export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compact?: boolean }) {
   const status: SyncStatus = useSyncExternalStore(syncStatus.subscribe, syncStatus.get, syncStatus.get);
   const online = useOnline();
-  const waiting = useLiveQuery(() => db.outbox.where("state").equals("pending").count(), [db], 0);
-  const rejected = useLiveQuery(() => db.outbox.where("state").equals("rejected").count(), [db], 0);
-  const stuck = useLiveQuery(() => db.outbox.where("state").equals("stuck").count(), [db], 0);
-  const photos = useLiveQuery(() => db.photos.where("uploaded").equals(0).count(), [db], 0);
+  const { waiting, rejected, stuck, photos } = useLiveQuery(() => readCounts(db), [db], NO_COUNTS);
 
   let line: string;
   let tone = "text-ink";
@@ -103,18 +115,18 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
           <>
             {" "}
             ·{" "}
-            <Link href="/sync" className="font-bold text-rust underline">
+            <IntentLink href="/sync" className="font-bold text-rust underline">
               {stuck} stuck on the server
-            </Link>
+            </IntentLink>
           </>
         )}
         {rejected > 0 && (
           <>
             {" "}
             ·{" "}
-            <Link href="/sync" className="font-bold text-rust underline">
+            <IntentLink href="/sync" className="font-bold text-rust underline">
               {rejected} refused by the server
-            </Link>
+            </IntentLink>
           </>
         )}
       </p>

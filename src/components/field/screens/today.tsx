@@ -1,12 +1,13 @@
 "use client";
 import { useLiveQuery } from "dexie-react-hooks";
-import Link from "next/link";
-import { lazy, Suspense } from "react";
-import { useClaims, useCurrentOuting, useSettings } from "@/client/hooks";
+import { IntentLink } from "@/components/intent-link";
+import type { LodebookDb } from "@/client/device-db";
+import { readClaims, readCurrentOuting } from "@/client/hooks";
 import { endOuting, startOuting, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
+import { readQueryStates } from "@/client/query-states";
+import { DEFAULT_SETTINGS, readSettings } from "@/client/settings";
 import { requestSync } from "@/client/sync/scheduler";
-import { Caution } from "@/components/caution";
 import { SyncStatusView } from "@/components/sync/sync-status";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import { METHOD_LABELS, OUTING_METHODS } from "@/lib/entities/constants";
@@ -14,20 +15,40 @@ import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
 import { deviceSeasonBounds } from "@/lib/time/device-season";
 import { deviceTotals } from "@/lib/club/totals";
+import { HeadOutCaution } from "../head-out-caution";
+import { QueriedFinds } from "../queried-finds";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
 
-// The queried finds load just after Today draws (a precached chunk, so offline too).
-const QueriedFinds = lazy(() => import("../queried-finds").then((m) => ({ default: m.QueriedFinds })));
+/**
+ * Everything Today shows, read in one transaction: a camp sync that writes finds, outings and
+ * claims re-reads it once and draws Today once, where a query per table re-read and redrew it
+ * once per table, on the main thread a phone's first screen needs.
+ */
+function readToday(db: LodebookDb, start: number, end: number) {
+  return db.transaction("r", [db.settings, db.outings, db.claims, db.finds, db.reviews, db.answers], async () => {
+    const [settings, outing, claims, finds, states] = await Promise.all([
+      readSettings(db),
+      readCurrentOuting(db),
+      readClaims(db),
+      db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"),
+      readQueryStates(db),
+    ]);
+    const queriedIds = [...states].filter(([, state]) => state === "queried").map(([id]) => id);
+    const queried = (await db.finds.bulkGet(queriedIds)).filter((f) => f !== undefined);
+    return { settings, outing, claims, finds, queried };
+  });
+}
 
 export function TodayScreen() {
   const { member, db } = useMember();
-  const settings = useSettings(db);
-  const outing = useCurrentOuting(db);
-  const claims = useClaims(db);
   // The member's own days, as their phone's clock shows them.
   const { season, start, end } = deviceSeasonBounds();
-  const finds = useLiveQuery(() => db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"), [db, start, end]);
+  const today = useLiveQuery(() => readToday(db, start, end), [db, start, end]);
+  const settings = today?.settings ?? DEFAULT_SETTINGS;
+  const outing = today?.outing;
+  const claims = today?.claims;
+  const finds = today?.finds;
   const first = (member.name ?? member.email).split(" ")[0];
   const tally = deviceTotals(finds ?? []);
   const claimName = (id: string | null) => claims?.find((c) => c.id === id)?.name ?? "no claim";
@@ -36,13 +57,11 @@ export function TodayScreen() {
     <div className="flex flex-col gap-5">
       <h1 className="text-2xl font-bold">Good day, {first}</h1>
 
-      <Link href="/finds/new" className="btn btn-primary min-h-[64px] text-xl" data-testid="log-find">
+      <IntentLink href="/finds/new" className="btn btn-primary min-h-[64px] text-xl" data-testid="log-find">
         Log a find
-      </Link>
+      </IntentLink>
 
-      <Suspense fallback={null}>
-        <QueriedFinds db={db} />
-      </Suspense>
+      <QueriedFinds finds={today?.queried ?? []} />
 
       <section className="sheet flex flex-col gap-3" aria-labelledby="outing-title">
         <h2 id="outing-title" className="heading-bar self-start text-lg">
@@ -56,9 +75,9 @@ export function TodayScreen() {
               <strong>{METHOD_LABELS[outing.method]}</strong> on <strong>{claimName(outing.claimId)}</strong> since {formatWhen(outing.startedAt)}
             </p>
             <div className="flex flex-wrap gap-2">
-              <Link className="btn" href={`/outings/view#id=${outing.id}`}>
+              <IntentLink className="btn" href={`/outings/view#id=${outing.id}`}>
                 Notes and details
-              </Link>
+              </IntentLink>
               <button
                 type="button"
                 className="btn"
@@ -148,7 +167,7 @@ export function TodayScreen() {
           <ul className="flex flex-col gap-2">
             {finds.slice(0, 5).map((f) => (
               <li key={f.id}>
-                <Link href={`/finds/view#id=${f.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
+                <IntentLink href={`/finds/view#id=${f.id}`} className="sheet flex items-baseline justify-between gap-2 no-underline">
                   <span>
                     <span className="font-bold">{KIND_LABELS[f.kind]}</span>
                     <span className="text-ink-soft">
@@ -157,7 +176,7 @@ export function TodayScreen() {
                     </span>
                   </span>
                   <span className="figure font-bold">{f.weightGrams != null ? formatGrams(f.weightGrams, settings.massUnit) : "—"}</span>
-                </Link>
+                </IntentLink>
               </li>
             ))}
           </ul>
@@ -165,15 +184,12 @@ export function TodayScreen() {
       </section>
 
       {can(member.role, "viewLedger") && (
-        <Link href="/club" className="btn">
+        <IntentLink href="/club" className="btn">
           Open the club console
-        </Link>
+        </IntentLink>
       )}
 
-      <Caution title="Before you head out">
-        Tell someone where you are going and when you will be back. Stay out of old mine workings, watch dry washes for flash floods, and carry water. Claim
-        rules differ by place and land agency: your club officer and the local authority have the last word.
-      </Caution>
+      <HeadOutCaution />
     </div>
   );
 }

@@ -1,0 +1,11 @@
+import { Caution } from "@/components/caution";
+
+/** The field caution on the member's home: in its first frame (before the member is known) and on Today, the same words at the same size. */
+export function HeadOutCaution() {
+  return (
+    <Caution title="Before you head out">
+      Tell someone where you are going and when you will be back. Stay out of old mine workings, watch dry washes for flash floods, and carry water. Claim rules
+      differ by place and land agency: your club officer and the local authority have the last word.
+    </Caution>
+  );
+}
