@@ -16,6 +16,9 @@ const withSerwist = withSerwistInit({
   disable: process.env.NODE_ENV === "development",
   // Camp sync reacts to "online" itself; a reload then would interrupt a member mid-entry.
   reloadOnOnline: false,
+  // Registered by the app once a page has settled (src/client/service-worker.ts): the first
+  // install's precache would otherwise compete with a phone's first screen for its cores.
+  register: false,
   // Every member screen opens with no signal after one visit: precache their shells.
   additionalPrecacheEntries: [
     ...[

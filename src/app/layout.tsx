@@ -1,4 +1,5 @@
 import "./globals.css";
+import { ServiceWorkerStart } from "@/components/service-worker-start";
 import { atkinson, atkinsonExtended } from "./fonts";
 import type { Metadata, Viewport } from "next";
 
@@ -31,7 +32,10 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
       <head>
         <script dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
-      <body className="bg-paper text-ink antialiased">{children}</body>
+      <body className="bg-paper text-ink antialiased">
+        {children}
+        <ServiceWorkerStart />
+      </body>
     </html>
   );
 }

@@ -1,4 +1,5 @@
 import type { LodebookDb } from "../device-db";
+import { startServiceWorker } from "../service-worker";
 import { syncStatus, type SyncStatus } from "./status";
 
 const PERIOD_MS = 5 * 60_000;
@@ -83,6 +84,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       retryTimer = setTimeout(run, next.waitMs!);
     } finally {
       running = false;
+      // The first sync's end is when a member screen has settled (see service-worker.ts).
+      startServiceWorker();
       if (again && !stopped) {
         again = false;
         void run();

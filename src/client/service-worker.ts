@@ -1,0 +1,37 @@
+// The service worker's first install fetches and compiles every member screen and chunk (its
+// precache): on a phone that is a second or more of CPU, on the cores the first screen needs
+// to draw. So the worker is registered once the page has settled: after the first camp sync
+// of a member screen, or a few seconds after load on any page, whichever comes first. A new
+// member signs in first, and the worker installs on the sign-in page while they type.
+// (@serwist/next's own registration is off in next.config.mjs; its window object does this.)
+
+const SETTLE_MS = 3000;
+let started = false;
+
+type SerwistWindow = Window & { serwist?: { register: () => Promise<unknown> } };
+
+/** Registers the worker, once per page load (later calls do nothing). */
+export function startServiceWorker(): void {
+  if (started || typeof window === "undefined") return;
+  started = true;
+  void (window as SerwistWindow).serwist?.register().catch(() => undefined);
+}
+
+/** Registers the worker when the page has settled: load, then SETTLE_MS, then an idle moment. */
+export function startServiceWorkerWhenSettled(): () => void {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let idle: number | undefined;
+  const afterLoad = () => {
+    timer = setTimeout(() => {
+      if (typeof requestIdleCallback === "function") idle = requestIdleCallback(startServiceWorker, { timeout: 2000 });
+      else startServiceWorker();
+    }, SETTLE_MS);
+  };
+  if (document.readyState === "complete") afterLoad();
+  else window.addEventListener("load", afterLoad, { once: true });
+  return () => {
+    window.removeEventListener("load", afterLoad);
+    clearTimeout(timer);
+    if (idle !== undefined) cancelIdleCallback(idle);
+  };
+}
