@@ -22,6 +22,14 @@ export function forgetMember(): void {
   localStorage.removeItem(STORAGE_KEY);
 }
 
+/** The answer to "who is signed in": the one the page asked for while parsing (layout.tsx), else a new request. */
+function askWho(): Promise<Response | null> {
+  const w = window as Window & { __lodebookMe?: Promise<Response | null> };
+  const early = w.__lodebookMe;
+  delete w.__lodebookMe;
+  return early ?? fetch("/api/me", { cache: "no-store", credentials: "same-origin" });
+}
+
 type State = { status: "loading" } | { status: "signed-out" } | { status: "ready"; member: DeviceMember; db: LodebookDb; sessionLive: boolean };
 
 const MemberContext = createContext<State>({ status: "loading" });
@@ -38,8 +46,9 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
     const use = (member: DeviceMember, sessionLive: boolean) => !cancelled && setState({ status: "ready", member, db: memberDb(member.id), sessionLive });
     const remembered = rememberedMember();
     if (remembered) use(remembered, false);
-    fetch("/api/me", { cache: "no-store", credentials: "same-origin" })
+    askWho()
       .then(async (res) => {
+        if (!res) throw new Error("no answer");
         if (res.ok) {
           const { member } = (await res.json()) as { member: DeviceMember };
           localStorage.setItem(STORAGE_KEY, JSON.stringify(member));
