@@ -16,8 +16,12 @@ describe("the scheduler's retry", () => {
     expect(told.status).toMatchObject({ retryAt: now + 600_000 });
   });
 
-  it("waits for the online event when offline, and starts over after a sync that went through", () => {
-    expect(afterOutcome({ kind: "offline", waiting: 1, rejected: 0, lastSyncedAt: null }, 2)).toMatchObject({ waitMs: null, attempt: 3 });
+  it("offline, tries again after the back-off (no online event may come), and starts over after a sync that went through", () => {
+    const random = () => 0.5;
+    const offline = { kind: "offline" as const, waiting: 1, rejected: 0, lastSyncedAt: null };
+    expect(afterOutcome(offline, 2, 0, random)).toMatchObject({ status: offline, waitMs: backoffMs(2, random), attempt: 3 });
+    // However long the dead zone lasts, the device looks again every few minutes at most.
+    expect(afterOutcome(offline, 40, 0, () => 1).waitMs).toBe(5 * 60_000);
     expect(afterOutcome({ kind: "done", at: 1, sent: 1, received: 0, rejected: 0 }, 5)).toMatchObject({ waitMs: null, attempt: 0 });
   });
 });

@@ -14,7 +14,9 @@ export function backoffMs(attempt: number, random = Math.random): number {
 /**
  * What follows a sync's outcome: the delay before trying again (an error: the back-off, or the
  * server's Retry-After when longer) and the status to show, whose retryAt is that same moment.
- * Offline waits for the online event, counting toward the back-off.
+ * Offline tries again after the back-off too, the online event being only the fast way back:
+ * navigator.onLine says a network is there, not that the club's server can be reached (a
+ * camp's Wi-Fi with no way out, a phone waking in a dead zone), so "online" may never fire.
  */
 export function afterOutcome(
   outcome: SyncStatus,
@@ -26,7 +28,7 @@ export function afterOutcome(
     const waitMs = Math.max(backoffMs(attempt, random), outcome.retryAt - now);
     return { status: { ...outcome, retryAt: now + waitMs }, waitMs, attempt: attempt + 1 };
   }
-  if (outcome.kind === "offline") return { status: outcome, waitMs: null, attempt: attempt + 1 };
+  if (outcome.kind === "offline") return { status: outcome, waitMs: backoffMs(attempt, random), attempt: attempt + 1 };
   return { status: outcome, waitMs: null, attempt: 0 };
 }
 
