@@ -1,7 +1,7 @@
 "use client";
 // Device-database hooks of the member screens. The position and URL-hash hooks have modules
 // of their own, so that a screen without them does not load them.
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import type { LodebookDb } from "./device-db";
 import { DEFAULT_SETTINGS, readSettings, type MemberSettings } from "./settings";
 

@@ -1,6 +1,6 @@
 "use client";
 import { useRouter } from "next/navigation";
-import { createContext, useContext, useEffect, useState } from "react";
+import { createContext, startTransition, useContext, useEffect, useState } from "react";
 import type { Role } from "@/lib/roles";
 import { memberDb, type LodebookDb } from "./device-db";
 import { loadValidation } from "./logbook";
@@ -43,7 +43,10 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
 
   useEffect(() => {
     let cancelled = false;
-    const use = (member: DeviceMember, sessionLive: boolean) => !cancelled && setState({ status: "ready", member, db: memberDb(member.id), sessionLive });
+    // The screen behind the member is drawn as a transition: in slices that leave room for a
+    // tap, not as one block of the main thread at start (see live-query.ts).
+    const use = (member: DeviceMember, sessionLive: boolean) =>
+      !cancelled && startTransition(() => setState({ status: "ready", member, db: memberDb(member.id), sessionLive }));
     const remembered = rememberedMember();
     if (remembered) use(remembered, false);
     askWho()

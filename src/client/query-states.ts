@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { queryStateOf, type QueryState } from "@/lib/club/thread";
 import type { LodebookDb } from "./device-db";
 

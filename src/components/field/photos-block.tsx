@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { lazy, Suspense, useEffect, useMemo, useState } from "react";
 import type { LodebookDb, LocalPhoto } from "@/client/device-db";
 import { deletePhoto } from "@/client/logbook";

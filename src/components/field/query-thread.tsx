@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { useState } from "react";
 import type { LocalFind, LocalWeighIn, LodebookDb } from "@/client/device-db";
 import { newId, saveAnswer } from "@/client/logbook";

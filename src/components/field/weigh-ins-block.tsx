@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { lazy, Suspense, useState } from "react";
 import type { LocalFind, LocalWeighIn, LodebookDb } from "@/client/device-db";
 import { deleteWeighIn, newId, saveWeighIn } from "@/client/logbook";

@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { IntentLink } from "@/components/intent-link";
 import { useSyncExternalStore } from "react";
 import type { LodebookDb } from "@/client/device-db";

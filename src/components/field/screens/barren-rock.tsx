@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { lazy, Suspense, useState } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
 import { deleteBarrenRock, newId, saveBarrenRock } from "@/client/logbook";

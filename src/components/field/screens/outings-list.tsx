@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { IntentLink } from "@/components/intent-link";
 import { useClaims } from "@/client/hooks";
 import { useMember } from "@/client/member";

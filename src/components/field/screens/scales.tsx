@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { lazy, Suspense, useState } from "react";
 import { addSetupCheck, deleteScale, newId, saveScale } from "@/client/logbook";
 import type { LocalScale } from "@/client/device-db";

@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "dexie-react-hooks";
+import { useLiveQuery } from "@/client/live-query";
 import { IntentLink } from "@/components/intent-link";
 import type { LodebookDb } from "@/client/device-db";
 import { readClaims, readCurrentOuting } from "@/client/hooks";
