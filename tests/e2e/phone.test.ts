@@ -1,12 +1,13 @@
 import Database from "better-sqlite3";
 import { describe, expect, inject, it } from "vitest";
 import { MORE_SCREENS } from "@/components/field/tab-bar";
-import { launchPersistent, PHONE, shotPath } from "./support/browser";
+import { launchPersistent, PHONE, sharedBrowser, shotPath } from "./support/browser";
 import { firstPage, signInToField, waitForSyncDone } from "./support/field";
 import { DEMO } from "./support/pages";
 import { WeighPage } from "./support/weigh-page";
 
 const baseUrl = inject("baseUrl");
+const browser = sharedBrowser();
 
 /** One of the member's own finds that has a weigh-in, and one of their outings. */
 function memberRecords() {
@@ -126,6 +127,33 @@ describe("the phone in the field (issue 19)", () => {
     await page.getByRole("button", { name: "Sign out" }).click();
     expect(await said).toMatch(/no signal.*stay signed in.*stays on this device/s);
     expect(new URL(page.url()).pathname).toBe("/");
+    await context.close();
+  });
+
+  it("each member screen's title and lead come in the page itself: there before any script runs or the device's database opens", async () => {
+    const context = await browser().newContext(PHONE);
+    await signInToField(await context.newPage(), baseUrl);
+    // The same session with scripts off: what shows is what the server sent. A screen whose head
+    // waited for the member (drawn by script) would show only the site's header here.
+    const plain = await browser().newContext({ ...PHONE, javaScriptEnabled: false, storageState: await context.storageState() });
+    const page = await plain.newPage();
+    const heads: [string, RegExp, RegExp | null][] = [
+      ["/", /^Good day/, /Tell someone where you are going/],
+      ["/finds", /^Your finds$/, null],
+      ["/outings", /^Outings$/, /a day's work on a claim/],
+      ["/sync", /^Camp sync$/, /wait on this device until it reaches the club's server/],
+      ["/settings", /^Settings$/, /what the club sees of where you found things/],
+      ["/scales", /^Scales and setup checks$/, /A setup check weighs an object of known density/],
+      ["/barren-rock", /^Barren rock$/, /pieces of gold-free rock/],
+    ];
+    for (const [path, title, lead] of heads) {
+      await page.goto(`${baseUrl}${path}`);
+      expect(await page.getByRole("heading", { level: 1 }).textContent(), path).toMatch(title);
+      if (lead) expect(await page.locator("main").textContent(), path).toMatch(lead);
+      // The body waits for the member: its placeholder, not a blank, and no screen's data.
+      expect(await page.locator("main [role=status][aria-label=Loading]").count(), path).toBeGreaterThan(0);
+    }
+    await plain.close();
     await context.close();
   });
 });

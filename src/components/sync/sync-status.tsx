@@ -92,15 +92,22 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
   return (
     <section
       aria-label="Camp sync"
-      className={`sheet flex flex-col gap-2 ${compact ? "py-2" : ""}`}
+      className={`sheet relative flex flex-col gap-2 ${compact ? "py-2" : ""}`}
       data-testid="sync-status"
       data-kind={online ? status.kind : "offline"}
     >
       <p className={`font-bold ${tone}`} role="status">
         {line}
       </p>
+      {/* Along the card's lower edge, in its padding: a bar that comes and goes with each sync
+          must not push the screen below it down and back up (a layout shift on every sync). */}
       {progress !== null && (
-        <progress className="h-3 w-full accent-[var(--ochre)]" value={progress} max={1} aria-label="Sync progress">
+        <progress
+          className={`absolute inset-x-3 h-1.5 accent-[var(--ochre)] ${compact ? "bottom-0.5" : "bottom-1.5"}`}
+          value={progress}
+          max={1}
+          aria-label="Sync progress"
+        >
           {Math.round(progress * 100)} %
         </progress>
       )}

@@ -1,14 +1,13 @@
 import type { Metadata } from "next";
-import { Suspense } from "react";
-import { Skeleton } from "@/components/field/skeleton";
+import { FieldScreen } from "@/components/field/field-screen";
 import { MapScreen } from "@/components/field/screens/map";
 
 export const metadata: Metadata = { title: "Map" };
 
 export default function Page() {
   return (
-    <Suspense fallback={<Skeleton />}>
+    <FieldScreen>
       <MapScreen />
-    </Suspense>
+    </FieldScreen>
   );
 }

@@ -29,12 +29,7 @@ export function BarrenRockScreen() {
   const claim = claims.find((c) => c.id === chosen);
 
   return (
-    <div className="flex flex-col gap-4">
-      <h1 className="text-2xl font-bold">Barren rock</h1>
-      <p className="text-ink-soft">
-        Weigh {MIN_PIECES}–10 pieces of gold-free rock from the claim&apos;s vein. Their densities teach the club the claim&apos;s host rock, so specimen
-        estimates there stop leaning on a preset.
-      </p>
+    <>
       {claims.length === 0 ? (
         <p>The club&apos;s claims arrive with camp sync.</p>
       ) : (
@@ -104,6 +99,6 @@ export function BarrenRockScreen() {
           />
         </Suspense>
       )}
-    </div>
+    </>
   );
 }

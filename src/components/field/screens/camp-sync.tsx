@@ -25,8 +25,7 @@ export function CampSyncScreen() {
   const waiting = (entries ?? []).filter((e) => e.state === "pending");
   const stuck = (entries ?? []).filter((e) => e.state === "stuck");
   return (
-    <div className="flex flex-col gap-4">
-      <h1 className="text-2xl font-bold">Camp sync</h1>
+    <>
       <SyncStatusView db={db} />
       <PhotosLater db={db} />
       {refused.length > 0 && (
@@ -82,7 +81,7 @@ export function CampSyncScreen() {
           </ul>
         )}
       </section>
-    </div>
+    </>
   );
 }
 

@@ -58,13 +58,7 @@ export function FindsListScreen() {
   );
 
   return (
-    <div className="flex flex-col gap-3">
-      <div className="flex items-center justify-between">
-        <h1 className="text-2xl font-bold">Your finds</h1>
-        <IntentLink href="/finds/new" className="btn btn-primary">
-          Log a find
-        </IntentLink>
-      </div>
+    <>
       <div className="grid grid-cols-1 gap-2 sm:grid-cols-3" role="search">
         <label className="flex flex-col">
           <span className="field-label">Search</span>
@@ -114,6 +108,6 @@ export function FindsListScreen() {
           </div>
         </>
       )}
-    </div>
+    </>
   );
 }

@@ -10,21 +10,22 @@ import { Skeleton } from "../skeleton";
 export function OutingsScreen() {
   const { db } = useMember();
   const claims = useClaims(db) ?? [];
-  const outings = useLiveQuery(() => db.outings.orderBy("startedAt").reverse().toArray(), [db]);
-  const counts = useLiveQuery(async () => {
-    const m = new Map<string, number>();
-    await db.finds.each((f) => f.outingId && m.set(f.outingId, (m.get(f.outingId) ?? 0) + 1));
-    return m;
-  }, [db]);
+  // The outings and their find counts in one read: drawn together, so no count line changes
+  // under the member's eyes after the list is there.
+  const read = useLiveQuery(
+    () =>
+      db.transaction("r", [db.outings, db.finds], async () => {
+        const counts = new Map<string, number>();
+        await db.finds.each((f) => f.outingId && counts.set(f.outingId, (counts.get(f.outingId) ?? 0) + 1));
+        return { outings: await db.outings.orderBy("startedAt").reverse().toArray(), counts };
+      }),
+    [db],
+  );
+  const outings = read?.outings;
+  const counts = read?.counts;
   const claimName = (id: string | null) => claims.find((c) => c.id === id)?.name ?? "off-claim";
   return (
-    <div className="flex flex-col gap-3">
-      <div className="flex items-center justify-between gap-2">
-        <h1 className="text-2xl font-bold">Outings</h1>
-        <IntentLink href="/" className="btn">
-          Start one from Today
-        </IntentLink>
-      </div>
+    <>
       {outings === undefined ? (
         <Skeleton />
       ) : outings.length === 0 ? (
@@ -44,6 +45,6 @@ export function OutingsScreen() {
           ))}
         </ul>
       )}
-    </div>
+    </>
   );
 }

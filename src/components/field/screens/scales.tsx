@@ -140,12 +140,7 @@ export function ScalesScreen() {
   const { db } = useMember();
   const scales = useLiveQuery(() => db.scales.toArray().then((s) => s.sort((a, b) => a.name.localeCompare(b.name))), [db]);
   return (
-    <div className="flex flex-col gap-4">
-      <h1 className="text-2xl font-bold">Scales and setup checks</h1>
-      <p className="text-ink-soft">
-        A setup check weighs an object of known density on your rig. If the rig reads it true, a poor estimate is the specimen&apos;s, not a wet line, a bubble,
-        a drifting scale or a basket touching the cup. Weigh-ins record the scale and its last check.
-      </p>
+    <>
       {scales === undefined ? (
         <Skeleton />
       ) : scales.length === 0 ? (
@@ -157,7 +152,8 @@ export function ScalesScreen() {
           ))}
         </ul>
       )}
-      <AddScale />
-    </div>
+      {/* With the list: drawn below a placeholder, the form would jump when the list replaced it. */}
+      {scales !== undefined && <AddScale />}
+    </>
   );
 }

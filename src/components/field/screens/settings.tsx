@@ -84,8 +84,7 @@ export function SettingsScreen() {
     </label>
   );
   return (
-    <div className="flex flex-col gap-4">
-      <h1 className="text-2xl font-bold">Settings</h1>
+    <>
       <section className="sheet grid gap-3 sm:grid-cols-2" aria-label="Units and weigh-in defaults">
         {select(
           "massUnit",
@@ -154,6 +153,6 @@ export function SettingsScreen() {
           Saved on this device.
         </p>
       )}
-    </div>
+    </>
   );
 }

@@ -1,14 +1,13 @@
 import type { Metadata } from "next";
-import { Suspense } from "react";
-import { Skeleton } from "@/components/field/skeleton";
+import { FieldScreen } from "@/components/field/field-screen";
 import { QuickFindScreen } from "@/components/field/screens/quick-find";
 
 export const metadata: Metadata = { title: "Log a find" };
 
 export default function Page() {
   return (
-    <Suspense fallback={<Skeleton />}>
+    <FieldScreen>
       <QuickFindScreen />
-    </Suspense>
+    </FieldScreen>
   );
 }

@@ -1,14 +1,13 @@
 import type { Metadata } from "next";
-import { Suspense } from "react";
-import { Skeleton } from "@/components/field/skeleton";
+import { FieldScreen } from "@/components/field/field-screen";
 import { OutingDetailScreen } from "@/components/field/screens/outing-detail";
 
 export const metadata: Metadata = { title: "Outing" };
 
 export default function Page() {
   return (
-    <Suspense fallback={<Skeleton />}>
+    <FieldScreen>
       <OutingDetailScreen />
-    </Suspense>
+    </FieldScreen>
   );
 }
