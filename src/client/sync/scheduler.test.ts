@@ -20,6 +20,8 @@ describe("the scheduler's retry", () => {
     const random = () => 0.5;
     const offline = { kind: "offline" as const, waiting: 1, rejected: 0, lastSyncedAt: null };
     expect(afterOutcome(offline, 2, 0, random)).toMatchObject({ status: offline, waitMs: backoffMs(2, random), attempt: 3 });
+    // With no network at all, the online event brings it back; no tries meanwhile.
+    expect(afterOutcome(offline, 2, 0, random, false)).toMatchObject({ status: offline, waitMs: null, attempt: 3 });
     // However long the dead zone lasts, the device looks again every few minutes at most.
     expect(afterOutcome(offline, 40, 0, () => 1).waitMs).toBe(5 * 60_000);
     expect(afterOutcome({ kind: "done", at: 1, sent: 1, received: 0, rejected: 0 }, 5)).toMatchObject({ waitMs: null, attempt: 0 });

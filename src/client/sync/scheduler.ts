@@ -14,21 +14,24 @@ export function backoffMs(attempt: number, random = Math.random): number {
 /**
  * What follows a sync's outcome: the delay before trying again (an error: the back-off, or the
  * server's Retry-After when longer) and the status to show, whose retryAt is that same moment.
- * Offline tries again after the back-off too, the online event being only the fast way back:
+ * Offline with a network there (`online`: navigator.onLine) tries again after the back-off too:
  * navigator.onLine says a network is there, not that the club's server can be reached (a
- * camp's Wi-Fi with no way out, a phone waking in a dead zone), so "online" may never fire.
+ * camp's Wi-Fi with no way out, a phone waking in a dead zone), and no "online" event comes
+ * when the way opens. With no network at all the online event is the way back, and no try is
+ * made meanwhile (each would flash "syncing" on the card and in a screen reader's ear).
  */
 export function afterOutcome(
   outcome: SyncStatus,
   attempt: number,
   now = Date.now(),
   random = Math.random,
+  online = true,
 ): { status: SyncStatus; waitMs: number | null; attempt: number } {
   if (outcome.kind === "error") {
     const waitMs = Math.max(backoffMs(attempt, random), outcome.retryAt - now);
     return { status: { ...outcome, retryAt: now + waitMs }, waitMs, attempt: attempt + 1 };
   }
-  if (outcome.kind === "offline") return { status: outcome, waitMs: backoffMs(attempt, random), attempt: attempt + 1 };
+  if (outcome.kind === "offline") return { status: outcome, waitMs: online ? backoffMs(attempt, random) : null, attempt: attempt + 1 };
   return { status: outcome, waitMs: null, attempt: 0 };
 }
 
@@ -68,7 +71,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     try {
       const work = async () => {
         const { syncOnce } = await loadEngine();
-        const next = afterOutcome(await syncOnce(db, memberId, (s) => syncStatus.set(s), options), attempt);
+        const outcome = await syncOnce(db, memberId, (s) => syncStatus.set(s), options);
+        const next = afterOutcome(outcome, attempt, Date.now(), Math.random, navigator.onLine);
         syncStatus.set(next.status);
         attempt = next.attempt;
         clearTimeout(retryTimer);
@@ -83,6 +87,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       const next = afterOutcome({ kind: "error", message: error instanceof Error ? error.message : String(error), retryAt: 0, waiting: 0 }, attempt);
       syncStatus.set(next.status);
       attempt = next.attempt;
+      clearTimeout(retryTimer); // one retry waiting, never two chains of them
       retryTimer = setTimeout(run, next.waitMs!);
     } finally {
       running = false;

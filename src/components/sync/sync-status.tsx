@@ -84,6 +84,10 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
       line = `Sync stopped: ${status.message} Trying again ${until(status.retryAt)}.`;
       tone = "text-rust";
       break;
+    case "offline":
+      // A network, but no way through to the club's server (a camp's Wi-Fi with no way out).
+      line = "The club's server cannot be reached from here. Camp sync keeps trying; everything is kept on this device.";
+      break;
     default:
       line = online ? "Ready to sync." : "No signal: everything is kept on this device until camp sync.";
   }
@@ -103,7 +107,7 @@ export function SyncStatusView({ db, compact = false }: { db: LodebookDb; compac
           must not push the screen below it down and back up (a layout shift on every sync). */}
       {progress !== null && (
         <progress
-          className={`absolute inset-x-3 h-1.5 accent-[var(--ochre)] ${compact ? "bottom-0.5" : "bottom-1.5"}`}
+          className={`absolute inset-x-3 h-1.5 w-auto accent-[var(--ochre)] ${compact ? "bottom-0.5" : "bottom-1.5"}`}
           value={progress}
           max={1}
           aria-label="Sync progress"
