@@ -56,3 +56,27 @@ describe("dates in one format per locale", () => {
     expect(formatWhen(evening, "UTC", "de-DE")).toBe("13.06.2026, 03:30");
   });
 });
+
+describe("dates on the device's own clock", () => {
+  const evening = Date.UTC(2026, 5, 13, 3, 30);
+  it("follow the device into another zone, though the formatter is kept between uses", () => {
+    const before = process.env.TZ;
+    try {
+      process.env.TZ = "America/Los_Angeles"; // Node reads TZ again when it is set
+      expect(formatWhen(evening, undefined, "en-GB")).toBe("12 Jun 2026, 20:30");
+      process.env.TZ = "America/Denver";
+      expect(formatWhen(evening, undefined, "en-GB")).toBe("12 Jun 2026, 21:30");
+      // Phoenix keeps UTC−7 all year, Denver only in winter: told apart by July's offset.
+      process.env.TZ = "America/Phoenix";
+      expect(formatWhen(evening, undefined, "en-GB")).toBe("12 Jun 2026, 20:30");
+    } finally {
+      if (before === undefined) delete process.env.TZ;
+      else process.env.TZ = before;
+    }
+  });
+  it("a corrupt timestamp reads 'date unknown' rather than taking the screen down", () => {
+    expect(formatDay(Number.NaN, "UTC", "en-GB")).toBe("date unknown");
+    expect(formatWhen(Number.POSITIVE_INFINITY)).toBe("date unknown");
+    expect(formatMonth("not-a-month", "en-GB")).toBe("not-a-month");
+  });
+});

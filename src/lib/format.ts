@@ -36,10 +36,17 @@ export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGram
 
 // Making an Intl formatter costs about as much as a thousand uses of one (a list of finds
 // formatted a date per row in a fresh one, 80 ms of a first load on a slowed phone CPU): one
-// per locale, zone and style, made on first use.
+// per locale, zone and style, made on first use. One made for the device's own zone or language
+// keeps the ones it was made with, so those are in its key: a phone carried into another zone
+// with the app open gets a new one (the offsets of January, July and now tell zones apart).
 const formatters = new Map<string, Intl.DateTimeFormat>();
+function deviceZoneKey(): string {
+  const year = new Date().getFullYear();
+  return `${new Date(year, 0, 1).getTimezoneOffset()}/${new Date(year, 6, 1).getTimezoneOffset()}/${new Date().getTimezoneOffset()}`;
+}
 function formatter(style: string, locale: string | undefined, timeZone: string | undefined, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
-  const key = `${style}|${locale ?? ""}|${timeZone ?? ""}`;
+  const deviceLocale = typeof navigator === "undefined" ? "" : navigator.language;
+  const key = `${style}|${locale ?? `device:${deviceLocale}`}|${timeZone ?? `device:${deviceZoneKey()}`}`;
   let f = formatters.get(key);
   if (!f) {
     f = new Intl.DateTimeFormat(locale, { ...options, timeZone });
@@ -47,6 +54,9 @@ function formatter(style: string, locale: string | undefined, timeZone: string |
   }
   return f;
 }
+
+/** What a date that is not one (a corrupt record) shows: Intl would throw, taking the screen with it. */
+const NO_DATE = "date unknown";
 
 /**
  * Every date and time shown goes through these two, in Intl's medium date ("3 Dec 2026",
@@ -56,18 +66,22 @@ function formatter(style: string, locale: string | undefined, timeZone: string |
  * `<time dateTime>`) stay ISO 8601.
  */
 export function formatDay(ms: number, timeZone?: string, locale?: string): string {
+  if (!Number.isFinite(ms)) return NO_DATE;
   return formatter("day", locale, timeZone, { dateStyle: "medium" }).format(ms);
 }
 
 /** Date and time in the viewer's locale: on the device's clock, or in a given zone (the club's). */
 export function formatWhen(ms: number, timeZone?: string, locale?: string): string {
+  if (!Number.isFinite(ms)) return NO_DATE;
   return formatter("when", locale, timeZone, { dateStyle: "medium", timeStyle: "short" }).format(ms);
 }
 
 /** A month ("2026-06") as the viewer's locale names it: "Jun 2026". */
 export function formatMonth(month: string, locale?: string): string {
   const [year, m] = month.split("-").map(Number);
-  return formatter("month", locale, "UTC", { month: "short", year: "numeric" }).format(Date.UTC(year, m - 1, 1));
+  const at = Date.UTC(year, m - 1, 1);
+  if (!Number.isFinite(at)) return month;
+  return formatter("month", locale, "UTC", { month: "short", year: "numeric" }).format(at);
 }
 
 /** For <input type="datetime-local">, in local time. */
