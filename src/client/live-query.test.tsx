@@ -2,9 +2,15 @@
 import "fake-indexeddb/auto";
 import { act, cleanup, render, screen } from "@testing-library/react";
 import Dexie, { type EntityTable } from "dexie";
-import { Component, type ReactNode } from "react";
+import { Component, startTransition, type ReactNode } from "react";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { useLiveQuery } from "./live-query";
+
+// React's own startTransition, watched: each answer must go through it.
+vi.mock("react", async (importOriginal) => {
+  const react = await importOriginal<typeof import("react")>();
+  return { ...react, startTransition: vi.fn(react.startTransition) };
+});
 
 // The app's useLiveQuery (live-query.ts) hands each answer to React as a transition. These check
 // that it is still a live query: the default until the first answer, every later write seen,
@@ -50,8 +56,11 @@ describe("useLiveQuery, delivered as transitions", () => {
     render(<Count db={db} />);
     expect(screen.getByTestId("names").textContent).toBe("waiting");
     expect((await screen.findByText("none")).textContent).toBe("none");
+    const transitions = vi.mocked(startTransition).mock.calls.length;
+    expect(transitions).toBeGreaterThan(0);
     await act(() => db.rows.put({ id: 1, name: "nugget" }));
     expect((await screen.findByText("nugget")).textContent).toBe("nugget");
+    expect(vi.mocked(startTransition).mock.calls.length).toBeGreaterThan(transitions);
     await act(() => db.rows.bulkPut([{ id: 2, name: "flake" }]));
     expect((await screen.findByText("nugget,flake")).textContent).toBe("nugget,flake");
     db.close();

@@ -4,7 +4,7 @@ import { afterAll, describe, expect, inject, it } from "vitest";
 import { DEMO_CLAIMS } from "@/server/seed/people";
 import { makeJpeg } from "../support/jpeg";
 import { launchPersistent, PHONE, shotPath } from "./support/browser";
-import { axeViolations, deviceRecords, firstPage, signInToField, tab, waitForSyncDone } from "./support/field";
+import { axeViolations, deviceRecords, firstPage, screenDrawn, signInToField, tab, waitForSyncDone } from "./support/field";
 
 const baseUrl = inject("baseUrl");
 const larkspur = DEMO_CLAIMS.find((c) => c.name === "Larkspur Bench")!;
@@ -152,7 +152,7 @@ describe("the field logbook with no signal", () => {
     const found: Record<string, string[]> = {};
     for (const path of ["/", "/finds", "/finds/new", "/outings", "/map", "/sync", "/settings", "/weigh"]) {
       await page.goto(`${baseUrl}${path}`);
-      await page.locator("main h1").first().waitFor();
+      await screenDrawn(page);
       const v = await axeViolations(page);
       if (v.length) found[path] = v;
     }

@@ -1,9 +1,11 @@
 import { FieldShell } from "@/components/field/field-shell";
 
-// Who is signed in, asked while the page is still parsing: a device that does not remember its
-// member yet (a first visit, cleared storage) draws the screen when the answer comes, and the
-// answer then comes before the app's code has even loaded instead of after it has run.
-// MemberProvider takes this promise (once) in place of its own request.
+// Who is signed in, asked while the page is still parsing. On a page load (a screen opened or
+// reloaded, the app started from the home screen) the answer then comes before the app's code
+// has even loaded instead of after it has run; a device that does not remember its member yet
+// (cleared storage) draws the screen when it comes. MemberProvider takes this promise (once) in
+// place of its own request. Arriving without a page load (from the sign-in page, in the app)
+// does not run the script, as React inserts it without running it: the provider asks itself.
 const askWhoEarly = `try{window.__lodebookMe=fetch("/api/me",{cache:"no-store",credentials:"same-origin"}).catch(function(){return null})}catch(e){}`;
 
 // Member screens are static shells: they open from the service worker's cache with no

@@ -27,6 +27,16 @@ export async function tab(page: Page, name: "Today" | "Finds" | "Outings" | "Map
   await page.getByRole("navigation", { name: "Field" }).getByRole("link", { name, exact: true }).click();
 }
 
+/**
+ * Waits until the screen is drawn from the device. A member screen's head comes in the HTML,
+ * so a heading alone says nothing: no "Loading" placeholder left in it does (the member known,
+ * the screen's reads answered).
+ */
+export async function screenDrawn(page: Page) {
+  await page.locator("main h1").first().waitFor();
+  await page.waitForFunction(() => document.querySelector('main [role="status"][aria-label="Loading"]') === null, undefined, { timeout: 30_000 });
+}
+
 /** Runs axe-core in the page; returns the serious and critical violations. */
 export async function axeViolations(page: Page) {
   await page.addScriptTag({ content: fs.readFileSync("node_modules/axe-core/axe.min.js", "utf8") });
