@@ -1,6 +1,6 @@
 import { Caution } from "@/components/caution";
 
-/** The field caution on the member's home: in its first frame (before the member is known) and on Today, the same words at the same size. */
+/** The field caution on the member's home, below Today and below its first frame alike: sent in the page's HTML. */
 export function HeadOutCaution() {
   return (
     <Caution title="Before you head out">

@@ -1,11 +1,25 @@
 "use client";
+import { useLiveQuery } from "@/client/live-query";
 import { IntentLink } from "@/components/intent-link";
-import type { LocalFind } from "@/client/device-db";
+import type { LodebookDb } from "@/client/device-db";
+import { readQueryStates } from "@/client/query-states";
 import { KIND_LABELS } from "@/lib/entities/constants";
 import { formatDay } from "@/lib/format";
 
-/** On Today: the finds an officer has queried and the member has not answered yet, each a link to answer it. */
-export function QueriedFinds({ finds: shown }: { finds: LocalFind[] }) {
+/** The member's finds an officer has queried and the member has not answered, in one read. */
+const readQueried = (db: LodebookDb) =>
+  db.transaction("r", [db.reviews, db.answers, db.finds], async () => {
+    const ids = [...(await readQueryStates(db))].filter(([, state]) => state === "queried").map(([id]) => id);
+    return (await db.finds.bulkGet(ids)).filter((f) => f !== undefined);
+  });
+
+/**
+ * On Today: the finds an officer has queried and the member has not answered yet, each a link
+ * to answer it. Loaded after Today (Today.tsx), with the query logic it needs: most days there
+ * are none, and it draws nothing, so it need not weigh on every first load of the home screen.
+ */
+export function QueriedFinds({ db }: { db: LodebookDb }) {
+  const shown = useLiveQuery(() => readQueried(db), [db]) ?? [];
   if (shown.length === 0) return null;
   return (
     <section className="sheet flex flex-col gap-2 border-rust" aria-labelledby="queried-title" data-testid="queried-finds">

@@ -1,11 +1,11 @@
 "use client";
+import { lazy, Suspense } from "react";
 import { useLiveQuery } from "@/client/live-query";
 import { IntentLink } from "@/components/intent-link";
 import type { LodebookDb } from "@/client/device-db";
 import { readClaims, readCurrentOuting } from "@/client/hooks";
 import { endOuting, startOuting, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
-import { readQueryStates } from "@/client/query-states";
 import { DEFAULT_SETTINGS, readSettings } from "@/client/settings";
 import { requestSync } from "@/client/sync/scheduler";
 import { SyncStatusView } from "@/components/sync/sync-status";
@@ -15,10 +15,11 @@ import { formatDay, formatGrams, formatWhen } from "@/lib/format";
 import { can } from "@/lib/roles";
 import { deviceSeasonBounds } from "@/lib/time/device-season";
 import { deviceTotals } from "@/lib/club/totals";
-import { HeadOutCaution } from "../head-out-caution";
-import { QueriedFinds } from "../queried-finds";
 import { Skeleton } from "../skeleton";
 import { ClaimOptions, MethodOptions } from "../options";
+
+// Queried finds are rare: their list and the query logic come in a chunk of their own.
+const QueriedFinds = lazy(() => import("../queried-finds").then((m) => ({ default: m.QueriedFinds })));
 
 /**
  * Everything Today shows, read in one transaction: a camp sync that writes finds, outings and
@@ -26,17 +27,14 @@ import { ClaimOptions, MethodOptions } from "../options";
  * once per table, on the main thread a phone's first screen needs.
  */
 function readToday(db: LodebookDb, start: number, end: number) {
-  return db.transaction("r", [db.settings, db.outings, db.claims, db.finds, db.reviews, db.answers], async () => {
-    const [settings, outing, claims, finds, states] = await Promise.all([
+  return db.transaction("r", [db.settings, db.outings, db.claims, db.finds], async () => {
+    const [settings, outing, claims, finds] = await Promise.all([
       readSettings(db),
       readCurrentOuting(db),
       readClaims(db),
       db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"),
-      readQueryStates(db),
     ]);
-    const queriedIds = [...states].filter(([, state]) => state === "queried").map(([id]) => id);
-    const queried = (await db.finds.bulkGet(queriedIds)).filter((f) => f !== undefined);
-    return { settings, outing, claims, finds, queried };
+    return { settings, outing, claims, finds };
   });
 }
 
@@ -54,14 +52,16 @@ export function TodayScreen() {
   const claimName = (id: string | null) => claims?.find((c) => c.id === id)?.name ?? "no claim";
 
   return (
-    <div className="flex flex-col gap-5">
+    <>
       <h1 className="text-2xl font-bold">Good day, {first}</h1>
 
       <IntentLink href="/finds/new" className="btn btn-primary min-h-[64px] text-xl" data-testid="log-find">
         Log a find
       </IntentLink>
 
-      <QueriedFinds finds={today?.queried ?? []} />
+      <Suspense fallback={null}>
+        <QueriedFinds db={db} />
+      </Suspense>
 
       <section className="sheet flex flex-col gap-3" aria-labelledby="outing-title">
         <h2 id="outing-title" className="heading-bar self-start text-lg">
@@ -188,8 +188,6 @@ export function TodayScreen() {
           Open the club console
         </IntentLink>
       )}
-
-      <HeadOutCaution />
-    </div>
+    </>
   );
 }
