@@ -62,8 +62,19 @@ const nextConfig = {
         minChunks: 2,
         minSize: 0,
         priority: 25,
-        test: /[\\/]src[\\/](client[\\/](device-db|member|logbook|local-validation-error|sync[\\/](scheduler|status))\.|lib[\\/]roles|components[\\/]field[\\/]skeleton)|[\\/]node_modules[\\/](uuid|dexie-react-hooks)[\\/]/,
+        test: /[\\/]src[\\/](client[\\/](device-db|member|logbook|local-validation-error|live-query|sync[\\/](scheduler|status))\.|lib[\\/]roles|components[\\/]field[\\/](skeleton|member-gate))|[\\/]node_modules[\\/](uuid|dexie-react-hooks)[\\/]/,
         reuseExistingChunk: true,
+        enforce: true,
+      };
+      // The link every screen and frame uses (the shell's header and tab bar, the screens, the
+      // open pages' header): one copy in a chunk of its own, not one in each of them.
+      config.optimization.splitChunks.cacheGroups.intentLink = {
+        name: "intent-link",
+        chunks: "initial",
+        minChunks: 2,
+        minSize: 0,
+        priority: 24,
+        test: /[\\/]src[\\/]components[\\/]intent-link\./,
         enforce: true,
       };
     }

@@ -45,7 +45,7 @@ describe("registering the service worker", () => {
     expect(register).toHaveBeenCalledTimes(1);
   });
 
-  it("registers once, however many ask (the first sync's end and the settle timer)", async () => {
+  it("registers once, however many ask (a page's settle timer and a direct call)", async () => {
     const { startServiceWorker, startServiceWorkerWhenSettled } = await import("./service-worker");
     readyState = "complete";
     startServiceWorkerWhenSettled();

@@ -1,8 +1,9 @@
 // The service worker's first install fetches and compiles every member screen and chunk (its
 // precache): on a phone that is a second or more of CPU, on the cores the first screen needs
-// to draw. So the worker is registered once the page has settled: after the first camp sync
-// of a member screen, or a few seconds after load on any page, whichever comes first. A new
-// member signs in first, and the worker installs on the sign-in page while they type.
+// to draw. So the worker is registered once the page has settled: a few seconds after load,
+// at an idle moment. A new member signs in first, and the worker installs on the sign-in page
+// while they type. (Camp sync does not start it: its module would then be in every member
+// screen's first load twice, in the shell's chunk and the screen's.)
 // (@serwist/next's own registration is off in next.config.mjs; its window object does this.)
 
 const SETTLE_MS = 3000;

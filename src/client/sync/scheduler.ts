@@ -1,5 +1,4 @@
 import type { LodebookDb } from "../device-db";
-import { startServiceWorker } from "../service-worker";
 import { syncStatus, type SyncStatus } from "./status";
 
 const PERIOD_MS = 5 * 60_000;
@@ -91,8 +90,6 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       retryTimer = setTimeout(run, next.waitMs!);
     } finally {
       running = false;
-      // The first sync's end is when a member screen has settled (see service-worker.ts).
-      startServiceWorker();
       if (again && !stopped) {
         again = false;
         void run();
