@@ -11,14 +11,15 @@ export const metadata: Metadata = { title: "Today" };
 export default function Page() {
   return (
     <div className="flex flex-col gap-5">
-      <MemberGate fallback={<HomeFrame />}>
+      {/* The field caution, the screen's largest text, closes both the frame and Today at the
+          same size (the first paint is the largest one). It is drawn here on the server and
+          handed to Today, so Today's script does not carry its words; drawn anew under Today
+          rather than kept below the gate, where Today arriving above it would move it. */}
+      <MemberGate fallback={<HomeFrame caution={<HeadOutCaution />} />}>
         <Suspense fallback={<Skeleton />}>
-          <TodayScreen />
+          <TodayScreen caution={<HeadOutCaution />} />
         </Suspense>
       </MemberGate>
-      {/* The screen's largest text, in the HTML and never drawn again: the first paint is the
-          largest one, and Today's script does not carry these words. */}
-      <HeadOutCaution />
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import { Caution } from "@/components/caution";
 
-/** The field caution on the member's home, below Today and below its first frame alike: sent in the page's HTML. */
+/** The field caution on the member's home, closing Today and its first frame alike: drawn on the server (page.tsx). */
 export function HeadOutCaution() {
   return (
     <Caution title="Before you head out">

@@ -5,9 +5,9 @@ import { Skeleton } from "./skeleton";
  * Home's first frame, in the page's own HTML: the greeting and the main action, drawn before
  * the member is known (the device's database opening, or a new device asking the server who
  * is signed in); a phone on camp signal sees the screen's shape at once instead of grey bars.
- * The field caution below it is the page's own (app/(field)/page.tsx), under Today as well.
+ * The field caution closes it, as it closes Today (app/(field)/page.tsx).
  */
-export function HomeFrame() {
+export function HomeFrame({ caution }: { caution: React.ReactNode }) {
   return (
     <>
       <h1 className="text-2xl font-bold">Good day</h1>
@@ -15,6 +15,7 @@ export function HomeFrame() {
         Log a find
       </IntentLink>
       <Skeleton lines={3} />
+      {caution}
     </>
   );
 }

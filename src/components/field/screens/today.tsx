@@ -38,7 +38,8 @@ function readToday(db: LodebookDb, start: number, end: number) {
   });
 }
 
-export function TodayScreen() {
+/** Today; `caution` (the field caution, drawn on the server) closes it. */
+export function TodayScreen({ caution }: { caution: React.ReactNode }) {
   const { member, db } = useMember();
   // The member's own days, as their phone's clock shows them.
   const { season, start, end } = deviceSeasonBounds();
@@ -188,6 +189,7 @@ export function TodayScreen() {
           Open the club console
         </IntentLink>
       )}
+      {caution}
     </>
   );
 }
