@@ -15,8 +15,9 @@ const readQueried = (db: LodebookDb) =>
 
 /**
  * On Today: the finds an officer has queried and the member has not answered yet, each a link
- * to answer it. Loaded after Today (Today.tsx), with the query logic it needs: most days there
- * are none, and it draws nothing, so it need not weigh on every first load of the home screen.
+ * to answer it. Loaded by Today (screens/today.tsx) once the device holds a review, with the
+ * query logic it needs: most members have none, and it need not weigh on the home screen's
+ * first load.
  */
 export function QueriedFinds({ db }: { db: LodebookDb }) {
   const shown = useLiveQuery(() => readQueried(db), [db]) ?? [];

@@ -27,14 +27,15 @@ const QueriedFinds = lazy(() => import("../queried-finds").then((m) => ({ defaul
  * once per table, on the main thread a phone's first screen needs.
  */
 function readToday(db: LodebookDb, start: number, end: number) {
-  return db.transaction("r", [db.settings, db.outings, db.claims, db.finds], async () => {
-    const [settings, outing, claims, finds] = await Promise.all([
+  return db.transaction("r", [db.settings, db.outings, db.claims, db.finds, db.reviews], async () => {
+    const [settings, outing, claims, finds, reviews] = await Promise.all([
       readSettings(db),
       readCurrentOuting(db),
       readClaims(db),
       db.finds.where("foundAt").between(start, end).reverse().sortBy("foundAt"),
+      db.reviews.count(),
     ]);
-    return { settings, outing, claims, finds };
+    return { settings, outing, claims, finds, reviewed: reviews > 0 };
   });
 }
 
@@ -60,9 +61,12 @@ export function TodayScreen({ caution }: { caution: React.ReactNode }) {
         Log a find
       </IntentLink>
 
-      <Suspense fallback={null}>
-        <QueriedFinds db={db} />
-      </Suspense>
+      {/* No review on the device, no query: neither the chunk nor its read is needed. */}
+      {today?.reviewed && (
+        <Suspense fallback={null}>
+          <QueriedFinds db={db} />
+        </Suspense>
+      )}
 
       <section className="sheet flex flex-col gap-3" aria-labelledby="outing-title">
         <h2 id="outing-title" className="heading-bar self-start text-lg">
