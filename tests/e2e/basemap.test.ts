@@ -4,6 +4,7 @@ import { makeDemoBasemap } from "@/server/seed/demo-basemap";
 import { launchPersistent, LAPTOP, PHONE, shotPath } from "./support/browser";
 import { firstPage, signInToField, waitForSyncDone } from "./support/field";
 import { DEMO, SignInPage } from "./support/pages";
+import { DEMO_CLAIMS } from "@/server/seed/people";
 
 const baseUrl = inject("baseUrl");
 const dirs: string[] = [];
@@ -27,7 +28,35 @@ describe("the club's basemap on the phone (issue 19)", () => {
 
     // With signal and nothing kept: the map reads the club's server.
     await page.goto(`${baseUrl}/map`);
-    await mapWithBasemap(page, "online");
+    const online = await mapWithBasemap(page, "online");
+
+    // The map is made once: the member pans it, a position fix comes, and the same map (same
+    // canvas) shows the fix where the member left it, not rebuilt and fitted afresh.
+    const canvas = online.locator("canvas");
+    await canvas.evaluate((c) => (c.dataset.madeOnce = "yes"));
+    const label = online.locator("[data-claim-label]").first();
+    // Where the claim's name sits within the map (the line above the map may come and go).
+    const inMap = async () => {
+      const [l, m] = [(await label.boundingBox())!, (await online.boundingBox())!];
+      return { x: l.x - m.x, y: l.y - m.y };
+    };
+    const before = await inMap();
+    const area = (await online.boundingBox())!;
+    await page.mouse.move(area.x + area.width / 2, area.y + area.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(area.x + area.width / 2 + 60, area.y + area.height / 2 + 40, { steps: 10 });
+    await page.mouse.up();
+    await expect.poll(async () => (await inMap()).x - before.x).toBeGreaterThan(30);
+    const panned = await inMap();
+    const claim = DEMO_CLAIMS[0];
+    await context.grantPermissions(["geolocation"], { origin: baseUrl });
+    await context.setGeolocation({ latitude: claim.lat, longitude: claim.lon, accuracy: 5 });
+    await page.getByRole("button", { name: "Show where I am" }).click();
+    await page.getByText(/^You: /).waitFor();
+    expect(await canvas.getAttribute("data-made-once")).toBe("yes");
+    const after = await inMap();
+    expect(Math.abs(after.x - panned.x)).toBeLessThan(2);
+    expect(Math.abs(after.y - panned.y)).toBeLessThan(2);
 
     // Settings: the size before, progress while it comes, then counted in the storage line.
     await page.goto(`${baseUrl}/settings`);

@@ -149,6 +149,7 @@ describe("the phone in the field (issue 19)", () => {
       ["/settings", /^Settings$/, /what the club sees of where you found things/],
       ["/scales", /^Scales and setup checks$/, /A setup check weighs an object of known density/],
       ["/barren-rock", /^Barren rock$/, /pieces of gold-free rock/],
+      ["/map", /^Map$/, /claims and your finds on the ground/],
     ];
     for (const [path, title, lead] of heads) {
       await page.goto(`${baseUrl}${path}`);

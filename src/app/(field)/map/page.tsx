@@ -6,7 +6,15 @@ export const metadata: Metadata = { title: "Map" };
 
 export default function Page() {
   return (
-    <FieldScreen>
+    <FieldScreen
+      gap="gap-3"
+      head={
+        <>
+          <h1 className="text-2xl font-bold">Map</h1>
+          <p className="text-ink-soft">The club&apos;s claims and your finds on the ground. Tap a find to open it; it works with no signal.</p>
+        </>
+      }
+    >
       <MapScreen />
     </FieldScreen>
   );

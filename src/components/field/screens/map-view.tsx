@@ -1,7 +1,7 @@
 "use client";
 import "maplibre-gl/dist/maplibre-gl.css";
 import type { FeatureCollection } from "geojson";
-import { LngLatBounds, Map as MapLibre, Marker, setWorkerUrl, type StyleSpecification } from "maplibre-gl";
+import { LngLatBounds, Map as MapLibre, Marker, setWorkerUrl, type GeoJSONSource, type StyleSpecification } from "maplibre-gl";
 import { useEffect, useRef } from "react";
 import type { LocalFind } from "@/client/device-db";
 import { claimLabelAnchor } from "@/lib/claim-label";
@@ -53,113 +53,150 @@ function gridLines(bounds: LngLatBounds): FeatureCollection {
 
 const css = (name: string) => getComputedStyle(document.documentElement).getPropertyValue(name).trim() || "#888";
 
+type Drawn = Pick<Props, "claims" | "finds" | "me" | "labels">;
+
+/** The claims, finds and position with a margin around them: what the map opens on. */
+function areaOf({ claims, finds, me }: Drawn): LngLatBounds {
+  const bounds = new LngLatBounds();
+  claims.forEach((c) =>
+    (c.boundary?.type === "Polygon" ? c.boundary.coordinates[0] : (c.boundary?.coordinates.flat(1)[0] ?? [])).forEach((p) => bounds.extend([p[0], p[1]])),
+  );
+  finds.forEach((f) => f.lat !== null && f.lon !== null && bounds.extend([f.lon, f.lat]));
+  if (me) bounds.extend([me.lon, me.lat]);
+  if (bounds.isEmpty()) bounds.extend([0, 0]);
+  return new LngLatBounds([bounds.getWest() - 0.01, bounds.getSouth() - 0.01], [bounds.getEast() + 0.01, bounds.getNorth() + 0.01]);
+}
+
+const claimsData = (claims: ClaimView[]): FeatureCollection => ({
+  type: "FeatureCollection",
+  features: claims.filter((c) => c.boundary).map((c) => ({ type: "Feature", properties: { id: c.id, name: c.name }, geometry: c.boundary! })),
+});
+
+const findsData = (finds: Props["finds"]): FeatureCollection => ({
+  type: "FeatureCollection",
+  features: finds
+    .filter((f) => f.lat !== null && f.lon !== null)
+    .map((f) => ({ type: "Feature", properties: { id: f.id, kind: f.kind }, geometry: { type: "Point", coordinates: [f.lon!, f.lat!] } })),
+});
+
+const meData = (me: Props["me"]): FeatureCollection => ({
+  type: "FeatureCollection",
+  features: me ? [{ type: "Feature", properties: {}, geometry: { type: "Point", coordinates: [me.lon, me.lat] } }] : [],
+});
+
+/**
+ * Names are HTML, not a symbol layer: the style carries no glyphs, which would need a
+ * network. Each hangs above its claim's northern edge (never over its finds) and lets taps
+ * through to the map.
+ */
+function nameClaims(map: MapLibre, { claims, labels }: Drawn): Marker[] {
+  return claims.flatMap((c) => {
+    const anchor = claimLabelAnchor(c.boundary);
+    if (!anchor) return [];
+    const el = document.createElement("div");
+    el.className = "pointer-events-none whitespace-nowrap rounded bg-sheet px-1 text-sm font-bold text-ink shadow";
+    el.dataset.claimLabel = c.id;
+    el.textContent = labels?.[c.id] ?? c.name;
+    return [new Marker({ element: el, anchor: "bottom", offset: [0, -3] }).setLngLat(anchor).addTo(map)];
+  });
+}
+
+/**
+ * Tiles appear at once instead of fading in: each fade redraws the map for 300 ms, and a
+ * phone's battery (or a phone without a graphics chip worth the name) pays for every frame.
+ */
+const RASTER_PAINT = { "raster-fade-duration": 0 } as const;
+
+function styleFor(data: Drawn, area: LngLatBounds, tileUrl: string): StyleSpecification {
+  return {
+    version: 8,
+    sources: {
+      ...(tileUrl ? { tiles: { type: "raster", tiles: [tileUrl], tileSize: 256 } } : {}),
+      grid: { type: "geojson", data: gridLines(area) },
+      claims: { type: "geojson", data: claimsData(data.claims) },
+      finds: { type: "geojson", cluster: true, clusterRadius: 40, data: findsData(data.finds) },
+      me: { type: "geojson", data: meData(data.me) },
+    },
+    layers: [
+      { id: "paper", type: "background", paint: { "background-color": css("--paper") } },
+      ...(tileUrl ? [{ id: "tiles", type: "raster" as const, source: "tiles", paint: RASTER_PAINT }] : []),
+      { id: "grid", type: "line", source: "grid", paint: { "line-color": css("--rule"), "line-width": 1 } },
+      { id: "claims-fill", type: "fill", source: "claims", paint: { "fill-color": css("--ochre"), "fill-opacity": 0.15 } },
+      { id: "claims-line", type: "line", source: "claims", paint: { "line-color": css("--ochre"), "line-width": 3 } },
+      {
+        id: "clusters",
+        type: "circle",
+        source: "finds",
+        filter: ["has", "point_count"],
+        paint: { "circle-color": css("--ink"), "circle-opacity": 0.75, "circle-radius": ["step", ["get", "point_count"], 12, 10, 16, 50, 22] },
+      },
+      {
+        id: "finds",
+        type: "circle",
+        source: "finds",
+        filter: ["!", ["has", "point_count"]],
+        paint: { "circle-color": "#e0aa22", "circle-radius": 7, "circle-stroke-color": css("--ink"), "circle-stroke-width": 2 },
+      },
+      {
+        id: "me",
+        type: "circle",
+        source: "me",
+        paint: { "circle-color": "#2f6fd6", "circle-radius": 8, "circle-stroke-color": "#fff", "circle-stroke-width": 3 },
+      },
+    ],
+  };
+}
+
+const setData = (map: MapLibre, source: string, data: FeatureCollection) => (map.getSource(source) as GeoJSONSource | undefined)?.setData(data);
+
 /**
  * MapLibre with an inline style: needs no tile server, no glyphs, no network. The club's
  * basemap (kept on the device, else from the server) goes under everything once it is found;
  * a tile address from Settings draws above it, so with no signal the basemap shows through.
+ *
+ * The map is made once (again only for a new tile address). Finds arriving from camp sync and
+ * each new position fix change its sources in place: the member's pan and zoom stay, and a
+ * phone does not build a WebGL map again for every change.
  */
 export default function MapView({ claims, finds, me, tileUrl, labels, onPick, onOpenFind }: Props) {
   const box = useRef<HTMLDivElement>(null);
   const mapRef = useRef<MapLibre | null>(null);
   const handlers = useRef({ onPick, onOpenFind });
+  const latest = useRef<Drawn>({ claims, finds, me, labels });
+  /** What the map draws now, and its claims' name tags. */
+  const shown = useRef<{ data: Drawn; markers: Marker[]; moved: boolean; styled: boolean } | null>(null);
   useEffect(() => {
     handlers.current = { onPick, onOpenFind };
-  }, [onPick, onOpenFind]);
+    latest.current = { claims, finds, me, labels };
+  });
 
   useEffect(() => {
     if (!box.current) return;
     setWorkerUrl("/maplibre-gl-worker.mjs");
-    const bounds = new LngLatBounds();
-    claims.forEach((c) =>
-      (c.boundary?.type === "Polygon" ? c.boundary.coordinates[0] : (c.boundary?.coordinates.flat(1)[0] ?? [])).forEach((p) => bounds.extend([p[0], p[1]])),
-    );
-    finds.forEach((f) => f.lat !== null && f.lon !== null && bounds.extend([f.lon, f.lat]));
-    if (me) bounds.extend([me.lon, me.lat]);
-    if (bounds.isEmpty()) bounds.extend([0, 0]);
-    const padded = new LngLatBounds([bounds.getWest() - 0.01, bounds.getSouth() - 0.01], [bounds.getEast() + 0.01, bounds.getNorth() + 0.01]);
-
-    const style: StyleSpecification = {
-      version: 8,
-      sources: {
-        ...(tileUrl ? { tiles: { type: "raster", tiles: [tileUrl], tileSize: 256 } } : {}),
-        grid: { type: "geojson", data: gridLines(padded) },
-        claims: {
-          type: "geojson",
-          data: {
-            type: "FeatureCollection",
-            features: claims.filter((c) => c.boundary).map((c) => ({ type: "Feature", properties: { id: c.id, name: c.name }, geometry: c.boundary! })),
-          },
-        },
-        finds: {
-          type: "geojson",
-          cluster: true,
-          clusterRadius: 40,
-          data: {
-            type: "FeatureCollection",
-            features: finds
-              .filter((f) => f.lat !== null && f.lon !== null)
-              .map((f) => ({ type: "Feature", properties: { id: f.id, kind: f.kind }, geometry: { type: "Point", coordinates: [f.lon!, f.lat!] } })),
-          },
-        },
-        me: {
-          type: "geojson",
-          data: {
-            type: "FeatureCollection",
-            features: me ? [{ type: "Feature", properties: {}, geometry: { type: "Point", coordinates: [me.lon, me.lat] } }] : [],
-          },
-        },
-      },
-      layers: [
-        { id: "paper", type: "background", paint: { "background-color": css("--paper") } },
-        ...(tileUrl ? [{ id: "tiles", type: "raster" as const, source: "tiles" }] : []),
-        { id: "grid", type: "line", source: "grid", paint: { "line-color": css("--rule"), "line-width": 1 } },
-        { id: "claims-fill", type: "fill", source: "claims", paint: { "fill-color": css("--ochre"), "fill-opacity": 0.15 } },
-        { id: "claims-line", type: "line", source: "claims", paint: { "line-color": css("--ochre"), "line-width": 3 } },
-        {
-          id: "clusters",
-          type: "circle",
-          source: "finds",
-          filter: ["has", "point_count"],
-          paint: { "circle-color": css("--ink"), "circle-opacity": 0.75, "circle-radius": ["step", ["get", "point_count"], 12, 10, 16, 50, 22] },
-        },
-        {
-          id: "finds",
-          type: "circle",
-          source: "finds",
-          filter: ["!", ["has", "point_count"]],
-          paint: { "circle-color": "#e0aa22", "circle-radius": 7, "circle-stroke-color": css("--ink"), "circle-stroke-width": 2 },
-        },
-        {
-          id: "me",
-          type: "circle",
-          source: "me",
-          paint: { "circle-color": "#2f6fd6", "circle-radius": 8, "circle-stroke-color": "#fff", "circle-stroke-width": 3 },
-        },
-      ],
-    };
-
-    const map = new MapLibre({ container: box.current, style, bounds: padded, attributionControl: false });
+    const data = latest.current;
+    const area = areaOf(data);
+    const map = new MapLibre({ container: box.current, style: styleFor(data, area, tileUrl), bounds: area, attributionControl: false, fadeDuration: 0 });
     mapRef.current = map;
-    // Names are HTML, not a symbol layer: the style carries no glyphs, which would need a
-    // network. Each hangs above its claim's northern edge (never over its finds) and lets
-    // taps through to the map.
-    const markers = claims.flatMap((c) => {
-      const anchor = claimLabelAnchor(c.boundary);
-      if (!anchor) return [];
-      const el = document.createElement("div");
-      el.className = "pointer-events-none whitespace-nowrap rounded bg-sheet px-1 text-sm font-bold text-ink shadow";
-      el.dataset.claimLabel = c.id;
-      el.textContent = labels?.[c.id] ?? c.name;
-      return [new Marker({ element: el, anchor: "bottom", offset: [0, -3] }).setLngLat(anchor).addTo(map)];
+    const now = { data, markers: nameClaims(map, data), moved: false, styled: false };
+    shown.current = now;
+    // Once the member pans or zooms, new finds no longer move the map under their finger.
+    map.on("movestart", (e) => {
+      if (e.originalEvent) now.moved = true;
     });
     map.on("click", (e) => {
       const hit = map.queryRenderedFeatures(e.point, { layers: ["finds"] })[0];
       if (hit && handlers.current.onOpenFind) return handlers.current.onOpenFind(String(hit.properties.id));
       const cluster = map.queryRenderedFeatures(e.point, { layers: ["clusters"] })[0];
-      if (cluster) return map.easeTo({ center: e.lngLat, zoom: map.getZoom() + 2 });
+      if (cluster) {
+        now.moved = true;
+        return map.easeTo({ center: e.lngLat, zoom: map.getZoom() + 2 });
+      }
       handlers.current.onPick?.(e.lngLat.lat, e.lngLat.lng);
     });
-    map.on("load", () => box.current?.setAttribute("data-map-ready", "true"));
+    map.once("load", () => {
+      now.styled = true;
+      box.current?.setAttribute("data-map-ready", "true");
+    });
     let live = true;
     box.current.removeAttribute("data-basemap");
     box.current.removeAttribute("data-basemap-tiles");
@@ -168,7 +205,7 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
       .then(([basemap]) => {
         if (!live || !basemap) return;
         map.addSource("basemap", { type: "raster", url: basemap.url, tileSize: 256 });
-        map.addLayer({ id: "basemap", type: "raster", source: "basemap" }, tileUrl ? "tiles" : "grid");
+        map.addLayer({ id: "basemap", type: "raster", source: "basemap", paint: RASTER_PAINT }, tileUrl ? "tiles" : "grid");
         // For tests and the curious: which basemap drew, once its tiles have.
         let tiles = 0;
         map.on("sourcedata", (e) => {
@@ -181,11 +218,42 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
       .catch((error: unknown) => console.warn("basemap not shown", error));
     return () => {
       live = false;
-      markers.forEach((m) => m.remove());
+      now.markers.forEach((m) => m.remove());
       map.remove();
       mapRef.current = null;
+      shown.current = null;
     };
-  }, [claims, finds, me, tileUrl, labels]);
+  }, [tileUrl]);
+
+  // New finds, claims or a position fix: the sources change in place.
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map) return;
+    const next: Drawn = { claims, finds, me, labels };
+    const apply = () => {
+      const now = shown.current;
+      if (mapRef.current !== map || !now) return;
+      const was = now.data;
+      if (was.claims !== next.claims) setData(map, "claims", claimsData(next.claims));
+      if (was.claims !== next.claims || was.labels !== next.labels) {
+        now.markers.forEach((m) => m.remove());
+        now.markers = nameClaims(map, next);
+      }
+      if (was.finds !== next.finds) setData(map, "finds", findsData(next.finds));
+      if (was.me !== next.me) setData(map, "me", meData(next.me));
+      now.data = next;
+      if (!now.moved) {
+        const area = areaOf(next);
+        setData(map, "grid", gridLines(area));
+        map.fitBounds(area, { animate: false });
+      } else if (next.me && next.me !== was.me && !map.getBounds().contains([next.me.lon, next.me.lat])) {
+        map.easeTo({ center: [next.me.lon, next.me.lat] });
+      }
+    };
+    // Not isStyleLoaded(): that is false again whenever a source is fetching tiles.
+    if (shown.current?.styled) apply();
+    else map.once("load", apply);
+  }, [claims, finds, me, labels]);
 
   return (
     <div

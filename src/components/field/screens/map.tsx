@@ -10,10 +10,14 @@ import { saveFind, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { claimAt, formatDecimal, toDms } from "@/lib/geo";
-import { Skeleton } from "../skeleton";
+
+/** Where the map goes, the map's own size, so nothing below it moves when it comes. */
+function MapPlace() {
+  return <div role="status" aria-label="Loading the map" className="h-[65dvh] w-full animate-pulse rounded-md border-2 border-rule bg-sheet opacity-60" />;
+}
 
 // MapLibre is heavy: it loads with this screen only.
-const MapView = dynamic(() => import("./map-view"), { ssr: false, loading: () => <Skeleton lines={4} label="Loading the map" /> });
+const MapView = dynamic(() => import("./map-view"), { ssr: false, loading: MapPlace });
 
 export function MapScreen() {
   const { db } = useMember();
@@ -37,7 +41,7 @@ export function MapScreen() {
     return { byClaim, outside };
   }, [finds, claims]);
 
-  if (!claims || !finds) return <Skeleton lines={4} />;
+  if (!claims || !finds) return <MapPlace />;
 
   const pick = async (lat: number, lon: number) => {
     if (!pickFor) return;
@@ -49,23 +53,27 @@ export function MapScreen() {
   };
 
   return (
-    <div className="flex flex-col gap-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h1 className="text-2xl font-bold">Map</h1>
-        <button type="button" className="btn" onClick={locate}>
-          {position.kind === "finding" ? "Finding you…" : "Show where I am"}
-        </button>
-      </div>
+    <>
       {pickFor && (
         <p role="status" className="sheet font-bold">
           Tap the spot where you found it.
         </p>
       )}
-      {me && (
-        <p className="figure text-sm">
-          You: {formatDecimal(me.lat, me.lon)} · {toDms(me.lat, "lat")} {toDms(me.lon, "lon")} (± {Math.round(me.accuracyM)} m)
-        </p>
-      )}
+      <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
+        <button type="button" className="btn" onClick={locate}>
+          {position.kind === "finding" ? "Finding you…" : "Show where I am"}
+        </button>
+        {me && (
+          <p className="figure text-sm">
+            You: {formatDecimal(me.lat, me.lon)} · {toDms(me.lat, "lat")} {toDms(me.lon, "lon")} (± {Math.round(me.accuracyM)} m)
+          </p>
+        )}
+        {position.kind === "failed" && (
+          <p role="status" className="text-sm">
+            {position.message}
+          </p>
+        )}
+      </div>
       <MapView
         claims={claims}
         finds={finds}
@@ -90,6 +98,6 @@ export function MapScreen() {
         </ul>
         <p className="mt-2 text-sm text-ink-soft">Claim outlines are the club&apos;s drawing, not a survey. Grid lines every 0.005°.</p>
       </section>
-    </div>
+    </>
   );
 }
