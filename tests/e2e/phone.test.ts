@@ -27,6 +27,21 @@ function memberRecords() {
   }
 }
 
+/** One of the member's finds with an officer's review on it (the demo club queries and verifies some). */
+function reviewedFind() {
+  const db = new Database(inject("databaseUrl"), { readonly: true });
+  try {
+    const row = db
+      .prepare(
+        "select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from reviews r where r.find_id = f.id) limit 1",
+      )
+      .get(DEMO.member.email) as { id: string };
+    return row.id;
+  } finally {
+    db.close();
+  }
+}
+
 describe("the phone in the field (issue 19)", () => {
   it("a first visit loads Today once: the worker taking the page over does not reload it", async () => {
     const { context } = await launchPersistent(undefined, PHONE);
@@ -159,6 +174,67 @@ describe("the phone in the field (issue 19)", () => {
       expect(await page.locator("main [role=status][aria-label=Loading]").count(), path).toBeGreaterThan(0);
     }
     await plain.close();
+    await context.close();
+  });
+
+  it("nothing moves under the member's eyes: each screen, cleared device first, shifts its layout by less than 0.1 and Today's caution stays put", async () => {
+    const signedIn = await browser().newContext(PHONE);
+    await signInToField(await signedIn.newPage(), baseUrl);
+    // A device with the session and nothing else: no database, no worker (a first visit).
+    const context = await browser().newContext({ ...PHONE, storageState: await signedIn.storageState() });
+    await signedIn.close();
+    await context.addInitScript(() => {
+      type Shift = { value: number; hadRecentInput: boolean; sources?: { node?: Node | null }[] };
+      const log: { value: number; moved: string[] }[] = [];
+      (window as unknown as { shifts: typeof log }).shifts = log;
+      new PerformanceObserver((list) => {
+        for (const e of list.getEntries() as unknown as Shift[]) {
+          if (e.hadRecentInput) continue;
+          const moved = (e.sources ?? []).map(({ node }) => {
+            const el = node instanceof Element ? node : (node?.parentElement ?? null);
+            if (!el) return "?";
+            return el.closest("aside[role=note]")
+              ? "the caution"
+              : `${el.tagName.toLowerCase()}${el.id ? "#" + el.id : ""}.${[...el.classList].slice(0, 3).join(".")}`;
+          });
+          log.push({ value: e.value, moved });
+        }
+      }).observe({ type: "layout-shift", buffered: true });
+    });
+    const page = await context.newPage();
+    const shifts = () => page.evaluate(() => (window as unknown as { shifts: { value: number; moved: string[] }[] }).shifts);
+    const { find, outing } = memberRecords();
+    // A find the officers have reviewed: its thread opens above the rest of the find.
+    const reviewed = reviewedFind();
+    const moved: string[] = [];
+    for (const screen of [
+      "/",
+      "/finds",
+      "/finds/new",
+      `/finds/view#id=${find}`,
+      "/outings",
+      `/finds/view#id=${reviewed}`,
+      `/outings/view#id=${outing}`,
+      "/map",
+      "/sync",
+      "/settings",
+      "/scales",
+      "/barren-rock",
+      "/weigh",
+    ]) {
+      await page.goto(`${baseUrl}${screen}`);
+      await screenDrawn(page);
+      if (screen === "/") await waitForSyncDone(page);
+      if (screen === "/map") await page.locator("[data-testid=map][data-map-ready]").waitFor({ timeout: 30_000 });
+      if (screen.endsWith(reviewed)) await page.getByTestId("query-thread").waitFor();
+      // Reads that answer late (camp sync's pull, a find's photos) have a moment to land.
+      await page.waitForTimeout(800);
+      const list = await shifts();
+      const total = list.reduce((sum, s) => sum + s.value, 0);
+      if (total >= 0.1) moved.push(`${screen}: ${total.toFixed(3)} (${list.flatMap((s) => s.moved).join(", ")})`);
+      if (screen === "/") expect(list.flatMap((s) => s.moved)).not.toContain("the caution");
+    }
+    expect(moved).toEqual([]);
     await context.close();
   });
 });

@@ -1,7 +1,6 @@
 "use client";
-import { useLiveQuery } from "@/client/live-query";
 import { useState } from "react";
-import type { LocalFind, LocalWeighIn, LodebookDb } from "@/client/device-db";
+import type { LocalAnswer, LocalFind, LocalReview, LocalWeighIn, LodebookDb } from "@/client/device-db";
 import { newId, saveAnswer } from "@/client/logbook";
 import { requestSync } from "@/client/sync/scheduler";
 import { queryStateOf } from "@/lib/club/thread";
@@ -18,20 +17,26 @@ type Step =
  * The find's query thread on the member's phone: the officers' reviews, the member's answers
  * and the member's changes since the first review, in order, on the phone's clock. While the
  * latest query is open the member answers here (saved on the device, sent at camp sync)
- * and/or corrects the find in its form below.
+ * and/or corrects the find in its form below. The reviews and answers come in the find's own
+ * read, so the thread is drawn with the find and never pushes the screen down after it.
  */
-export function QueryThread({ db, find, weighIns }: { db: LodebookDb; find: LocalFind; weighIns: LocalWeighIn[] }) {
-  const data = useLiveQuery(
-    async () => ({
-      findId: find.id,
-      reviews: await db.reviews.where("findId").equals(find.id).toArray(),
-      answers: await db.answers.where("findId").equals(find.id).toArray(),
-    }),
-    [db, find.id],
-  );
+export function QueryThread({
+  db,
+  find,
+  reviews,
+  answers,
+  weighIns,
+}: {
+  db: LodebookDb;
+  find: LocalFind;
+  reviews: LocalReview[];
+  answers: LocalAnswer[];
+  weighIns: LocalWeighIn[];
+}) {
   const [text, setText] = useState("");
   const [error, setError] = useState<string | null>(null);
-  if (!data || data.findId !== find.id || data.reviews.length === 0) return null;
+  if (reviews.length === 0) return null;
+  const data = { reviews, answers };
 
   const { state, latestQuery } = queryStateOf(data.reviews, data.answers);
   const first = Math.min(...data.reviews.map((r) => r.createdAt));

@@ -18,7 +18,9 @@ import { Skeleton } from "../skeleton";
 // The query thread, the photos block (thumbnails, camera, drop area), the weigh-ins (and the
 // weigh-in flow behind them) and the editing form (and its form library) load just after the
 // record itself: all are precached chunks, so offline too.
-const QueryThread = lazy(() => import("../query-thread").then((m) => ({ default: m.QueryThread })));
+type Thread = typeof import("../query-thread").QueryThread;
+let threadLoaded: Thread | null = null;
+const loadThread = () => import("../query-thread").then((m) => (threadLoaded = m.QueryThread));
 const PhotosBlock = lazy(() => import("../photos-block").then((m) => ({ default: m.PhotosBlock })));
 const WeighInsBlock = lazy(() => import("../weigh-ins-block").then((m) => ({ default: m.WeighInsBlock })));
 const FindForm = lazy(() => import("../find-form").then((m) => ({ default: m.FindForm })));
@@ -42,8 +44,30 @@ export function FindDetailScreen() {
   const router = useRouter();
   // A live query keeps its last answer while it runs again for a new id: the answer says which
   // id it is for, so the previous find is never shown (or edited) under the next one's address.
-  const loaded = useLiveQuery(async () => ({ id, find: (await db.finds.get(id)) ?? null }), [db, id]);
+  // Its officers' reviews and the member's answers come in the same read: a queried find opens
+  // with its thread in place, above the rest, instead of pushing the rest down after.
+  const loaded = useLiveQuery(
+    async () => ({
+      id,
+      find: (await db.finds.get(id)) ?? null,
+      reviews: await db.reviews.where("findId").equals(id).toArray(),
+      answers: await db.answers.where("findId").equals(id).toArray(),
+    }),
+    [db, id],
+  );
   const find = loaded?.id === id ? loaded.find : undefined;
+  // Most finds have no thread: its code loads only for one that has, before the screen draws.
+  const needsThread = loaded?.id === id && loaded.reviews.length > 0;
+  const [QueryThread, setQueryThread] = useState<Thread | null>(() => threadLoaded);
+  const [threadFailed, setThreadFailed] = useState(false);
+  useEffect(() => {
+    if (needsThread && !QueryThread)
+      void loadThread().then(
+        (t) => setQueryThread(() => t),
+        // Its chunk out of reach (no signal, no worker yet): the find still opens, without it.
+        () => setThreadFailed(true),
+      );
+  }, [needsThread, QueryThread]);
   const claims = useClaims(db) ?? [];
   const settings = useSettings(db);
   const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);
@@ -54,7 +78,7 @@ export function FindDetailScreen() {
     setPosition(await (await import("@/client/position")).askPosition());
   };
 
-  if (find === undefined) return <Skeleton />;
+  if (find === undefined || (needsThread && !QueryThread && !threadFailed)) return <Skeleton />;
   if (find === null)
     return (
       <section className="sheet">
@@ -102,9 +126,7 @@ export function FindDetailScreen() {
         </div>
       )}
 
-      <Suspense fallback={null}>
-        <QueryThread db={db} find={find} weighIns={weighIns ?? []} />
-      </Suspense>
+      {QueryThread && loaded && <QueryThread db={db} find={find} reviews={loaded.reviews} answers={loaded.answers} weighIns={weighIns ?? []} />}
 
       <section className="sheet flex flex-col gap-2" aria-labelledby="where-title">
         <h2 id="where-title" className="heading-bar self-start text-lg">
