@@ -9,7 +9,7 @@ import { WeighPage } from "./support/weigh-page";
 const baseUrl = inject("baseUrl");
 const browser = sharedBrowser();
 
-/** One of the member's own finds that has a weigh-in, and one of their outings. */
+/** One of the member's own finds that has a weigh-in, one with an officer's review, and one of their outings. */
 function memberRecords() {
   const db = new Database(inject("databaseUrl"), { readonly: true });
   try {
@@ -21,25 +21,39 @@ function memberRecords() {
     const outing = db.prepare("select o.id from outings o join members m on m.id = o.member_id where m.email = ? limit 1").get(DEMO.member.email) as {
       id: string;
     };
-    return { find: find.id, outing: outing.id };
+    // A find the officers have reviewed (the demo club queries and verifies some): its thread
+    // opens above the rest of the find.
+    const reviewed = db
+      .prepare(
+        "select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from reviews r where r.find_id = f.id) limit 1",
+      )
+      .get(DEMO.member.email) as { id: string };
+    return { find: find.id, outing: outing.id, reviewed: reviewed.id };
   } finally {
     db.close();
   }
 }
 
-/** One of the member's finds with an officer's review on it (the demo club queries and verifies some). */
-function reviewedFind() {
-  const db = new Database(inject("databaseUrl"), { readonly: true });
-  try {
-    const row = db
-      .prepare(
-        "select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from reviews r where r.find_id = f.id) limit 1",
-      )
-      .get(DEMO.member.email) as { id: string };
-    return row.id;
-  } finally {
-    db.close();
-  }
+/**
+ * Every member screen, records included. The reviewed find comes after another screen, so that
+ * it opens in a page of its own rather than as a move within the first find's page.
+ */
+function memberScreens({ find, outing, reviewed }: ReturnType<typeof memberRecords>) {
+  return [
+    "/",
+    "/finds",
+    "/finds/new",
+    `/finds/view#id=${find}`,
+    "/outings",
+    `/finds/view#id=${reviewed}`,
+    `/outings/view#id=${outing}`,
+    "/map",
+    "/sync",
+    "/settings",
+    "/scales",
+    "/barren-rock",
+    "/weigh",
+  ];
 }
 
 describe("the phone in the field (issue 19)", () => {
@@ -80,22 +94,7 @@ describe("the phone in the field (issue 19)", () => {
       await page.goto(`${baseUrl}/`);
     }
 
-    const { find, outing } = memberRecords();
-    const screens = [
-      "/",
-      "/finds",
-      "/finds/new",
-      `/finds/view#id=${find}`,
-      "/outings",
-      `/outings/view#id=${outing}`,
-      "/map",
-      "/sync",
-      "/settings",
-      "/scales",
-      "/barren-rock",
-      "/weigh",
-      "/about",
-    ];
+    const screens = [...memberScreens(memberRecords()), "/about"];
     const wide: string[] = [];
     for (const width of [320, 360, 390, 430]) {
       await page.setViewportSize({ width, height: 800 });
@@ -203,25 +202,10 @@ describe("the phone in the field (issue 19)", () => {
     });
     const page = await context.newPage();
     const shifts = () => page.evaluate(() => (window as unknown as { shifts: { value: number; moved: string[] }[] }).shifts);
-    const { find, outing } = memberRecords();
-    // A find the officers have reviewed: its thread opens above the rest of the find.
-    const reviewed = reviewedFind();
+    const records = memberRecords();
+    const { reviewed } = records;
     const moved: string[] = [];
-    for (const screen of [
-      "/",
-      "/finds",
-      "/finds/new",
-      `/finds/view#id=${find}`,
-      "/outings",
-      `/finds/view#id=${reviewed}`,
-      `/outings/view#id=${outing}`,
-      "/map",
-      "/sync",
-      "/settings",
-      "/scales",
-      "/barren-rock",
-      "/weigh",
-    ]) {
+    for (const screen of memberScreens(records)) {
       await page.goto(`${baseUrl}${screen}`);
       await screenDrawn(page);
       if (screen === "/") await waitForSyncDone(page);
