@@ -2,11 +2,12 @@
 // Device-database hooks of the member screens. The position and URL-hash hooks have modules
 // of their own, so that a screen without them does not load them.
 import { useLiveQuery } from "@/client/live-query";
+import { compareNames } from "@/lib/text/compare-names";
 import type { LodebookDb } from "./device-db";
 import { DEFAULT_SETTINGS, readSettings, type MemberSettings } from "./settings";
 
 /** The club's claims, by name. */
-export const readClaims = (db: LodebookDb) => db.claims.toArray().then((c) => c.sort((a, b) => a.name.localeCompare(b.name)));
+export const readClaims = (db: LodebookDb) => db.claims.toArray().then((c) => c.sort((a, b) => compareNames(a.name, b.name)));
 
 /** The outing not yet ended, if any: where quick finds go. */
 export const readCurrentOuting = async (db: LodebookDb) =>

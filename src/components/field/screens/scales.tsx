@@ -9,6 +9,7 @@ import { defaultScaleAccuracy } from "@/lib/estimate/defaults";
 import { formatWhen } from "@/lib/format";
 import { parseNumber } from "@/lib/parse-number";
 import { CheckStanding } from "@/components/weigh/scale-picker";
+import { compareNames } from "@/lib/text/compare-names";
 import { Skeleton } from "../skeleton";
 
 // The check flow (and the engine with it) loads when the member starts a check.
@@ -138,7 +139,7 @@ function AddScale() {
 /** The member's scale profiles: step, accuracy, and the history of their setup checks. */
 export function ScalesScreen() {
   const { db } = useMember();
-  const scales = useLiveQuery(() => db.scales.toArray().then((s) => s.sort((a, b) => a.name.localeCompare(b.name))), [db]);
+  const scales = useLiveQuery(() => db.scales.toArray().then((s) => s.sort((a, b) => compareNames(a.name, b.name))), [db]);
   return (
     <>
       {scales === undefined ? (
