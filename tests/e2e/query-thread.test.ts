@@ -145,4 +145,46 @@ describe("the query thread (issue 18)", () => {
     await laptop.context().close();
     await phoneContext.close();
   });
+
+  it("a query that arrives while the member has the find open joins the screen: what they were typing stays", async () => {
+    const db = new Database(inject("databaseUrl"), { readonly: true });
+    const ines = db.prepare("select id from members where email = ?").get(DEMO.member.email) as { id: string };
+    const find = db
+      .prepare(
+        "select id from finds where member_id = ? and deleted_at is null and review_state = 'new' and not exists (select 1 from reviews r where r.find_id = finds.id) order by found_at asc limit 1",
+      )
+      .get(ines.id) as { id: string };
+    db.close();
+
+    // The member opens the find (no thread yet, so its code is not on this page) and starts typing.
+    const phoneContext = await browser().newContext(PHONE);
+    const phone = await phoneContext.newPage();
+    await signInToField(phone, baseUrl);
+    await waitForSyncDone(phone);
+    await phone.goto(`${baseUrl}/finds/view#id=${find.id}`);
+    const notes = phone.getByLabel("Notes");
+    await notes.fill("half written, not saved yet");
+    expect(await phone.getByTestId("query-thread").count()).toBe(0);
+
+    // Meanwhile the officer queries it.
+    const laptop = await (await browser().newContext(LAPTOP)).newPage();
+    const signIn = new SignInPage(laptop, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await laptop.getByRole("heading", { name: /Club console/ }).waitFor();
+    await laptop.goto(`${baseUrl}/club/ledger?memberId=${ines.id}&state=new`);
+    await laptop.locator(`tbody tr[data-find="${find.id}"]`).click();
+    const question = "Which pan did this come from?";
+    await new OfficerFindPanel(laptop).query(question);
+
+    // Camp sync runs when the link comes back (the member stays on the find); the query appears
+    // on the open screen, and the screen was never taken away: the typing is still there.
+    await phoneContext.setOffline(true);
+    await phoneContext.setOffline(false);
+    await new PhoneFindThread(phone).thread.getByText(question).waitFor({ timeout: 30_000 });
+    expect(await notes.inputValue()).toBe("half written, not saved yet");
+
+    await laptop.context().close();
+    await phoneContext.close();
+  });
 });

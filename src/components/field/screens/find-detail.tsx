@@ -20,6 +20,8 @@ import { Skeleton } from "../skeleton";
 // record itself: all are precached chunks, so offline too.
 type Thread = typeof import("../query-thread").QueryThread;
 let threadLoaded: Thread | null = null;
+/** How long a reviewed find's first drawing waits for its thread's code before drawing without it. */
+const THREAD_WAIT_MS = 1500;
 const loadThread = () => import("../query-thread").then((m) => (threadLoaded = m.QueryThread));
 const PhotosBlock = lazy(() => import("../photos-block").then((m) => ({ default: m.PhotosBlock })));
 const WeighInsBlock = lazy(() => import("../weigh-ins-block").then((m) => ({ default: m.WeighInsBlock })));
@@ -56,18 +58,35 @@ export function FindDetailScreen() {
     [db, id],
   );
   const find = loaded?.id === id ? loaded.find : undefined;
-  // Most finds have no thread: its code loads only for one that has, before the screen draws.
+  // Most finds have no thread: its code loads only for one that has. The screen waits for it
+  // before its first drawing of a find (a moment, THREAD_WAIT_MS at most), never after: a review
+  // that camp sync brings while the find is open must not take the screen, and a form being
+  // typed in, away.
   const needsThread = loaded?.id === id && loaded.reviews.length > 0;
   const [QueryThread, setQueryThread] = useState<Thread | null>(() => threadLoaded);
-  const [threadFailed, setThreadFailed] = useState(false);
+  const [drawnId, setDrawnId] = useState<string | null>(null);
+  const [waitedFor, setWaitedFor] = useState<string | null>(null);
+  const [threadFailedFor, setThreadFailedFor] = useState<string | null>(null);
   useEffect(() => {
-    if (needsThread && !QueryThread)
-      void loadThread().then(
-        (t) => setQueryThread(() => t),
-        // Its chunk out of reach (no signal, no worker yet): the find still opens, without it.
-        () => setThreadFailed(true),
-      );
-  }, [needsThread, QueryThread]);
+    if (!needsThread || QueryThread) return;
+    let live = true;
+    const timer = setTimeout(() => live && setWaitedFor(id), THREAD_WAIT_MS);
+    void loadThread().then(
+      (t) => live && setQueryThread(() => t),
+      // Its chunk out of reach (no signal, no worker yet): the find opens without it, and says so.
+      () => {
+        if (!live) return;
+        setWaitedFor(id);
+        setThreadFailedFor(id);
+      },
+    );
+    return () => {
+      live = false;
+      clearTimeout(timer);
+    };
+  }, [needsThread, QueryThread, id]);
+  const waitingForThread = needsThread && !QueryThread && waitedFor !== id && drawnId !== id;
+  if (find !== undefined && !waitingForThread && drawnId !== id) setDrawnId(id);
   const claims = useClaims(db) ?? [];
   const settings = useSettings(db);
   const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);
@@ -78,7 +97,7 @@ export function FindDetailScreen() {
     setPosition(await (await import("@/client/position")).askPosition());
   };
 
-  if (find === undefined || (needsThread && !QueryThread && !threadFailed)) return <Skeleton />;
+  if (find === undefined || waitingForThread) return <Skeleton />;
   if (find === null)
     return (
       <section className="sheet">
@@ -127,6 +146,11 @@ export function FindDetailScreen() {
       )}
 
       {QueryThread && loaded && <QueryThread db={db} find={find} reviews={loaded.reviews} answers={loaded.answers} weighIns={weighIns ?? []} />}
+      {needsThread && !QueryThread && threadFailedFor === id && (
+        <p className="sheet text-sm" role="status">
+          The officers&apos; notes on this find could not be opened on this device yet. They show once the app has loaded here with signal.
+        </p>
+      )}
 
       <section className="sheet flex flex-col gap-2" aria-labelledby="where-title">
         <h2 id="where-title" className="heading-bar self-start text-lg">
