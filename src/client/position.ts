@@ -2,14 +2,19 @@
 import { useEffect, useState } from "react";
 
 export type Position = { lat: number; lon: number; accuracyM: number };
-export type PositionState = { kind: "idle" } | { kind: "finding" } | { kind: "found"; position: Position } | { kind: "failed"; message: string };
+export type PositionState =
+  | { kind: "idle" }
+  | { kind: "finding" }
+  | { kind: "found"; position: Position }
+  /** `reason` lets a screen say it in its own words (the map has no spot to pick outside pick mode). */
+  | { kind: "failed"; message: string; reason: "unsupported" | "blocked" | "no-fix" };
 type PositionAnswer = Extract<PositionState, { kind: "found" | "failed" }>;
 
 /** The device's position, asked for once (high accuracy), with what went wrong in plain words. */
 export function askPosition(): Promise<PositionAnswer> {
   return new Promise((resolve) => {
     if (!("geolocation" in navigator)) {
-      resolve({ kind: "failed", message: "This device cannot tell its position. Pick the spot on the map or type it." });
+      resolve({ kind: "failed", reason: "unsupported", message: "This device cannot tell its position. Pick the spot on the map or type it." });
       return;
     }
     navigator.geolocation.getCurrentPosition(
@@ -17,6 +22,7 @@ export function askPosition(): Promise<PositionAnswer> {
       (e) =>
         resolve({
           kind: "failed",
+          reason: e.code === e.PERMISSION_DENIED ? "blocked" : "no-fix",
           message:
             e.code === e.PERMISSION_DENIED
               ? "Position is blocked for this app. Allow it in the browser, or pick the spot on the map."

@@ -149,6 +149,39 @@ function styleFor(data: Drawn, area: LngLatBounds, tileUrl: string): StyleSpecif
 
 const setData = (map: MapLibre, source: string, data: FeatureCollection) => (map.getSource(source) as GeoJSONSource | undefined)?.setData(data);
 
+type Shown = { data: Drawn; markers: Marker[]; moved: boolean; pending: boolean };
+
+/** The position drawn, on the map's box: for tests and the curious. */
+function markPosition(box: HTMLElement | null, me: Props["me"]) {
+  if (me) box?.setAttribute("data-me", `${me.lat.toFixed(5)},${me.lon.toFixed(5)}`);
+  else box?.removeAttribute("data-me");
+}
+
+/** Where grid lines go: the data's area and the view, unless the view is wider than a degree (too many lines). */
+function gridArea(map: MapLibre, area: LngLatBounds): LngLatBounds {
+  const view = map.getBounds();
+  if (view.getEast() - view.getWest() > 1 || view.getNorth() - view.getSouth() > 1) return area;
+  return new LngLatBounds(area.getSouthWest(), area.getNorthEast()).extend(view);
+}
+
+/** Draws what changed since the map last drew: sources in place, fitted until the member moves it. */
+function redraw(map: MapLibre, now: Shown, next: Drawn) {
+  const was = now.data;
+  if (was.claims !== next.claims) setData(map, "claims", claimsData(next.claims));
+  if (was.claims !== next.claims || was.labels !== next.labels) {
+    now.markers.forEach((m) => m.remove());
+    now.markers = nameClaims(map, next);
+  }
+  if (was.finds !== next.finds) setData(map, "finds", findsData(next.finds));
+  if (was.me !== next.me) {
+    setData(map, "me", meData(next.me));
+    markPosition(map.getContainer(), next.me);
+  }
+  now.data = next;
+  if (!now.moved) map.fitBounds(areaOf(next), { animate: false });
+  else if (next.me && next.me !== was.me && !map.getBounds().contains([next.me.lon, next.me.lat])) map.easeTo({ center: [next.me.lon, next.me.lat] });
+}
+
 /**
  * MapLibre with an inline style: needs no tile server, no glyphs, no network. The club's
  * basemap (kept on the device, else from the server) goes under everything once it is found;
@@ -164,7 +197,7 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
   const handlers = useRef({ onPick, onOpenFind });
   const latest = useRef<Drawn>({ claims, finds, me, labels });
   /** What the map draws now, and its claims' name tags. */
-  const shown = useRef<{ data: Drawn; markers: Marker[]; moved: boolean; styled: boolean } | null>(null);
+  const shown = useRef<Shown | null>(null);
   useEffect(() => {
     handlers.current = { onPick, onOpenFind };
     latest.current = { claims, finds, me, labels };
@@ -177,8 +210,11 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
     const area = areaOf(data);
     const map = new MapLibre({ container: box.current, style: styleFor(data, area, tileUrl), bounds: area, attributionControl: false, fadeDuration: 0 });
     mapRef.current = map;
-    const now = { data, markers: nameClaims(map, data), moved: false, styled: false };
+    const now: Shown = { data, markers: nameClaims(map, data), moved: false, pending: false };
     shown.current = now;
+    markPosition(box.current, data.me);
+    // The grid follows the view: wherever the member pans or a fix takes the map, it has lines.
+    map.on("moveend", () => setData(map, "grid", gridLines(gridArea(map, areaOf(now.data)))));
     // Once the member pans or zooms, new finds no longer move the map under their finger.
     map.on("movestart", (e) => {
       if (e.originalEvent) now.moved = true;
@@ -193,10 +229,7 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
       }
       handlers.current.onPick?.(e.lngLat.lat, e.lngLat.lng);
     });
-    map.once("load", () => {
-      now.styled = true;
-      box.current?.setAttribute("data-map-ready", "true");
-    });
+    map.once("load", () => box.current?.setAttribute("data-map-ready", "true"));
     let live = true;
     box.current.removeAttribute("data-basemap");
     box.current.removeAttribute("data-basemap-tiles");
@@ -225,34 +258,21 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
     };
   }, [tileUrl]);
 
-  // New finds, claims or a position fix: the sources change in place.
+  // New finds, claims or a position fix: the sources change in place. They exist once the style
+  // has loaded ("style.load"), long before every tile has ("load", which a slow tile server can
+  // hold back for minutes); changes that come before wait for it together, drawn as the latest.
   useEffect(() => {
     const map = mapRef.current;
-    if (!map) return;
-    const next: Drawn = { claims, finds, me, labels };
-    const apply = () => {
-      const now = shown.current;
-      if (mapRef.current !== map || !now) return;
-      const was = now.data;
-      if (was.claims !== next.claims) setData(map, "claims", claimsData(next.claims));
-      if (was.claims !== next.claims || was.labels !== next.labels) {
-        now.markers.forEach((m) => m.remove());
-        now.markers = nameClaims(map, next);
-      }
-      if (was.finds !== next.finds) setData(map, "finds", findsData(next.finds));
-      if (was.me !== next.me) setData(map, "me", meData(next.me));
-      now.data = next;
-      if (!now.moved) {
-        const area = areaOf(next);
-        setData(map, "grid", gridLines(area));
-        map.fitBounds(area, { animate: false });
-      } else if (next.me && next.me !== was.me && !map.getBounds().contains([next.me.lon, next.me.lat])) {
-        map.easeTo({ center: [next.me.lon, next.me.lat] });
-      }
-    };
-    // Not isStyleLoaded(): that is false again whenever a source is fetching tiles.
-    if (shown.current?.styled) apply();
-    else map.once("load", apply);
+    const now = shown.current;
+    if (!map || !now) return;
+    if (map.getSource("me")) redraw(map, now, latest.current);
+    else if (!now.pending) {
+      now.pending = true;
+      map.once("style.load", () => {
+        now.pending = false;
+        if (mapRef.current === map) redraw(map, now, latest.current);
+      });
+    }
   }, [claims, finds, me, labels]);
 
   return (

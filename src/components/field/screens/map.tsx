@@ -11,6 +11,13 @@ import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { claimAt, formatDecimal, toDms } from "@/lib/geo";
 
+/** Why the map cannot show where the member is, in the map's words (outside pick mode a tap picks nothing). */
+const NO_POSITION = {
+  unsupported: "This device cannot tell its position.",
+  blocked: "Position is blocked for this app. Allow it in the browser to see where you are.",
+  "no-fix": "No position yet (no GPS fix). Try again in the open.",
+} as const;
+
 /** Where the map goes, the map's own size, so nothing below it moves when it comes. */
 function MapPlace() {
   return <div role="status" aria-label="Loading the map" className="h-[65dvh] w-full animate-pulse rounded-md border-2 border-rule bg-sheet opacity-60" />;
@@ -70,7 +77,7 @@ export function MapScreen() {
         )}
         {position.kind === "failed" && (
           <p role="status" className="text-sm">
-            {position.message}
+            {pickFor ? position.message : NO_POSITION[position.reason]}
           </p>
         )}
       </div>
