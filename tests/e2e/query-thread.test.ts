@@ -29,6 +29,20 @@ async function queryMail(findId: string): Promise<{ subject: string; text: strin
   return found!;
 }
 
+/** The officer signs in on a laptop, opens the member's find in the ledger and queries it. */
+async function officerQueries(memberId: string, findId: string, question: string) {
+  const laptop = await (await browser().newContext(LAPTOP)).newPage();
+  const signIn = new SignInPage(laptop, baseUrl);
+  await signIn.open();
+  await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+  await laptop.getByRole("heading", { name: /Club console/ }).waitFor();
+  await laptop.goto(`${baseUrl}/club/ledger?memberId=${memberId}&state=new`);
+  await laptop.locator(`tbody tr[data-find="${findId}"]`).click();
+  const panel = new OfficerFindPanel(laptop);
+  await panel.query(question);
+  return { laptop, panel };
+}
+
 /** Camp sync now, and until nothing waits on the device. */
 async function syncUntilSent(phone: import("playwright-core").Page) {
   await tab(phone, "Sync");
@@ -66,15 +80,7 @@ describe("the query thread (issue 18)", () => {
     await syncUntilSent(phone);
 
     // The officer queries the find from the ledger.
-    const laptop = await (await browser().newContext(LAPTOP)).newPage();
-    const signIn = new SignInPage(laptop, baseUrl);
-    await signIn.open();
-    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
-    await laptop.getByRole("heading", { name: /Club console/ }).waitFor();
-    await laptop.goto(`${baseUrl}/club/ledger?memberId=${ines.id}&state=new`);
-    await laptop.locator(`tbody tr[data-find="${find.id}"]`).click();
-    const panel = new OfficerFindPanel(laptop);
-    await panel.query(question);
+    const { laptop, panel } = await officerQueries(ines.id, find.id, question);
 
     // The member is told by e-mail, with a link to the find.
     const mail = await queryMail(find.id);
@@ -167,15 +173,8 @@ describe("the query thread (issue 18)", () => {
     expect(await phone.getByTestId("query-thread").count()).toBe(0);
 
     // Meanwhile the officer queries it.
-    const laptop = await (await browser().newContext(LAPTOP)).newPage();
-    const signIn = new SignInPage(laptop, baseUrl);
-    await signIn.open();
-    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
-    await laptop.getByRole("heading", { name: /Club console/ }).waitFor();
-    await laptop.goto(`${baseUrl}/club/ledger?memberId=${ines.id}&state=new`);
-    await laptop.locator(`tbody tr[data-find="${find.id}"]`).click();
     const question = "Which pan did this come from?";
-    await new OfficerFindPanel(laptop).query(question);
+    const { laptop } = await officerQueries(ines.id, find.id, question);
 
     // Camp sync runs when the link comes back (the member stays on the find); the query appears
     // on the open screen, and the screen was never taken away: the typing is still there.
