@@ -64,19 +64,19 @@ export function FindDetailScreen() {
   // typed in, away.
   const needsThread = loaded?.id === id && loaded.reviews.length > 0;
   const [QueryThread, setQueryThread] = useState<Thread | null>(() => threadLoaded);
-  const [drawnId, setDrawnId] = useState<string | null>(null);
-  const [waitedFor, setWaitedFor] = useState<string | null>(null);
+  // The find drawn (or done waiting for its thread): from then on the screen stays drawn.
+  const [settledId, setSettledId] = useState<string | null>(null);
   const [threadFailedFor, setThreadFailedFor] = useState<string | null>(null);
   useEffect(() => {
     if (!needsThread || QueryThread) return;
     let live = true;
-    const timer = setTimeout(() => live && setWaitedFor(id), THREAD_WAIT_MS);
+    const timer = setTimeout(() => live && setSettledId(id), THREAD_WAIT_MS);
     void loadThread().then(
       (t) => live && setQueryThread(() => t),
       // Its chunk out of reach (no signal, no worker yet): the find opens without it, and says so.
       () => {
         if (!live) return;
-        setWaitedFor(id);
+        setSettledId(id);
         setThreadFailedFor(id);
       },
     );
@@ -85,8 +85,8 @@ export function FindDetailScreen() {
       clearTimeout(timer);
     };
   }, [needsThread, QueryThread, id]);
-  const waitingForThread = needsThread && !QueryThread && waitedFor !== id && drawnId !== id;
-  if (find !== undefined && !waitingForThread && drawnId !== id) setDrawnId(id);
+  const waitingForThread = needsThread && !QueryThread && settledId !== id;
+  if (find !== undefined && !waitingForThread && settledId !== id) setSettledId(id);
   const claims = useClaims(db) ?? [];
   const settings = useSettings(db);
   const weighIns = useLiveQuery(() => db.weighIns.where("findId").equals(id).sortBy("weighedAt"), [db, id]);

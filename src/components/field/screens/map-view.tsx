@@ -178,8 +178,11 @@ function redraw(map: MapLibre, now: Shown, next: Drawn) {
     markPosition(map.getContainer(), next.me);
   }
   now.data = next;
-  if (!now.moved) map.fitBounds(areaOf(next), { animate: false });
-  else if (next.me && next.me !== was.me && !map.getBounds().contains([next.me.lon, next.me.lat])) map.easeTo({ center: [next.me.lon, next.me.lat] });
+  // Fitted again only when the area changed: a sync that brings nothing new draws no frame.
+  const area = areaOf(next);
+  if (!now.moved) {
+    if (area.toArray().join() !== areaOf(was).toArray().join()) map.fitBounds(area, { animate: false });
+  } else if (next.me && next.me !== was.me && !map.getBounds().contains([next.me.lon, next.me.lat])) map.easeTo({ center: [next.me.lon, next.me.lat] });
 }
 
 /**

@@ -5,18 +5,11 @@ import { useRouter } from "next/navigation";
 import { useMemo } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
 import { useHashParams } from "@/client/hash-params";
-import { useDevicePosition } from "@/client/position";
+import { NO_POSITION, useDevicePosition } from "@/client/position";
 import { saveFind, stripLocal } from "@/client/logbook";
 import { useMember } from "@/client/member";
 import { requestSync } from "@/client/sync/scheduler";
 import { claimAt, formatDecimal, toDms } from "@/lib/geo";
-
-/** Why the map cannot show where the member is, in the map's words (outside pick mode a tap picks nothing). */
-const NO_POSITION = {
-  unsupported: "This device cannot tell its position.",
-  blocked: "Position is blocked for this app. Allow it in the browser to see where you are.",
-  "no-fix": "No position yet (no GPS fix). Try again in the open.",
-} as const;
 
 /** Where the map goes, the map's own size, so nothing below it moves when it comes. */
 function MapPlace() {
