@@ -48,6 +48,49 @@ describe("numbers as people type them (issues 15 and 19; common practice of en a
     expect(decimalMarkOf("fr-FR")).toBe(",");
     expect(decimalMarkOf("en-AU")).toBe(".");
   });
+
+  it("reads the same with the mark given as a lookup, and looks it up only for text two readings fit", () => {
+    for (const [typed, point, comma] of TABLE) {
+      for (const [mark, want] of [
+        [".", point],
+        [",", comma],
+      ] as const) {
+        let asked = 0;
+        const got = parseNumber(typed, () => (asked++, mark));
+        expect(Number.isNaN(got!) ? "NaN" : got, `${typed} with ${mark}`).toEqual(Number.isNaN(want!) ? "NaN" : want);
+        expect(asked).toBeLessThanOrEqual(1);
+      }
+    }
+    const asks = (typed: string) => {
+      let asked = 0;
+      parseNumber(typed, () => (asked++, "."));
+      return asked;
+    };
+    // An empty field, whole numbers and plain decimals never need the locale: a form of empty
+    // fields, read on every draw, never loads the browser's number tables.
+    expect(["", "35", "12.5", "35,1", "0.125", "2 495", "2,495.50"].map(asks)).toEqual([0, 0, 0, 0, 0, 0, 0]);
+    expect(["2,495", "2.495", "1,234,567"].map(asks)).toEqual([1, 1, 1]);
+  });
+
+  it("asks the browser's tables once per locale, not once per field read", () => {
+    const Real = Intl.NumberFormat;
+    let made = 0;
+    const Counting = function (...args: ConstructorParameters<typeof Intl.NumberFormat>) {
+      made++;
+      return new Real(...args);
+    } as unknown as typeof Intl.NumberFormat;
+    Intl.NumberFormat = Counting;
+    try {
+      for (let i = 0; i < 50; i++) {
+        expect(decimalMarkOf("pt-BR")).toBe(",");
+        expect(decimalMarkOf("ja-JP")).toBe(".");
+        expect(readNumber("2,495", { label: "weight" }, () => decimalMarkOf("pt-BR")).value).toBe(2.495);
+      }
+      expect(made).toBe(2);
+    } finally {
+      Intl.NumberFormat = Real;
+    }
+  });
 });
 
 describe("a number field's message names the real problem (issue 19)", () => {

@@ -11,7 +11,7 @@ export type DecimalMark = "." | ",";
  * - with both marks ("2,495.50", "2.495,50") the last is the decimal and the others must group
  *   by threes; spaces, no-break spaces and apostrophes may group thousands ("2 495", "2'495").
  */
-export function parseNumber(text: string, decimal?: DecimalMark): number | undefined {
+export function parseNumber(text: string, decimal?: DecimalMark | (() => DecimalMark | undefined)): number | undefined {
   let t = text
     .trim()
     .replace(/[\u00a0\u202f\u2009 ']/g, (m, offset: number, s: string) => (/\d/.test(s[offset - 1] ?? "") && /\d/.test(s[offset + 1] ?? "") ? "_" : m));
@@ -46,20 +46,36 @@ export function parseNumber(text: string, decimal?: DecimalMark): number | undef
   const mark = commas > 0 ? "," : ".";
   const count = commas + points;
   const [head, ...rest] = t.split(mark);
-  if (count > 1) return grouped(t, mark) && mark !== decimal ? finish(t.split(mark).join(""), "") : Number.NaN;
+  // The locale's mark is looked up only here and below, where the text could be read two ways.
+  const localMark = () => (typeof decimal === "function" ? decimal() : decimal);
+  if (count > 1) return grouped(t, mark) && mark !== localMark() ? finish(t.split(mark).join(""), "") : Number.NaN;
   const tail = rest[0];
   if (!/^\d*$/.test(tail) || (head === "" && tail === "")) return Number.NaN;
   // One mark. Before exactly three digits it may be either; otherwise only a decimal.
   const couldGroup = tail.length === 3 && /^[1-9]\d{0,2}$/.test(head);
   if (!couldGroup) return finish(head, tail);
-  if (decimal === undefined) return Number.NaN;
-  return mark === decimal ? finish(head, tail) : finish(head + tail, "");
+  const local = localMark();
+  if (local === undefined) return Number.NaN;
+  return mark === local ? finish(head, tail) : finish(head + tail, "");
 }
+
+// Asked once per locale. A page's first Intl formatter loads the browser's locale tables (35-60
+// ms on the main thread, measured in Chromium), and the weigh-in forms read every field on every
+// draw: each read made a formatter, so opening the barren-rock form held the main thread for
+// its first one though no field held a number yet. Now the mark is asked only for text that
+// needs it (parseNumber) and kept.
+const marks = new Map<string, DecimalMark>();
 
 /** The decimal mark of a locale ("en-US" → ".", "de-DE" → ","), from the browser's own tables. */
 export function decimalMarkOf(locale?: string): DecimalMark {
-  const part = new Intl.NumberFormat(locale).formatToParts(1.5).find((p) => p.type === "decimal");
-  return part?.value === "," ? "," : ".";
+  const key = locale ?? `device:${typeof navigator === "undefined" ? "" : navigator.language}`;
+  let mark = marks.get(key);
+  if (!mark) {
+    const part = new Intl.NumberFormat(locale).formatToParts(1.5).find((p) => p.type === "decimal");
+    mark = part?.value === "," ? "," : ".";
+    marks.set(key, mark);
+  }
+  return mark;
 }
 
 /** The decimal mark where this code runs: the member's browser (or the server's default locale). */
@@ -72,7 +88,11 @@ export type NumberRule = { label: string; min?: number; above?: number; max?: nu
  * "could be 2400 or 2.4", "must be more than 0", "at most 100 000 g" — never just "type a
  * number" for a number that is out of bounds. Empty gives no value and no message.
  */
-export function readNumber(text: string, rule: NumberRule, decimal: DecimalMark | null = localDecimalMark()): { value?: number; error?: string } {
+export function readNumber(
+  text: string,
+  rule: NumberRule,
+  decimal: DecimalMark | null | (() => DecimalMark) = localDecimalMark,
+): { value?: number; error?: string } {
   const n = parseNumber(text, decimal ?? undefined);
   if (n === undefined) return {};
   const unit = rule.unit ? ` ${rule.unit}` : "";
@@ -91,4 +111,4 @@ export function readNumber(text: string, rule: NumberRule, decimal: DecimalMark 
 }
 
 /** A number as the member typed it in a field, read by their browser's decimal mark. */
-export const parseTyped = (text: string): number | undefined => parseNumber(text, localDecimalMark());
+export const parseTyped = (text: string): number | undefined => parseNumber(text, localDecimalMark);
