@@ -17,6 +17,7 @@ export function compareNames(a: string, b: string): number {
  * the plain one.
  */
 const LETTERS: Record<string, string> = { ø: "o", ł: "l", đ: "d", ð: "d", ħ: "h", ı: "i", æ: "ae", œ: "oe", ß: "ss", þ: "th", "’": "'", "‘": "'" };
+const LETTER = new RegExp(`[${Object.keys(LETTERS).join("")}]`, "g");
 
 /** Lower case, accents dropped (the marks Unicode's canonical decomposition separates), letters above read as plain ones. */
 const fold = (s: string) =>
@@ -24,4 +25,4 @@ const fold = (s: string) =>
     .normalize("NFD")
     .replace(/\p{M}/gu, "")
     .toLowerCase()
-    .replace(/[øłđðħıæœßþ’‘]/g, (c) => LETTERS[c]);
+    .replace(LETTER, (c) => LETTERS[c]);
