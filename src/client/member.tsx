@@ -1,6 +1,8 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { createContext, startTransition, useContext, useEffect, useState } from "react";
+import { isDatePattern } from "@/lib/date-pattern";
+import { setDevicePattern } from "@/lib/format";
 import type { Role } from "@/lib/roles";
 import { memberDb, type LodebookDb } from "./device-db";
 import { loadValidation } from "./logbook";
@@ -9,6 +11,21 @@ import { startSync } from "./sync/scheduler";
 export type DeviceMember = { id: string; name: string | null; email: string; role: Role };
 
 const STORAGE_KEY = "lodebook-member";
+const PATTERN_KEY = "lodebook-date-pattern";
+
+/** Dates are written from the pattern the server last sent for this browser's language (date-pattern.ts). */
+function keepDatePattern(sent?: unknown): void {
+  try {
+    if (sent !== undefined) {
+      if (isDatePattern(sent)) localStorage.setItem(PATTERN_KEY, JSON.stringify(sent));
+      else localStorage.removeItem(PATTERN_KEY);
+    }
+    const kept: unknown = JSON.parse(localStorage.getItem(PATTERN_KEY) ?? "null");
+    setDevicePattern(isDatePattern(kept) ? kept : null);
+  } catch {
+    setDevicePattern(isDatePattern(sent) ? sent : null);
+  }
+}
 
 export function rememberedMember(): DeviceMember | null {
   try {
@@ -47,14 +64,16 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
     // tap, not as one block of the main thread at start (see live-query.ts).
     const use = (member: DeviceMember, sessionLive: boolean) =>
       !cancelled && startTransition(() => setState({ status: "ready", member, db: memberDb(member.id), sessionLive }));
+    keepDatePattern();
     const remembered = rememberedMember();
     if (remembered) use(remembered, false);
     askWho()
       .then(async (res) => {
         if (!res) throw new Error("no answer");
         if (res.ok) {
-          const { member } = (await res.json()) as { member: DeviceMember };
+          const { member, datePattern } = (await res.json()) as { member: DeviceMember; datePattern?: unknown };
           localStorage.setItem(STORAGE_KEY, JSON.stringify(member));
+          keepDatePattern(datePattern ?? null);
           use(member, true);
         } else if (res.status === 401 && !remembered && !cancelled) {
           setState({ status: "signed-out" });

@@ -1,3 +1,4 @@
+import { writeDate, type DatePattern } from "./date-pattern";
 import { convertMass, type MassUnit } from "./estimate/units";
 
 const DIGITS: Record<MassUnit, number> = { g: 2, ozt: 3, dwt: 2, gr: 1 };
@@ -55,25 +56,43 @@ function formatter(style: string, locale: string | undefined, timeZone: string |
   return f;
 }
 
+// The member's locale's date pattern (date-pattern.ts), once the device has it: dates in the
+// device's own zone and language are then written from it, with no Intl formatter made.
+let devicePattern: DatePattern | null = null;
+
+/** Use this pattern for dates in the device's zone while the device's language is its locale. */
+export function setDevicePattern(pattern: DatePattern | null): void {
+  devicePattern = pattern;
+}
+
+function fromPattern(style: "day" | "when", ms: number, timeZone: string | undefined, locale: string | undefined): string | null {
+  if (!devicePattern || timeZone !== undefined || locale !== undefined || typeof navigator === "undefined") return null;
+  if (navigator.language.toLowerCase() !== devicePattern.locale.toLowerCase()) return null;
+  return writeDate(devicePattern, style, ms);
+}
+
 /** What a date that is not one (a corrupt record) shows: Intl would throw, taking the screen with it. */
 const NO_DATE = "date unknown";
+/** Dates run from 271821 BC to AD 275760 (ECMA-262, 21.4.1.1); Intl throws on any instant outside. */
+const isInstant = (ms: number) => Number.isFinite(ms) && Math.abs(ms) <= 8.64e15;
 
 /**
  * Every date and time shown goes through these two, in Intl's medium date ("3 Dec 2026",
  * "Dec 3, 2026", "03.12.2026") of the given locale, else the runtime's: the member's own on
  * the phone, the server's on console pages it writes (in the club's zone, so the text the
  * server renders is the text that hydrates). Machine-readable dates (CSV, file names,
- * `<time dateTime>`) stay ISO 8601.
+ * `<time dateTime>`) stay ISO 8601. On the phone, once it has its language's pattern
+ * (date-pattern.ts), the text is written from that: the same text, with no formatter made.
  */
 export function formatDay(ms: number, timeZone?: string, locale?: string): string {
-  if (!Number.isFinite(ms)) return NO_DATE;
-  return formatter("day", locale, timeZone, { dateStyle: "medium" }).format(ms);
+  if (!isInstant(ms)) return NO_DATE;
+  return fromPattern("day", ms, timeZone, locale) ?? formatter("day", locale, timeZone, { dateStyle: "medium" }).format(ms);
 }
 
 /** Date and time in the viewer's locale: on the device's clock, or in a given zone (the club's). */
 export function formatWhen(ms: number, timeZone?: string, locale?: string): string {
-  if (!Number.isFinite(ms)) return NO_DATE;
-  return formatter("when", locale, timeZone, { dateStyle: "medium", timeStyle: "short" }).format(ms);
+  if (!isInstant(ms)) return NO_DATE;
+  return fromPattern("when", ms, timeZone, locale) ?? formatter("when", locale, timeZone, { dateStyle: "medium", timeStyle: "short" }).format(ms);
 }
 
 /** A month ("2026-06") as the viewer's locale names it: "Jun 2026". */

@@ -221,4 +221,86 @@ describe("the phone in the field (issue 19)", () => {
     expect(moved).toEqual([]);
     await context.close();
   });
+
+  it("dates in the member's language come without an Intl formatter: a cleared German phone opens Today, Finds and Outings making none, each date as Intl writes it", async () => {
+    const signedIn = await browser().newContext(PHONE);
+    await signInToField(await signedIn.newPage(), baseUrl);
+    // A cleared device whose language is German (navigator.language and Accept-Language).
+    const context = await browser().newContext({ ...PHONE, locale: "de-DE", storageState: await signedIn.storageState() });
+    await signedIn.close();
+    await context.addInitScript(() => {
+      const w = window as unknown as { formattersMade: string[]; RealDateTimeFormat: typeof Intl.DateTimeFormat };
+      w.formattersMade = [];
+      w.RealDateTimeFormat = Intl.DateTimeFormat;
+      for (const name of ["DateTimeFormat", "NumberFormat"] as const) {
+        const Real = Intl[name] as unknown as new (...args: unknown[]) => object;
+        (Intl as unknown as Record<string, unknown>)[name] = new Proxy(Real, {
+          construct(target, args) {
+            w.formattersMade.push(`${name} ${new Error().stack?.split("\n")[2]?.trim() ?? ""}`);
+            return Reflect.construct(target, args) as object;
+          },
+          apply(target, self, args) {
+            w.formattersMade.push(`${name}() ${new Error().stack?.split("\n")[2]?.trim() ?? ""}`);
+            return Reflect.apply(target, self, args) as object;
+          },
+        });
+      }
+      for (const name of ["toLocaleDateString", "toLocaleString", "toLocaleTimeString"] as const) {
+        const real = Date.prototype[name];
+        Date.prototype[name] = function (this: Date, ...args: []) {
+          w.formattersMade.push(`Date.${name}`);
+          return real.apply(this, args);
+        };
+      }
+    });
+    const page = await context.newPage();
+    const records = memberRecords();
+    const screens: [string, string][] = [
+      ["/", "main a[href^='/finds/view']"],
+      ["/finds", "main a[href^='/finds/view']"],
+      ["/outings", "main a[href^='/outings/view']"],
+      [`/outings/view#id=${records.outing}`, "main h1"],
+    ];
+    for (const [screen, dated] of screens) {
+      await page.goto(`${baseUrl}${screen}`);
+      await screenDrawn(page);
+      if (screen === "/") await waitForSyncDone(page);
+      await page.locator(dated).first().waitFor();
+      expect(await page.evaluate(() => (window as unknown as { formattersMade: string[] }).formattersMade), screen).toEqual([]);
+      // Each date shown is the text the browser's own Intl writes for that record, in German.
+      const shown = await page.evaluate(async (dated) => {
+        const w = window as unknown as { RealDateTimeFormat: typeof Intl.DateTimeFormat };
+        const member = JSON.parse(localStorage.getItem("lodebook-member") ?? "null") as { id: string };
+        const db = await new Promise<IDBDatabase>((resolve, reject) => {
+          const r = indexedDB.open(`lodebook-member-${member.id}`);
+          r.onsuccess = () => resolve(r.result);
+          r.onerror = () => reject(r.error);
+        });
+        const get = (store: string, id: string) =>
+          new Promise<Record<string, number>>((resolve) => {
+            const q = db.transaction(store).objectStore(store).get(id);
+            q.onsuccess = () => resolve(q.result as Record<string, number>);
+          });
+        const day = new w.RealDateTimeFormat("de-DE", { dateStyle: "medium" });
+        const when = new w.RealDateTimeFormat("de-DE", { dateStyle: "medium", timeStyle: "short" });
+        const out: { text: string; day: string; when: string }[] = [];
+        for (const el of [...document.querySelectorAll<HTMLElement>(dated)].slice(0, 12)) {
+          const href = el.getAttribute("href") ?? location.pathname + location.hash;
+          const id = /id=([^&]+)/.exec(href)?.[1] ?? "";
+          const outing = href.startsWith("/outings");
+          const record = await get(outing ? "outings" : "finds", id);
+          const at = outing ? record.startedAt : record.foundAt;
+          out.push({ text: el.textContent ?? "", day: day.format(at), when: when.format(at) });
+        }
+        db.close();
+        return out;
+      }, dated);
+      expect(shown.length, screen).toBeGreaterThan(0);
+      for (const { text, day, when } of shown) {
+        expect(day, screen).toMatch(/^\d{2}\.\d{2}\.\d{4}$/);
+        expect(text.includes(when) || text.includes(day), `${screen}: "${text}" shows ${day}`).toBe(true);
+      }
+    }
+    await context.close();
+  });
 });

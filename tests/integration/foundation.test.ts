@@ -115,6 +115,20 @@ describe("route handlers check the session and the role themselves", () => {
     expect(text).not.toMatch(/password|\$2[aby]\$/i);
   });
 
+  it("me: sends the date pattern of the browser's first language, and none for a tag it cannot serve", async () => {
+    const ask = async (language: string) => {
+      const res = await getMe(req("/api/me", { cookie: memberCookie, headers: { "accept-language": language } }), noCtx);
+      expect(res.status).toBe(200);
+      return ((await res.json()) as { datePattern: { locale: string } | null }).datePattern;
+    };
+    expect(await ask("de-CH,de;q=0.9,en;q=0.8")).toMatchObject({ locale: "de-CH" });
+    expect(await ask("en-US")).toMatchObject({ locale: "en-US" });
+    // Whatever a client puts in the header: a 200 with no pattern, never a 500.
+    for (const hostile of ["x".repeat(10_000), "*", "", ";q=1", "../../etc/passwd", "zz-ZZ", "ar-EG", "\u00e9\u00e9-\u00e9\u00e9"]) {
+      expect(await ask(hostile)).toBeNull();
+    }
+  });
+
   it("a forged or foreign cookie is anonymous", async () => {
     const forged = memberCookie.slice(0, -6) + "AAAAAA";
     expect((await getMe(req("/api/me", { cookie: forged }), noCtx)).status).toBe(401);
