@@ -1,9 +1,8 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { createContext, startTransition, useContext, useEffect, useState } from "react";
-import { isDatePattern } from "@/lib/date-pattern";
-import { setDevicePattern } from "@/lib/format";
 import type { Role } from "@/lib/roles";
+import { checkDatePatternLater, keepDatePattern } from "./date-pattern-store";
 import { memberDb, type LodebookDb } from "./device-db";
 import { loadValidation } from "./logbook";
 import { startSync } from "./sync/scheduler";
@@ -11,21 +10,6 @@ import { startSync } from "./sync/scheduler";
 export type DeviceMember = { id: string; name: string | null; email: string; role: Role };
 
 const STORAGE_KEY = "lodebook-member";
-const PATTERN_KEY = "lodebook-date-pattern";
-
-/** Dates are written from the pattern the server last sent for this browser's language (date-pattern.ts). */
-function keepDatePattern(sent?: unknown): void {
-  try {
-    if (sent !== undefined) {
-      if (isDatePattern(sent)) localStorage.setItem(PATTERN_KEY, JSON.stringify(sent));
-      else localStorage.removeItem(PATTERN_KEY);
-    }
-    const kept: unknown = JSON.parse(localStorage.getItem(PATTERN_KEY) ?? "null");
-    setDevicePattern(isDatePattern(kept) ? kept : null);
-  } catch {
-    setDevicePattern(isDatePattern(sent) ? sent : null);
-  }
-}
 
 export function rememberedMember(): DeviceMember | null {
   try {
@@ -64,7 +48,10 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
     // tap, not as one block of the main thread at start (see live-query.ts).
     const use = (member: DeviceMember, sessionLive: boolean) =>
       !cancelled && startTransition(() => setState({ status: "ready", member, db: memberDb(member.id), sessionLive }));
+    // Dates are written from the pattern kept for this browser's language (date-pattern-store.ts),
+    // checked against the browser's own Intl once it is idle.
     keepDatePattern();
+    let stopCheck = () => {};
     const remembered = rememberedMember();
     if (remembered) use(remembered, false);
     askWho()
@@ -81,9 +68,13 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
       })
       .catch(() => {
         if (!remembered && !cancelled) setState({ status: "signed-out" });
+      })
+      .finally(() => {
+        if (!cancelled) stopCheck = checkDatePatternLater();
       });
     return () => {
       cancelled = true;
+      stopCheck();
     };
   }, []);
 

@@ -172,6 +172,18 @@ function learnStyle(locale: string, style: "day" | "when"): DateStylePattern | n
   return writesAsIntl(plain) ? plain : null;
 }
 
+/**
+ * Whether the pattern writes what this runtime's own Intl writes for its default locale, in its
+ * own zone, over the same spread of instants. The server learns a pattern from its ICU; a
+ * browser ships its own, and the two can differ (Korean's a.m./p.m., for one, differs between
+ * Node 20's and Chromium's), so the device checks once, when it is idle, what it was sent.
+ */
+export function matchesOwnIntl(pattern: DatePattern): boolean {
+  const day = new Intl.DateTimeFormat(undefined, OPTIONS.day);
+  const when = new Intl.DateTimeFormat(undefined, OPTIONS.when);
+  return SAMPLES.every((ms) => writeDate(pattern, "day", ms) === day.format(ms) && writeDate(pattern, "when", ms) === when.format(ms));
+}
+
 /** The longest language tag taken from a request (BCP 47 tags in use are far shorter). */
 const MAX_TAG = 35;
 

@@ -110,9 +110,9 @@ export function toLocalInput(ms: number): string {
   return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
 }
 
-const englishPlural = new Intl.PluralRules("en");
+let englishPlural: Intl.PluralRules | undefined;
 
 /** "1 find", "0 finds", "12 finds": English plural of a counted noun (Intl.PluralRules). */
 export function countOf(n: number, one: string, many: string): string {
-  return `${n} ${englishPlural.select(n) === "one" ? one : many}`;
+  return `${n} ${(englishPlural ??= new Intl.PluralRules("en")).select(n) === "one" ? one : many}`;
 }

@@ -1,3 +1,4 @@
+import "server-only";
 import { firstLanguage, learnDatePattern, type DatePattern } from "@/lib/date-pattern";
 
 // Learning a locale's pattern formats a few hundred instants (a few milliseconds): once per
