@@ -20,7 +20,9 @@ function marked(): DatePattern {
   const p = pattern();
   return { ...p, day: { ...p.day, pieces: [...p.day.pieces, { text: " ✓" }] } };
 }
-const kept = () => JSON.parse(localStorage.getItem("lodebook-date-pattern") ?? "null") as { checkedBy?: string; refusedBy?: string } | null;
+const kept = () =>
+  JSON.parse(localStorage.getItem("lodebook-date-pattern") ?? "null") as { checkedBy?: string; refused?: { by: string; patterns: string[] } } | null;
+const refusals = () => kept()?.refused?.patterns.length ?? 0;
 
 describe("the date pattern kept on the device", () => {
   beforeEach(() => {
@@ -29,6 +31,7 @@ describe("the date pattern kept on the device", () => {
   });
   afterEach(() => {
     vi.useRealTimers();
+    vi.restoreAllMocks();
     keepDatePattern(null);
   });
 
@@ -68,15 +71,42 @@ describe("the date pattern kept on the device", () => {
     expect(formatDay(at)).toBe(`${viaIntl()} ✓`);
     checkDatePatternLater(1000);
     vi.advanceTimersByTime(999);
-    expect(kept()?.refusedBy).toBeUndefined();
+    expect(refusals()).toBe(0);
     vi.advanceTimersByTime(1);
-    expect(kept()?.refusedBy).toBe(navigator.userAgent);
+    expect(kept()?.refused?.by).toBe(navigator.userAgent);
+    expect(refusals()).toBe(1);
     expect(formatDay(at)).toBe(viaIntl());
+    keepDatePattern(marked());
+    expect(formatDay(at)).toBe(viaIntl());
+    // Another language's pattern and back: the refusal stands.
+    keepDatePattern(null);
     keepDatePattern(marked());
     expect(formatDay(at)).toBe(viaIntl());
     // A different pattern (the server's ICU updated) is a new one to use and check.
     keepDatePattern(pattern());
-    expect(kept()?.refusedBy).toBeUndefined();
+    expect(formatDay(at)).toBe(viaIntl());
+    expect(kept()?.checkedBy).toBeUndefined();
+    checkDatePatternLater(1000);
+    vi.advanceTimersByTime(1000);
+    expect(kept()?.checkedBy).toBe(navigator.userAgent);
+  });
+
+  it("no check, and nothing recorded, while the browser's language is not the pattern's", () => {
+    const other = { ...marked(), locale: "de-DE" };
+    keepDatePattern(other);
+    expect(formatDay(at)).toBe(viaIntl());
+    checkDatePatternLater(1000);
+    vi.advanceTimersByTime(5000);
+    expect(kept()?.checkedBy).toBeUndefined();
+    expect(refusals()).toBe(0);
+  });
+
+  it("storage that refuses writes: the pattern sent is still used, and nothing throws", () => {
+    vi.spyOn(Storage.prototype, "setItem").mockImplementation(() => {
+      throw new DOMException("full", "QuotaExceededError");
+    });
+    expect(() => keepDatePattern(marked())).not.toThrow();
+    expect(formatDay(at)).toBe(`${viaIntl()} ✓`);
   });
 
   it("leaving before the check cancels it", () => {
@@ -84,7 +114,7 @@ describe("the date pattern kept on the device", () => {
     const stop = checkDatePatternLater(1000);
     stop();
     vi.advanceTimersByTime(5000);
-    expect(kept()?.refusedBy).toBeUndefined();
+    expect(refusals()).toBe(0);
   });
 });
 

@@ -5,19 +5,27 @@ import { setDevicePattern } from "@/lib/format";
 // localStorage: read at every start, before the first date is drawn, with no signal.
 //   pattern    the pattern last sent for this browser's language
 //   checkedBy  the browser (its user agent) that found it writes as its own Intl does
-//   refusedBy  the browser that found it does not: that locale's patterns are not used on it
+//   refused    the patterns a browser found it does not (a few, newest last): not used on it,
+//              even when the server sends one again after another language's
 const KEY = "lodebook-date-pattern";
+const MAX_REFUSED = 8;
 
-type Kept = { pattern: DatePattern | null; checkedBy?: string; refusedBy?: string };
+type Refused = { by: string; patterns: string[] };
+type Kept = { pattern: DatePattern | null; checkedBy?: string; refused?: Refused };
 
 function read(): Kept {
   try {
     const kept = JSON.parse(localStorage.getItem(KEY) ?? "null") as Partial<Kept> | null;
     if (!kept || typeof kept !== "object") return { pattern: null };
+    const refused = kept.refused;
+    const validRefused =
+      refused && typeof refused.by === "string" && Array.isArray(refused.patterns) && refused.patterns.every((p) => typeof p === "string")
+        ? { by: refused.by, patterns: refused.patterns.slice(-MAX_REFUSED) }
+        : undefined;
     return {
       pattern: isDatePattern(kept.pattern) ? kept.pattern : null,
       checkedBy: typeof kept.checkedBy === "string" ? kept.checkedBy : undefined,
-      refusedBy: typeof kept.refusedBy === "string" ? kept.refusedBy : undefined,
+      refused: validRefused,
     };
   } catch {
     return { pattern: null };
@@ -28,12 +36,13 @@ function write(kept: Kept): void {
   try {
     localStorage.setItem(KEY, JSON.stringify(kept));
   } catch {
-    // Storage full or blocked: dates come from Intl, as they would without a pattern.
+    // Storage full or blocked: what is in use stays in use until the app is closed.
   }
 }
 
 const browser = () => navigator.userAgent;
-const refusedHere = (kept: Kept) => kept.refusedBy === browser();
+const refusedHere = (kept: Kept, pattern: DatePattern) => kept.refused?.by === browser() && kept.refused.patterns.includes(JSON.stringify(pattern));
+const isForThisBrowser = (pattern: DatePattern) => navigator.language.toLowerCase() === pattern.locale.toLowerCase();
 
 /**
  * Takes the pattern the server sent with who is signed in (null: none for this language), or,
@@ -44,32 +53,38 @@ export function keepDatePattern(sent?: unknown): void {
   if (sent !== undefined) {
     const pattern = isDatePattern(sent) ? sent : null;
     const same = pattern !== null && kept.pattern !== null && JSON.stringify(pattern) === JSON.stringify(kept.pattern);
-    if (!same) kept = { pattern };
+    if (!same) kept = { pattern, refused: kept.refused };
     write(kept);
   }
-  setDevicePattern(kept.pattern && !refusedHere(kept) ? kept.pattern : null);
+  setDevicePattern(kept.pattern && !refusedHere(kept, kept.pattern) ? kept.pattern : null);
 }
 
 /**
- * Checks the kept pattern against this browser's own Intl, once per pattern and browser version.
- * That makes a formatter (the locale tables' load the pattern spares the start), so it waits
- * until the member has been on the app a while and the browser is idle.
+ * Checks the kept pattern against this browser's own Intl, once per pattern and browser version,
+ * and only while the browser's language is the pattern's (the only time it is used). That makes
+ * a formatter (the locale tables' load the pattern spares the start), so it waits until the
+ * member has been on the app a while and the browser is idle.
  */
 export function checkDatePatternLater(delayMs = 15_000): () => void {
   const kept = read();
-  if (!kept.pattern || kept.checkedBy === browser() || refusedHere(kept)) return () => undefined;
+  const pattern = kept.pattern;
+  if (!pattern || !isForThisBrowser(pattern) || kept.checkedBy === browser() || refusedHere(kept, pattern)) return () => undefined;
   let idle: number | undefined;
   const timer = window.setTimeout(() => {
     const check = () => {
       const now = read();
-      if (!now.pattern || JSON.stringify(now.pattern) !== JSON.stringify(kept.pattern)) return;
-      if (matchesOwnIntl(now.pattern)) {
-        write({ pattern: now.pattern, checkedBy: browser() });
-      } else {
-        write({ pattern: now.pattern, refusedBy: browser() });
-        setDevicePattern(null);
+      if (!now.pattern || JSON.stringify(now.pattern) !== JSON.stringify(pattern) || !isForThisBrowser(pattern)) return;
+      if (matchesOwnIntl(pattern)) {
+        write({ ...now, checkedBy: browser() });
+        return;
       }
+      const earlier = now.refused?.by === browser() ? now.refused.patterns : [];
+      write({ pattern, refused: { by: browser(), patterns: [...earlier, JSON.stringify(pattern)].slice(-MAX_REFUSED) } });
+      // Dates drawn from now on come from Intl; those on screen change at the screen's next draw.
+      setDevicePattern(null);
     };
+    // Where there is no idle callback (Safari), the check runs in the timer: two formatters and
+    // a few hundred dates, once.
     if (typeof window.requestIdleCallback === "function") idle = window.requestIdleCallback(check, { timeout: 10_000 });
     else check();
   }, delayMs);

@@ -173,26 +173,32 @@ function learnStyle(locale: string, style: "day" | "when"): DateStylePattern | n
 }
 
 /**
- * Whether the pattern writes what this runtime's own Intl writes for its default locale, in its
- * own zone, over the same spread of instants. The server learns a pattern from its ICU; a
+ * Whether the pattern writes what this runtime's own Intl writes for the pattern's locale, in
+ * its own zone, over the same spread of instants. The server learns a pattern from its ICU; a
  * browser ships its own, and the two can differ (Korean's a.m./p.m., for one, differs between
  * Node 20's and Chromium's), so the device checks once, when it is idle, what it was sent.
  */
 export function matchesOwnIntl(pattern: DatePattern): boolean {
-  const day = new Intl.DateTimeFormat(undefined, OPTIONS.day);
-  const when = new Intl.DateTimeFormat(undefined, OPTIONS.when);
+  const day = new Intl.DateTimeFormat(pattern.locale, OPTIONS.day);
+  const when = new Intl.DateTimeFormat(pattern.locale, OPTIONS.when);
   return SAMPLES.every((ms) => writeDate(pattern, "day", ms) === day.format(ms) && writeDate(pattern, "when", ms) === when.format(ms));
 }
 
-/** The longest language tag taken from a request (BCP 47 tags in use are far shorter). */
+/** The longest language tag kept (a pattern's locale is a plain tag: "zh-Hant-TW" is 10). */
 const MAX_TAG = 35;
+
+// Only a language, with a script and a region if given ("de", "de-CH", "sr-Latn-RS", "es-419"):
+// what browsers send. Extensions ("-u-ca-…-nu-…"), variants and private use are refused before
+// Intl sees them: each new combination makes Intl keep tables of its own for good (about 40 kB
+// outside the JS heap), and a client can invent combinations by the hundred thousand.
+const PLAIN_TAG = /^[a-z]{2,3}(-[a-z]{4})?(-([a-z]{2}|[0-9]{3}))?$/i;
 
 /**
  * The locale's patterns, or null when Intl does not know the tag or writes something the
  * pattern cannot (other digits, other calendars, weekdays): then the device uses Intl itself.
  */
 export function learnDatePattern(tag: string): DatePattern | null {
-  if (tag.length === 0 || tag.length > MAX_TAG) return null;
+  if (!PLAIN_TAG.test(tag)) return null;
   try {
     const [locale] = Intl.getCanonicalLocales(tag);
     // A tag Intl cannot serve falls back to another locale: a pattern must be the tag's own.
@@ -205,10 +211,17 @@ export function learnDatePattern(tag: string): DatePattern | null {
   }
 }
 
-/** The first language of an Accept-Language header ("de-CH,de;q=0.9,en;q=0.8" is "de-CH"), if any. */
+/**
+ * The first language of an Accept-Language header ("de-CH,de;q=0.9,en;q=0.8" is "de-CH"), if
+ * any: browsers list theirs first, and one weighted q=0 is one the reader does not want.
+ */
 export function firstLanguage(header: string | null): string | null {
-  const first = header?.slice(0, 200).split(",")[0]?.split(";")[0]?.trim();
-  return first && first !== "*" ? first : null;
+  for (const entry of (header ?? "").slice(0, 200).split(",")) {
+    const [tag, ...params] = entry.split(";").map((p) => p.trim());
+    if (!tag || tag === "*" || params.some((p) => /^q=0(\.0*)?$/i.test(p))) continue;
+    return tag;
+  }
+  return null;
 }
 
 const PIECE_FIELDS = new Set(["year", "year2", "month", "month2", "monthName", "day", "day2", "minute2", "dayPeriod", "hour", "hour2"]);

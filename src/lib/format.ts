@@ -45,12 +45,22 @@ function deviceZoneKey(): string {
   const year = new Date().getFullYear();
   return `${new Date(year, 0, 1).getTimezoneOffset()}/${new Date(year, 6, 1).getTimezoneOffset()}/${new Date().getTimezoneOffset()}`;
 }
+/** The browser's language (navigator.language); none on the server. */
+const browserLanguage = (): string | undefined => (typeof window === "undefined" ? undefined : navigator.language);
+
 function formatter(style: string, locale: string | undefined, timeZone: string | undefined, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
-  const deviceLocale = typeof navigator === "undefined" ? "" : navigator.language;
-  const key = `${style}|${locale ?? `device:${deviceLocale}`}|${timeZone ?? `device:${deviceZoneKey()}`}`;
+  // A date in the device's own zone and language is in the browser's language, the one its
+  // date pattern is for, whatever the runtime's default (Firefox, for one, can differ).
+  const language = locale ?? (timeZone === undefined ? browserLanguage() : undefined);
+  const key = `${style}|${language ?? "runtime"}|${timeZone ?? `device:${deviceZoneKey()}`}`;
   let f = formatters.get(key);
   if (!f) {
-    f = new Intl.DateTimeFormat(locale, { ...options, timeZone });
+    try {
+      f = new Intl.DateTimeFormat(language, { ...options, timeZone });
+    } catch (e) {
+      if (locale !== undefined || language === undefined) throw e;
+      f = new Intl.DateTimeFormat(undefined, { ...options, timeZone });
+    }
     formatters.set(key, f);
   }
   return f;
@@ -66,8 +76,8 @@ export function setDevicePattern(pattern: DatePattern | null): void {
 }
 
 function fromPattern(style: "day" | "when", ms: number, timeZone: string | undefined, locale: string | undefined): string | null {
-  if (!devicePattern || timeZone !== undefined || locale !== undefined || typeof navigator === "undefined") return null;
-  if (navigator.language.toLowerCase() !== devicePattern.locale.toLowerCase()) return null;
+  if (!devicePattern || timeZone !== undefined || locale !== undefined) return null;
+  if (browserLanguage()?.toLowerCase() !== devicePattern.locale.toLowerCase()) return null;
   return writeDate(devicePattern, style, ms);
 }
 
