@@ -1,4 +1,4 @@
-import { isDatePattern, matchesOwnIntl, type DatePattern } from "@/lib/date-pattern";
+import { isDatePattern, isPatternFor, matchesOwnIntl, type DatePattern } from "@/lib/date-pattern";
 import { setDevicePattern } from "@/lib/format";
 
 // What the device keeps of the date pattern the server sends (date-pattern.ts), in
@@ -41,8 +41,10 @@ function write(kept: Kept): void {
 }
 
 const browser = () => navigator.userAgent;
-const refusedHere = (kept: Kept, pattern: DatePattern) => kept.refused?.by === browser() && kept.refused.patterns.includes(JSON.stringify(pattern));
-const isForThisBrowser = (pattern: DatePattern) => navigator.language.toLowerCase() === pattern.locale.toLowerCase();
+/** A pattern as kept and compared: its JSON text. */
+const textOf = (pattern: DatePattern | null) => JSON.stringify(pattern);
+const refusedHere = (kept: Kept, pattern: DatePattern) => kept.refused?.by === browser() && kept.refused.patterns.includes(textOf(pattern));
+const isForThisBrowser = (pattern: DatePattern) => isPatternFor(pattern, navigator.language);
 
 /**
  * Takes the pattern the server sent with who is signed in (null: none for this language), or,
@@ -52,9 +54,11 @@ export function keepDatePattern(sent?: unknown): void {
   let kept = read();
   if (sent !== undefined) {
     const pattern = isDatePattern(sent) ? sent : null;
-    const same = pattern !== null && kept.pattern !== null && JSON.stringify(pattern) === JSON.stringify(kept.pattern);
-    if (!same) kept = { pattern, refused: kept.refused };
-    write(kept);
+    // The same pattern again (every start, online) keeps its check and is not written again.
+    if (textOf(pattern) !== textOf(kept.pattern)) {
+      kept = { pattern, refused: kept.refused };
+      write(kept);
+    }
   }
   setDevicePattern(kept.pattern && !refusedHere(kept, kept.pattern) ? kept.pattern : null);
 }
@@ -73,13 +77,13 @@ export function checkDatePatternLater(delayMs = 15_000): () => void {
   const timer = window.setTimeout(() => {
     const check = () => {
       const now = read();
-      if (!now.pattern || JSON.stringify(now.pattern) !== JSON.stringify(pattern) || !isForThisBrowser(pattern)) return;
+      if (textOf(now.pattern) !== textOf(pattern) || !isForThisBrowser(pattern)) return;
       if (matchesOwnIntl(pattern)) {
         write({ ...now, checkedBy: browser() });
         return;
       }
       const earlier = now.refused?.by === browser() ? now.refused.patterns : [];
-      write({ pattern, refused: { by: browser(), patterns: [...earlier, JSON.stringify(pattern)].slice(-MAX_REFUSED) } });
+      write({ pattern, refused: { by: browser(), patterns: [...earlier, textOf(pattern)].slice(-MAX_REFUSED) } });
       // Dates drawn from now on come from Intl; those on screen change at the screen's next draw.
       setDevicePattern(null);
     };

@@ -88,6 +88,9 @@ function write(style: DateStylePattern, f: Fields): string {
   return out;
 }
 
+/** Whether the pattern is for this language (a browser's navigator.language): tags match case-blind. */
+export const isPatternFor = (pattern: DatePattern, language: string | undefined): boolean => language?.toLowerCase() === pattern.locale.toLowerCase();
+
 /**
  * An instant written in the pattern, on this device's clock; null outside years 1000-9999, where
  * Intl writes eras and signs the pattern was never checked against.

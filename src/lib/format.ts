@@ -1,4 +1,4 @@
-import { writeDate, type DatePattern } from "./date-pattern";
+import { isPatternFor, writeDate, type DatePattern } from "./date-pattern";
 import { convertMass, type MassUnit } from "./estimate/units";
 
 const DIGITS: Record<MassUnit, number> = { g: 2, ozt: 3, dwt: 2, gr: 1 };
@@ -77,8 +77,7 @@ export function setDevicePattern(pattern: DatePattern | null): void {
 
 function fromPattern(style: "day" | "when", ms: number, timeZone: string | undefined, locale: string | undefined): string | null {
   if (!devicePattern || timeZone !== undefined || locale !== undefined) return null;
-  if (browserLanguage()?.toLowerCase() !== devicePattern.locale.toLowerCase()) return null;
-  return writeDate(devicePattern, style, ms);
+  return isPatternFor(devicePattern, browserLanguage()) ? writeDate(devicePattern, style, ms) : null;
 }
 
 /** What a date that is not one (a corrupt record) shows: Intl would throw, taking the screen with it. */
@@ -88,8 +87,8 @@ const isInstant = (ms: number) => Number.isFinite(ms) && Math.abs(ms) <= 8.64e15
 
 /**
  * Every date and time shown goes through these two, in Intl's medium date ("3 Dec 2026",
- * "Dec 3, 2026", "03.12.2026") of the given locale, else the runtime's: the member's own on
- * the phone, the server's on console pages it writes (in the club's zone, so the text the
+ * "Dec 3, 2026", "03.12.2026") of the given locale, else the browser's language on the phone
+ * (navigator.language) and the runtime's elsewhere: the server's on console pages it writes (in the club's zone, so the text the
  * server renders is the text that hydrates). Machine-readable dates (CSV, file names,
  * `<time dateTime>`) stay ISO 8601. On the phone, once it has its language's pattern
  * (date-pattern.ts), the text is written from that: the same text, with no formatter made.
