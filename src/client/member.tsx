@@ -45,9 +45,15 @@ export function MemberProvider({ children }: { children: React.ReactNode }) {
   useEffect(() => {
     let cancelled = false;
     // The screen behind the member is drawn as a transition: in slices that leave room for a
-    // tap, not as one block of the main thread at start (see live-query.ts).
+    // tap, not as one block of the main thread at start (see live-query.ts). The member's
+    // database is set up (Dexie reading its four schema versions) in a task of its own, not in
+    // the one that read the server's answer or mounted the page.
     const use = (member: DeviceMember, sessionLive: boolean) =>
-      !cancelled && startTransition(() => setState({ status: "ready", member, db: memberDb(member.id), sessionLive }));
+      setTimeout(() => {
+        if (cancelled) return;
+        const db = memberDb(member.id);
+        startTransition(() => setState({ status: "ready", member, db, sessionLive }));
+      }, 0);
     // Dates are written from the pattern kept for this browser's language (date-pattern-store.ts),
     // checked against the browser's own Intl once it is idle.
     keepDatePattern();

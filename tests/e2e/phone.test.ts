@@ -171,6 +171,14 @@ describe("the phone in the field (issue 19)", () => {
       if (lead) expect(await page.locator("main").textContent(), path).toMatch(lead);
       // The body waits for the member: its placeholder, not a blank, and no screen's data.
       expect(await page.locator("main [role=status][aria-label=Loading]").count(), path).toBeGreaterThan(0);
+      // The parser reaches the head without stopping for a script: an inline script above it
+      // (the early "who is signed in") let the first frame paint an empty page and the app's code
+      // run before the head was parsed. The early ask still comes, after the screen's HTML.
+      const html = await (await plain.request.get(`${baseUrl}${path}`)).text();
+      const beforeEnd = html.slice(html.indexOf("<body"), html.indexOf("</main>"));
+      expect(beforeEnd, path).toContain("<h1");
+      expect(beforeEnd.match(/<script(?![^>]*\bsrc=)[^>]*>/g), path).toBeNull();
+      expect(html.slice(html.indexOf("</main>")), path).toContain('fetch("/api/me"');
     }
     await plain.close();
     await context.close();

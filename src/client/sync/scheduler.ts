@@ -1,4 +1,5 @@
 import type { LodebookDb } from "../device-db";
+import { afterFirstPaint } from "../first-paint";
 import { syncStatus, type SyncStatus } from "./status";
 
 const PERIOD_MS = 5 * 60_000;
@@ -103,9 +104,13 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   document.addEventListener("visibilitychange", onVisible);
   navigator.serviceWorker?.addEventListener("message", onMessage);
   const timer = setInterval(() => navigator.onLine && void run(), PERIOD_MS);
-  // The sync at app start waits until the first screen has drawn what the device holds (the
-  // browser is idle, or 2 s at most): on a slow phone it would otherwise compete with it.
-  const startIdle = typeof requestIdleCallback === "function" ? requestIdleCallback(() => void run(), { timeout: 2000 }) : setTimeout(() => void run(), 0);
+  // The sync at app start waits until the page has drawn its first words, and then until the
+  // first screen has drawn what the device holds (the browser is idle, or 2 s at most): on a
+  // slow link and a slow phone it would otherwise compete with them.
+  let startIdle: number | ReturnType<typeof setTimeout> | undefined;
+  const stopWaiting = afterFirstPaint(() => {
+    startIdle = typeof requestIdleCallback === "function" ? requestIdleCallback(() => void run(), { timeout: 2000 }) : setTimeout(() => void run(), 0);
+  });
 
   current = {
     request: (options) => {
@@ -114,6 +119,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     },
     stop: () => {
       stopped = true;
+      stopWaiting();
       if (typeof cancelIdleCallback === "function") cancelIdleCallback(startIdle as number);
       clearTimeout(startIdle as ReturnType<typeof setTimeout>);
       clearInterval(timer);

@@ -1,5 +1,6 @@
 "use client";
 import { usePathname } from "next/navigation";
+import { useAfterFirstPaint } from "@/client/first-paint";
 import { MemberProvider, useMemberState } from "@/client/member";
 import { lazy, Suspense } from "react";
 import { SiteHeader } from "../site-header";
@@ -8,12 +9,14 @@ import { TabBar } from "./tab-bar";
 // Asked once, on the home screen: loaded after it, so no screen's first load carries it.
 const StoragePrompt = lazy(() => import("../storage-prompt").then((m) => ({ default: m.StoragePrompt })));
 
-// Shows only when a new version waits: loaded just after the frame, never in a first load.
+// Shows only when a new version waits: loaded once the page has drawn its first words, never
+// in a first load.
 const UpdatePrompt = lazy(() => import("../update-prompt").then((m) => ({ default: m.UpdatePrompt })));
 
 function Body({ children }: { children: React.ReactNode }) {
   const state = useMemberState();
   const path = usePathname();
+  const painted = useAfterFirstPaint();
   return (
     <>
       <SiteHeader actor={state.status === "ready" ? state.member : null} />
@@ -26,9 +29,11 @@ function Body({ children }: { children: React.ReactNode }) {
         {children}
       </main>
       {state.status === "ready" && <TabBar />}
-      <Suspense fallback={null}>
-        <UpdatePrompt />
-      </Suspense>
+      {painted && (
+        <Suspense fallback={null}>
+          <UpdatePrompt />
+        </Suspense>
+      )}
     </>
   );
 }
