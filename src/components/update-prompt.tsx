@@ -27,12 +27,14 @@ export function UpdatePrompt() {
     navigator.serviceWorker.getRegistration().then((reg) => {
       if (!reg || cancelled) return;
       if (reg.waiting && navigator.serviceWorker.controller) setWaiting(reg.waiting);
-      reg.addEventListener("updatefound", () => {
-        const next = reg.installing;
+      const watch = (next: ServiceWorker | null) =>
         next?.addEventListener("statechange", () => {
           if (next.state === "installed" && navigator.serviceWorker.controller) setWaiting(next);
         });
-      });
+      // This prompt comes after the page's first paint: a new worker found before it is still
+      // installing, and is watched as one found later.
+      watch(reg.installing);
+      reg.addEventListener("updatefound", () => watch(reg.installing));
     });
     const onChange = () => {
       if (!hadController) return;
