@@ -48,6 +48,7 @@ function Count({ db, fail = false }: { db: ReturnType<typeof open>; fail?: boole
 afterEach(() => {
   cleanup();
   vi.restoreAllMocks();
+  vi.unstubAllGlobals();
 });
 
 describe("useLiveQuery, delivered as transitions", () => {
@@ -95,6 +96,45 @@ describe("useLiveQuery, delivered as transitions", () => {
     await act(() => db.rows.put({ id: 4, name: "flake" }));
     await act(() => new Promise((r) => setTimeout(r, 50)));
     expect(runs).toBe(whileShown);
+    db.close();
+  });
+});
+
+describe("useLiveQuery, answers that arrive together", () => {
+  it("are drawn together: a screen with two queries is never drawn with one answered and not the other", async () => {
+    const db = open();
+    await db.rows.bulkPut([
+      { id: 1, name: "nugget" },
+      { id: 2, name: "flake" },
+    ]);
+    // The next frame comes 30 ms after an answer (a slow phone's frame; jsdom's frames fall
+    // at fixed times, which could split two answers 4 ms apart).
+    vi.stubGlobal("requestAnimationFrame", (cb: FrameRequestCallback) => setTimeout(() => cb(performance.now()), 30));
+    const drawn: string[] = [];
+    function TwoQueries() {
+      const names = useLiveQuery(async () => (await db.rows.toArray()).map((r) => r.name).join(","), [], null);
+      // Its answer comes a few milliseconds after the other's, in a task of its own (as a
+      // screen's several queries do in a browser).
+      const count = useLiveQuery(
+        async () => {
+          const n = await db.rows.count();
+          await new Promise((r) => setTimeout(r, 4));
+          return n;
+        },
+        [],
+        null,
+      );
+      drawn.push(`${names ?? "?"}|${count ?? "?"}`);
+      return <p data-testid="both">{names !== null && count !== null ? `${names} (${count})` : "waiting"}</p>;
+    }
+    render(<TwoQueries />);
+    expect((await screen.findByText("nugget,flake (2)")).textContent).toBe("nugget,flake (2)");
+    expect(drawn.filter((d) => d.includes("?") && d !== "?|?")).toEqual([]);
+    // A write re-answers both: again drawn together.
+    drawn.length = 0;
+    await act(() => db.rows.put({ id: 3, name: "specimen" }));
+    expect((await screen.findByText("nugget,flake,specimen (3)")).textContent).toBe("nugget,flake,specimen (3)");
+    expect(drawn.filter((d) => d.includes("nugget,flake,specimen|2") || d.includes("nugget,flake|3"))).toEqual([]);
     db.close();
   });
 });
