@@ -12,18 +12,20 @@ import { useEffect, useState } from "react";
 export function afterFirstPaint(then: () => void, limitMs = 3000): () => void {
   let done = false;
   let observer: PerformanceObserver | undefined;
-  const run = () => {
-    if (done) return;
+  const already = painted();
+  const limit = setTimeout(() => run(), already ? 0 : limitMs);
+  const stop = () => {
     done = true;
     observer?.disconnect();
     clearTimeout(limit);
+  };
+  const run = () => {
+    if (done) return;
+    stop();
     then();
   };
-  const canWatch = typeof PerformanceObserver !== "undefined" && (PerformanceObserver.supportedEntryTypes ?? []).includes("paint");
-  const limit = setTimeout(run, painted() ? 0 : limitMs);
-  if (painted()) {
-    // Drawn already: a later screen of the same page load.
-  } else if (canWatch) {
+  if (already) return stop; // a later screen of the same page load: the limit of 0 runs it
+  if (typeof PerformanceObserver !== "undefined" && (PerformanceObserver.supportedEntryTypes ?? []).includes("paint")) {
     observer = new PerformanceObserver((list) => {
       if (list.getEntriesByName("first-contentful-paint").length > 0) setTimeout(run, 0);
     });
@@ -32,11 +34,7 @@ export function afterFirstPaint(then: () => void, limitMs = 3000): () => void {
     // A browser that does not report paints: after its next frame.
     requestAnimationFrame(() => setTimeout(run, 0));
   } else setTimeout(run, 0);
-  return () => {
-    done = true;
-    observer?.disconnect();
-    clearTimeout(limit);
-  };
+  return stop;
 }
 
 /** Whether the page has drawn its first words: see afterFirstPaint. */
