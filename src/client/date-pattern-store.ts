@@ -1,5 +1,6 @@
 import { isDatePattern, isPatternFor, matchesOwnIntl, type DatePattern } from "@/lib/date-pattern";
 import { setDevicePattern } from "@/lib/format";
+import { whenIdle } from "./when-idle";
 
 // What the device keeps of the date pattern the server sends (date-pattern.ts), in
 // localStorage: read at every start, before the first date is drawn, with no signal.
@@ -73,27 +74,19 @@ export function checkDatePatternLater(delayMs = 15_000): () => void {
   const kept = read();
   const pattern = kept.pattern;
   if (!pattern || !isForThisBrowser(pattern) || kept.checkedBy === browser() || refusedHere(kept, pattern)) return () => undefined;
-  let idle: number | undefined;
-  const timer = window.setTimeout(() => {
-    const check = () => {
-      const now = read();
-      if (textOf(now.pattern) !== textOf(pattern) || !isForThisBrowser(pattern)) return;
-      if (matchesOwnIntl(pattern)) {
-        write({ ...now, checkedBy: browser() });
-        return;
-      }
-      const earlier = now.refused?.by === browser() ? now.refused.patterns : [];
-      write({ pattern, refused: { by: browser(), patterns: [...earlier, textOf(pattern)].slice(-MAX_REFUSED) } });
-      // Dates drawn from now on come from Intl; those on screen change at the screen's next draw.
-      setDevicePattern(null);
-    };
-    // Where there is no idle callback (Safari), the check runs in the timer: two formatters and
-    // a few hundred dates, once.
-    if (typeof window.requestIdleCallback === "function") idle = window.requestIdleCallback(check, { timeout: 10_000 });
-    else check();
-  }, delayMs);
-  return () => {
-    window.clearTimeout(timer);
-    if (idle !== undefined) window.cancelIdleCallback(idle);
+  const check = () => {
+    const now = read();
+    if (textOf(now.pattern) !== textOf(pattern) || !isForThisBrowser(pattern)) return;
+    if (matchesOwnIntl(pattern)) {
+      write({ ...now, checkedBy: browser() });
+      return;
+    }
+    const earlier = now.refused?.by === browser() ? now.refused.patterns : [];
+    write({ pattern, refused: { by: browser(), patterns: [...earlier, textOf(pattern)].slice(-MAX_REFUSED) } });
+    // Dates drawn from now on come from Intl; those on screen change at the screen's next draw.
+    setDevicePattern(null);
   };
+  // Where there is no idle callback (Safari), the check runs in a task of its own: two formatters
+  // and a few hundred dates, once.
+  return whenIdle(check, { afterMs: delayMs, timeoutMs: 10_000 });
 }

@@ -6,6 +6,8 @@
 // screen's first load twice, in the shell's chunk and the screen's.)
 // (@serwist/next's own registration is off in next.config.mjs; its window object does this.)
 
+import { whenIdle } from "./when-idle";
+
 const SETTLE_MS = 3000;
 let started = false;
 
@@ -20,19 +22,12 @@ export function startServiceWorker(): void {
 
 /** Registers the worker when the page has settled: load, then SETTLE_MS, then an idle moment. */
 export function startServiceWorkerWhenSettled(): () => void {
-  let timer: ReturnType<typeof setTimeout> | undefined;
-  let idle: number | undefined;
-  const afterLoad = () => {
-    timer = setTimeout(() => {
-      if (typeof requestIdleCallback === "function") idle = requestIdleCallback(startServiceWorker, { timeout: 2000 });
-      else startServiceWorker();
-    }, SETTLE_MS);
-  };
+  let stopWaiting = () => {};
+  const afterLoad = () => (stopWaiting = whenIdle(startServiceWorker, { afterMs: SETTLE_MS, timeoutMs: 2000 }));
   if (document.readyState === "complete") afterLoad();
   else window.addEventListener("load", afterLoad, { once: true });
   return () => {
     window.removeEventListener("load", afterLoad);
-    clearTimeout(timer);
-    if (idle !== undefined) cancelIdleCallback(idle);
+    stopWaiting();
   };
 }

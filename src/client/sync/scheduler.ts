@@ -1,5 +1,6 @@
 import type { LodebookDb } from "../device-db";
 import { afterFirstPaint } from "../first-paint";
+import { whenIdle } from "../when-idle";
 import { syncStatus, type SyncStatus } from "./status";
 
 const PERIOD_MS = 5 * 60_000;
@@ -107,10 +108,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   // The sync at app start waits until the page has drawn its first words, and then until the
   // first screen has drawn what the device holds (the browser is idle, or 2 s at most): on a
   // slow link and a slow phone it would otherwise compete with them.
-  let startIdle: number | ReturnType<typeof setTimeout> | undefined;
-  const stopWaiting = afterFirstPaint(() => {
-    startIdle = typeof requestIdleCallback === "function" ? requestIdleCallback(() => void run(), { timeout: 2000 }) : setTimeout(() => void run(), 0);
-  });
+  let stopIdle = () => {};
+  const stopWaiting = afterFirstPaint(() => (stopIdle = whenIdle(() => void run(), { timeoutMs: 2000 })));
 
   current = {
     request: (options) => {
@@ -120,8 +119,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     stop: () => {
       stopped = true;
       stopWaiting();
-      if (typeof cancelIdleCallback === "function") cancelIdleCallback(startIdle as number);
-      clearTimeout(startIdle as ReturnType<typeof setTimeout>);
+      stopIdle();
       clearInterval(timer);
       clearTimeout(retryTimer);
       window.removeEventListener("online", run);
