@@ -24,6 +24,45 @@ export function badRequest(subject: string, error: z.ZodError): AppError {
 export const MAX_JSON_BYTES = 1_000_000;
 
 /**
+ * How deep a request's JSON may nest. Nothing the app sends goes past a dozen levels (a claim's
+ * boundary in a sync change is the deepest); thousands of levels pass the byte limit, and then
+ * code that walks the value (a digest, a comparison, a geometry check) runs out of stack.
+ */
+export const MAX_JSON_DEPTH = 64;
+
+/**
+ * Where `text` (JSON) first nests deeper than `max` arrays and objects, as the path of keys and
+ * indexes to it ("mutations.0.args.id"), or null. One pass over the text, no recursion, before
+ * it is parsed: a hostile body cannot exhaust the stack here either.
+ */
+export function jsonTooDeep(text: string, max = MAX_JSON_DEPTH): string | null {
+  // Each open array or object, with the index or key being read in it.
+  const open: { array: boolean; at: string | number }[] = [];
+  let stringStart = -1;
+  let lastString = [0, 0];
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (stringStart >= 0) {
+      if (c === 0x5c)
+        i++; // a backslash: the next character is escaped
+      else if (c === 0x22) {
+        lastString = [stringStart, i];
+        stringStart = -1;
+      }
+      continue;
+    }
+    if (c === 0x22) stringStart = i + 1;
+    else if (c === 0x3a && open.length > 0) open[open.length - 1].at = text.slice(lastString[0], lastString[1]);
+    else if (c === 0x2c && open.at(-1)?.array) (open[open.length - 1].at as number)++;
+    else if (c === 0x5b || c === 0x7b) {
+      if (open.length >= max) return open.map((o) => String(o.at).slice(0, 40)).join(".") || "_";
+      open.push({ array: c === 0x5b, at: c === 0x5b ? 0 : "" });
+    } else if (c === 0x5d || c === 0x7d) open.pop();
+  }
+  return null;
+}
+
+/**
  * A request's body, refused as soon as it passes `maxBytes`: a declared length over the limit
  * is refused before a byte is read, and a chunked body (no declared length) is counted while
  * it streams, so memory never holds more than the limit.
@@ -55,11 +94,18 @@ export async function parseJsonBody<T extends z.ZodType>(req: Request, schema: T
     throw new AppError(`unsupported:${subject}`, "Send the body as application/json.");
   }
   const bytes = await readBodyLimited(req, maxBytes, subject);
+  let text: string;
   let raw: unknown;
   try {
-    raw = JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(bytes));
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+    raw = JSON.parse(text);
   } catch {
     throw new AppError(`bad_request:${subject}`, "The body is not valid JSON.", { _: ["not valid JSON"] });
+  }
+  const deep = jsonTooDeep(text);
+  if (deep !== null) {
+    const message = `nested more than ${MAX_JSON_DEPTH} levels deep`;
+    throw new AppError(`bad_request:${subject}`, `Check ${deep}: ${message}.`, { [deep]: [message] });
   }
   const parsed = schema.safeParse(raw);
   if (!parsed.success) throw badRequest(subject, parsed.error);

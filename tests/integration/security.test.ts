@@ -357,6 +357,51 @@ describe("hostile input (RELIABILITY 31)", () => {
     );
   });
 
+  // Thousands of levels fit under the byte limit; code that walks the value (the push's digest,
+  // a geometry check) would run out of stack on them. Refused whole, at the door, by path.
+  it.each([...jsonEndpoints, ["PUT /api/club/claims/[id]", "/api/club/claims/[id]", "claim"] as [string, string, string]])(
+    "%s refuses a body nested thousands deep with 400 naming where, and changes nothing",
+    async (key, route, idKind) => {
+      const h = await handler(key);
+      const id = idKind === "find" ? fixture.find : idKind === "member" ? fixture.bystander : idKind === "claim" ? fixture.claim : "x";
+      const deep = (n: number) => "[".repeat(n) + "0" + "]".repeat(n);
+      const bodies = [
+        deep(2_000),
+        // Good changes first, then one nested deep: none of them is applied.
+        `{"protocolVersion":1,"clientId":"${uuidv7()}","mutations":[{"id":1,"name":"find.put","args":${JSON.stringify(newFind())}},{"id":2,"name":"find.delete","args":{"id":${deep(2_000)}}}]}`,
+        `{"name":"Deep","kind":"placer","boundary":{"type":"Polygon","coordinates":${deep(3_000)}}}`,
+      ];
+      const before = databaseChecksum(db);
+      for (const body of bodies) {
+        const method = key.split(" ")[0];
+        const res = await h(
+          req(route.replace("[id]", id), {
+            method,
+            cookie: key.includes("/club/") ? cookies.officer : cookies.member,
+            headers: { "content-type": "application/json" },
+            body,
+          }),
+          {
+            params: Promise.resolve({ id }),
+          },
+        );
+        expect(res.status, body.slice(0, 60)).toBe(400);
+        const err = (await res.json()).error;
+        expect(err.message).toMatch(/nested more than 64 levels deep/);
+        const where = Object.keys(err.fields)[0];
+        expect(err.message).toContain(`Check ${where}:`);
+      }
+      expect(databaseChecksum(db)).toBe(before);
+      // The path names where it went too deep: inside the second change's id, inside the boundary.
+      const push = await handler("POST /api/sync/push");
+      const res = await push(
+        req("/api/sync/push", { method: "POST", cookie: cookies.member, headers: { "content-type": "application/json" }, body: bodies[1] }),
+        {},
+      );
+      expect(Object.keys((await res.json()).error.fields)).toEqual([`mutations.1.args.id.${Array(60).fill(0).join(".")}`]);
+    },
+  );
+
   it("refuses an oversized body early with 413", async () => {
     const h = await handler("POST /api/estimate");
     const res = await h(req("/api/estimate", { method: "POST", headers: { "content-type": "application/json", "content-length": "5000000" }, body: "{}" }), {});
