@@ -16,6 +16,8 @@ type Access = { public: true } | { capability: Capability | "session" };
  */
 export function defineAction<S extends z.ZodType>(access: Access, schema: S, act: (input: z.infer<S>, actor: Actor | null) => Promise<ActionState | void>) {
   return async (_prev: ActionState, formData: FormData): Promise<ActionState> => {
+    // An action is a public endpoint: a hand-made call can send any value in place of the form.
+    if (!(formData instanceof FormData)) return { ok: false, message: "Send the form's fields.", fields: { _: ["not a form"] } };
     const parsed = schema.safeParse(Object.fromEntries(formData));
     if (!parsed.success) return { ok: false, message: "Check the marked fields.", fields: fieldErrorsOf(parsed.error) };
     let actor: Actor | null = null;

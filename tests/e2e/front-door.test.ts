@@ -194,3 +194,57 @@ describe("the front door (RELIABILITY 32–34)", () => {
     expect(sent).toBeLessThan(64 * 1024 * 1024);
   });
 });
+
+// Server actions are public endpoints: hostile calls get a status and a message, never Next's 500.
+describe("server actions called by hand", () => {
+  /** An action's id in this build, by its exported name. */
+  const actionId = (name: string) => {
+    const manifest = JSON.parse(fs.readFileSync(path.resolve(".next/server/server-reference-manifest.json"), "utf8")) as {
+      node: Record<string, { exportedName: string }>;
+    };
+    const id = Object.entries(manifest.node).find(([, a]) => a.exportedName === name)?.[0];
+    if (!id) throw new Error(`no server action ${name} in this build`);
+    return id;
+  };
+  const call = (name: string, headers: Record<string, string>, body: string) =>
+    raw(
+      "POST",
+      name === "joinClub" || name === "invitationState" ? "/join" : "/sign-in",
+      { host: new URL(baseUrl).host, origin: baseUrl, "next-action": actionId(name), "content-type": "text/plain;charset=UTF-8", ...headers },
+      body,
+    );
+
+  it("an argument that is not a form gets the action's own message, for every action", async () => {
+    for (const name of ["sendSignInLink", "signInWithPassword", "signOutNow", "joinClub", "invitationState"]) {
+      for (const body of ["[{},1]", '["abc"]', "[null,null]", "[]"]) {
+        const res = await call(name, {}, body);
+        expect(res.status, `${name} ${body}`).toBe(200);
+        expect(res.text, `${name} ${body}`).toContain("Send the form's fields.");
+      }
+    }
+  });
+
+  it("another site's call is refused with 403, a body over 64 kB with 413, one of unknown length with 411", async () => {
+    const cross = await call("sendSignInLink", { origin: "http://evil.example" }, "[{},1]");
+    expect(cross.status).toBe(403);
+    expect(JSON.parse(cross.text).error.code).toBe("forbidden:origin");
+    expect((await call("sendSignInLink", { origin: "null" }, "[{},1]")).status).toBe(403);
+
+    const boundary = "lodebookform";
+    const form = `--${boundary}\r\nContent-Disposition: form-data; name="1_email"\r\n\r\n${"a".repeat(100_000)}@x.example\r\n--${boundary}--\r\n`;
+    const big = await call("sendSignInLink", { "content-type": `multipart/form-data; boundary=${boundary}` }, form);
+    expect(big.status).toBe(413);
+    expect(JSON.parse(big.text).error.message).toMatch(/over 64 kB/);
+    // The same without script: a plain form post naming the action in its fields.
+    const plain = await raw(
+      "POST",
+      "/sign-in",
+      { host: new URL(baseUrl).host, "content-type": "application/x-www-form-urlencoded" },
+      `$ACTION_ID_${actionId("sendSignInLink")}=&email=${"a".repeat(100_000)}`,
+    );
+    expect(plain.status).toBe(413);
+
+    const chunked = await call("sendSignInLink", { "transfer-encoding": "chunked" }, "");
+    expect(chunked.status).toBe(411);
+  });
+});
