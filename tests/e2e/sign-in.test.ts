@@ -1,3 +1,5 @@
+import fs from "node:fs";
+import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
 import { LAPTOP, PHONE, shotPath, sharedBrowser } from "./support/browser";
 import { DEMO, SignInPage, waitForMail } from "./support/pages";
@@ -87,6 +89,53 @@ describe("signing in through the real form", () => {
     const again = await fresh.newPage();
     await again.goto(link);
     await again.waitForURL((url) => url.pathname === "/sign-in");
+    await fresh.close();
+    await context.close();
+  });
+  it("the caught-mail page shows an officer their own sign-in link, never a member's", async () => {
+    const dir = inject("mailDir");
+    const caught = () => (fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith(".json")) : []);
+    const before = new Set(caught());
+    /** The sign-in message to `to` that came since this test began. */
+    const newLinkMail = async (to: string) => {
+      for (const deadline = Date.now() + 15_000; Date.now() < deadline; await new Promise((r) => setTimeout(r, 200))) {
+        for (const f of caught().filter((f) => !before.has(f))) {
+          const m = JSON.parse(fs.readFileSync(path.join(dir, f), "utf8")) as { to: string[]; subject: string; text: string };
+          if (m.to.includes(to) && /sign-in link/.test(m.subject)) return m;
+        }
+      }
+      throw new Error(`no new sign-in mail to ${to}`);
+    };
+    const context = await browser().newContext(PHONE);
+    const page = await context.newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.askForLink(DEMO.member.email);
+    await page.getByText(/a sign-in link is on its way/).waitFor();
+    const memberMail = await newLinkMail(DEMO.member.email);
+    const memberLink = memberMail.text.match(/https?:\/\/\S+/)![0];
+    await signIn.open();
+    await signIn.askForLink(DEMO.officer.email);
+    await page.getByText(/a sign-in link is on its way/).waitFor();
+    await newLinkMail(DEMO.officer.email);
+
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+    await page.goto(`${baseUrl}/club/mail`);
+    await page.getByRole("heading", { name: "Caught mail" }).waitFor();
+    const html = await page.content();
+    expect(html).not.toContain(new URL(memberLink).searchParams.get("token")!);
+    const memberNote = page.getByText(`[a sign-in link for ${DEMO.member.email}: only they can open it, from their own mailbox]`);
+    expect(await memberNote.count()).toBeGreaterThan(0);
+    const ownLinks = page.locator(`a[href*="/api/auth/callback/"][href*="${encodeURIComponent(DEMO.officer.email)}"]`);
+    expect(await ownLinks.count()).toBeGreaterThan(0);
+    expect(await page.locator(`a[href*="${encodeURIComponent(DEMO.member.email)}"]`).count()).toBe(0);
+    // The member's link itself still works, for the member.
+    const fresh = await browser().newContext(PHONE);
+    const phone = await fresh.newPage();
+    await phone.goto(memberLink);
+    await phone.waitForURL((url) => url.pathname === "/" || url.pathname === "/signed-in");
     await fresh.close();
     await context.close();
   });

@@ -24,3 +24,18 @@ export async function listCaughtMail(limit = 50): Promise<CaughtMail[]> {
   }
   return out;
 }
+
+/** A sign-in link's address: Auth.js's e-mail callback, with its one-time token. */
+const SIGN_IN_LINK = /https?:\/\/[^\s<>"]*\/api\/auth\/callback\/[^\s<>"]*/g;
+
+/**
+ * A caught message as `reader` may see it. The catcher stands in for every person's mailbox,
+ * but a sign-in link signs in whoever opens it: one addressed to someone else is shown only as
+ * a note, so an officer reading the catcher cannot sign in as a member. Everything else (query
+ * notices, invitations the officer sent) is shown whole.
+ */
+export function asReadBy(mail: CaughtMail, reader: string): CaughtMail {
+  const own = mail.to.some((to) => to.trim().toLowerCase() === reader.trim().toLowerCase());
+  if (own) return mail;
+  return { ...mail, text: mail.text.replace(SIGN_IN_LINK, `[a sign-in link for ${mail.to.join(", ")}: only they can open it, from their own mailbox]`) };
+}

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { requirePageActor } from "@/server/auth/current";
-import { caughtMailDir, listCaughtMail } from "@/server/mail/caught";
+import { asReadBy, caughtMailDir, listCaughtMail } from "@/server/mail/caught";
 
 export const metadata: Metadata = { title: "Caught mail" };
 
@@ -25,13 +25,15 @@ function Linked({ text }: { text: string }) {
 
 /** Development and demo only: what the local mail catcher received. Absent in production. */
 export default async function CaughtMailPage() {
-  await requirePageActor("readCaughtMail", "/club/mail");
+  const actor = await requirePageActor("readCaughtMail", "/club/mail");
   if (!caughtMailDir()) notFound();
-  const mail = await listCaughtMail();
+  const mail = (await listCaughtMail()).map((m) => asReadBy(m, actor.email));
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-2xl font-bold">Caught mail</h1>
-      <p className="text-ink-soft">The demo sends no real e-mail: the local catcher keeps every message here.</p>
+      <p className="text-ink-soft">
+        The demo sends no real e-mail: the local catcher keeps every message here. Sign-in links show only in their own addressee&apos;s messages.
+      </p>
       {mail.length === 0 && <p>No messages yet.</p>}
       {mail.map((m) => (
         <article key={m.id} className="sheet">
