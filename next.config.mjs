@@ -1,6 +1,7 @@
 import withSerwistInit from "@serwist/next";
 import fs from "node:fs";
 import path from "node:path";
+import { ACTION_BODY_LIMIT } from "./scripts/lib/front-door.mjs";
 
 // MapLibre runs its tile work in a Web Worker loaded by URL: serve the package's own worker
 // file from public/ (git-ignored, copied here on every build and start).
@@ -47,7 +48,7 @@ const nextConfig = {
   poweredByHeader: false,
   // Server actions here are short forms (sign-in, joining); Next counts the body as it
   // streams and refuses it past this size, before any action runs.
-  experimental: { serverActions: { bodySizeLimit: "64kb" } },
+  experimental: { serverActions: { bodySizeLimit: ACTION_BODY_LIMIT } },
   serverExternalPackages: ["better-sqlite3", "smtp-server", "mailparser", "pino"],
   webpack(config, { isServer, dev }) {
     // The member layout and each screen are separate entries that always load together. Small

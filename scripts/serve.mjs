@@ -1,11 +1,11 @@
 // @ts-check
 // The production server: Next behind a small front door that settles who the caller is
-// (the socket's address unless trusted proxies are configured) and refuses oversized bodies
-// before Next reads them. `npm start` and the demo run this, never `next start` directly.
+// (the socket's address unless trusted proxies are configured) and refuses oversized bodies,
+// and server-action posts over the actions' limit or of unknown length, before Next reads them. `npm start` and the demo run this, never `next start` directly.
 import http from "node:http";
 import { parseArgs } from "node:util";
 import next from "next";
-import { boundedLinger, MAX_DECLARED_BODY_BYTES, settleForwardingHeaders, trustedProxyCount } from "./lib/front-door.mjs";
+import { boundedLinger, MAX_DECLARED_BODY_BYTES, refuseActionPost, settleForwardingHeaders, trustedProxyCount } from "./lib/front-door.mjs";
 
 const { values } = parseArgs({ options: { port: { type: "string", short: "p" }, hostname: { type: "string", short: "H" } } });
 const port = Number(values.port ?? process.env.PORT ?? 3000);
@@ -35,6 +35,12 @@ const server = http.createServer((req, res) => {
   if (declared > MAX_DECLARED_BODY_BYTES) {
     res.writeHead(413, { "content-type": "application/json", connection: "close" });
     res.end(JSON.stringify({ error: { code: "too_large:request", message: `The body is over ${MAX_DECLARED_BODY_BYTES} bytes.` } }));
+    return;
+  }
+  const refused = refuseActionPost(req);
+  if (refused) {
+    res.writeHead(refused.status, { "content-type": "application/json", "cache-control": "no-store", connection: "close" });
+    res.end(JSON.stringify({ error: { code: refused.code, message: refused.message } }));
     return;
   }
   handle(req, res);

@@ -51,6 +51,52 @@ export function boundedLinger(req, res) {
   });
 }
 
+/**
+ * Server actions' body limit: next.config.mjs sets Next's own (serverActions.bodySizeLimit) from
+ * this, so the two cannot drift apart.
+ */
+export const ACTION_BODY_LIMIT = 64 * 1024;
+
+/**
+ * Whether a request may be a server action: a POST to a page (not a route handler under /api/)
+ * that names an action in its header (the app's own calls), or posts a form body (a form with
+ * no script). Next treats both as actions; anything that might be one is held to their rules.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ */
+export function mayBeAction(req) {
+  if (req.method !== "POST") return false;
+  // The path as Next will route it ("/api/../sign-in" is the sign-in page).
+  const path = new URL(req.url ?? "/", "http://front.door").pathname;
+  if (path.startsWith("/api/")) return false;
+  const type = String(req.headers["content-type"] ?? "").toLowerCase();
+  return req.headers["next-action"] !== undefined || type.startsWith("multipart/form-data") || type.startsWith("application/x-www-form-urlencoded");
+}
+
+/**
+ * What the front door answers a possible server action that it refuses before Next reads a
+ * byte, or null to let it through. Next refuses an oversize action body itself, but with a 500
+ * and only once past the limit; a body of unknown length (chunked) could run on for as long as
+ * the client likes, so one is refused outright (browsers always send a form's length). An empty
+ * action header is an action to Next but matches none of the proxy's rules: refused too. (The
+ * proxy, src/proxy.ts, then refuses another site's calls: it has the site's origin rules.)
+ *
+ * @param {import("node:http").IncomingMessage} req
+ * @returns {{ status: number; code: string; message: string } | null}
+ */
+export function refuseActionPost(req) {
+  if (!mayBeAction(req)) return null;
+  const action = req.headers["next-action"];
+  if (action !== undefined && String(action).trim() === "")
+    return { status: 400, code: "bad_request:action", message: "Name the action (the next-action header is empty)." };
+  const declared = req.headers["content-length"];
+  if (declared === undefined && req.headers["transfer-encoding"] !== undefined)
+    return { status: 411, code: "length_required:form", message: "Send the form with its length (Content-Length)." };
+  if (Number(declared ?? 0) > ACTION_BODY_LIMIT)
+    return { status: 413, code: "too_large:form", message: `The form is over ${ACTION_BODY_LIMIT / 1024} kB: shorten the longest field.` };
+  return null;
+}
+
 /** @param {string | undefined} address */
 function normalise(address) {
   if (!address) return undefined;

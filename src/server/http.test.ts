@@ -27,4 +27,12 @@ describe("how deep a request's JSON may nest (jsonTooDeep)", () => {
   it("walks a body nested a hundred thousand deep without running out of stack", () => {
     expect(jsonTooDeep(nested(100_000))).toBe(Array(MAX_JSON_DEPTH).fill(0).join("."));
   });
+
+  it("shows a caller's key cut to 40 characters, without control or direction characters", () => {
+    const key = "\u202eevil\u0007" + "k".repeat(100);
+    // Written raw: the scan runs before the text is parsed, so even a control character JSON
+    // forbids unescaped can reach it.
+    const path = jsonTooDeep(`{"${key}":[[1]]}`, 2);
+    expect(path).toBe(`?evil?${"k".repeat(34)}.0`);
+  });
 });

@@ -33,7 +33,8 @@ export const MAX_JSON_DEPTH = 64;
 /**
  * Where `text` (JSON) first nests deeper than `max` arrays and objects, as the path of keys and
  * indexes to it ("mutations.0.args.id"), or null. One pass over the text, no recursion, before
- * it is parsed: a hostile body cannot exhaust the stack here either.
+ * it is parsed: a hostile body cannot exhaust the stack here either. Each key in the path is cut
+ * to 40 characters and loses its control and direction characters (it goes into the message).
  */
 export function jsonTooDeep(text: string, max = MAX_JSON_DEPTH): string | null {
   // Each open array or object, with the index or key being read in it.
@@ -55,12 +56,18 @@ export function jsonTooDeep(text: string, max = MAX_JSON_DEPTH): string | null {
     else if (c === 0x3a && open.length > 0) open[open.length - 1].at = text.slice(lastString[0], lastString[1]);
     else if (c === 0x2c && open.at(-1)?.array) (open[open.length - 1].at as number)++;
     else if (c === 0x5b || c === 0x7b) {
-      if (open.length >= max) return open.map((o) => String(o.at).slice(0, 40)).join(".") || "_";
+      if (open.length >= max) return open.map((o) => shownKey(o.at)).join(".") || "_";
       open.push({ array: c === 0x5b, at: c === 0x5b ? 0 : "" });
     } else if (c === 0x5d || c === 0x7d) open.pop();
   }
   return null;
 }
+
+/** A key of the caller's as a message may show it: 40 characters at most, no controls. */
+const shownKey = (key: string | number) =>
+  Array.from(String(key).replace(/[\u0000-\u001f\u007f-\u009f\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, "?"))
+    .slice(0, 40)
+    .join("");
 
 /**
  * A request's body, refused as soon as it passes `maxBytes`: a declared length over the limit
@@ -94,18 +101,23 @@ export async function parseJsonBody<T extends z.ZodType>(req: Request, schema: T
     throw new AppError(`unsupported:${subject}`, "Send the body as application/json.");
   }
   const bytes = await readBodyLimited(req, maxBytes, subject);
+  const notJson = () => new AppError(`bad_request:${subject}`, "The body is not valid JSON.", { _: ["not valid JSON"] });
   let text: string;
-  let raw: unknown;
   try {
     text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
-    raw = JSON.parse(text);
   } catch {
-    throw new AppError(`bad_request:${subject}`, "The body is not valid JSON.", { _: ["not valid JSON"] });
+    throw notJson();
   }
   const deep = jsonTooDeep(text);
   if (deep !== null) {
     const message = `nested more than ${MAX_JSON_DEPTH} levels deep`;
     throw new AppError(`bad_request:${subject}`, `Check ${deep}: ${message}.`, { [deep]: [message] });
+  }
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    throw notJson();
   }
   const parsed = schema.safeParse(raw);
   if (!parsed.success) throw badRequest(subject, parsed.error);

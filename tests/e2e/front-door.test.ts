@@ -161,9 +161,13 @@ describe("the front door (RELIABILITY 32–34)", () => {
     expect(statuses.slice(0, 30)).not.toContain(429);
     expect(statuses[30]).toBe(429);
   });
-  it("a body refused before it was read is drained for a moment at most, then the connection is closed", async () => {
-    // A stranger's endless chunked body to the push endpoint: refused at once (no session), and
-    // without a bound Node would go on reading and discarding it until the request timeout.
+  // A stranger's endless chunked body: to the push endpoint, refused at once (no session); to a
+  // page as a server action, refused at once (no length). Without a bound Node would go on
+  // reading and discarding it until the request timeout.
+  it.each([
+    ["the push endpoint", "/api/sync/push", "Content-Type: application/json"],
+    ["a page, as a server action", "/sign-in", "Next-Action: 7f00\r\nContent-Type: text/plain;charset=UTF-8"],
+  ])("a body refused before it was read (%s) is drained for a moment at most, then the connection is closed", async (_what, target, headers) => {
     const url = new URL(baseUrl);
     const socket = net.connect(Number(url.port), url.hostname);
     await once(socket, "connect");
@@ -178,7 +182,7 @@ describe("the front door (RELIABILITY 32–34)", () => {
       socket.once("close", done);
       socket.once("error", done);
     });
-    socket.write(`POST /api/sync/push HTTP/1.1\r\nHost: ${url.host}\r\nContent-Type: application/json\r\nTransfer-Encoding: chunked\r\n\r\n`);
+    socket.write(`POST ${target} HTTP/1.1\r\nHost: ${url.host}\r\n${headers}\r\nTransfer-Encoding: chunked\r\n\r\n`);
     const chunk = Buffer.alloc(64 * 1024, 0x20);
     const frame = Buffer.concat([Buffer.from(`${chunk.length.toString(16)}\r\n`), chunk, Buffer.from("\r\n")]);
     let sent = 0;
@@ -235,16 +239,19 @@ describe("server actions called by hand", () => {
     const big = await call("sendSignInLink", { "content-type": `multipart/form-data; boundary=${boundary}` }, form);
     expect(big.status).toBe(413);
     expect(JSON.parse(big.text).error.message).toMatch(/over 64 kB/);
-    // The same without script: a plain form post naming the action in its fields.
+    // The same without script: a form post naming the action in its fields.
     const plain = await raw(
       "POST",
       "/sign-in",
-      { host: new URL(baseUrl).host, "content-type": "application/x-www-form-urlencoded" },
-      `$ACTION_ID_${actionId("sendSignInLink")}=&email=${"a".repeat(100_000)}`,
+      { host: new URL(baseUrl).host, "content-type": `multipart/form-data; boundary=${boundary}` },
+      `--${boundary}\r\nContent-Disposition: form-data; name="$ACTION_ID_${actionId("sendSignInLink")}"\r\n\r\n\r\n` + form,
     );
     expect(plain.status).toBe(413);
 
     const chunked = await call("sendSignInLink", { "transfer-encoding": "chunked" }, "");
     expect(chunked.status).toBe(411);
+    // An empty action header is still an action to Next, from another site too.
+    const empty = await call("sendSignInLink", { "next-action": "", origin: "http://evil.example", "content-type": "application/json" }, "[]");
+    expect(empty.status).toBe(400);
   });
 });

@@ -1,6 +1,13 @@
 import http from "node:http";
 import { describe, expect, it } from "vitest";
-import { CLIENT_HEADER, resolveClientAddress, settleForwardingHeaders, trustedProxyCount } from "../../scripts/lib/front-door.mjs";
+import {
+  ACTION_BODY_LIMIT,
+  CLIENT_HEADER,
+  refuseActionPost,
+  resolveClientAddress,
+  settleForwardingHeaders,
+  trustedProxyCount,
+} from "../../scripts/lib/front-door.mjs";
 
 describe("the caller's address: forwarding headers count only behind trusted proxies (RELIABILITY 32)", () => {
   it("with no trusted proxy (the default) the socket's address counts and X-Forwarded-For is ignored", () => {
@@ -43,5 +50,44 @@ describe("the caller's address: forwarding headers count only behind trusted pro
     expect(trustedProxyCount(undefined)).toBe(0);
     expect(trustedProxyCount("2")).toBe(2);
     for (const bad of ["-1", "1.5", "eleven", "11"]) expect(() => trustedProxyCount(bad)).toThrow(/LODEBOOK_TRUSTED_PROXIES/);
+  });
+});
+
+describe("possible server actions at the front door", () => {
+  const request = (method: string, url: string, headers: Record<string, string>) => {
+    const req = new http.IncomingMessage(null as never);
+    req.method = method;
+    req.url = url;
+    req.headers = headers;
+    return req;
+  };
+  const answer = (method: string, url: string, headers: Record<string, string>) => refuseActionPost(request(method, url, headers))?.status ?? "through";
+
+  it("refuses a body over the actions' limit (413) and one of unknown length (411), by header or by form body", () => {
+    const limit = String(ACTION_BODY_LIMIT);
+    const over = String(ACTION_BODY_LIMIT + 1);
+    expect(answer("POST", "/sign-in", { "next-action": "7f00", "content-length": limit })).toBe("through");
+    expect(answer("POST", "/sign-in", { "next-action": "7f00", "content-length": over })).toBe(413);
+    expect(answer("POST", "/sign-in", { "next-action": "7f00", "transfer-encoding": "chunked" })).toBe(411);
+    expect(answer("POST", "/join", { "content-type": "multipart/form-data; boundary=x", "content-length": over })).toBe(413);
+    expect(answer("POST", "/join", { "content-type": "Multipart/Form-Data; boundary=x", "transfer-encoding": "chunked" })).toBe(411);
+    expect(answer("POST", "/", { "content-type": "application/x-www-form-urlencoded", "content-length": over })).toBe(413);
+    // A path Next routes to a page, written to look like a route handler's.
+    expect(answer("POST", "/api/../sign-in", { "next-action": "7f00", "content-length": over })).toBe(413);
+    expect(answer("POST", "/api/%2e%2e/sign-in", { "next-action": "7f00", "content-length": over })).toBe(413);
+  });
+
+  it("refuses an empty action header (an action to Next, matching none of the proxy's rules)", () => {
+    expect(answer("POST", "/sign-in", { "next-action": "", "content-length": "2" })).toBe(400);
+    expect(answer("POST", "/sign-in", { "next-action": "  ", "content-type": "application/json", "content-length": "2" })).toBe(400);
+  });
+
+  it("leaves route handlers, page loads and other posts to their own rules", () => {
+    expect(answer("POST", "/api/sync/push", { "content-type": "application/json", "transfer-encoding": "chunked" })).toBe("through");
+    expect(answer("POST", "/api/auth/callback/credentials", { "content-type": "application/x-www-form-urlencoded", "content-length": "999999" })).toBe(
+      "through",
+    );
+    expect(answer("GET", "/sign-in", { "next-action": "7f00", "content-length": "999999" })).toBe("through");
+    expect(answer("POST", "/finds", { "content-type": "application/json", "content-length": "999999" })).toBe("through");
   });
 });

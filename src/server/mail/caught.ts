@@ -31,8 +31,9 @@ const SIGN_IN_LINK = /https?:\/\/[^\s<>"]*\/api\/auth\/callback\/[^\s<>"]*/g;
 /**
  * A caught message as `reader` may see it. The catcher stands in for every person's mailbox,
  * but a sign-in link signs in whoever opens it: one addressed to someone else is shown only as
- * a note, so an officer reading the catcher cannot sign in as a member. Everything else (query
- * notices, invitations the officer sent) is shown whole.
+ * a note, so an officer reading the catcher cannot sign in as a member. Everything else is shown
+ * whole: query notices, and invitations (any officer may invite anyone, so an invitation link
+ * gives an officer nothing they could not make themselves).
  */
 export function asReadBy(mail: CaughtMail, reader: string): CaughtMail {
   const own = mail.to.some((to) => to.trim().toLowerCase() === reader.trim().toLowerCase());
