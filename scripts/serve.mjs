@@ -5,7 +5,14 @@
 import http from "node:http";
 import { parseArgs } from "node:util";
 import next from "next";
-import { boundedLinger, MAX_DECLARED_BODY_BYTES, refuseActionPost, settleForwardingHeaders, trustedProxyCount } from "./lib/front-door.mjs";
+import {
+  answerBeforeReading,
+  boundedLinger,
+  MAX_DECLARED_BODY_BYTES,
+  refuseActionPost,
+  settleForwardingHeaders,
+  trustedProxyCount,
+} from "./lib/front-door.mjs";
 
 const { values } = parseArgs({ options: { port: { type: "string", short: "p" }, hostname: { type: "string", short: "H" } } });
 const port = Number(values.port ?? process.env.PORT ?? 3000);
@@ -33,14 +40,12 @@ const server = http.createServer((req, res) => {
   settleForwardingHeaders(req, trustedProxies);
   const declared = Number(req.headers["content-length"] ?? 0);
   if (declared > MAX_DECLARED_BODY_BYTES) {
-    res.writeHead(413, { "content-type": "application/json", connection: "close" });
-    res.end(JSON.stringify({ error: { code: "too_large:request", message: `The body is over ${MAX_DECLARED_BODY_BYTES} bytes.` } }));
+    answerBeforeReading(req, res, { status: 413, code: "too_large:request", message: `The body is over ${MAX_DECLARED_BODY_BYTES} bytes.` });
     return;
   }
   const refused = refuseActionPost(req);
   if (refused) {
-    res.writeHead(refused.status, { "content-type": "application/json", "cache-control": "no-store", connection: "close" });
-    res.end(JSON.stringify({ error: { code: refused.code, message: refused.message } }));
+    answerBeforeReading(req, res, refused);
     return;
   }
   handle(req, res);

@@ -97,6 +97,24 @@ export function refuseActionPost(req) {
   return null;
 }
 
+/**
+ * Answers a request before reading its body (refused at the door). The answer says "close", so
+ * the client opens a new connection for its next request: Node reads no more of this one once
+ * it has answered. And the connection is only half-closed when the answer is out (Node would
+ * close it whole, and a client still sending its body could then lose the answer to a reset):
+ * the bounded linger closes it once the client has had time to read.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ * @param {import("node:http").ServerResponse} res
+ * @param {{ status: number; code: string; message: string }} refusal
+ */
+export function answerBeforeReading(req, res, { status, code, message }) {
+  const socket = req.socket;
+  if (!req.complete) /** @type {any} */ (socket).destroySoon = () => socket.end();
+  res.writeHead(status, { "content-type": "application/json", "cache-control": "no-store", connection: "close" });
+  res.end(JSON.stringify({ error: { code, message } }));
+}
+
 /** @param {string | undefined} address */
 function normalise(address) {
   if (!address) return undefined;
