@@ -8,8 +8,11 @@ import next from "next";
 import {
   answerBeforeReading,
   boundedLinger,
+  dropForeignCallbackCookie,
+  dropRangeOutsideApi,
   MAX_DECLARED_BODY_BYTES,
   refuseActionPost,
+  refuseTarget,
   settleForwardingHeaders,
   trustedProxyCount,
 } from "./lib/front-door.mjs";
@@ -37,7 +40,14 @@ const server = http.createServer((req, res) => {
     res.end(JSON.stringify({ error: { code: "bad_request:target", message: "Ask for a path on this server." } }));
     return;
   }
+  const badTarget = refuseTarget(req);
+  if (badTarget) {
+    answerBeforeReading(req, res, badTarget);
+    return;
+  }
   settleForwardingHeaders(req, trustedProxies);
+  dropRangeOutsideApi(req);
+  dropForeignCallbackCookie(req, process.env.LODEBOOK_ORIGIN);
   const declared = Number(req.headers["content-length"] ?? 0);
   if (declared > MAX_DECLARED_BODY_BYTES) {
     answerBeforeReading(req, res, { status: 413, code: "too_large:request", message: `The body is over ${MAX_DECLARED_BODY_BYTES} bytes.` });

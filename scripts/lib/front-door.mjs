@@ -52,6 +52,84 @@ export function boundedLinger(req, res) {
 }
 
 /**
+ * What the front door answers a request Next would answer with a 500, or null:
+ * - TRACE (and TRACK): Next builds a fetch Request for the app, which refuses the method;
+ * - a path that is not valid percent-encoding ("%zz"): Next's router throws decoding it;
+ * - an encoded slash or backslash in the path ("/api/..%2fsign-in"): Next's router decodes it
+ *   into another path than the one this door and the proxy judged (a route handler's, say,
+ *   where Next runs a page's server action). No address of the app needs one.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ * @returns {{ status: number; code: string; message: string } | null}
+ */
+export function refuseTarget(req) {
+  if (req.method === "TRACE" || req.method === "TRACK") return { status: 405, code: "bad_request:method", message: `${req.method} is not answered here.` };
+  const path = (req.url ?? "/").split("?")[0];
+  if (/%(2f|5c)/i.test(path)) return { status: 400, code: "bad_request:path", message: "Write the path with plain slashes." };
+  try {
+    decodeURIComponent(path);
+  } catch {
+    return { status: 400, code: "bad_request:path", message: "The path is not valid percent-encoding." };
+  }
+  return null;
+}
+
+/**
+ * A Range header is honoured by the route handlers that serve ranges (the basemap); elsewhere
+ * (Next's static files, which answer a bad or unsatisfiable range with a 500) it is dropped and
+ * the whole file sent, as HTTP allows (RFC 9110 §14.2).
+ *
+ * @param {import("node:http").IncomingMessage} req
+ */
+export function dropRangeOutsideApi(req) {
+  if (req.headers.range === undefined) return;
+  const path = new URL(req.url ?? "/", "http://front.door").pathname;
+  if (!path.startsWith("/api/")) {
+    delete req.headers.range;
+    delete req.headers["if-range"];
+  }
+}
+
+const CALLBACK_COOKIE = /^(?:__Secure-)?authjs\.callback-url$/;
+
+/**
+ * Drops an Auth.js "where to after sign-in" cookie that is not an address on this site: Auth.js
+ * answers one it cannot read ("%zz", "javascript:…", another host) with a 500 on every sign-in,
+ * sign-out and session check, so a cookie planted from elsewhere (a sibling subdomain, plain
+ * http) would lock that browser out until cleared. Without it Auth.js goes to its default.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ * @param {string | undefined} siteOrigin LODEBOOK_ORIGIN
+ */
+export function dropForeignCallbackCookie(req, siteOrigin) {
+  const header = req.headers.cookie;
+  if (!header || !header.includes("callback-url")) return;
+  const host = req.headers.host;
+  const onSite = (/** @type {string} */ raw) => {
+    let value;
+    try {
+      value = decodeURIComponent(raw);
+    } catch {
+      return false;
+    }
+    if (value.startsWith("/")) return !value.startsWith("//") && !value.startsWith("/\\");
+    try {
+      const url = new URL(value);
+      return (url.protocol === "http:" || url.protocol === "https:") && (url.origin === siteOrigin || url.host === host);
+    } catch {
+      return false;
+    }
+  };
+  const kept = header.split(";").filter((pair) => {
+    const at = pair.indexOf("=");
+    const name = (at < 0 ? pair : pair.slice(0, at)).trim();
+    return !CALLBACK_COOKIE.test(name) || onSite(pair.slice(at + 1).trim());
+  });
+  if (kept.length === 0) delete req.headers.cookie;
+  else req.headers.cookie = kept.join(";");
+}
+
+/**
  * Server actions' body limit: next.config.mjs sets Next's own (serverActions.bodySizeLimit) from
  * this, so the two cannot drift apart.
  */

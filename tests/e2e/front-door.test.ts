@@ -272,3 +272,36 @@ describe("server actions called by hand", () => {
     expect(empty.status).toBe(400);
   });
 });
+
+// What Next itself answers with a 500, kept from it at the door (scripts/lib/front-door.mjs).
+describe("requests Next would fail on", () => {
+  const host = () => new URL(baseUrl).host;
+  it("TRACE, a path that is not valid percent-encoding and an encoded slash get their own status", async () => {
+    expect((await raw("TRACE", "/api/me", { host: host() })).status).toBe(405);
+    for (const path of ["/api/club/claims/%zz", "/api/auth/callback/%zz", "/api/photos/%E0%A4%A"])
+      expect((await raw("GET", path, { host: host() })).status, path).toBe(400);
+    // A page's server action from another site, dressed as a route handler's path.
+    const dressed = await raw(
+      "POST",
+      "/api/..%2fsign-in",
+      { host: host(), origin: "http://evil.example", "next-action": "7f00", "content-type": "text/plain;charset=UTF-8" },
+      "[{}]",
+    );
+    expect(dressed.status).toBe(400);
+    expect(JSON.parse(dressed.text).error.message).toMatch(/plain slashes/);
+  });
+
+  it("a static file asked for with a bad or unsatisfiable range comes whole; an odd callback cookie is set aside", async () => {
+    const html = (await raw("GET", "/about", { host: host() })).text;
+    const chunk = /\/_next\/static\/chunks\/[^"]+\.js/.exec(html)![0];
+    for (const range of ["bytes=999999999-", "bytes=abc", "bytes=-0"]) {
+      const res = await raw("GET", chunk, { host: host(), range });
+      expect(res.status, range).toBe(200);
+      expect(res.text.length).toBeGreaterThan(0);
+    }
+    for (const value of ["%zz", "x", "javascript%3Aalert(1)", "http%3A%2F%2Fevil.example%2F"]) {
+      const res = await raw("GET", "/api/auth/session", { host: host(), cookie: `authjs.callback-url=${value}` });
+      expect(res.status, value).toBe(200);
+    }
+  });
+});

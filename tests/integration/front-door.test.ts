@@ -3,7 +3,10 @@ import { describe, expect, it } from "vitest";
 import {
   ACTION_BODY_LIMIT,
   CLIENT_HEADER,
+  dropForeignCallbackCookie,
+  dropRangeOutsideApi,
   refuseActionPost,
+  refuseTarget,
   resolveClientAddress,
   settleForwardingHeaders,
   trustedProxyCount,
@@ -89,5 +92,64 @@ describe("possible server actions at the front door", () => {
     );
     expect(answer("GET", "/sign-in", { "next-action": "7f00", "content-length": "999999" })).toBe("through");
     expect(answer("POST", "/finds", { "content-type": "application/json", "content-length": "999999" })).toBe("through");
+  });
+});
+
+// Requests Next itself answers with a 500: refused or mended at the door.
+describe("what the front door keeps from Next", () => {
+  const request = (method: string, url: string, headers: Record<string, string> = {}) => {
+    const req = new http.IncomingMessage(null as never);
+    req.method = method;
+    req.url = url;
+    req.headers = headers;
+    return req;
+  };
+
+  it("refuses TRACE, a path that is not valid percent-encoding and an encoded slash, with their status", () => {
+    expect(refuseTarget(request("TRACE", "/api/me"))?.status).toBe(405);
+    expect(refuseTarget(request("TRACK", "/"))?.status).toBe(405);
+    for (const path of ["/api/club/claims/%zz", "/api/auth/%zz", "/api/photos/%E0%A4%A", "/%"])
+      expect(refuseTarget(request("GET", path))?.status, path).toBe(400);
+    for (const path of ["/api/..%2fsign-in", "/_next/..%2Fclub", "/api/..%5csign-in"]) {
+      const refusal = refuseTarget(request("POST", path));
+      expect(refusal?.status, path).toBe(400);
+      expect(refusal?.message).toMatch(/plain slashes/);
+    }
+    // Encoded slashes in the query are the query's business (a sign-in link's callbackUrl).
+    expect(refuseTarget(request("GET", "/api/auth/callback/nodemailer?callbackUrl=%2Fsigned-in&token=x"))).toBeNull();
+    expect(refuseTarget(request("GET", "/finds/view?x=%zz"))).toBeNull();
+    expect(refuseTarget(request("GET", "/api/photos/0193a1b2-0000-7000-8000-000000000000"))).toBeNull();
+  });
+
+  it("drops a Range header outside the route handlers (Next's static files), keeps it for them", () => {
+    const file = request("GET", "/_next/static/chunks/webpack.js", { range: "bytes=999999999-", "if-range": "x" });
+    dropRangeOutsideApi(file);
+    expect(file.headers.range).toBeUndefined();
+    expect(file.headers["if-range"]).toBeUndefined();
+    const basemap = request("GET", "/api/basemap", { range: "bytes=0-99" });
+    dropRangeOutsideApi(basemap);
+    expect(basemap.headers.range).toBe("bytes=0-99");
+  });
+
+  it("drops an Auth.js callback cookie that is not an address on this site, and only that cookie", () => {
+    const site = "http://localhost:3000";
+    const cookieAfter = (value: string) => {
+      const req = request("GET", "/api/auth/session", { host: "localhost:3000", cookie: `a=1; authjs.callback-url=${value}; authjs.session-token=t` });
+      dropForeignCallbackCookie(req, site);
+      return req.headers.cookie;
+    };
+    for (const bad of [
+      "%zz",
+      "x",
+      "javascript%3Aalert(1)",
+      "http%3A%2F%2Flocalhost%3A3000.evil.example%2F",
+      "%2F%2Fevil.example",
+      "https%3A%2F%2Fevil.example%2F",
+    ])
+      expect(cookieAfter(bad), bad).toBe("a=1; authjs.session-token=t");
+    for (const good of ["http%3A%2F%2Flocalhost%3A3000%2Ffinds", "%2Fsigned-in", "/club"]) expect(cookieAfter(good), good).toContain("authjs.callback-url=");
+    const secure = request("GET", "/", { host: "club.example", cookie: "__Secure-authjs.callback-url=x" });
+    dropForeignCallbackCookie(secure, "https://club.example");
+    expect(secure.headers.cookie).toBeUndefined();
   });
 });
