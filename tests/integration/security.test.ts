@@ -402,6 +402,38 @@ describe("hostile input (RELIABILITY 31)", () => {
     },
   );
 
+  // Dates the ledger filters by, and an officer's price and recovery dates: an impossible day
+  // rolled over into another, and the last day a date holds has no next day (a 500).
+  it("dates that are not real calendar days, or outside the club's years, get 400 naming the field", async () => {
+    for (const key of ["GET /api/club/ledger", "GET /api/club/ledger/csv", "GET /api/club/ledger/geojson"]) {
+      const h = await handler(key);
+      const path = key.split(" ")[1];
+      for (const [q, field] of [
+        ["to=9999-12-31", "to"],
+        ["from=9999-12-31", "from"],
+        ["from=2024-13-45", "from"],
+        ["to=2025-02-29", "to"],
+        ["from=0001-01-01", "from"],
+      ]) {
+        const res = await h(req(`${path}?${q}`, { cookie: cookies.officer }), {});
+        expect(res.status, `${path}?${q}`).toBe(400);
+        expect(Object.keys((await res.json()).error.fields), `${path}?${q}`).toContain(field);
+      }
+      expect((await h(req(`${path}?from=2024-02-29&to=2999-12-31`, { cookie: cookies.officer }), {})).status).toBe(200);
+    }
+    const prices = await handler("POST /api/club/prices");
+    const before = databaseChecksum(db);
+    for (const effectiveOn of ["9999-12-31", "2025-02-30"]) {
+      const res = await prices(
+        req("/api/club/prices", { cookie: cookies.officer, ...json("POST", { effectiveOn, pricePerTroyOunce: 2000, currency: "USD" }) }),
+        {},
+      );
+      expect(res.status, effectiveOn).toBe(400);
+      expect(Object.keys((await res.json()).error.fields)).toContain("effectiveOn");
+    }
+    expect(databaseChecksum(db)).toBe(before);
+  });
+
   it("refuses an oversized body early with 413", async () => {
     const h = await handler("POST /api/estimate");
     const res = await h(req("/api/estimate", { method: "POST", headers: { "content-type": "application/json", "content-length": "5000000" }, body: "{}" }), {});

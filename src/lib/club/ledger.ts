@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { FIND_KINDS } from "../entities/find";
 import type { FineBasis } from "../figures/fine-basis";
+import { calendarDate } from "../time/calendar-date";
 import type { Totals } from "./totals";
 
 export const REVIEW_STATES = ["new", "verified", "queried", "answered"] as const;
@@ -8,7 +9,7 @@ export const REVIEW_STATES = ["new", "verified", "queried", "answered"] as const
 export const REVIEW_FILTERS = [...REVIEW_STATES, "changed"] as const;
 export const LEDGER_SORTS = ["foundAt", "weight", "fine", "value", "member", "claim", "kind", "method", "state"] as const;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.");
+const isoDate = calendarDate("Use a real calendar date as YYYY-MM-DD.");
 const optionalId = z
   .string()
   .uuid("Not a valid id.")

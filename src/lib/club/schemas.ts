@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { CLAIM_KINDS, RECOVERY_KINDS, REVIEW_ACTIONS, ROYALTY_KINDS } from "../entities/constants";
 import { ROLES } from "../roles";
+import { calendarDate } from "../time/calendar-date";
 
 export const claimInputSchema = z
   .object({
@@ -66,7 +67,7 @@ export const reviewInputSchema = z
 
 export const priceInputSchema = z
   .object({
-    effectiveOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
+    effectiveOn: calendarDate(),
     pricePerTroyOunce: z
       .number({ error: "Enter the price as a number." })
       .positive("The price must be more than 0.")
@@ -116,7 +117,7 @@ export const recoveryInputSchema = z
   .object({
     kind: z.enum(RECOVERY_KINDS, { error: "Choose melt or assay." }),
     claimId: z.uuid("Choose the claim.").nullable(),
-    recordedOn: z.iso.date("Give a real calendar date as YYYY-MM-DD."),
+    recordedOn: calendarDate(),
     fineGrams: z.number({ error: "Enter the fine gold in grams." }).positive("Fine gold must be more than 0 g.").max(1_000_000, "At most 1000 kg."),
     fineness: z
       .number({ error: "Enter the fineness in ‰." })

@@ -30,7 +30,16 @@ export default async function ReportPage({ searchParams }: Props) {
   await requirePageActor("viewLedger", "/club/report");
   const { form, ...filters } = await searchParams;
   const parsed = ledgerQuerySchema.safeParse(filters);
-  if (!parsed.success) return <p className="field-error">These report filters are not valid: {parsed.error.issues[0].message}</p>;
+  if (!parsed.success) {
+    const [issue] = parsed.error.issues;
+    const field = issue.path.map(String).join(".");
+    return (
+      <p className="field-error">
+        These report filters are not valid: {field ? `check ${field}: ` : ""}
+        {issue.message}
+      </p>
+    );
+  }
   const q = parsed.data;
   const { summary } = ledgerPage({ ...q, page: 1, pageSize: 1 });
   const rows = ledgerRows(q, REPORT_ROWS);
