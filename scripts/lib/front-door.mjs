@@ -167,6 +167,10 @@ export function refuseActionPost(req) {
   const action = req.headers["next-action"];
   if (action !== undefined && String(action).trim() === "")
     return { status: 400, code: "bad_request:action", message: "Name the action (the next-action header is empty)." };
+  const type = String(req.headers["content-type"] ?? "").toLowerCase();
+  // Next's form reader throws on a form body without its boundary (a 500).
+  if (type.startsWith("multipart/form-data") && !/;\s*boundary=[^;\s]/.test(type))
+    return { status: 400, code: "bad_request:form", message: "Send the form with its boundary (multipart/form-data; boundary=…)." };
   const declared = req.headers["content-length"];
   if (declared === undefined && req.headers["transfer-encoding"] !== undefined)
     return { status: 411, code: "length_required:form", message: "Send the form with its length (Content-Length)." };

@@ -80,6 +80,15 @@ describe("possible server actions at the front door", () => {
     expect(answer("POST", "/api/%2e%2e/sign-in", { "next-action": "7f00", "content-length": over })).toBe(413);
   });
 
+  it("refuses a form body without its boundary (Next's form reader throws on one)", () => {
+    expect(answer("POST", "/", { "content-type": "multipart/form-data", "content-length": "10" })).toBe(400);
+    expect(answer("POST", "/sign-in", { "next-action": "7f00", "content-type": "multipart/form-data; charset=utf-8", "content-length": "10" })).toBe(400);
+    expect(answer("POST", "/sign-in", { "next-action": "7f00", "content-type": "multipart/form-data; boundary=", "content-length": "10" })).toBe(400);
+    expect(answer("POST", "/sign-in", { "next-action": "7f00", "content-type": "multipart/form-data; boundary=----x1", "content-length": "10" })).toBe(
+      "through",
+    );
+  });
+
   it("refuses an empty action header (an action to Next, matching none of the proxy's rules)", () => {
     expect(answer("POST", "/sign-in", { "next-action": "", "content-length": "2" })).toBe(400);
     expect(answer("POST", "/sign-in", { "next-action": "  ", "content-type": "application/json", "content-length": "2" })).toBe(400);
