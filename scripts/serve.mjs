@@ -1,7 +1,9 @@
 // @ts-check
 // The production server: Next behind a small front door that settles who the caller is
-// (the socket's address unless trusted proxies are configured) and refuses oversized bodies,
-// and server-action posts over the actions' limit or of unknown length, before Next reads them. `npm start` and the demo run this, never `next start` directly.
+// (the socket's address unless trusted proxies are configured) and, before Next reads a byte,
+// refuses oversized bodies, server-action posts over the actions' limit or of unknown length,
+// and the requests Next itself would answer with a 500 (lib/front-door.mjs says which).
+// `npm start` and the demo run this, never `next start` directly.
 import http from "node:http";
 import { parseArgs } from "node:util";
 import next from "next";

@@ -51,6 +51,16 @@ export function boundedLinger(req, res) {
   });
 }
 
+/** @typedef {{ status: number; code: string; message: string }} Refusal What the door answers in Next's place. */
+
+/**
+ * A request's path as Next will route it: dot segments resolved ("/api/../sign-in" is the
+ * sign-in page), the query left out.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ */
+const routedPath = (req) => new URL(req.url ?? "/", "http://front.door").pathname;
+
 /**
  * What the front door answers a request Next would answer with a 500, or null:
  * - TRACE (and TRACK): Next builds a fetch Request for the app, which refuses the method;
@@ -60,7 +70,7 @@ export function boundedLinger(req, res) {
  *   where Next runs a page's server action). No address of the app needs one.
  *
  * @param {import("node:http").IncomingMessage} req
- * @returns {{ status: number; code: string; message: string } | null}
+ * @returns {Refusal | null}
  */
 export function refuseTarget(req) {
   if (req.method === "TRACE" || req.method === "TRACK") return { status: 405, code: "bad_request:method", message: `${req.method} is not answered here.` };
@@ -82,9 +92,7 @@ export function refuseTarget(req) {
  * @param {import("node:http").IncomingMessage} req
  */
 export function dropRangeOutsideApi(req) {
-  if (req.headers.range === undefined) return;
-  const path = new URL(req.url ?? "/", "http://front.door").pathname;
-  if (!path.startsWith("/api/")) {
+  if (req.headers.range !== undefined && !routedPath(req).startsWith("/api/")) {
     delete req.headers.range;
     delete req.headers["if-range"];
   }
@@ -135,6 +143,9 @@ export function dropForeignCallbackCookie(req, siteOrigin) {
  */
 export const ACTION_BODY_LIMIT = 64 * 1024;
 
+/** @param {import("node:http").IncomingMessage} req */
+const contentType = (req) => String(req.headers["content-type"] ?? "").toLowerCase();
+
 /**
  * Whether a request may be a server action: a POST to a page (not a route handler under /api/)
  * that names an action in its header (the app's own calls), or posts a form body (a form with
@@ -143,11 +154,8 @@ export const ACTION_BODY_LIMIT = 64 * 1024;
  * @param {import("node:http").IncomingMessage} req
  */
 export function mayBeAction(req) {
-  if (req.method !== "POST") return false;
-  // The path as Next will route it ("/api/../sign-in" is the sign-in page).
-  const path = new URL(req.url ?? "/", "http://front.door").pathname;
-  if (path.startsWith("/api/")) return false;
-  const type = String(req.headers["content-type"] ?? "").toLowerCase();
+  if (req.method !== "POST" || routedPath(req).startsWith("/api/")) return false;
+  const type = contentType(req);
   return req.headers["next-action"] !== undefined || type.startsWith("multipart/form-data") || type.startsWith("application/x-www-form-urlencoded");
 }
 
@@ -160,14 +168,14 @@ export function mayBeAction(req) {
  * proxy, src/proxy.ts, then refuses another site's calls: it has the site's origin rules.)
  *
  * @param {import("node:http").IncomingMessage} req
- * @returns {{ status: number; code: string; message: string } | null}
+ * @returns {Refusal | null}
  */
 export function refuseActionPost(req) {
   if (!mayBeAction(req)) return null;
   const action = req.headers["next-action"];
   if (action !== undefined && String(action).trim() === "")
     return { status: 400, code: "bad_request:action", message: "Name the action (the next-action header is empty)." };
-  const type = String(req.headers["content-type"] ?? "").toLowerCase();
+  const type = contentType(req);
   // Next's form reader throws on a form body without its boundary (a 500).
   if (type.startsWith("multipart/form-data") && !/;\s*boundary=[^;\s]/.test(type))
     return { status: 400, code: "bad_request:form", message: "Send the form with its boundary (multipart/form-data; boundary=…)." };
@@ -188,7 +196,7 @@ export function refuseActionPost(req) {
  *
  * @param {import("node:http").IncomingMessage} req
  * @param {import("node:http").ServerResponse} res
- * @param {{ status: number; code: string; message: string }} refusal
+ * @param {Refusal} refusal
  */
 export function answerBeforeReading(req, res, { status, code, message }) {
   const socket = req.socket;
