@@ -72,7 +72,6 @@ export function QuickFindScreen() {
       }}
       noValidate
     >
-      <h1 className="text-2xl font-bold">Log a find</h1>
       <fieldset>
         <legend className="field-label">What did you find?</legend>
         <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
