@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { countOf, decimalsForUncertainty, formatDay, formatGrams, formatMonth, formatWhen } from "./format";
+import { estimateSpecimen } from "./estimate";
+import { countOf, decimalsForUncertainty, formatDay, formatGrams, formatMonth, formatWhen, spreadText } from "./format";
 
 describe("figures shown to the precision their uncertainty allows", () => {
   // JCGM 100:2008, 7.2.6: the uncertainty with at most two significant digits, the figure to match.
@@ -25,6 +26,34 @@ describe("figures shown to the precision their uncertainty allows", () => {
     // ± 0.3 g is ± 0.0096 ozt (troy ounce 31.1034768 g, NIST SP 811 B.8): one digit, shown as 0.010.
     expect(formatGrams(31.1034768, "ozt", 0.3)).toBe("1.000 ozt");
     expect(decimalsForUncertainty(0.3, "gr")).toBe(0);
+  });
+});
+
+describe("an estimate's spread in words", () => {
+  const show = (g: number) => formatGrams(g, "g", 0.05);
+  const spread = (waterGrams: number) => {
+    // 100 g in quartz of 2.62–2.68 g/cm³: 62.5 g hung in water is 2.67 g/cm³, 62.2 g 2.64, 61.0 g 2.56.
+    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [waterGrams], hostDensity: 2.65, hostDensityRange: [2.62, 2.68] });
+    return { e, text: spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show) };
+  };
+
+  it("gives the ± and the worst case around some gold", () => {
+    const { e, text } = spread(63.2);
+    expect(e.fineGoldGrams).toBeGreaterThan(0);
+    expect(text).toMatch(/^± \d+\.\d+ g · at worst \d+\.\d+ g – \d+\.\d+ g$/);
+  });
+
+  it("gives no ± around a figure held at 0: only how much the worst case allows", () => {
+    const { e, text } = spread(62.2);
+    expect(e.fineGoldGrams).toBe(0);
+    expect(e.standardUncertainty.fineGoldGrams).toBeGreaterThan(0);
+    expect(text).toMatch(/^at worst 0\.00 g – \d+\.\d+ g$/);
+  });
+
+  it("says none when even the worst case holds no gold", () => {
+    const { e, text } = spread(61);
+    expect(e.range.fineGoldGrams).toEqual([0, 0]);
+    expect(text).toBe("none, even with every reading and assumption at its worst");
   });
 });
 

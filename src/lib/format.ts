@@ -35,6 +35,17 @@ export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGram
   return `${convertMass(grams, unit).toFixed(digits)} ${unit}`;
 }
 
+/**
+ * An estimate's ± and worst case in words, as far as they mean anything: with no gold even at
+ * the worst, that alone; around a figure held at 0, the worst case alone (a ± around nothing
+ * would reach below it).
+ */
+export function spreadText(value: number, uncertainty: number, [low, high]: readonly [number, number], show: (grams: number) => string): string {
+  if (high <= 0) return "none, even with every reading and assumption at its worst";
+  const worst = `at worst ${show(low)} – ${show(high)}`;
+  return value > 0 ? `± ${show(uncertainty)} · ${worst}` : worst;
+}
+
 // Making an Intl formatter costs about as much as a thousand uses of one (a list of finds
 // formatted a date per row in a fresh one, 80 ms of a first load on a slowed phone CPU): one
 // per locale, zone and style, made on first use. One made for the device's own zone or language

@@ -31,6 +31,41 @@ describe("POST /api/estimate", () => {
     expect((await res.json()).error).toMatchObject({ fields: { waterGrams: [expect.stringMatching(/denser than pure gold/)] } });
   });
 
+  it("words every refused value itself, per field, never in zod's default English", async () => {
+    const base = { method: "hanging", airGrams: [30], waterGrams: [19.6] };
+    const bad: [string, unknown][] = [
+      ["scaleResolutionGrams", 20],
+      ["scaleResolutionGrams", "0.01"],
+      ["scaleAccuracyGrams", 11],
+      ["scaleAccuracyGrams", -1],
+      ["waterTempC", 41],
+      ["waterTempToleranceC", 25],
+      ["waterTempToleranceC", -1],
+      ["hostDensityRange", [2.6, 30]],
+      ["hostDensityRange", [2.6]],
+      ["finenessRangePermille", [-5, 900]],
+      ["finenessPermille", "850"],
+      ["goldDensity", 0.5],
+      ["airBuoyancyCorrection", "false"],
+      ["airGrams", "30"],
+      ["airGrams", ["30"]],
+    ];
+    for (const [field, value] of bad) {
+      const res = await post({ ...base, [field]: value });
+      expect(res.status, `${field}: ${JSON.stringify(value)}`).toBe(400);
+      const messages: string[] = Object.values((await res.json()).error.fields as Record<string, string[]>).flat();
+      expect(messages.length, field).toBeGreaterThan(0);
+      for (const m of messages) expect(m, `${field}: ${JSON.stringify(value)}`).not.toMatch(/expected|received|Invalid input|Too (big|small)/i);
+    }
+  });
+
+  it("refuses a specimen denser than the finest gold allowed, naming the fineness", async () => {
+    // About 19.0 g/cm³ against natural gold of 700–950 ‰ (950 ‰ is 18.54 g/cm³).
+    const res = await post({ method: "hanging", airGrams: [100], waterGrams: [94.753], finenessPermille: 825, finenessRangePermille: [700, 950] });
+    expect(res.status).toBe(400);
+    expect((await res.json()).error.fields).toMatchObject({ finenessRangePermille: [expect.stringMatching(/the finest you allowed/)] });
+  });
+
   it("refuses a 1e30 g reading, naming the field", async () => {
     const res = await post({ method: "hanging", airGrams: [1e30], waterGrams: [5] });
     expect(res.status).toBe(400);

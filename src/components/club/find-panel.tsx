@@ -6,7 +6,7 @@ import { engineLabel } from "@/components/weigh/engine-label";
 import { DEFAULTS } from "@/lib/estimate/defaults";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import type { ReportedEstimate } from "@/lib/entities/weigh-in";
-import { formatGrams, formatWhen } from "@/lib/format";
+import { formatGrams, formatWhen, spreadText } from "@/lib/format";
 import type { ThreadEvent } from "@/lib/club/thread";
 import { formatDecimal, toDms } from "@/lib/geo";
 import { api, ApiError } from "./api";
@@ -55,9 +55,10 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
   const server = w.serverEstimate;
   const device = w.deviceEstimate;
   const u = server.standardUncertainty.fineGoldGrams;
-  // Engines from 2.0.0 on say what they assumed; older ones left the defaults implicit.
+  // Engines from 2.0.0 on say what they assumed; older ones left the defaults implicit (and
+  // took pure gold, 1000 ‰, when no fineness was given).
   const host = server.assumptions?.hostDensity ?? w.input.hostDensity ?? DEFAULTS.hostDensity;
-  const fineness = server.assumptions?.finenessPermille ?? w.input.finenessPermille ?? DEFAULTS.finenessPermille;
+  const fineness = server.assumptions?.finenessPermille ?? w.input.finenessPermille ?? 1000;
   const temp = server.assumptions?.waterTempC ?? w.input.waterTempC ?? DEFAULTS.waterTempC;
   return (
     <>
@@ -66,8 +67,8 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
         host {host.toFixed(2)} · fineness {Math.round(fineness)} ‰
       </p>
       <p className="font-bold tabular-nums">
-        Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine ± {formatGrams(u, "g", u)} (at worst{" "}
-        {formatGrams(server.range.fineGoldGrams[0], "g", u)} – {formatGrams(server.range.fineGoldGrams[1], "g", u)}), {engineLabel(w.engineVersion)}
+        Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine (
+        {spreadText(server.fineGoldGrams, u, server.range.fineGoldGrams, (g) => formatGrams(g, "g", u))}), {engineLabel(w.engineVersion)}
       </p>
       <ScaleMark w={w} timeZone={timeZone} />
       {w.mismatch && (

@@ -2,7 +2,7 @@
 import { useState } from "react";
 import type { SpecimenEstimate } from "@/lib/estimate/types";
 import { gramsToTroyOunces, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
-import { formatGrams } from "@/lib/format";
+import { formatGrams, spreadText } from "@/lib/format";
 import { DensityPicture } from "./density-picture";
 import { parseTyped } from "./form-model";
 import { warningText } from "./warning-text";
@@ -47,7 +47,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           {fine(estimate.fineGoldGrams)}
         </p>
         <p className="figure" data-testid="fine-range">
-          ± {fine(u.fineGoldGrams)} · at worst {fine(fLo)} – {fine(fHi)}
+          {spreadText(estimate.fineGoldGrams, u.fineGoldGrams, [fLo, fHi], fine)}
         </p>
         <p className="mt-1 text-xs text-ink-soft">
           ± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it. “At worst” is the lowest and highest your readings
@@ -61,9 +61,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           <dd className="figure font-bold" data-testid="alloy-gold">
             {alloy(estimate.goldAlloyGrams)}
           </dd>
-          <dd className="figure text-ink-soft">
-            ± {alloy(u.goldAlloyGrams)} · at worst {alloy(aLo)} – {alloy(aHi)}
-          </dd>
+          <dd className="figure text-ink-soft">{spreadText(estimate.goldAlloyGrams, u.goldAlloyGrams, [aLo, aHi], alloy)}</dd>
         </div>
         <div>
           <dt className="text-ink-soft">Gold by weight</dt>

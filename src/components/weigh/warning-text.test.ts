@@ -15,6 +15,7 @@ const SAMPLES: { [K in WarningCode]: Extract<EstimateWarning, { code: K }> } = {
   water_reading_drifts: { code: "water_reading_drifts", params: { driftGrams: 0.11 } },
   water_reading_unsteady: { code: "water_reading_unsteady", params: { driftGrams: -0.11 } },
   heavy_minerals_count_as_gold: { code: "heavy_minerals_count_as_gold", params: { density: 2.69, heaviestGangue: 7.6 } },
+  fineness_narrowed: { code: "fineness_narrowed", params: { givenLow: 700, givenHigh: 950, usedLow: 912.6, densityLow: 17.98 } },
   value_not_centred: { code: "value_not_centred", params: { quantity: "finenessPermille", given: 850, used: 825 } },
 };
 const mass = (g: number) => `${g.toFixed(1)} g`;
@@ -43,6 +44,12 @@ describe("the wording of the engine's warnings", () => {
 
   it("names the heavy minerals that count as gold", () => {
     expect(warningText(SAMPLES.heavy_minerals_count_as_gold, mass)).toMatch(/Pyrite, arsenopyrite, galena, magnetite and scheelite/);
+  });
+
+  it("says which finenesses a dense specimen leaves, of those allowed", () => {
+    const text = warningText(SAMPLES.fineness_narrowed, mass);
+    expect(text).toContain("17.98 g/cm³");
+    expect(text).toContain("913–950 ‰ of the 700–950 ‰");
   });
 
   it("says how much gold the readings still allow at the no-gold clamp", () => {

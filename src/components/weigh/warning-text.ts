@@ -36,6 +36,10 @@ export function warningText(w: EstimateWarning, mass: MassText): string {
       return `The in-water reading moved ${w.params.driftGrams > 0 ? "up" : "down"} by ${grams(Math.abs(w.params.driftGrams))}, the opposite way to pores filling. Look for bubbles gathering, a draft, or the specimen or line touching the vessel, and weigh again.`;
     case "heavy_minerals_count_as_gold":
       return `Everything denser than the host rock counts as gold here. Pyrite, arsenopyrite, galena, magnetite and scheelite raise the density the same way, and at ${density(w.params.density)} they alone could explain it. Look for them before trusting the figure.`;
+    case "fineness_narrowed": {
+      const [lo, used, hi] = [w.params.givenLow, w.params.usedLow, w.params.givenHigh].map((f) => Math.round(f));
+      return `A specimen of at least ${density(w.params.densityLow)} can only hold gold of ${used} ‰ or finer: gold of ${lo} ‰ is lighter than the specimen itself. The estimate uses ${used}–${hi} ‰ of the ${lo}–${hi} ‰ you allowed. A piece this dense is mostly gold; an assay would give its fineness.`;
+    }
     case "value_not_centred": {
       const what = w.params.quantity === "hostDensity" ? "host density" : "fineness";
       const unit = w.params.quantity === "hostDensity" ? " g/cm³" : " ‰";

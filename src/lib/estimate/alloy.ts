@@ -18,6 +18,16 @@ export function goldAlloyDensity(finenessPermille: number): number {
   return 1 / (w / GOLD_DENSITY + (1 - w) / SILVER_DENSITY);
 }
 
+/**
+ * The fineness (‰) whose alloy has the given density: goldAlloyDensity turned round. No
+ * gold–silver alloy is lighter than silver (0 here) and none is denser than gold (above 1000
+ * here, which no fineness reaches).
+ */
+export function finenessAtDensity(density: number): number {
+  const w = (1 / SILVER_DENSITY - 1 / density) / (1 / SILVER_DENSITY - 1 / GOLD_DENSITY);
+  return Math.max(0, w * 1000);
+}
+
 /** Fineness (‰) from karat: a karat is 1/24 by mass. */
 export function karatToFineness(karat: number): number {
   return (karat / 24) * 1000;

@@ -9,7 +9,11 @@ export const DEFAULTS = {
   /** Default host span: ±2 % around the chosen density (our choice; quartz with a little
    *  iron oxide or mica spans about this much, Holland & Powell ds62 quartz 2.648). */
   hostRelativeSpan: 0.02,
-  finenessPermille: 1000,
+  /** With no fineness given, natural gold of unknown fineness: 700–950 ‰, centred on 825 (the
+   *  "natural" preset: Lindgren, USGS PP 73, 1911; Macdonald 2007, Table 1.7). Pure gold would
+   *  flatter every specimen whose gold is an alloy, as natural gold is. */
+  finenessPermille: 825,
+  finenessRangePermille: [700, 950],
 } as const;
 
 /** The heaviest reading taken as a specimen weighing (a 100 kg scale); beyond it, a typing slip. */
@@ -21,10 +25,10 @@ export const MAX_STEP_GRAMS = 10;
  * The accuracy assumed when the member does not state their scale's: how far one reading may
  * be off, rounding included. From pocket-scale specifications as commonly printed [memory, not
  * confirmed in a source]: milligram scales ±3 steps (drafts and static tell at that step),
- * centigram scales ±2 steps, coarser scales ±1 step.
+ * centigram scales ±2 steps, coarser scales ±1 step. Each rule also holds, at its largest, for
+ * every coarser step (±3 steps up to ±0.015 g, ±2 steps up to ±0.1 g), so a coarser scale is
+ * never taken as more accurate than a finer one.
  */
 export function defaultScaleAccuracy(step: number): number {
-  if (step < 0.005) return 3 * step;
-  if (step < 0.05) return 2 * step;
-  return step;
+  return Math.max(step, Math.min(2 * step, 0.1), Math.min(3 * step, 0.015));
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { estimateSpecimen, EstimateInputError, type SpecimenInput } from "./index";
+import { finenessAtDensity } from "./alloy";
+import { estimateSpecimen, EstimateInputError, goldAlloyDensity, type SpecimenInput } from "./index";
 import { composeSpecimen, roundToStep } from "./test-specimen";
 import { seededRandom } from "./uncertainty";
 
@@ -58,7 +59,7 @@ describe("pure gold is not refused because of scale rounding", () => {
     // 100.00 g in air and 95.00 g in water: 19.96 g/cm³, and even 100.02/95.02 ± 0.02 g stays above 19.32.
     expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [95] })).toMatchObject({ code: "denser_than_gold", field: "waterGrams" });
     // The same density from a 0.1 g scale cannot be told from gold: accepted, all gold.
-    const coarse = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [95], scaleResolutionGrams: 0.1 });
+    const coarse = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [95], scaleResolutionGrams: 0.1, finenessPermille: 1000 });
     expect(coarse.goldMassPercent).toBe(100);
   });
 });
@@ -120,5 +121,91 @@ describe("the host density's bound is physical", () => {
     };
     expect(refusal(input)).toMatchObject({ code: "host_not_below_gold", field: "hostDensityRange" });
     expect(refusal({ ...input, hostDensityRange: [4, 10.9], hostDensity: 7.45 })).toBeUndefined();
+  });
+});
+
+describe("a specimen is never denser than its gold", () => {
+  // Natural gold of unknown fineness: 700–950 ‰ (the "natural" preset), in clean quartz.
+  const natural: Pick<SpecimenInput, "finenessPermille" | "finenessRangePermille" | "hostDensity" | "hostDensityRange"> = {
+    finenessPermille: 825,
+    finenessRangePermille: [700, 950],
+    hostDensity: 2.65,
+    hostDensityRange: [2.62, 2.68],
+  };
+
+  it("turns the alloy's density round exactly", () => {
+    for (const f of [100, 700, 825, 950, 1000]) expect(finenessAtDensity(goldAlloyDensity(f))).toBeCloseTo(f, 9);
+    expect(finenessAtDensity(10)).toBe(0); // lighter than silver: no alloy at all
+  });
+
+  it("keeps only the finenesses dense enough for a dense specimen, and says so", () => {
+    // A piece of 920 ‰ gold and no rock (about 18.2 g/cm³): gold of 880 ‰ (17.7 g/cm³) or
+    // less is lighter than the piece itself, so its fine gold cannot be 700 ‰ of its weight.
+    const s = composeSpecimen({ goldGrams: 40, fineness: 920, hostGrams: 0, hostDensity: 2.65 });
+    const e = estimateSpecimen({ method: "hanging", airGrams: [roundToStep(s.air, 0.01)], waterGrams: [roundToStep(s.hangingWater, 0.01)], ...natural });
+    const floor = e.assumptions.finenessRangePermille[0];
+    expect(floor).toBeGreaterThan(880);
+    expect(floor).toBeLessThan(920); // the true fineness stays inside
+    expect(e.assumptions.finenessRangePermille[1]).toBe(950);
+    expect(e.range.fineGoldGrams[0]).toBeGreaterThan((s.mass * 880) / 1000);
+    expect(e.range.fineGoldGrams[0]).toBeLessThanOrEqual((s.mass * 920) / 1000);
+    expect(e.range.fineGoldGrams[1]).toBeGreaterThanOrEqual((s.mass * 920) / 1000);
+    expect(e.fineGoldGrams).toBeGreaterThanOrEqual(e.range.fineGoldGrams[0]);
+    expect(e.fineGoldGrams).toBeLessThanOrEqual(e.range.fineGoldGrams[1]);
+    const w = e.warnings.find((x) => x.code === "fineness_narrowed");
+    expect(w?.params).toMatchObject({ givenLow: 700, givenHigh: 950, usedLow: floor });
+  });
+
+  it("leaves the range whole for a specimen lighter than its lightest gold", () => {
+    const s = composeSpecimen({ goldGrams: 20, fineness: 850, hostGrams: 80, hostDensity: 2.65 });
+    const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], ...natural });
+    expect(e.assumptions.finenessRangePermille).toEqual([700, 950]);
+    expect(e.warnings.map((w) => w.code)).not.toContain("fineness_narrowed");
+  });
+
+  it("refuses readings denser than the finest gold allowed, naming the fineness", () => {
+    // About 19.0 g/cm³ read to 0.01 g: at least 18.85, above 950 ‰ gold's 18.54.
+    const water = 100 - 99.7007 / (19 - 0.0012);
+    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water], ...natural })).toMatchObject({
+      code: "denser_than_alloy",
+      field: "finenessRangePermille",
+    });
+    // A finer gold allows it.
+    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water], finenessRangePermille: [950, 1000] })).toBeUndefined();
+  });
+});
+
+describe("what the engine assumes when the input is silent", () => {
+  it("takes natural gold of unknown fineness, not pure gold", () => {
+    const e = estimateSpecimen({ method: "hanging", airGrams: [49.99], waterGrams: [40.67] });
+    expect(e.assumptions.finenessPermille).toBe(825);
+    expect(e.assumptions.finenessRangePermille).toEqual([700, 950]);
+    expect(e.range.fineGoldGrams[1]).toBeLessThan(e.range.goldAlloyGrams[1]);
+  });
+
+  it("takes the fineness of a gold–silver alloy as dense as the one given", () => {
+    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.5], goldDensity: goldAlloyDensity(800) });
+    expect(e.assumptions.finenessPermille).toBeCloseTo(800, 9);
+    expect(e.fineGoldGrams).toBeCloseTo(e.goldAlloyGrams * 0.8, 9);
+  });
+
+  it("keeps every temperature the thermometer allows that the water formula knows", () => {
+    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.5], waterTempC: 39, waterTempToleranceC: 5 });
+    expect(e.assumptions.waterTempC).toBe(39);
+    expect(e.assumptions.waterTempRangeC).toEqual([34, 40]);
+    const low = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.5], waterTempC: 1, waterTempToleranceC: 2 });
+    expect(low.assumptions.waterTempRangeC).toEqual([0, 3]);
+  });
+
+  it("counts a specimen exactly at the host's density as holding no gold", () => {
+    const s = composeSpecimen({ goldGrams: 0, fineness: 825, hostGrams: 100, hostDensity: 2.65 });
+    const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], hostDensity: 2.65, hostDensityRange: [2.65, 2.65] });
+    expect(e.goldAlloyGrams).toBe(0);
+    expect(e.warnings.map((w) => w.code)).toContain("no_gold_detectable");
+  });
+
+  it("writes the host's bound in a refusal without binary noise", () => {
+    const error = refusal({ method: "hanging", airGrams: [100], waterGrams: [62.5], hostDensity: 19.31, goldDensity: 19.32 });
+    expect(error?.message).toContain("(19.6962 g/cm³)");
   });
 });

@@ -50,8 +50,14 @@ describe("estimateSpecimen — the host rock dominates at low grade", () => {
   it("moves the estimate by grams for a few hundredths of host density", () => {
     const s = composeSpecimen({ goldGrams: 1, fineness: 1000, hostGrams: 99, hostDensity: 2.65 });
     const at = (host: number) =>
-      estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], hostDensity: host, hostDensityRange: [host, host] })
-        .goldAlloyGrams;
+      estimateSpecimen({
+        method: "hanging",
+        airGrams: [s.air],
+        waterGrams: [s.hangingWater],
+        hostDensity: host,
+        hostDensityRange: [host, host],
+        finenessPermille: 1000,
+      }).goldAlloyGrams;
     expect(at(2.62)).toBeCloseTo(2.2, 0);
     expect(at(2.65)).toBeCloseTo(1, 6);
     expect(at(2.7)).toBe(0); // clamped: the formula's −1.3 g means "no gold detectable"
@@ -75,11 +81,30 @@ describe("estimateSpecimen — honest about what it cannot tell", () => {
   it("says when gold cannot be told from none", () => {
     expect(codes({ ...base, waterGrams: [62.4] })).toContain("gold_not_distinguishable");
   });
-  it("caps a specimen denser than the chosen alloy and says so", () => {
+  it("refuses a specimen denser than the chosen alloy even at the lightest the readings allow", () => {
+    // Pure gold with a little quartz (about 18.8 g/cm³) against gold of 700 ‰ (15.43 g/cm³).
     const s = composeSpecimen({ goldGrams: 50, fineness: 1000, hostGrams: 0.5, hostDensity: 2.65 });
-    const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessPermille: 700 });
+    const refused = () => estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessPermille: 700 });
+    expect(refused).toThrow(EstimateInputError);
+    expect(refused).toThrow(/denser than gold of 700 ‰ \(15\.42 g\/cm³\), the finest you allowed/);
+    try {
+      refused();
+    } catch (error) {
+      expect(error).toMatchObject({ code: "denser_than_alloy", field: "finenessPermille" });
+    }
+    // Given as a range, the range is the field at fault; given as an alloy density, that is.
+    expect(() => estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessRangePermille: [700, 900] })).toThrow(
+      expect.objectContaining({ field: "finenessRangePermille" }),
+    );
+    expect(() => estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], goldDensity: 15.5 })).toThrow(
+      expect.objectContaining({ code: "denser_than_alloy", field: "goldDensity" }),
+    );
+  });
+  it("caps a specimen denser than the chosen alloy within the scale's accuracy, and says so", () => {
+    // All gold of 700 ‰, read 0.01 g heavy under water: a little denser than the alloy, within ± 0.02 g.
+    const s = composeSpecimen({ goldGrams: 50, fineness: 700, hostGrams: 0, hostDensity: 2.65 });
+    const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater + 0.01], finenessPermille: 700 });
     expect(e.goldMassPercent).toBe(100);
-    expect(e.goldAlloyGrams).toBeCloseTo(s.mass, 9);
     expect(e.warnings.map((w) => w.code)).toContain("denser_than_alloy");
   });
   it("flags a specimen too small for the scale", () => {

@@ -1,6 +1,4 @@
-import { GOLD_DENSITY } from "./alloy";
-import { EstimateInputError } from "./errors";
-import { centralPoint, resolveInput } from "./input";
+import { centralPoint, resolveSpecimen } from "./input";
 import { evaluateModel } from "./model";
 import { searchRange } from "./range";
 import type { SpecimenEstimate, SpecimenInput } from "./types";
@@ -19,18 +17,9 @@ export type { MonteCarloResult } from "./uncertainty";
 
 /** Gold in a specimen from a hydrostatic weighing, with its range and standard uncertainty. */
 export function estimateSpecimen(input: SpecimenInput): SpecimenEstimate {
-  const r = resolveInput(input);
+  const r = resolveSpecimen(input);
   const central = evaluateModel(centralPoint(r), r.settings);
   const ranges = searchRange(r);
-  // Impossible only when even the lightest the readings allow is denser than pure gold; a
-  // pure-gold piece that rounding pushes over 19.32 is all gold, with a warning.
-  if (ranges.density[0] > GOLD_DENSITY) {
-    throw new EstimateInputError(
-      "denser_than_gold",
-      "waterGrams",
-      `These readings make the specimen ${central.density.toFixed(2)} g/cm³, and at least ${ranges.density[0].toFixed(2)} within the scale's accuracy: denser than pure gold (${GOLD_DENSITY}). Re-check the readings and the tare.`,
-    );
-  }
   const u = gumUncertainty(r);
   const goldVolume = central.alloy / central.alloyDensity;
   return {
@@ -61,5 +50,5 @@ export function estimateSpecimen(input: SpecimenInput): SpecimenEstimate {
 
 /** Monte Carlo propagation (JCGM 101:2008) of the same model, seeded for repeatability. */
 export function estimateSpecimenMonteCarlo(input: SpecimenInput, samples = 10000, seed = 1): MonteCarloResult {
-  return monteCarlo(resolveInput(input), samples, seed);
+  return monteCarlo(resolveSpecimen(input), samples, seed);
 }

@@ -1,8 +1,8 @@
-import { GOLD_DENSITY, goldAlloyDensity } from "./alloy";
+import { finenessAtDensity, GOLD_DENSITY, goldAlloyDensity } from "./alloy";
 import { EstimateInputError } from "./errors";
-import type { ModelPoint, ModelSettings } from "./model";
+import { weighSpecimen, type ModelPoint, type ModelSettings } from "./model";
 import type { SpecimenInput } from "./types";
-import { WATER_TEMP_MAX_C, WATER_TEMP_MIN_C } from "./water";
+import { WATER_DENSEST_C, WATER_TEMP_MAX_C, WATER_TEMP_MIN_C, waterDensity } from "./water";
 import { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS, MAX_STEP_GRAMS } from "./defaults";
 
 export { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS, MAX_STEP_GRAMS };
@@ -10,7 +10,9 @@ export { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS, MAX_STEP_GRAMS };
 /**
  * An uncertain input: its central value, its extremes, and its standard uncertainty (k = 1).
  * Every assumption is rectangular over [lo, hi] and its value is the centre of that range, so
- * the headline, the standard uncertainty and Monte Carlo all stand on one distribution.
+ * the headline, the standard uncertainty and Monte Carlo all stand on one distribution. The
+ * water temperature alone may sit off the centre: its range is cut where the water-density
+ * formula ends (0 and 40 °C), and the thermometer's reading stays the value.
  */
 export type Quantity = { value: number; lo: number; hi: number; u: number };
 
@@ -28,6 +30,9 @@ export type Reading = Quantity & {
 /** A value given off the centre of its range; the engine used the centre. */
 export type NotCentred = { quantity: "hostDensity" | "finenessPermille"; given: number; used: number };
 
+/** The fineness range given, and the part of it the readings leave possible. */
+export type FinenessNarrowed = { given: [number, number]; used: [number, number]; densityLow: number };
+
 export type ResolvedInput = {
   settings: ModelSettings;
   resolution: number;
@@ -37,7 +42,12 @@ export type ResolvedInput = {
   tempC: Quantity;
   host: Quantity;
   fineness: Quantity;
+  /** The lowest and highest specimen density the readings allow (every reading and temperature at either end). */
+  density: [number, number];
+  /** The temperatures the range search tries: the ends, and 3.98 °C where the span holds it. */
+  temps: number[];
   notCentred: NotCentred[];
+  finenessNarrowed: FinenessNarrowed | null;
 };
 
 const SQRT3 = Math.sqrt(3);
@@ -131,6 +141,16 @@ function rangedQuantity(
   return rectangular(centre, lo, hi);
 }
 
+/**
+ * No fineness given: with an alloy density given, the fineness of a gold–silver alloy that
+ * dense (the engine's own ideal mixing); else natural gold of unknown fineness.
+ */
+function defaultFineness(goldDensity: number | undefined): Quantity {
+  if (goldDensity === undefined || !Number.isFinite(goldDensity)) return rectangular(DEFAULTS.finenessPermille, ...DEFAULTS.finenessRangePermille);
+  const f = Math.min(1000, Math.max(Number.MIN_VALUE, finenessAtDensity(goldDensity)));
+  return rectangular(f, f, f);
+}
+
 export function resolveInput(input: SpecimenInput): ResolvedInput {
   if (input.method !== "hanging" && input.method !== "buoyancy") {
     fail("method_unknown", "method", "Choose how the specimen was weighed: hanging or buoyancy.");
@@ -167,10 +187,11 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
   if (!Number.isFinite(tol) || tol < 0 || tol > 20) {
     fail("tolerance_invalid", "waterTempToleranceC", "Temperature tolerance must be between 0 and 20 °C.");
   }
-  // Narrowed alike on both sides where the water-density formula ends (0 and 40 °C), so the
-  // reading stays the centre of its range.
-  const tolInDomain = Math.min(tol, t - WATER_TEMP_MIN_C, WATER_TEMP_MAX_C - t);
-  const tempC = rectangular(t, t - tolInDomain, t + tolInDomain);
+  // Cut only where the water-density formula ends (0 and 40 °C): 39 ± 5 °C is 34–40 °C, every
+  // temperature the thermometer allows that the formula knows.
+  const tempLo = Math.max(WATER_TEMP_MIN_C, t - tol);
+  const tempHi = Math.min(WATER_TEMP_MAX_C, t + tol);
+  const tempC = { ...rectangular(t, tempLo, tempHi), value: t };
 
   const notCentred: NotCentred[] = [];
   const f = input.finenessPermille;
@@ -179,7 +200,7 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
   }
   const fineness =
     rangedQuantity(f, input.finenessRangePermille, "finenessPermille", "finenessRangePermille", "fineness", notCentred) ??
-    rectangular(f ?? DEFAULTS.finenessPermille, f ?? DEFAULTS.finenessPermille, f ?? DEFAULTS.finenessPermille);
+    (f !== undefined ? rectangular(f, f, f) : defaultFineness(input.goldDensity));
   if (fineness.lo <= 0 || fineness.hi > 1000) {
     fail("fineness_out_of_range", "finenessRangePermille", "The fineness range must lie above 0 and at most 1000.");
   }
@@ -206,12 +227,16 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
     fail(
       "host_not_below_gold",
       hostField,
-      `The host rock's highest density (${host.hi} g/cm³) must be below the gold alloy's lowest (${alloyLowest.toFixed(2)} g/cm³): the weighing cannot tell two materials of the same density apart.`,
+      `The host rock's highest density (${Number(host.hi.toPrecision(6))} g/cm³) must be below the gold alloy's lowest (${alloyLowest.toFixed(2)} g/cm³): the weighing cannot tell two materials of the same density apart.`,
     );
   }
 
+  const settings: ModelSettings = { method: input.method, goldDensity, airCorrection: input.airBuoyancyCorrection !== false };
+  const temps = [tempC.lo, tempC.hi];
+  if (tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < tempC.hi) temps.push(WATER_DENSEST_C);
+
   return {
-    settings: { method: input.method, goldDensity, airCorrection: input.airBuoyancyCorrection !== false },
+    settings,
     resolution,
     accuracy,
     air,
@@ -219,7 +244,84 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
     tempC,
     host,
     fineness,
+    density: densityRange(air, water, temps, settings),
+    temps,
     notCentred,
+    finenessNarrowed: null,
+  };
+}
+
+/**
+ * A specimen's input, resolved for its gold: as resolveInput, then held to what a specimen
+ * can be (possibleFineness). A density measurement (a setup check, barren rock) has no gold
+ * and uses resolveInput alone.
+ */
+export function resolveSpecimen(input: SpecimenInput): ResolvedInput {
+  const r = resolveInput(input);
+  const narrowed = possibleFineness(r, input.finenessRangePermille ? "finenessRangePermille" : "finenessPermille");
+  return narrowed ? { ...r, fineness: narrowed.fineness, finenessNarrowed: narrowed.note } : r;
+}
+
+/** The lightest and densest the specimen can be: its density at every corner of readings and temperature. */
+function densityRange(air: Reading, water: Reading, temps: number[], s: ModelSettings): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const tempC of temps) {
+    const rhoW = waterDensity(tempC);
+    for (const a of [air.lo, air.hi]) {
+      for (const w of [water.lo, water.hi]) {
+        const d = weighSpecimen(a, w, s, rhoW).density;
+        if (d < lo) lo = d;
+        if (d > hi) hi = d;
+      }
+    }
+  }
+  return [lo, hi];
+}
+
+const twoPlaces = (n: number) => n.toFixed(2);
+
+/**
+ * A specimen is never denser than its densest part, the gold alloy. Denser than pure gold, or
+ * than the finest alloy allowed, even at the lightest the readings allow: the readings (or the
+ * fineness) are wrong, and no figure is given. Otherwise the finenesses whose alloy is lighter
+ * than that lightest specimen are impossible, and the range keeps only the rest, re-centred:
+ * a specimen of 18 g/cm³ holds gold of at least 913 ‰, whatever "natural gold" allowed.
+ */
+function possibleFineness(r: ResolvedInput, finenessField: keyof SpecimenInput): { fineness: Quantity; note: FinenessNarrowed } | null {
+  const { settings: s, fineness } = r;
+  const lightest = r.density[0];
+  const central = () => twoPlaces(weighSpecimen(r.air.value, r.water.value, s, waterDensity(r.tempC.value)).density);
+  if (lightest > GOLD_DENSITY) {
+    fail(
+      "denser_than_gold",
+      "waterGrams",
+      `These readings make the specimen ${central()} g/cm³, and at least ${twoPlaces(lightest)} within the scale's accuracy: denser than pure gold (${GOLD_DENSITY}). Re-check the readings and the tare.`,
+    );
+  }
+  if (s.goldDensity !== undefined) {
+    if (lightest > s.goldDensity) {
+      fail(
+        "denser_than_alloy",
+        "goldDensity",
+        `These readings make the specimen ${central()} g/cm³, and at least ${twoPlaces(lightest)} within the scale's accuracy: denser than the gold alloy you gave (${s.goldDensity} g/cm³). Re-check the readings and the tare, or the alloy's density.`,
+      );
+    }
+    return null;
+  }
+  const finest = goldAlloyDensity(fineness.hi);
+  if (lightest > finest) {
+    fail(
+      "denser_than_alloy",
+      finenessField,
+      `These readings make the specimen ${central()} g/cm³, and at least ${twoPlaces(lightest)} within the scale's accuracy: denser than gold of ${Math.round(fineness.hi)} ‰ (${twoPlaces(finest)} g/cm³), the finest you allowed. Re-check the readings and the tare, or choose a finer gold (an assay's fineness, if you have one).`,
+    );
+  }
+  const floor = finenessAtDensity(lightest);
+  if (floor <= fineness.lo) return null;
+  return {
+    fineness: rectangular((floor + fineness.hi) / 2, floor, fineness.hi),
+    note: { given: [fineness.lo, fineness.hi], used: [floor, fineness.hi], densityLow: lightest },
   };
 }
 

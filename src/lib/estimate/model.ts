@@ -64,9 +64,12 @@ export function mixtureAlloy(w: Weighed, host: number, alloyDensity: number): nu
   return (alloyDensity * (w.mass - host * w.volume)) / (alloyDensity - host);
 }
 
+/** Gold below this share of the specimen is rounding noise in the formula, and counted as none. */
+export const NOISE = 1e-9;
+
 /** The alloy held to what a specimen can hold: none, or all of it. */
 export function holdToSpecimen(alloy: number, mass: number): number {
-  if (alloy < 0) return 0;
+  if (alloy <= NOISE * mass) return 0;
   if (alloy > mass) return mass;
   return alloy;
 }

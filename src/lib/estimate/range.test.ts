@@ -8,9 +8,10 @@ import { composeSpecimen, roundToStep } from "./test-specimen";
 const KEYS = ["air", "water", "tempC", "host", "fineness"] as const;
 
 /**
- * The model's lowest and highest gold over a dense grid of the input box the engine says it
- * searched (every reading, the water temperature, host and fineness from low to high),
- * evaluated point by point with no search at all.
+ * The model's lowest and highest gold over a dense grid of the input box as given (every
+ * reading, the water temperature, host and fineness from low to high), evaluated point by
+ * point with no search at all. A point where the specimen is denser than its gold alloy is no
+ * specimen at all (nothing is denser than its densest part), and is left out.
  */
 function gridExtremes(input: SpecimenInput, readingSteps: number, otherSteps: number) {
   const r = resolveInput(input);
@@ -25,6 +26,7 @@ function gridExtremes(input: SpecimenInput, readingSteps: number, otherSteps: nu
   const walk = (depth: number) => {
     if (depth === KEYS.length) {
       const m = evaluateModel({ ...p }, r.settings);
+      if (m.density > m.alloyDensity) return;
       alloy[0] = Math.min(alloy[0], m.alloy);
       alloy[1] = Math.max(alloy[1], m.alloy);
       fine[0] = Math.min(fine[0], m.fine);

@@ -1,7 +1,7 @@
 import { goldAlloyDensity } from "./alloy";
 import type { ResolvedInput } from "./input";
-import { mixtureAlloy, weighSpecimen } from "./model";
-import { WATER_DENSEST_C, waterDensity } from "./water";
+import { mixtureAlloy, NOISE, weighSpecimen } from "./model";
+import { waterDensity } from "./water";
 
 type Pair = [number, number];
 
@@ -9,7 +9,8 @@ export type Ranges = { alloy: Pair; fine: Pair; density: Pair };
 
 /**
  * The lowest and highest gold over the whole input box: every reading at either end, the
- * water temperature, the host density and the fineness.
+ * water temperature, the host density and the fineness (only the finenesses the readings leave
+ * possible: see possibleFineness in input.ts).
  *
  * The mixture formula before it is held to [0, mass] is monotonic in each input with the
  * others fixed (linear in the readings; in the host's density its sign follows ρs − ρg; in the
@@ -25,20 +26,16 @@ export function searchRange(r: ResolvedInput): Ranges {
   const fineHi = r.fineness.hi;
   const alloyAtFineLo = s.goldDensity ?? goldAlloyDensity(fineLo);
   const alloyAtFineHi = s.goldDensity ?? goldAlloyDensity(fineHi);
-  const temps = [r.tempC.lo, r.tempC.hi];
-  if (r.tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < r.tempC.hi) temps.push(WATER_DENSEST_C);
 
   const formula: Pair = [Infinity, -Infinity];
   const formulaFine: Pair = [Infinity, -Infinity];
   const mass: Pair = [Infinity, -Infinity];
-  const density: Pair = [Infinity, -Infinity];
-  for (const tempC of temps) {
+  for (const tempC of r.temps) {
     const rhoW = waterDensity(tempC);
     for (const air of [r.air.lo, r.air.hi]) {
       for (const water of [r.water.lo, r.water.hi]) {
         const w = weighSpecimen(air, water, s, rhoW);
         widen(mass, w.mass);
-        widen(density, w.density);
         for (const host of [r.host.lo, r.host.hi]) {
           const atLo = mixtureAlloy(w, host, alloyAtFineLo);
           const atHi = mixtureAlloy(w, host, alloyAtFineHi);
@@ -51,9 +48,12 @@ export function searchRange(r: ResolvedInput): Ranges {
     }
   }
   return {
-    alloy: [atLeastZero(Math.min(formula[0], mass[0])), atLeastZero(Math.min(formula[1], mass[1]))],
-    fine: [atLeastZero(Math.min(formulaFine[0], (mass[0] * fineLo) / 1000)), atLeastZero(Math.min(formulaFine[1], (mass[1] * fineHi) / 1000))],
-    density,
+    alloy: [noneBelowNoise(Math.min(formula[0], mass[0]), mass[1]), noneBelowNoise(Math.min(formula[1], mass[1]), mass[1])],
+    fine: [
+      noneBelowNoise(Math.min(formulaFine[0], (mass[0] * fineLo) / 1000), mass[1]),
+      noneBelowNoise(Math.min(formulaFine[1], (mass[1] * fineHi) / 1000), mass[1]),
+    ],
+    density: r.density,
   };
 }
 
@@ -62,6 +62,7 @@ function widen(pair: Pair, v: number) {
   if (v > pair[1]) pair[1] = v;
 }
 
-function atLeastZero(v: number): number {
-  return v > 0 ? v : 0;
+/** Gold below rounding noise (a billionth of the specimen) is none: a specimen exactly at the host's density holds 0, not 1e-10 g. */
+function noneBelowNoise(v: number, mass: number): number {
+  return v > NOISE * mass ? v : 0;
 }

@@ -30,6 +30,17 @@ describe("the scale's accuracy beyond its display step", () => {
     expect(estimateSpecimen(rich).assumptions.scaleAccuracyGrams).toBeCloseTo(0.02, 12);
   });
 
+  it("never takes a coarser scale as more accurate than a finer one", () => {
+    // Where the rule changes (3 steps below 0.005 g, 2 below 0.05 g, then 1), a step just
+    // coarser was once allowed less than one just finer: 0.05 g ± 0.05 against 0.049 g ± 0.098.
+    const steps = Array.from({ length: 4000 }, (_, i) => 0.0001 * 1.003 ** i).filter((s) => s <= 10);
+    for (let i = 1; i < steps.length; i++) expect(defaultScaleAccuracy(steps[i])).toBeGreaterThanOrEqual(defaultScaleAccuracy(steps[i - 1]));
+    expect(defaultScaleAccuracy(0.05)).toBeGreaterThanOrEqual(defaultScaleAccuracy(0.049));
+    expect(defaultScaleAccuracy(0.005)).toBeGreaterThanOrEqual(defaultScaleAccuracy(0.0049));
+    expect(defaultScaleAccuracy(0.05)).toBeCloseTo(0.1, 12);
+    expect(defaultScaleAccuracy(1)).toBeCloseTo(1, 12);
+  });
+
   it("is carried into the range and the standard uncertainty", () => {
     const tight = estimateSpecimen({ ...rich, scaleAccuracyGrams: 0.005 });
     const loose = estimateSpecimen({ ...rich, scaleAccuracyGrams: 0.05 });

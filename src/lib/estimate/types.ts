@@ -48,6 +48,8 @@ export type EstimateWarning =
   | { code: "water_reading_unsteady"; params: { driftGrams: number } }
   /** Denser minerals than the host count as gold; they could explain this density. */
   | { code: "heavy_minerals_count_as_gold"; params: { density: number; heaviestGangue: number } }
+  /** Finenesses whose alloy is lighter than the specimen itself are impossible: only the rest of the range is used. */
+  | { code: "fineness_narrowed"; params: { givenLow: number; givenHigh: number; usedLow: number; densityLow: number } }
   /** A value given off the centre of its range: the centre is used. */
   | { code: "value_not_centred"; params: { quantity: "hostDensity" | "finenessPermille"; given: number; used: number } };
 

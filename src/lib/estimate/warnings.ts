@@ -77,6 +77,13 @@ export function collectWarnings(r: ResolvedInput, central: ModelResult, ranges: 
   if (central.alloy > 0 && density <= HEAVIEST_GANGUE_DENSITY) {
     warnings.push({ code: "heavy_minerals_count_as_gold", params: { density, heaviestGangue: HEAVIEST_GANGUE_DENSITY } });
   }
+  const narrowed = r.finenessNarrowed;
+  if (narrowed) {
+    warnings.push({
+      code: "fineness_narrowed",
+      params: { givenLow: narrowed.given[0], givenHigh: narrowed.given[1], usedLow: narrowed.used[0], densityLow: narrowed.densityLow },
+    });
+  }
   for (const n of r.notCentred) warnings.push({ code: "value_not_centred", params: n });
   return warnings;
 }
