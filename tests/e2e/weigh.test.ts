@@ -60,7 +60,15 @@ describe("the weigh-in flow in Chromium", () => {
     expect(await weigh.warnings()).toContain("lighter_than_host");
     expect(await page.getByTestId("warnings").textContent()).toMatch(/host assumption is probably wrong/);
     expect(await weigh.text("fine-gold")).toMatch(/^0(\.0+)? g$/);
+    // No ± around nothing: even the worst case holds no gold.
+    expect(await weigh.text("fine-range")).toBe("none, even with every reading and assumption at its worst");
     await page.screenshot({ path: shotPath("weigh-doubtful-phone"), fullPage: true });
+    // About 19.0 g/cm³: denser than natural gold's finest (950 ‰, 18.54 g/cm³), refused by the fineness.
+    await weigh.readings(["100.00"], ["94.75"]);
+    const refusal = page.getByText(/the finest you allowed/);
+    await refusal.waitFor();
+    expect(await page.getByTestId("estimate-waiting").count()).toBe(1);
+    await page.screenshot({ path: shotPath("weigh-denser-than-gold-phone"), fullPage: true });
     // A water reading above the air reading is refused by name, and nothing is estimated.
     await page.getByRole("group", { name: "Hung under water" }).getByRole("textbox").first().fill("120");
     await page.getByText(/in-water reading must be lower/).waitFor();
