@@ -29,10 +29,10 @@ describe("how deep a request's JSON may nest (jsonTooDeep)", () => {
   });
 
   it("shows a caller's key cut to 40 characters, without control or direction characters", () => {
-    const key = "\u202eevil\u0007" + "k".repeat(100);
+    const key = "\u202eevil\u0007\u061c" + "k".repeat(100);
     // Written raw: the scan runs before the text is parsed, so even a control character JSON
     // forbids unescaped can reach it.
     const path = jsonTooDeep(`{"${key}":[[1]]}`, 2);
-    expect(path).toBe(`?evil?${"k".repeat(34)}.0`);
+    expect(path).toBe(`?evil??${"k".repeat(33)}.0`);
   });
 });

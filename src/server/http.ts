@@ -2,6 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { NextResponse } from "next/server";
 import { z } from "zod";
+import { controlsMarked } from "@/lib/text/safe-text";
 import { AppError, type FieldErrors } from "./errors";
 import { logger } from "./log";
 
@@ -65,7 +66,7 @@ export function jsonTooDeep(text: string, max = MAX_JSON_DEPTH): string | null {
 
 /** A key of the caller's as a message may show it: 40 characters at most, no controls. */
 const shownKey = (key: string | number) =>
-  Array.from(String(key).replace(/[\u0000-\u001f\u007f-\u009f\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, "?"))
+  Array.from(controlsMarked(String(key)))
     .slice(0, 40)
     .join("");
 
