@@ -50,6 +50,22 @@ describe("an estimate's spread in words", () => {
     expect(text).toMatch(/^at worst 0\.00 g – \d+\.\d+ g$/);
   });
 
+  it("gives no ± that reaches past the worst case, as around a specimen held at all gold", () => {
+    // 20 g of 900 ‰ gold read to 0.01 g: the alloy is held at the whole specimen, and the
+    // formula's ± (before that hold) is wider than what the worst case leaves.
+    const e = estimateSpecimen({
+      method: "hanging",
+      airGrams: [20],
+      waterGrams: [18.92],
+      finenessPermille: 900,
+      hostDensity: 2.65,
+      hostDensityRange: [2.62, 2.68],
+    });
+    const [low, high] = e.range.fineGoldGrams;
+    expect(e.fineGoldGrams + e.standardUncertainty.fineGoldGrams > high || e.fineGoldGrams - e.standardUncertainty.fineGoldGrams < low).toBe(true);
+    expect(spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show)).toMatch(/^at worst /);
+  });
+
   it("says none when even the worst case holds no gold", () => {
     const { e, text } = spread(61);
     expect(e.range.fineGoldGrams).toEqual([0, 0]);

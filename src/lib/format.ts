@@ -37,13 +37,13 @@ export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGram
 
 /**
  * An estimate's ± and worst case in words, as far as they mean anything: with no gold even at
- * the worst, that alone; around a figure held at 0, the worst case alone (a ± around nothing
- * would reach below it).
+ * the worst, that alone; a ± that reaches past the worst case (around a figure held at 0, or
+ * at the whole specimen) says less than the worst case, and is left out.
  */
 export function spreadText(value: number, uncertainty: number, [low, high]: readonly [number, number], show: (grams: number) => string): string {
   if (high <= 0) return "none, even with every reading and assumption at its worst";
   const worst = `at worst ${show(low)} – ${show(high)}`;
-  return value > 0 ? `± ${show(uncertainty)} · ${worst}` : worst;
+  return value - uncertainty >= low && value + uncertainty <= high ? `± ${show(uncertainty)} · ${worst}` : worst;
 }
 
 // Making an Intl formatter costs about as much as a thousand uses of one (a list of finds

@@ -163,6 +163,19 @@ describe("a specimen is never denser than its gold", () => {
     expect(e.warnings.map((w) => w.code)).not.toContain("fineness_narrowed");
   });
 
+  it("sets no lowest density when a reading's bound reaches below nothing, and narrows nothing", () => {
+    // 0.01 g in air on a 0.01 g scale (± 0.02 g): the specimen could weigh nothing at all.
+    for (const input of [
+      { method: "hanging", airGrams: [0.01], waterGrams: [0.005] },
+      { method: "hanging", airGrams: [1], waterGrams: [0.4], scaleResolutionGrams: 0.1, scaleAccuracyGrams: 2 },
+      { method: "buoyancy", airGrams: [1], waterGrams: [0.4], scaleResolutionGrams: 0.1, scaleAccuracyGrams: 2 },
+      { method: "hanging", airGrams: [5], waterGrams: [3], scaleResolutionGrams: 10, finenessPermille: 900 },
+    ] satisfies SpecimenInput[]) {
+      expect(refusal(input), JSON.stringify(input)).toBeUndefined();
+      expect(estimateSpecimen(input).warnings.map((w) => w.code)).not.toContain("fineness_narrowed");
+    }
+  });
+
   it("refuses readings denser than the finest gold allowed, naming the fineness", () => {
     // About 19.0 g/cm³ read to 0.01 g: at least 18.85, above 950 ‰ gold's 18.54.
     const water = 100 - 99.7007 / (19 - 0.0012);
@@ -172,6 +185,28 @@ describe("a specimen is never denser than its gold", () => {
     });
     // A finer gold allows it.
     expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water], finenessRangePermille: [950, 1000] })).toBeUndefined();
+    // With no fineness given, the message says what was assumed, not what "you allowed".
+    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water] })?.message).toMatch(
+      /the finest of natural gold \(700–950 ‰\), assumed when no fineness is given/,
+    );
+  });
+
+  it("writes the lowest density and the alloy's apart, never the same figure twice", () => {
+    // The in-water reading where refusal begins (bisection): just past it, the lowest density
+    // equals 950 ‰ gold's 18.538 g/cm³.
+    const at = (water: number) => refusal({ method: "hanging", airGrams: [100], waterGrams: [water], ...natural });
+    let [accepted, refused] = [94, 95];
+    for (let i = 0; i < 60; i++) {
+      const mid = (accepted + refused) / 2;
+      if (at(mid)) refused = mid;
+      else accepted = mid;
+    }
+    // 0.0003 g past it: about 0.001 g/cm³ denser than the alloy, apart at three places.
+    const error = at(refused + 0.0003);
+    expect(error?.code).toBe("denser_than_alloy");
+    const [, atLeast, alloy] = /at least ([\d.]+) within.*\(([\d.]+) g\/cm³\), the finest/.exec(error!.message) ?? [];
+    expect(atLeast).not.toBe(alloy);
+    expect(Number(atLeast)).toBeGreaterThan(Number(alloy));
   });
 });
 
@@ -187,6 +222,17 @@ describe("what the engine assumes when the input is silent", () => {
     const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.5], goldDensity: goldAlloyDensity(800) });
     expect(e.assumptions.finenessPermille).toBeCloseTo(800, 9);
     expect(e.fineGoldGrams).toBeCloseTo(e.goldAlloyGrams * 0.8, 9);
+  });
+
+  it("refuses an alloy density lighter than silver given with no fineness: no gold–silver alloy is that light", () => {
+    for (const goldDensity of [8.96, 10, 10.49]) {
+      expect(refusal({ method: "hanging", airGrams: [50], waterGrams: [40], goldDensity })).toMatchObject({
+        code: "fineness_unknown",
+        field: "finenessPermille",
+      });
+      // With its fineness given, such an alloy (gold with copper, say) is worked with as it stands.
+      expect(refusal({ method: "hanging", airGrams: [50], waterGrams: [40], goldDensity, finenessPermille: 417 })).toBeUndefined();
+    }
   });
 
   it("keeps every temperature the thermometer allows that the water formula knows", () => {

@@ -1,4 +1,4 @@
-import { finenessAtDensity, GOLD_DENSITY, goldAlloyDensity } from "./alloy";
+import { finenessAtDensity, GOLD_DENSITY, goldAlloyDensity, SILVER_DENSITY } from "./alloy";
 import { EstimateInputError } from "./errors";
 import { weighSpecimen, type ModelPoint, type ModelSettings } from "./model";
 import type { SpecimenInput } from "./types";
@@ -146,8 +146,18 @@ function rangedQuantity(
  * dense (the engine's own ideal mixing); else natural gold of unknown fineness.
  */
 function defaultFineness(goldDensity: number | undefined): Quantity {
-  if (goldDensity === undefined || !Number.isFinite(goldDensity)) return rectangular(DEFAULTS.finenessPermille, ...DEFAULTS.finenessRangePermille);
-  const f = Math.min(1000, Math.max(Number.MIN_VALUE, finenessAtDensity(goldDensity)));
+  // An unusable density is refused with its own message further on.
+  if (goldDensity === undefined || !Number.isFinite(goldDensity) || goldDensity <= 1) {
+    return rectangular(DEFAULTS.finenessPermille, ...DEFAULTS.finenessRangePermille);
+  }
+  if (goldDensity <= SILVER_DENSITY) {
+    fail(
+      "fineness_unknown",
+      "finenessPermille",
+      `No gold–silver alloy is as light as ${goldDensity} g/cm³ (silver alone is ${SILVER_DENSITY}), so its fineness cannot be worked out from it: give the gold's fineness too.`,
+    );
+  }
+  const f = Math.min(1000, finenessAtDensity(goldDensity));
   return rectangular(f, f, f);
 }
 
@@ -188,7 +198,8 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
     fail("tolerance_invalid", "waterTempToleranceC", "Temperature tolerance must be between 0 and 20 °C.");
   }
   // Cut only where the water-density formula ends (0 and 40 °C): 39 ± 5 °C is 34–40 °C, every
-  // temperature the thermometer allows that the formula knows.
+  // temperature the thermometer allows that the formula knows. The reading stays the best
+  // estimate, with u from the bounds' width (JCGM 100:2008, 4.3.8, bounds asymmetric about it).
   const tempLo = Math.max(WATER_TEMP_MIN_C, t - tol);
   const tempHi = Math.min(WATER_TEMP_MAX_C, t + tol);
   const tempC = { ...rectangular(t, tempLo, tempHi), value: t };
@@ -258,7 +269,8 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
  */
 export function resolveSpecimen(input: SpecimenInput): ResolvedInput {
   const r = resolveInput(input);
-  const narrowed = possibleFineness(r, input.finenessRangePermille ? "finenessRangePermille" : "finenessPermille");
+  const assumed = input.finenessPermille === undefined && input.finenessRangePermille === undefined && input.goldDensity === undefined;
+  const narrowed = possibleFineness(r, input.finenessRangePermille ? "finenessRangePermille" : "finenessPermille", assumed);
   return narrowed ? { ...r, fineness: narrowed.fineness, finenessNarrowed: narrowed.note } : r;
 }
 
@@ -270,9 +282,15 @@ function densityRange(air: Reading, water: Reading, temps: number[], s: ModelSet
     const rhoW = waterDensity(tempC);
     for (const a of [air.lo, air.hi]) {
       for (const w of [water.lo, water.hi]) {
-        const d = weighSpecimen(a, w, s, rhoW).density;
-        if (d < lo) lo = d;
-        if (d > hi) hi = d;
+        const specimen = weighSpecimen(a, w, s, rhoW);
+        // A reading whose bound reaches below nothing: the specimen could be as light as any,
+        // and the readings set no lowest density at all.
+        if (specimen.mass <= 0) {
+          lo = 0;
+          continue;
+        }
+        if (specimen.density < lo) lo = specimen.density;
+        if (specimen.density > hi) hi = specimen.density;
       }
     }
   }
@@ -281,6 +299,12 @@ function densityRange(air: Reading, water: Reading, temps: number[], s: ModelSet
 
 const twoPlaces = (n: number) => n.toFixed(2);
 
+/** Two densities written to as many places (2 to 4) as tell them apart: "at least 18.543" beside "18.538", not 18.54 twice. */
+function apart(a: number, b: number): [string, string] {
+  for (let places = 2; places < 4; places++) if (a.toFixed(places) !== b.toFixed(places)) return [a.toFixed(places), b.toFixed(places)];
+  return [a.toFixed(4), b.toFixed(4)];
+}
+
 /**
  * A specimen is never denser than its densest part, the gold alloy. Denser than pure gold, or
  * than the finest alloy allowed, even at the lightest the readings allow: the readings (or the
@@ -288,7 +312,7 @@ const twoPlaces = (n: number) => n.toFixed(2);
  * than that lightest specimen are impossible, and the range keeps only the rest, re-centred:
  * a specimen of 18 g/cm³ holds gold of at least 913 ‰, whatever "natural gold" allowed.
  */
-function possibleFineness(r: ResolvedInput, finenessField: keyof SpecimenInput): { fineness: Quantity; note: FinenessNarrowed } | null {
+function possibleFineness(r: ResolvedInput, finenessField: keyof SpecimenInput, assumed: boolean): { fineness: Quantity; note: FinenessNarrowed } | null {
   const { settings: s, fineness } = r;
   const lightest = r.density[0];
   const central = () => twoPlaces(weighSpecimen(r.air.value, r.water.value, s, waterDensity(r.tempC.value)).density);
@@ -311,13 +335,17 @@ function possibleFineness(r: ResolvedInput, finenessField: keyof SpecimenInput):
   }
   const finest = goldAlloyDensity(fineness.hi);
   if (lightest > finest) {
+    const [atLeast, alloy] = apart(lightest, finest);
+    const allowed = assumed
+      ? "the finest of natural gold (700–950 ‰), assumed when no fineness is given. Re-check the readings and the tare, or give the gold's fineness."
+      : "the finest you allowed. Re-check the readings and the tare, or choose a finer gold (an assay's fineness, if you have one).";
     fail(
       "denser_than_alloy",
       finenessField,
-      `These readings make the specimen ${central()} g/cm³, and at least ${twoPlaces(lightest)} within the scale's accuracy: denser than gold of ${Math.round(fineness.hi)} ‰ (${twoPlaces(finest)} g/cm³), the finest you allowed. Re-check the readings and the tare, or choose a finer gold (an assay's fineness, if you have one).`,
+      `These readings make the specimen ${central()} g/cm³, and at least ${atLeast} within the scale's accuracy: denser than gold of ${Math.round(fineness.hi)} ‰ (${alloy} g/cm³), ${allowed}`,
     );
   }
-  const floor = finenessAtDensity(lightest);
+  const floor = Math.min(finenessAtDensity(lightest), fineness.hi);
   if (floor <= fineness.lo) return null;
   return {
     fineness: rectangular((floor + fineness.hi) / 2, floor, fineness.hi),
