@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { estimateSpecimen } from "./estimate";
-import { countOf, decimalsForUncertainty, formatDay, formatGrams, formatMonth, formatWhen, spreadText } from "./format";
+import { countOf, decimalsForUncertainty, formatDay, formatGrams, formatMonth, formatWhen, heldAtAnEnd, spreadText } from "./format";
 
 describe("figures shown to the precision their uncertainty allows", () => {
   // JCGM 100:2008, 7.2.6: the uncertainty with at most two significant digits, the figure to match.
@@ -34,13 +34,18 @@ describe("an estimate's spread in words", () => {
   const spread = (waterGrams: number) => {
     // 100 g in quartz of 2.62–2.68 g/cm³: 62.5 g hung in water is 2.67 g/cm³, 62.2 g 2.64, 61.0 g 2.56.
     const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [waterGrams], hostDensity: 2.65, hostDensityRange: [2.62, 2.68] });
-    return { e, text: spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show) };
+    return { e, text: spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show, heldAtAnEnd(e)) };
   };
 
-  it("gives the ± and the worst case around some gold", () => {
+  it("gives the ± and the worst case around some gold, even where the ± reaches past the worst case's low end", () => {
     const { e, text } = spread(63.2);
     expect(e.fineGoldGrams).toBeGreaterThan(0);
     expect(text).toMatch(/^± \d+\.\d+ g · at worst \d+\.\d+ g – \d+\.\d+ g$/);
+    // Low grade: 0.3 % gold, whose ± reaches below the worst case's 0.
+    const low = spread(62.56);
+    expect(low.e.fineGoldGrams).toBeGreaterThan(0);
+    expect(low.e.fineGoldGrams - low.e.standardUncertainty.fineGoldGrams).toBeLessThan(low.e.range.fineGoldGrams[0]);
+    expect(low.text).toMatch(/^± /);
   });
 
   it("gives no ± around a figure held at 0: only how much the worst case allows", () => {
@@ -50,7 +55,7 @@ describe("an estimate's spread in words", () => {
     expect(text).toMatch(/^at worst 0\.00 g – \d+\.\d+ g$/);
   });
 
-  it("gives no ± that reaches past the worst case, as around a specimen held at all gold", () => {
+  it("gives no ± around a specimen held at all gold", () => {
     // 20 g of 900 ‰ gold read to 0.01 g: the alloy is held at the whole specimen, and the
     // formula's ± (before that hold) is wider than what the worst case leaves.
     const e = estimateSpecimen({
@@ -63,7 +68,8 @@ describe("an estimate's spread in words", () => {
     });
     const [low, high] = e.range.fineGoldGrams;
     expect(e.fineGoldGrams + e.standardUncertainty.fineGoldGrams > high || e.fineGoldGrams - e.standardUncertainty.fineGoldGrams < low).toBe(true);
-    expect(spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show)).toMatch(/^at worst /);
+    expect(e.goldMassPercent).toBe(100);
+    expect(spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show, heldAtAnEnd(e))).toMatch(/^at worst /);
   });
 
   it("says none when even the worst case holds no gold", () => {

@@ -1,3 +1,4 @@
+import type { SpecimenEstimate } from "./estimate/types";
 import { isPatternFor, writeDate, type DatePattern } from "./date-pattern";
 import { convertMass, type MassUnit } from "./estimate/units";
 
@@ -36,14 +37,22 @@ export function formatGrams(grams: number, unit: MassUnit = "g", uncertaintyGram
 }
 
 /**
- * An estimate's ± and worst case in words, as far as they mean anything: with no gold even at
- * the worst, that alone; a ± that reaches past the worst case (around a figure held at 0, or
- * at the whole specimen) says less than the worst case, and is left out.
+ * Whether the estimate's figure is held at an end of what a specimen can hold (no gold, or
+ * all of it): the ± (the formula's, before that hold) then reaches past the end it is held at.
  */
-export function spreadText(value: number, uncertainty: number, [low, high]: readonly [number, number], show: (grams: number) => string): string {
+export function heldAtAnEnd(e: Pick<SpecimenEstimate, "goldAlloyGrams" | "goldMassPercent">): boolean {
+  return e.goldAlloyGrams <= 0 || e.goldMassPercent >= 100;
+}
+
+/**
+ * An estimate's ± and worst case in words, as far as they mean anything: with no gold even at
+ * the worst, that alone; around a figure held at no gold or at the whole specimen, the worst
+ * case alone (a ± there would reach below nothing, or past the specimen).
+ */
+export function spreadText(value: number, uncertainty: number, [low, high]: readonly [number, number], show: (grams: number) => string, held: boolean): string {
   if (high <= 0) return "none, even with every reading and assumption at its worst";
   const worst = `at worst ${show(low)} – ${show(high)}`;
-  return value - uncertainty >= low && value + uncertainty <= high ? `± ${show(uncertainty)} · ${worst}` : worst;
+  return held ? worst : `± ${show(uncertainty)} · ${worst}`;
 }
 
 // Making an Intl formatter costs about as much as a thousand uses of one (a list of finds

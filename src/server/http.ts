@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { controlsMarked } from "@/lib/text/safe-text";
+import { shownKey } from "@/lib/text/controls";
 import { AppError, type FieldErrors } from "./errors";
 import { logger } from "./log";
 
@@ -63,12 +63,6 @@ export function jsonTooDeep(text: string, max = MAX_JSON_DEPTH): string | null {
   }
   return null;
 }
-
-/** A key of the caller's as a message may show it: 40 characters at most, no controls. */
-const shownKey = (key: string | number) =>
-  Array.from(controlsMarked(String(key)))
-    .slice(0, 40)
-    .join("");
 
 /**
  * A request's body, refused as soon as it passes `maxBytes`: a declared length over the limit

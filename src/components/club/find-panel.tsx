@@ -6,7 +6,7 @@ import { engineLabel } from "@/components/weigh/engine-label";
 import { DEFAULTS } from "@/lib/estimate/defaults";
 import type { SpecimenInput } from "@/lib/estimate/types";
 import type { ReportedEstimate } from "@/lib/entities/weigh-in";
-import { formatGrams, formatWhen, spreadText } from "@/lib/format";
+import { formatGrams, formatWhen, heldAtAnEnd, spreadText } from "@/lib/format";
 import type { ThreadEvent } from "@/lib/club/thread";
 import { formatDecimal, toDms } from "@/lib/geo";
 import { api, ApiError } from "./api";
@@ -60,15 +60,18 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
   const host = server.assumptions?.hostDensity ?? w.input.hostDensity ?? DEFAULTS.hostDensity;
   const fineness = server.assumptions?.finenessPermille ?? w.input.finenessPermille ?? 1000;
   const temp = server.assumptions?.waterTempC ?? w.input.waterTempC ?? DEFAULTS.waterTempC;
+  // The range the engine worked with: a dense specimen narrows the member's preset (engine 2.1.0 on).
+  const [fLo, fHi] = server.assumptions?.finenessRangePermille ?? [fineness, fineness];
+  const fineRange = fLo < fHi ? `${Math.round(fLo)}–${Math.round(fHi)}` : "";
   return (
     <>
       <p>
         {formatWhen(w.weighedAt, timeZone)} · {w.input.method} · air {w.input.airGrams.join(", ")} g · water {w.input.waterGrams.join(", ")} g · {temp} °C ·
-        host {host.toFixed(2)} · fineness {Math.round(fineness)} ‰
+        host {host.toFixed(2)} · fineness {Math.round(fineness)} ‰{fineRange && ` (${fineRange})`}
       </p>
       <p className="font-bold tabular-nums">
         Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine (
-        {spreadText(server.fineGoldGrams, u, server.range.fineGoldGrams, (g) => formatGrams(g, "g", u))}), {engineLabel(w.engineVersion)}
+        {spreadText(server.fineGoldGrams, u, server.range.fineGoldGrams, (g) => formatGrams(g, "g", u), heldAtAnEnd(server))}), {engineLabel(w.engineVersion)}
       </p>
       <ScaleMark w={w} timeZone={timeZone} />
       {w.mismatch && (

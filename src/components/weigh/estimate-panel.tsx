@@ -2,7 +2,7 @@
 import { useState } from "react";
 import type { SpecimenEstimate } from "@/lib/estimate/types";
 import { gramsToTroyOunces, MASS_UNIT_LABELS, MASS_UNITS, type MassUnit } from "@/lib/estimate/units";
-import { formatGrams, spreadText } from "@/lib/format";
+import { formatGrams, heldAtAnEnd, spreadText } from "@/lib/format";
 import { DensityPicture } from "./density-picture";
 import { parseTyped } from "./form-model";
 import { warningText } from "./warning-text";
@@ -21,6 +21,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
   const [fLo, fHi] = estimate.range.fineGoldGrams;
   const [aLo, aHi] = estimate.range.goldAlloyGrams;
   const a = estimate.assumptions;
+  const held = heldAtAnEnd(estimate);
   const specimenGrams = estimate.volumeCm3 * estimate.specimenDensity;
 
   return (
@@ -47,7 +48,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           {fine(estimate.fineGoldGrams)}
         </p>
         <p className="figure" data-testid="fine-range">
-          {spreadText(estimate.fineGoldGrams, u.fineGoldGrams, [fLo, fHi], fine)}
+          {spreadText(estimate.fineGoldGrams, u.fineGoldGrams, [fLo, fHi], fine, held)}
         </p>
         <p className="mt-1 text-xs text-ink-soft">
           ± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it. “At worst” is the lowest and highest your readings
@@ -61,7 +62,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           <dd className="figure font-bold" data-testid="alloy-gold">
             {alloy(estimate.goldAlloyGrams)}
           </dd>
-          <dd className="figure text-ink-soft">{spreadText(estimate.goldAlloyGrams, u.goldAlloyGrams, [aLo, aHi], alloy)}</dd>
+          <dd className="figure text-ink-soft">{spreadText(estimate.goldAlloyGrams, u.goldAlloyGrams, [aLo, aHi], alloy, held)}</dd>
         </div>
         <div>
           <dt className="text-ink-soft">Gold by weight</dt>

@@ -49,7 +49,7 @@ describe("the wording of the engine's warnings", () => {
   it("says which finenesses a dense specimen leaves, of those allowed", () => {
     const text = warningText(SAMPLES.fineness_narrowed, mass);
     expect(text).toContain("17.98 g/cm³");
-    expect(text).toContain("913–950 ‰ of the 700–950 ‰");
+    expect(text).toContain("913–950 ‰ of the 700–950 ‰ allowed");
   });
 
   it("says how much gold the readings still allow at the no-gold clamp", () => {

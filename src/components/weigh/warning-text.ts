@@ -23,7 +23,7 @@ export function warningText(w: EstimateWarning, mass: MassText): string {
     case "denser_than_gold_within_error":
       return `The readings make the specimen ${density(w.params.density)}, a little denser than pure gold (${density(w.params.goldDensity)}), but within your scale's accuracy it could be as light as ${density(w.params.densityLow)}. It is counted as all gold. If it is not a pure-gold piece, re-check the tare and weigh it again.`;
     case "denser_than_alloy":
-      return `The specimen (${density(w.params.density)}) is denser than the gold alloy you chose (${density(w.params.alloyDensity)}): the gold is probably finer than that. The estimate is the whole specimen.`;
+      return `The specimen (${density(w.params.density)}) is denser than gold of the finest fineness allowed (${density(w.params.alloyDensity)}): the gold is probably finer than that, or a reading is off. The estimate takes the whole specimen as gold of that fineness; an assay would give the true one.`;
     case "range_wider_than_estimate":
       return `The worst-case range (${mass(w.params.lowGrams)} – ${mass(w.params.highGrams)}) is wider than the estimate itself (${mass(w.params.estimateGrams)}): treat the figure as a rough guess.`;
     case "specimen_too_small":
@@ -38,7 +38,7 @@ export function warningText(w: EstimateWarning, mass: MassText): string {
       return `Everything denser than the host rock counts as gold here. Pyrite, arsenopyrite, galena, magnetite and scheelite raise the density the same way, and at ${density(w.params.density)} they alone could explain it. Look for them before trusting the figure.`;
     case "fineness_narrowed": {
       const [lo, used, hi] = [w.params.givenLow, w.params.usedLow, w.params.givenHigh].map((f) => Math.round(f));
-      return `A specimen of at least ${density(w.params.densityLow)} can only hold gold of ${used} ‰ or finer: gold of ${lo} ‰ is lighter than the specimen itself. The estimate uses ${used}–${hi} ‰ of the ${lo}–${hi} ‰ you allowed. A piece this dense is mostly gold; an assay would give its fineness.`;
+      return `A specimen of at least ${density(w.params.densityLow)} can only hold gold of ${used} ‰ or finer: gold of ${lo} ‰ is lighter than the specimen itself. The estimate uses ${used}–${hi} ‰ of the ${lo}–${hi} ‰ allowed. A piece this dense is mostly gold; an assay would give its fineness.`;
     }
     case "value_not_centred": {
       const what = w.params.quantity === "hostDensity" ? "host density" : "fineness";

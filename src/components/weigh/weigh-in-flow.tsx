@@ -6,7 +6,7 @@ import { FINENESS_PRESETS, HOST_PRESETS } from "@/lib/estimate/presets";
 import { toGrams, convertMass, type MassUnit } from "@/lib/estimate/units";
 import type { Scale, ScaleCheckRef } from "@/lib/entities/scale";
 import { checkRefOf } from "@/lib/figures/scale-standing";
-import { formatGrams } from "@/lib/format";
+import { formatGrams, heldAtAnEnd, spreadText } from "@/lib/format";
 import { EstimatePanel } from "./estimate-panel";
 import { DEFAULT_WEIGH_FORM, emptyReadings, ENGINE_FIELD_TO_FORM, parseTyped, toSpecimenInput, type WeighField, type WeighFormValues } from "./form-model";
 import { MethodChoice, PracticeList, ReadingsPair, ScaleSettings, WaterTemperature } from "./rig-fields";
@@ -60,6 +60,14 @@ function airBuoyancyEffect(input: SpecimenInput, estimate: SpecimenEstimate): Ai
   }
   const [corrected, textbook] = on ? [estimate, other] : [other, estimate];
   return { correctedGrams: corrected.fineGoldGrams, textbookGrams: textbook.fineGoldGrams };
+}
+
+/** The bar's second line: the ± alone, as room allows; the worst case where a ± means nothing (see spreadText). */
+function barSpread(e: SpecimenEstimate, unit: MassUnit): string {
+  const u = e.standardUncertainty.fineGoldGrams;
+  const show = (g: number) => formatGrams(g, unit, u);
+  const held = heldAtAnEnd(e);
+  return held || e.range.fineGoldGrams[1] <= 0 ? spreadText(e.fineGoldGrams, u, e.range.fineGoldGrams, show, held) : `± ${show(u)}`;
 }
 
 function airEffectText({ correctedGrams, textbookGrams }: AirEffect, unit: MassUnit): string {
@@ -195,8 +203,8 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave, onCanc
         <div className="sheet sticky bottom-2 z-10 flex items-center justify-between gap-2 shadow-lg lg:hidden" data-testid="estimate-bar">
           <a href="#estimate-title" className="figure flex flex-col font-bold no-underline" aria-label="Jump to the estimate">
             <span>Fine gold ≈ {formatGrams(outcome.estimate.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}</span>
-            <span className="text-sm text-ink-soft">
-              ± {formatGrams(outcome.estimate.standardUncertainty.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}
+            <span className="text-sm text-ink-soft" data-testid="estimate-bar-spread">
+              {barSpread(outcome.estimate, resultUnit)}
             </span>
           </a>
           {onSave && (

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { shownKey } from "@/lib/text/controls";
 import { GOLD_DENSITY } from "@/lib/estimate/alloy";
 import { MAX_READING_GRAMS, MAX_STEP_GRAMS } from "@/lib/estimate/defaults";
 
@@ -14,23 +15,36 @@ const pair = (min: number, max: number, unit: string) =>
     .tuple([between(min, max, unit), between(min, max, unit)], { error: "Give a low and a high value." })
     .refine(([lo, hi]) => lo <= hi, "Give the low value first.");
 
+/** An object's own refusals: a field it does not know, named; anything but an object. */
+const objectError = (what: string) => (issue: { code: string; keys?: string[] }) => {
+  if (issue.code === "unrecognized_keys" && issue.keys) {
+    const names = issue.keys.slice(0, 5).map((k) => `"${shownKey(k)}"`);
+    return `${issue.keys.length > 1 ? "Fields" : "Field"} ${names.join(", ")}${issue.keys.length > 5 ? " and more" : ""} not known here: send ${what}'s own fields only.`;
+  }
+  if (issue.code === "invalid_type") return `Send ${what} as an object of named fields.`;
+  return undefined;
+};
+
 /** What a weigh-in records: the engine's SpecimenInput, checked at every edge. */
 export const specimenInputSchema = z
-  .object({
-    method: z.enum(["hanging", "buoyancy"], { error: "Choose hanging or buoyancy." }),
-    airGrams: readings,
-    waterGrams: readings,
-    scaleResolutionGrams: number().positive("Must be more than zero.").max(MAX_STEP_GRAMS, `At most ${MAX_STEP_GRAMS} g.`).optional(),
-    scaleAccuracyGrams: between(0, MAX_STEP_GRAMS, " g").optional(),
-    waterTempC: between(0, 40, " °C").optional(),
-    waterTempToleranceC: between(0, 20, " °C").optional(),
-    hostDensity: number().gt(1, "Above 1 g/cm³.").lt(GOLD_DENSITY, "Below pure gold's 19.32 g/cm³.").optional(),
-    hostDensityRange: pair(1, GOLD_DENSITY, " g/cm³").optional(),
-    finenessPermille: number().gt(0, "Above 0 ‰.").max(1000, "At most 1000 ‰.").optional(),
-    finenessRangePermille: pair(0, 1000, " ‰").optional(),
-    goldDensity: number().gt(1, "Above 1 g/cm³.").max(GOLD_DENSITY, "At most 19.32 g/cm³ (pure gold).").optional(),
-    airBuoyancyCorrection: z.boolean({ error: "Give true or false." }).optional(),
-  })
+  .object(
+    {
+      method: z.enum(["hanging", "buoyancy"], { error: "Choose hanging or buoyancy." }),
+      airGrams: readings,
+      waterGrams: readings,
+      scaleResolutionGrams: number().positive("Must be more than zero.").max(MAX_STEP_GRAMS, `At most ${MAX_STEP_GRAMS} g.`).optional(),
+      scaleAccuracyGrams: between(0, MAX_STEP_GRAMS, " g").optional(),
+      waterTempC: between(0, 40, " °C").optional(),
+      waterTempToleranceC: between(0, 20, " °C").optional(),
+      hostDensity: number().gt(1, "Above 1 g/cm³.").lt(GOLD_DENSITY, "Below pure gold's 19.32 g/cm³.").optional(),
+      hostDensityRange: pair(1, GOLD_DENSITY, " g/cm³").optional(),
+      finenessPermille: number().gt(0, "Above 0 ‰.").max(1000, "At most 1000 ‰.").optional(),
+      finenessRangePermille: pair(0, 1000, " ‰").optional(),
+      goldDensity: number().gt(1, "Above 1 g/cm³.").max(GOLD_DENSITY, "At most 19.32 g/cm³ (pure gold).").optional(),
+      airBuoyancyCorrection: z.boolean({ error: "Give true or false." }).optional(),
+    },
+    { error: objectError("the weighing") },
+  )
   .strict();
 
 export type SpecimenInputData = z.infer<typeof specimenInputSchema>;

@@ -1,5 +1,8 @@
 // The estimate's defaults and limits, apart from the engine: forms and the scale list read
 // them without loading the estimate itself.
+import { FINENESS_PRESETS } from "./presets";
+
+const NATURAL = FINENESS_PRESETS.find((p) => p.id === "natural")!;
 
 export const DEFAULTS = {
   scaleResolutionGrams: 0.01,
@@ -9,11 +12,10 @@ export const DEFAULTS = {
   /** Default host span: ±2 % around the chosen density (our choice; quartz with a little
    *  iron oxide or mica spans about this much, Holland & Powell ds62 quartz 2.648). */
   hostRelativeSpan: 0.02,
-  /** With no fineness given, natural gold of unknown fineness: 700–950 ‰, centred on 825 (the
-   *  "natural" preset: Lindgren, USGS PP 73, 1911; Macdonald 2007, Table 1.7). Pure gold would
-   *  flatter every specimen whose gold is an alloy, as natural gold is. */
-  finenessPermille: 825,
-  finenessRangePermille: [700, 950],
+  /** With no fineness given, natural gold of unknown fineness (the "natural" preset, and its
+   *  sources): pure gold would flatter every specimen whose gold is an alloy, as natural gold is. */
+  finenessPermille: NATURAL.fineness,
+  finenessRangePermille: NATURAL.range,
 } as const;
 
 /** The heaviest reading taken as a specimen weighing (a 100 kg scale); beyond it, a typing slip. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { finenessAtDensity } from "./alloy";
-import { estimateSpecimen, EstimateInputError, goldAlloyDensity, type SpecimenInput } from "./index";
+import { estimateSpecimen, EstimateInputError, estimateSpecimenMonteCarlo, goldAlloyDensity, type SpecimenInput } from "./index";
 import { composeSpecimen, roundToStep } from "./test-specimen";
 import { seededRandom } from "./uncertainty";
 
@@ -176,37 +176,49 @@ describe("a specimen is never denser than its gold", () => {
     }
   });
 
-  it("refuses readings denser than the finest gold allowed, naming the fineness", () => {
+  it("holds readings denser than the finest gold allowed at that finest gold, and says so", () => {
     // About 19.0 g/cm³ read to 0.01 g: at least 18.85, above 950 ‰ gold's 18.54.
     const water = 100 - 99.7007 / (19 - 0.0012);
-    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water], ...natural })).toMatchObject({
-      code: "denser_than_alloy",
-      field: "finenessRangePermille",
-    });
-    // A finer gold allows it.
-    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water], finenessRangePermille: [950, 1000] })).toBeUndefined();
-    // With no fineness given, the message says what was assumed, not what "you allowed".
-    expect(refusal({ method: "hanging", airGrams: [100], waterGrams: [water] })?.message).toMatch(
-      /the finest of natural gold \(700–950 ‰\), assumed when no fineness is given/,
-    );
+    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [water], ...natural });
+    expect(e.assumptions.finenessRangePermille).toEqual([950, 950]);
+    expect(e.goldMassPercent).toBe(100);
+    expect(e.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(["denser_than_alloy"]));
+    expect(e.warnings.map((w) => w.code)).not.toContain("fineness_narrowed");
+    expect(e.warnings.map((w) => w.code)).not.toContain("value_not_centred");
+    // A finer gold takes it as it stands.
+    const finer = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [water], finenessRangePermille: [950, 1000] });
+    expect(finer.warnings.map((w) => w.code)).toContain("fineness_narrowed");
   });
 
-  it("writes the lowest density and the alloy's apart, never the same figure twice", () => {
-    // The in-water reading where refusal begins (bisection): just past it, the lowest density
-    // equals 950 ‰ gold's 18.538 g/cm³.
-    const at = (water: number) => refusal({ method: "hanging", airGrams: [100], waterGrams: [water], ...natural });
-    let [accepted, refused] = [94, 95];
+  it("drops the off-centre note once the narrowing moves the centre", () => {
+    // 40 g of 930 ‰ gold given as 850 in 700–950: figured at the narrowed range's middle, and
+    // only the narrowing says so (the note "uses the middle, 825 ‰" would no longer be true).
+    const s = composeSpecimen({ goldGrams: 40, fineness: 930, hostGrams: 0, hostDensity: 2.65 });
+    const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], ...natural, finenessPermille: 850 });
+    const codes = e.warnings.map((w) => w.code);
+    expect(codes).toContain("fineness_narrowed");
+    expect(codes).not.toContain("value_not_centred");
+    const [lo, hi] = e.assumptions.finenessRangePermille;
+    expect(e.assumptions.finenessPermille).toBeCloseTo((lo + hi) / 2, 9);
+  });
+
+  it("writes the lowest density and pure gold's apart, never the same figure twice", () => {
+    // The in-water reading where refusal begins (bisection), for a large pure-gold piece on a
+    // milligram scale with no air correction: there the lowest density equals 19.32.
+    const at = (water: number) =>
+      refusal({ method: "hanging", airGrams: [200], waterGrams: [water], scaleResolutionGrams: 0.001, finenessPermille: 1000, airBuoyancyCorrection: false });
+    let [accepted, refused] = [189, 191];
     for (let i = 0; i < 60; i++) {
       const mid = (accepted + refused) / 2;
       if (at(mid)) refused = mid;
       else accepted = mid;
     }
-    // 0.0003 g past it: about 0.001 g/cm³ denser than the alloy, apart at three places.
+    // 0.0003 g past it: about 0.0005 g/cm³ denser than gold, apart at four places.
     const error = at(refused + 0.0003);
-    expect(error?.code).toBe("denser_than_alloy");
-    const [, atLeast, alloy] = /at least ([\d.]+) within.*\(([\d.]+) g\/cm³\), the finest/.exec(error!.message) ?? [];
-    expect(atLeast).not.toBe(alloy);
-    expect(Number(atLeast)).toBeGreaterThan(Number(alloy));
+    expect(error?.code).toBe("denser_than_gold");
+    const [, atLeast, gold] = /at least ([\d.]+) within.*\(([\d.]+)\)/.exec(error!.message) ?? [];
+    expect(atLeast).not.toBe(gold);
+    expect(Number(atLeast)).toBeGreaterThan(Number(gold));
   });
 });
 
@@ -224,8 +236,8 @@ describe("what the engine assumes when the input is silent", () => {
     expect(e.fineGoldGrams).toBeCloseTo(e.goldAlloyGrams * 0.8, 9);
   });
 
-  it("refuses an alloy density lighter than silver given with no fineness: no gold–silver alloy is that light", () => {
-    for (const goldDensity of [8.96, 10, 10.49]) {
+  it("refuses an alloy density given with no fineness that no gold–silver alloy with gold in it has", () => {
+    for (const goldDensity of [8.96, 10, 10.49, 10.4900001]) {
       expect(refusal({ method: "hanging", airGrams: [50], waterGrams: [40], goldDensity })).toMatchObject({
         code: "fineness_unknown",
         field: "finenessPermille",
@@ -235,10 +247,31 @@ describe("what the engine assumes when the input is silent", () => {
     }
   });
 
-  it("keeps every temperature the thermometer allows that the water formula knows", () => {
-    const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.5], waterTempC: 39, waterTempToleranceC: 5 });
+  it("keeps every temperature the thermometer allows that the water formula knows in the worst case", () => {
+    // Only the temperature uncertain: exact readings, one host density, one fineness; about 2.72 g/cm³.
+    const input: SpecimenInput = {
+      method: "hanging",
+      airGrams: [100],
+      waterGrams: [63.5],
+      waterTempC: 39,
+      waterTempToleranceC: 5,
+      scaleResolutionGrams: 1e-9,
+      scaleAccuracyGrams: 0,
+      hostDensity: 2.65,
+      hostDensityRange: [2.65, 2.65],
+      finenessPermille: 1000,
+    };
+    const e = estimateSpecimen(input);
     expect(e.assumptions.waterTempC).toBe(39);
     expect(e.assumptions.waterTempRangeC).toEqual([34, 40]);
+    // The worst case reaches 34 °C (water denser than at 38, so less volume, less gold)…
+    const at34 = estimateSpecimen({ ...input, waterTempC: 34, waterTempToleranceC: 0 });
+    expect(e.range.goldAlloyGrams[0]).toBeLessThanOrEqual(at34.range.goldAlloyGrams[0]);
+    // …while the headline, the ± and Monte Carlo rest on one distribution centred on 39 (38–40).
+    const mc = estimateSpecimenMonteCarlo(input, 20000, 3);
+    expect(e.goldAlloyGrams).toBeGreaterThan(0);
+    expect(Math.abs(mc.alloy.mean - e.goldAlloyGrams)).toBeLessThan(0.1 * e.standardUncertainty.goldAlloyGrams);
+    expect(mc.alloy.sd / e.standardUncertainty.goldAlloyGrams).toBeCloseTo(1, 1);
     const low = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.5], waterTempC: 1, waterTempToleranceC: 2 });
     expect(low.assumptions.waterTempRangeC).toEqual([0, 3]);
   });

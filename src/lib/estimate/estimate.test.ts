@@ -81,24 +81,18 @@ describe("estimateSpecimen — honest about what it cannot tell", () => {
   it("says when gold cannot be told from none", () => {
     expect(codes({ ...base, waterGrams: [62.4] })).toContain("gold_not_distinguishable");
   });
-  it("refuses a specimen denser than the chosen alloy even at the lightest the readings allow", () => {
-    // Pure gold with a little quartz (about 18.8 g/cm³) against gold of 700 ‰ (15.43 g/cm³).
+  it("holds a specimen denser than the finest gold allowed at all gold of that fineness, and says so", () => {
+    // Pure gold with a little quartz (about 18.8 g/cm³) against gold of 700 ‰ (15.42 g/cm³): the
+    // fineness assumption is wrong, as a host lighter than the specimen makes the host's wrong.
     const s = composeSpecimen({ goldGrams: 50, fineness: 1000, hostGrams: 0.5, hostDensity: 2.65 });
-    const refused = () => estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessPermille: 700 });
-    expect(refused).toThrow(EstimateInputError);
-    expect(refused).toThrow(/denser than gold of 700 ‰ \(15\.42 g\/cm³\), the finest you allowed/);
-    try {
-      refused();
-    } catch (error) {
-      expect(error).toMatchObject({ code: "denser_than_alloy", field: "finenessPermille" });
+    for (const given of [{ finenessPermille: 700 }, { finenessRangePermille: [700, 900] as [number, number] }, { goldDensity: 15.5 }]) {
+      const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], ...given });
+      expect(e.goldMassPercent, JSON.stringify(given)).toBe(100);
+      expect(e.warnings.map((w) => w.code)).toContain("denser_than_alloy");
     }
-    // Given as a range, the range is the field at fault; given as an alloy density, that is.
-    expect(() => estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessRangePermille: [700, 900] })).toThrow(
-      expect.objectContaining({ field: "finenessRangePermille" }),
-    );
-    expect(() => estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], goldDensity: 15.5 })).toThrow(
-      expect.objectContaining({ code: "denser_than_alloy", field: "goldDensity" }),
-    );
+    const e = estimateSpecimen({ method: "hanging", airGrams: [s.air], waterGrams: [s.hangingWater], finenessRangePermille: [700, 900] });
+    expect(e.assumptions.finenessRangePermille).toEqual([900, 900]);
+    expect(e.fineGoldGrams).toBeCloseTo(e.goldAlloyGrams * 0.9, 9);
   });
   it("caps a specimen denser than the chosen alloy within the scale's accuracy, and says so", () => {
     // All gold of 700 ‰, read 0.01 g heavy under water: a little denser than the alloy, within ± 0.02 g.

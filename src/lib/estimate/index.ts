@@ -1,4 +1,5 @@
-import { centralPoint, resolveSpecimen } from "./input";
+import { centralPoint } from "./input";
+import { resolveSpecimen } from "./possible";
 import { evaluateModel } from "./model";
 import { searchRange } from "./range";
 import type { SpecimenEstimate, SpecimenInput } from "./types";
@@ -37,7 +38,7 @@ export function estimateSpecimen(input: SpecimenInput): SpecimenEstimate {
       scaleResolutionGrams: r.resolution,
       scaleAccuracyGrams: r.accuracy,
       waterTempC: r.tempC.value,
-      waterTempRangeC: [r.tempC.lo, r.tempC.hi],
+      waterTempRangeC: r.tempRange,
       hostDensity: r.host.value,
       hostDensityRange: [r.host.lo, r.host.hi],
       finenessPermille: r.fineness.value,

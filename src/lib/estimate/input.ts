@@ -10,9 +10,7 @@ export { DEFAULTS, defaultScaleAccuracy, MAX_READING_GRAMS, MAX_STEP_GRAMS };
 /**
  * An uncertain input: its central value, its extremes, and its standard uncertainty (k = 1).
  * Every assumption is rectangular over [lo, hi] and its value is the centre of that range, so
- * the headline, the standard uncertainty and Monte Carlo all stand on one distribution. The
- * water temperature alone may sit off the centre: its range is cut where the water-density
- * formula ends (0 and 40 °C), and the thermometer's reading stays the value.
+ * the headline, the standard uncertainty and Monte Carlo all stand on one distribution.
  */
 export type Quantity = { value: number; lo: number; hi: number; u: number };
 
@@ -44,7 +42,9 @@ export type ResolvedInput = {
   fineness: Quantity;
   /** The lowest and highest specimen density the readings allow (every reading and temperature at either end). */
   density: [number, number];
-  /** The temperatures the range search tries: the ends, and 3.98 °C where the span holds it. */
+  /** Every temperature the thermometer allows that the water formula knows (0–40 °C): the worst case's span. */
+  tempRange: [number, number];
+  /** The temperatures the range search tries: the ends of tempRange, and 3.98 °C where it holds it. */
   temps: number[];
   notCentred: NotCentred[];
   finenessNarrowed: FinenessNarrowed | null;
@@ -112,7 +112,7 @@ function readingQuantity(readings: number[], resolution: number, accuracy: numbe
   return { value: mean, lo: mean - half, hi: mean + half, u: Math.sqrt(uScale * uScale + sdMean * sdMean), readings, bound, uScale, uRepeat: sdMean };
 }
 
-function rectangular(value: number, lo: number, hi: number): Quantity {
+export function rectangular(value: number, lo: number, hi: number): Quantity {
   return { value, lo, hi, u: (hi - lo) / (2 * SQRT3) };
 }
 
@@ -150,11 +150,12 @@ function defaultFineness(goldDensity: number | undefined): Quantity {
   if (goldDensity === undefined || !Number.isFinite(goldDensity) || goldDensity <= 1) {
     return rectangular(DEFAULTS.finenessPermille, ...DEFAULTS.finenessRangePermille);
   }
-  if (goldDensity <= SILVER_DENSITY) {
+  // Below 1 ‰ a gold–silver alloy is silver: no fineness to speak of.
+  if (finenessAtDensity(goldDensity) < 1) {
     fail(
       "fineness_unknown",
       "finenessPermille",
-      `No gold–silver alloy is as light as ${goldDensity} g/cm³ (silver alone is ${SILVER_DENSITY}), so its fineness cannot be worked out from it: give the gold's fineness too.`,
+      `A gold–silver alloy of ${goldDensity} g/cm³ holds next to no gold (silver alone is ${SILVER_DENSITY}), so its fineness cannot be worked out from it: give the gold's fineness too.`,
     );
   }
   const f = Math.min(1000, finenessAtDensity(goldDensity));
@@ -197,12 +198,13 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
   if (!Number.isFinite(tol) || tol < 0 || tol > 20) {
     fail("tolerance_invalid", "waterTempToleranceC", "Temperature tolerance must be between 0 and 20 °C.");
   }
-  // Cut only where the water-density formula ends (0 and 40 °C): 39 ± 5 °C is 34–40 °C, every
-  // temperature the thermometer allows that the formula knows. The reading stays the best
-  // estimate, with u from the bounds' width (JCGM 100:2008, 4.3.8, bounds asymmetric about it).
-  const tempLo = Math.max(WATER_TEMP_MIN_C, t - tol);
-  const tempHi = Math.min(WATER_TEMP_MAX_C, t + tol);
-  const tempC = { ...rectangular(t, tempLo, tempHi), value: t };
+  // The headline, the standard uncertainty and Monte Carlo take the temperature rectangular
+  // and centred on the reading, narrowed alike on both sides where the water-density formula
+  // ends (0 and 40 °C). The worst case takes every temperature the thermometer allows that the
+  // formula knows: 39 ± 5 °C is 34–40 °C there.
+  const tolInDomain = Math.min(tol, t - WATER_TEMP_MIN_C, WATER_TEMP_MAX_C - t);
+  const tempC = rectangular(t, t - tolInDomain, t + tolInDomain);
+  const tempRange: [number, number] = [Math.max(WATER_TEMP_MIN_C, t - tol), Math.min(WATER_TEMP_MAX_C, t + tol)];
 
   const notCentred: NotCentred[] = [];
   const f = input.finenessPermille;
@@ -243,8 +245,8 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
   }
 
   const settings: ModelSettings = { method: input.method, goldDensity, airCorrection: input.airBuoyancyCorrection !== false };
-  const temps = [tempC.lo, tempC.hi];
-  if (tempC.lo < WATER_DENSEST_C && WATER_DENSEST_C < tempC.hi) temps.push(WATER_DENSEST_C);
+  const temps = [...tempRange];
+  if (tempRange[0] < WATER_DENSEST_C && WATER_DENSEST_C < tempRange[1]) temps.push(WATER_DENSEST_C);
 
   return {
     settings,
@@ -256,22 +258,11 @@ export function resolveInput(input: SpecimenInput): ResolvedInput {
     host,
     fineness,
     density: densityRange(air, water, temps, settings),
+    tempRange,
     temps,
     notCentred,
     finenessNarrowed: null,
   };
-}
-
-/**
- * A specimen's input, resolved for its gold: as resolveInput, then held to what a specimen
- * can be (possibleFineness). A density measurement (a setup check, barren rock) has no gold
- * and uses resolveInput alone.
- */
-export function resolveSpecimen(input: SpecimenInput): ResolvedInput {
-  const r = resolveInput(input);
-  const assumed = input.finenessPermille === undefined && input.finenessRangePermille === undefined && input.goldDensity === undefined;
-  const narrowed = possibleFineness(r, input.finenessRangePermille ? "finenessRangePermille" : "finenessPermille", assumed);
-  return narrowed ? { ...r, fineness: narrowed.fineness, finenessNarrowed: narrowed.note } : r;
 }
 
 /** The lightest and densest the specimen can be: its density at every corner of readings and temperature. */
@@ -295,62 +286,6 @@ function densityRange(air: Reading, water: Reading, temps: number[], s: ModelSet
     }
   }
   return [lo, hi];
-}
-
-const twoPlaces = (n: number) => n.toFixed(2);
-
-/** Two densities written to as many places (2 to 4) as tell them apart: "at least 18.543" beside "18.538", not 18.54 twice. */
-function apart(a: number, b: number): [string, string] {
-  for (let places = 2; places < 4; places++) if (a.toFixed(places) !== b.toFixed(places)) return [a.toFixed(places), b.toFixed(places)];
-  return [a.toFixed(4), b.toFixed(4)];
-}
-
-/**
- * A specimen is never denser than its densest part, the gold alloy. Denser than pure gold, or
- * than the finest alloy allowed, even at the lightest the readings allow: the readings (or the
- * fineness) are wrong, and no figure is given. Otherwise the finenesses whose alloy is lighter
- * than that lightest specimen are impossible, and the range keeps only the rest, re-centred:
- * a specimen of 18 g/cm³ holds gold of at least 913 ‰, whatever "natural gold" allowed.
- */
-function possibleFineness(r: ResolvedInput, finenessField: keyof SpecimenInput, assumed: boolean): { fineness: Quantity; note: FinenessNarrowed } | null {
-  const { settings: s, fineness } = r;
-  const lightest = r.density[0];
-  const central = () => twoPlaces(weighSpecimen(r.air.value, r.water.value, s, waterDensity(r.tempC.value)).density);
-  if (lightest > GOLD_DENSITY) {
-    fail(
-      "denser_than_gold",
-      "waterGrams",
-      `These readings make the specimen ${central()} g/cm³, and at least ${twoPlaces(lightest)} within the scale's accuracy: denser than pure gold (${GOLD_DENSITY}). Re-check the readings and the tare.`,
-    );
-  }
-  if (s.goldDensity !== undefined) {
-    if (lightest > s.goldDensity) {
-      fail(
-        "denser_than_alloy",
-        "goldDensity",
-        `These readings make the specimen ${central()} g/cm³, and at least ${twoPlaces(lightest)} within the scale's accuracy: denser than the gold alloy you gave (${s.goldDensity} g/cm³). Re-check the readings and the tare, or the alloy's density.`,
-      );
-    }
-    return null;
-  }
-  const finest = goldAlloyDensity(fineness.hi);
-  if (lightest > finest) {
-    const [atLeast, alloy] = apart(lightest, finest);
-    const allowed = assumed
-      ? "the finest of natural gold (700–950 ‰), assumed when no fineness is given. Re-check the readings and the tare, or give the gold's fineness."
-      : "the finest you allowed. Re-check the readings and the tare, or choose a finer gold (an assay's fineness, if you have one).";
-    fail(
-      "denser_than_alloy",
-      finenessField,
-      `These readings make the specimen ${central()} g/cm³, and at least ${atLeast} within the scale's accuracy: denser than gold of ${Math.round(fineness.hi)} ‰ (${alloy} g/cm³), ${allowed}`,
-    );
-  }
-  const floor = Math.min(finenessAtDensity(lightest), fineness.hi);
-  if (floor <= fineness.lo) return null;
-  return {
-    fineness: rectangular((floor + fineness.hi) / 2, floor, fineness.hi),
-    note: { given: [fineness.lo, fineness.hi], used: [floor, fineness.hi], densityLow: lightest },
-  };
 }
 
 export const QUANTITY_KEYS = ["air", "water", "tempC", "host", "fineness"] as const satisfies readonly (keyof ModelPoint)[];
