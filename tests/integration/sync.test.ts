@@ -1,6 +1,7 @@
 import Database from "better-sqlite3";
 import { v7 as uuidv7 } from "uuid";
 import { beforeEach, describe, expect, it, vi } from "vitest";
+import { estimateSpecimen } from "@/lib/estimate";
 import { ENGINE_VERSION } from "@/lib/estimate/version";
 import type { Db } from "@/server/db";
 import { databaseChecksum, MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, OTHER_MEMBER_EMAIL, seededDatabase, sessionCookie } from "../support/test-db";
@@ -319,6 +320,24 @@ describe("weigh-ins", () => {
     expect(JSON.parse(row.s).engineVersion).toBe(ENGINE_VERSION);
     expect(JSON.parse(row.d).engineVersion).toBe("1.0.0");
     expect(row.mismatch).toBe(1);
+  });
+
+  it("take a nugget denser than its preset's finest gold, as an older engine saved it, held and warned", async () => {
+    // About 18.9 g/cm³ (a 970 ‰ nugget) weighed under "natural gold" (700–950 ‰): engine 2.0.0
+    // held it at all gold; the current engine does too, so the push is never refused for it.
+    const f = newFind();
+    const w = newWeighIn(f.id);
+    const input = { ...w.input, airGrams: [100], waterGrams: [94.71] };
+    const older = { ...estimateSpecimen(input), engineVersion: "2.0.0" };
+    const res = await push(member, uuidv7(), [
+      { id: 1, name: "find.put", args: f },
+      { id: 2, name: "weighIn.put", args: { ...w, input, deviceEstimate: older } },
+    ]);
+    expect(res.body.results?.map((r: { status: string }) => r.status)).toEqual(["applied", "applied"]);
+    const row = db.$client.prepare("select server_estimate s from weigh_ins where id = ?").get(w.id) as { s: string };
+    const server = JSON.parse(row.s);
+    expect(server.goldMassPercent).toBe(100);
+    expect(server.warnings.map((x: { code: string }) => x.code)).toContain("denser_than_alloy");
   });
 
   it("go with their find when it comes in the same push, and not after it was deleted in that push", async () => {
