@@ -31,6 +31,16 @@ describe("the estimate panel", () => {
     expect(document.body.textContent).toMatch(/all at their\s+worst at once/);
   });
 
+  it("gives no ± around a figure held at no gold, and says why", () => {
+    // 100.00 g in air, 62.20 g in water: 2.64 g/cm³, within quartz's 2.62–2.68, held at 0.
+    const held = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [62.2], hostDensity: 2.65, hostDensityRange: [2.62, 2.68] });
+    expect(held.goldAlloyGrams).toBe(0);
+    render(<EstimatePanel estimate={held} unit="g" onUnitChange={() => {}} />);
+    expect(screen.getByTestId("fine-range").textContent).toMatch(/^at worst 0\.\d+ g – \d+\.\d+ g$/);
+    expect(screen.getByTestId("spread-explained").textContent).toMatch(/^No ± here: the figure is held at no gold/);
+    expect(document.body.textContent).not.toMatch(/± [\d.]+ g · at worst/);
+  });
+
   it("words every warning from its code and numbers", () => {
     const clamped = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [60.85] });
     render(<EstimatePanel estimate={clamped} unit="g" onUnitChange={() => {}} />);

@@ -50,9 +50,12 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
         <p className="figure" data-testid="fine-range">
           {spreadText(estimate.fineGoldGrams, u.fineGoldGrams, [fLo, fHi], fine, held)}
         </p>
-        <p className="mt-1 text-xs text-ink-soft">
-          ± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it. “At worst” is the lowest and highest your readings
-          and assumptions allow — scale, water temperature, host rock and fineness all at their worst at once.
+        <p className="mt-1 text-xs text-ink-soft" data-testid="spread-explained">
+          {held
+            ? "No ± here: the figure is held at no gold or at the whole specimen, and a ± would reach past it."
+            : "± is one standard uncertainty: the gold is about twice as likely to lie within it as outside it."}{" "}
+          “At worst” is the lowest and highest your readings and assumptions allow — scale, water temperature, host rock and fineness all at their worst at
+          once.
         </p>
       </div>
 
