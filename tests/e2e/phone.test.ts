@@ -67,6 +67,19 @@ describe("the phone in the field (issue 19)", () => {
     expect(await page.evaluate(() => (performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming).type)).not.toBe("reload");
     await context.close();
   });
+  it("keeps quick find's Save in sight above the tab bar, however long the form runs", async () => {
+    const { context } = await launchPersistent(undefined, PHONE);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await page.goto(`${baseUrl}/finds/new`);
+    const save = page.getByRole("button", { name: "Save the find" });
+    await save.waitFor();
+    const tabBar = await page.getByRole("navigation", { name: "Field" }).boundingBox();
+    const box = await save.boundingBox();
+    expect(box!.y).toBeGreaterThanOrEqual(0);
+    expect(box!.y + box!.height).toBeLessThanOrEqual(tabBar!.y);
+    await context.close();
+  });
   it("reaches every member screen from the tab bar, and none scrolls sideways at 320, 360, 390 or 430 px, absurd numbers included", async () => {
     const { context } = await launchPersistent(undefined, PHONE);
     const page = await firstPage(context);

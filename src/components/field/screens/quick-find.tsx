@@ -121,7 +121,8 @@ export function QuickFindScreen() {
         <p className="text-sm text-ink-soft">You can also set the spot later, from a photo or on the map.</p>
       </section>
 
-      <button type="submit" className="btn btn-primary min-h-[60px] text-xl" disabled={saving}>
+      {/* Held above the tab bar while the form runs on below it: one thumb, one tap, whatever the screen's height. */}
+      <button type="submit" className="btn btn-primary sticky bottom-16 z-10 min-h-[60px] text-xl shadow-lg md:bottom-2" disabled={saving}>
         {saving ? "Saving…" : "Save the find"}
       </button>
       {outing && <p className="text-sm text-ink-soft">It goes with today&apos;s outing.</p>}
