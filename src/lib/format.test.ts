@@ -34,7 +34,7 @@ describe("an estimate's spread in words", () => {
   const spread = (waterGrams: number) => {
     // 100 g in quartz of 2.62–2.68 g/cm³: 62.5 g hung in water is 2.67 g/cm³, 62.2 g 2.64, 61.0 g 2.56.
     const e = estimateSpecimen({ method: "hanging", airGrams: [100], waterGrams: [waterGrams], hostDensity: 2.65, hostDensityRange: [2.62, 2.68] });
-    return { e, text: spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show, heldAtAnEnd(e)) };
+    return { e, text: spreadText(e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show, heldAtAnEnd(e)) };
   };
 
   it("gives the ± and the worst case around some gold, even where the ± reaches past the worst case's low end", () => {
@@ -69,7 +69,7 @@ describe("an estimate's spread in words", () => {
     const [low, high] = e.range.fineGoldGrams;
     expect(e.fineGoldGrams + e.standardUncertainty.fineGoldGrams > high || e.fineGoldGrams - e.standardUncertainty.fineGoldGrams < low).toBe(true);
     expect(e.goldMassPercent).toBe(100);
-    expect(spreadText(e.fineGoldGrams, e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show, heldAtAnEnd(e))).toMatch(/^at worst /);
+    expect(spreadText(e.standardUncertainty.fineGoldGrams, e.range.fineGoldGrams, show, heldAtAnEnd(e))).toMatch(/^at worst /);
   });
 
   it("says none when even the worst case holds no gold", () => {

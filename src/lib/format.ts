@@ -49,7 +49,7 @@ export function heldAtAnEnd(e: Pick<SpecimenEstimate, "goldAlloyGrams" | "goldMa
  * the worst, that alone; around a figure held at no gold or at the whole specimen, the worst
  * case alone (a ± there would reach below nothing, or past the specimen).
  */
-export function spreadText(value: number, uncertainty: number, [low, high]: readonly [number, number], show: (grams: number) => string, held: boolean): string {
+export function spreadText(uncertainty: number, [low, high]: readonly [number, number], show: (grams: number) => string, held: boolean): string {
   if (high <= 0) return "none, even with every reading and assumption at its worst";
   const worst = `at worst ${show(low)} – ${show(high)}`;
   return held ? worst : `± ${show(uncertainty)} · ${worst}`;

@@ -71,7 +71,7 @@ function WeighInLines({ w, timeZone }: { w: FindDetail["weighIns"][number]; time
       </p>
       <p className="font-bold tabular-nums">
         Server recomputation: {formatGrams(server.fineGoldGrams, "g", u)} fine (
-        {spreadText(server.fineGoldGrams, u, server.range.fineGoldGrams, (g) => formatGrams(g, "g", u), heldAtAnEnd(server))}), {engineLabel(w.engineVersion)}
+        {spreadText(u, server.range.fineGoldGrams, (g) => formatGrams(g, "g", u), heldAtAnEnd(server))}), {engineLabel(w.engineVersion)}
       </p>
       <ScaleMark w={w} timeZone={timeZone} />
       {w.mismatch && (

@@ -48,7 +48,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           {fine(estimate.fineGoldGrams)}
         </p>
         <p className="figure" data-testid="fine-range">
-          {spreadText(estimate.fineGoldGrams, u.fineGoldGrams, [fLo, fHi], fine, held)}
+          {spreadText(u.fineGoldGrams, [fLo, fHi], fine, held)}
         </p>
         <p className="mt-1 text-xs text-ink-soft" data-testid="spread-explained">
           {held
@@ -65,7 +65,7 @@ export function EstimatePanel({ estimate, unit, onUnitChange }: Props) {
           <dd className="figure font-bold" data-testid="alloy-gold">
             {alloy(estimate.goldAlloyGrams)}
           </dd>
-          <dd className="figure text-ink-soft">{spreadText(estimate.goldAlloyGrams, u.goldAlloyGrams, [aLo, aHi], alloy, held)}</dd>
+          <dd className="figure text-ink-soft">{spreadText(u.goldAlloyGrams, [aLo, aHi], alloy, held)}</dd>
         </div>
         <div>
           <dt className="text-ink-soft">Gold by weight</dt>

@@ -67,7 +67,7 @@ function barSpread(e: SpecimenEstimate, unit: MassUnit): string {
   const u = e.standardUncertainty.fineGoldGrams;
   const show = (g: number) => formatGrams(g, unit, u);
   const held = heldAtAnEnd(e);
-  return held || e.range.fineGoldGrams[1] <= 0 ? spreadText(e.fineGoldGrams, u, e.range.fineGoldGrams, show, held) : `± ${show(u)}`;
+  return held || e.range.fineGoldGrams[1] <= 0 ? spreadText(u, e.range.fineGoldGrams, show, held) : `± ${show(u)}`;
 }
 
 function airEffectText({ correctedGrams, textbookGrams }: AirEffect, unit: MassUnit): string {

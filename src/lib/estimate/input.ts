@@ -150,15 +150,15 @@ function defaultFineness(goldDensity: number | undefined): Quantity {
   if (goldDensity === undefined || !Number.isFinite(goldDensity) || goldDensity <= 1) {
     return rectangular(DEFAULTS.finenessPermille, ...DEFAULTS.finenessRangePermille);
   }
+  const f = Math.min(1000, finenessAtDensity(goldDensity));
   // Below 1 ‰ a gold–silver alloy is silver: no fineness to speak of.
-  if (finenessAtDensity(goldDensity) < 1) {
+  if (f < 1) {
     fail(
       "fineness_unknown",
       "finenessPermille",
       `A gold–silver alloy of ${goldDensity} g/cm³ holds next to no gold (silver alone is ${SILVER_DENSITY}), so its fineness cannot be worked out from it: give the gold's fineness too.`,
     );
   }
-  const f = Math.min(1000, finenessAtDensity(goldDensity));
   return rectangular(f, f, f);
 }
 

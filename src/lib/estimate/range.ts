@@ -10,7 +10,7 @@ export type Ranges = { alloy: Pair; fine: Pair; density: Pair };
 /**
  * The lowest and highest gold over the whole input box: every reading at either end, the
  * water temperature, the host density and the fineness (only the finenesses the readings leave
- * possible: see possibleFineness in input.ts).
+ * possible: see resolveSpecimen in possible.ts).
  *
  * The mixture formula before it is held to [0, mass] is monotonic in each input with the
  * others fixed (linear in the readings; in the host's density its sign follows ρs − ρg; in the

@@ -1,7 +1,7 @@
 import Papa from "papaparse";
 import { withoutBidiControls } from "./controls";
 
-export { controlsMarked, withoutBidiControls } from "./controls";
+export { withoutBidiControls } from "./controls";
 
 /**
  * A cell a spreadsheet would run as a formula: it starts with = + - @, a tab or a carriage
