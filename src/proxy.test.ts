@@ -8,8 +8,8 @@ import { config, proxy } from "./proxy";
 // (The front door, scripts/serve.mjs, refuses oversize and unknown-length ones before this;
 // a browser test sends all of them to the real server: tests/e2e/front-door.test.ts.)
 const site = "http://localhost:3000";
-const post = (headers: Record<string, string>, path = "/sign-in") =>
-  proxy(new NextRequest(`${site}${path}`, { method: "POST", headers: { "next-action": "7f00", "content-type": "text/plain", ...headers } }));
+const post = (headers: Record<string, string>, path = "/sign-in", body = '[{},"$K1"]') =>
+  proxy(new NextRequest(`${site}${path}`, { method: "POST", headers: { "next-action": "7f00", "content-type": "text/plain", ...headers }, body }));
 
 describe("what the proxy sees (its matcher)", () => {
   const matches = (url: string, headers: Record<string, string> = {}) => unstable_doesMiddlewareMatch({ config, url, headers });
@@ -37,27 +37,35 @@ describe("form posts to pages (server actions)", () => {
       { "sec-fetch-site": "cross-site" },
       { origin: "http://localhost:3000.evil.example" },
     ]) {
-      const res = post(headers);
+      const res = await post(headers);
       expect(res.status, JSON.stringify(headers)).toBe(403);
       expect((await res.json()).error.code).toBe("forbidden:origin");
     }
   });
 
-  it("lets the app's own posts through: same origin, or none (a script, not a browser)", () => {
+  it("lets the app's own posts through: same origin, or none (a script, not a browser)", async () => {
     for (const headers of <Record<string, string>[]>[{ origin: site, "sec-fetch-site": "same-origin" }, {}]) {
-      expect(post(headers).headers.get("x-middleware-next")).toBe("1");
+      expect((await post(headers)).headers.get("x-middleware-next")).toBe("1");
     }
+  });
+
+  it("refuses a body React could not decode with 400 and what is wrong, before Next reads it", async () => {
+    const res = await post({ origin: site }, "/sign-in", "[{},");
+    expect(res.status).toBe(400);
+    expect((await res.json()).error).toEqual({ code: "bad_request:action_body", message: "The action's arguments could not be read: it is not JSON." });
+    // Another site's call is refused for its origin first, whatever its body.
+    expect((await post({ origin: "https://evil.example" }, "/sign-in", "[{},")).status).toBe(403);
   });
 });
 
 describe("the officers' console without a session", () => {
-  it("redirects to sign-in with where it came from, and lets a session through", () => {
-    const anonymous = proxy(new NextRequest(`${site}/club/ledger`));
+  it("redirects to sign-in with where it came from, and lets a session through", async () => {
+    const anonymous = await proxy(new NextRequest(`${site}/club/ledger`));
     expect(anonymous.status).toBe(307);
     expect(anonymous.headers.get("location")).toBe(`${site}/sign-in?from=%2Fclub%2Fledger`);
-    const signedIn = proxy(new NextRequest(`${site}/club/ledger`, { headers: { cookie: "authjs.session-token=x" } }));
+    const signedIn = await proxy(new NextRequest(`${site}/club/ledger`, { headers: { cookie: "authjs.session-token=x" } }));
     expect(signedIn.headers.get("x-middleware-next")).toBe("1");
     // A member screen posting its own form is not sent to sign-in here.
-    expect(post({ origin: site }, "/finds").headers.get("x-middleware-next")).toBe("1");
+    expect((await post({ origin: site }, "/finds")).headers.get("x-middleware-next")).toBe("1");
   });
 });

@@ -1,17 +1,19 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { checkActionBody } from "./server/action-body";
 import { AppError } from "./server/errors";
 import { requireSameOrigin } from "./server/origin";
 
 // The console's pages go to sign-in without a session cookie; every page, handler and action
-// still checks the session and role itself. And a possible server action from another site is
-// refused here: Next refuses one itself, but with a 500.
+// still checks the session and role itself. And a possible server action from another site, or
+// one whose body React could not decode, is refused here: Next refuses those itself, but with a 500.
 const SESSION_COOKIES = ["__Secure-authjs.session-token", "authjs.session-token"];
 
-export function proxy(request: NextRequest) {
+export async function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
   if (request.method === "POST" && !pathname.startsWith("/api/")) {
     try {
       requireSameOrigin(request);
+      await checkActionBody(request);
     } catch (error) {
       if (!(error instanceof AppError)) throw error;
       return NextResponse.json(error.toJSON(), { status: error.status, headers: { "Cache-Control": "no-store" } });
