@@ -80,6 +80,40 @@ describe("the phone in the field (issue 19)", () => {
     expect(box!.y + box!.height).toBeLessThanOrEqual(tabBar!.y);
     await context.close();
   });
+  it("keeps a weigh-in's estimate bar and its Save above the tab bar in a find, and at the bottom on the stand-alone page", async () => {
+    const { context } = await launchPersistent(undefined, PHONE);
+    const page = await firstPage(context);
+    await signInToField(page, baseUrl);
+    await waitForSyncDone(page);
+    const viewport = page.viewportSize()!;
+    for (const path of [`/finds/view#id=${memberRecords().find}`, "/weigh"]) {
+      await page.goto(`${baseUrl}${path}`);
+      if (path !== "/weigh") await page.getByRole("button", { name: "Weigh this specimen" }).click();
+      await page.locator("#air-0").fill("20.00");
+      await page.locator("#water-0").fill("12.50");
+      const bar = page.getByTestId("estimate-bar");
+      await bar.waitFor();
+      // A reading brought into view from out of sight, as little as needed (as the browser does
+      // for a field the keyboard would cover), stops above the bar, not under it; the form runs
+      // on below, and the bar sticks at the bottom.
+      await page.evaluate(() => {
+        window.scrollTo(0, 0);
+        document.querySelector("#water-0")!.scrollIntoView({ block: "nearest" });
+      });
+      const box = (await bar.boundingBox())!;
+      const reading = (await page.locator("#water-0").boundingBox())!;
+      expect(reading.y + reading.height, path).toBeLessThanOrEqual(box.y);
+      const floor = path === "/weigh" ? viewport.height : (await page.getByRole("navigation", { name: "Field" }).boundingBox())!.y;
+      expect(box.y + box.height, path).toBeLessThanOrEqual(floor);
+      expect(box.y + box.height, path).toBeGreaterThan(floor - 24);
+      if (path !== "/weigh") {
+        const save = (await bar.getByRole("button", { name: "Save" }).boundingBox())!;
+        expect(save.y + save.height, path).toBeLessThanOrEqual(floor);
+      }
+    }
+    await context.close();
+  });
+
   it("reaches every member screen from the tab bar, and none scrolls sideways at 320, 360, 390 or 430 px, absurd numbers included", async () => {
     const { context } = await launchPersistent(undefined, PHONE);
     const page = await firstPage(context);

@@ -20,7 +20,8 @@ function Body({ children }: { children: React.ReactNode }) {
   return (
     <>
       <SiteHeader actor={state.status === "ready" ? state.member : null} />
-      <main className="mx-auto max-w-5xl px-3 pb-24 pt-4 md:pb-8">
+      {/* --tab-bar-room: what the phone's tab bar covers at the bottom, for what sticks there. */}
+      <main className="mx-auto max-w-5xl px-3 pb-24 pt-4 [--tab-bar-room:3.5rem] md:pb-8 md:[--tab-bar-room:0px]">
         {state.status === "ready" && path === "/" && (
           <Suspense fallback={null}>
             <StoragePrompt />

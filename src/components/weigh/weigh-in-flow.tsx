@@ -200,7 +200,10 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave, onCanc
       </form>
 
       {outcome.estimate && (
-        <div className="sheet sticky bottom-2 z-10 flex items-center justify-between gap-2 shadow-lg lg:hidden" data-testid="estimate-bar">
+        <div
+          className="sheet held-at-bottom sticky bottom-[calc(var(--tab-bar-room,0px)_+_0.5rem)] z-10 flex items-center justify-between gap-2 shadow-lg lg:hidden"
+          data-testid="estimate-bar"
+        >
           <a href="#estimate-title" className="figure flex flex-col font-bold no-underline" aria-label="Jump to the estimate">
             <span>Fine gold ≈ {formatGrams(outcome.estimate.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}</span>
             <span className="text-sm text-ink-soft" data-testid="estimate-bar-spread">

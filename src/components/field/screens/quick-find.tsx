@@ -122,7 +122,11 @@ export function QuickFindScreen() {
       </section>
 
       {/* Held above the tab bar while the form runs on below it: one thumb, one tap, whatever the screen's height. */}
-      <button type="submit" className="btn btn-primary sticky bottom-16 z-10 min-h-[60px] text-xl shadow-lg md:bottom-2" disabled={saving}>
+      <button
+        type="submit"
+        className="btn btn-primary held-at-bottom sticky bottom-[calc(var(--tab-bar-room,0px)_+_0.5rem)] z-10 min-h-[60px] text-xl shadow-lg"
+        disabled={saving}
+      >
         {saving ? "Saving…" : "Save the find"}
       </button>
       {outing && <p className="text-sm text-ink-soft">It goes with today&apos;s outing.</p>}
