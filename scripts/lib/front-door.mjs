@@ -23,11 +23,13 @@ export const LINGER_MS = 2000;
  * @param {import("node:http").ServerResponse} res
  */
 export function boundedLinger(req, res) {
+  // Taken now: a handler that stops reading a body part-way (over its limit) cancels the
+  // request's stream, and Node then lets go of `req.socket` (null) while the body still comes.
+  const socket = req.socket;
   res.once("finish", () => {
-    if (req.complete) return;
+    if (req.complete || !socket || socket.destroyed) return;
     // Node dumps an unread body once the answer is finished: its bytes no longer reach `req`,
     // so they are counted where they arrive, on the socket.
-    const socket = req.socket;
     let left = LINGER_BYTES;
     const stop = () => {
       clearTimeout(timer);

@@ -16,6 +16,8 @@ import { waitForMail } from "./support/pages";
 let baseUrl: string;
 let mailDir: string;
 let stop: () => Promise<void>;
+/** What the server wrote to its error stream (quiet: errors only). */
+const serverErrors: string[] = [];
 const MEMBER = "ines@quillmarsh.example";
 
 const freePort = () =>
@@ -52,6 +54,7 @@ beforeAll(async () => {
   process.env = saved;
   const mail = await startMailCatcher({ port: smtpPort, dir: mailDir });
   const app = await startApp({ port: appPort, env, quiet: true });
+  app.child.stderr?.on("data", (b: Buffer) => serverErrors.push(b.toString()));
   baseUrl = app.url;
   stop = async () => {
     await app.stop();
@@ -144,6 +147,34 @@ describe("the front door (RELIABILITY 32–34)", () => {
       r.write("{");
     });
     expect(status).toBe(413);
+  });
+
+  // A handler that stops reading part-way (the body ran over its limit while still coming)
+  // answers at once; the door then drains the rest for a moment and closes. Node had let go of
+  // the request's socket by then, and the door threw on it (twice, uncaught) and never closed.
+  it.each([
+    ["the estimate, anonymous", "/api/estimate", "application/json", 30_000],
+    ["the password sign-in, anonymous", "/api/auth/callback/credentials", "application/x-www-form-urlencoded", 10_000],
+  ])("a body refused part-way (%s) gets its 413, and the connection is closed soon after", async (_what, target, type, size) => {
+    const url = new URL(baseUrl);
+    const socket = net.connect(Number(url.port), url.hostname);
+    await once(socket, "connect");
+    let answer = "";
+    socket.on("data", (b: Buffer) => (answer += b.toString("latin1")));
+    const closed = new Promise<number>((resolve) => socket.once("close", () => resolve(Date.now())));
+    const errorsBefore = serverErrors.join("").length;
+    socket.write(`POST ${target} HTTP/1.1\r\nHost: ${url.host}\r\nContent-Type: ${type}\r\nTransfer-Encoding: chunked\r\n\r\n`);
+    socket.write(`${size.toString(16)}\r\n${"x".repeat(size)}\r\n`);
+    const started = Date.now();
+    // A slow client: a byte every 200 ms, the last chunk never sent.
+    const trickle = setInterval(() => socket.destroyed || socket.write("1\r\nx\r\n"), 200);
+    const at = await Promise.race([closed, new Promise<number>((r) => setTimeout(() => r(0), 10_000))]);
+    clearInterval(trickle);
+    socket.destroy();
+    expect(answer).toMatch(/^HTTP\/1\.1 413 /);
+    expect(at, "the server closed the connection").toBeGreaterThan(0);
+    expect(at - started).toBeLessThan(6_000);
+    expect(serverErrors.join("").slice(errorsBefore)).not.toMatch(/uncaught|TypeError/i);
   });
 
   it("a forged X-Forwarded-For does not give a caller fresh addresses: the socket's address is limited", async () => {
