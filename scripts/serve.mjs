@@ -11,7 +11,7 @@ import {
   answerBeforeReading,
   boundedLinger,
   dropForeignCallbackCookie,
-  dropRangeOutsideApi,
+  dropRangeAndPreconditionsOutsideApi,
   MAX_DECLARED_BODY_BYTES,
   refuseActionPost,
   refuseTarget,
@@ -48,7 +48,7 @@ const server = http.createServer((req, res) => {
     return;
   }
   settleForwardingHeaders(req, trustedProxies);
-  dropRangeOutsideApi(req);
+  dropRangeAndPreconditionsOutsideApi(req);
   dropForeignCallbackCookie(req, process.env.LODEBOOK_ORIGIN);
   const declared = Number(req.headers["content-length"] ?? 0);
   if (declared > MAX_DECLARED_BODY_BYTES) {

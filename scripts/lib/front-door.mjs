@@ -69,7 +69,9 @@ const routedPath = (req) => new URL(req.url ?? "/", "http://front.door").pathnam
  * - a path that is not valid percent-encoding ("%zz"): Next's router throws decoding it;
  * - an encoded slash or backslash in the path ("/api/..%2fsign-in"): Next's router decodes it
  *   into another path than the one this door and the proxy judged (a route handler's, say,
- *   where Next runs a page's server action). No address of the app needs one.
+ *   where Next runs a page's server action). No address of the app needs one;
+ * - Next's own error page asked for by its address ("/_global-error"), which it serves with
+ *   the 500 it is made for: there is no page there for a caller.
  *
  * @param {import("node:http").IncomingMessage} req
  * @returns {Refusal | null}
@@ -83,21 +85,23 @@ export function refuseTarget(req) {
   } catch {
     return { status: 400, code: "bad_request:path", message: "The path is not valid percent-encoding." };
   }
+  if (/^\/_global-error\/?$/.test(routedPath(req))) return { status: 404, code: "not_found:path", message: "There is no page at this address." };
   return null;
 }
 
 /**
  * A Range header is honoured by the route handlers that serve ranges (the basemap); elsewhere
  * (Next's static files, which answer a bad or unsatisfiable range with a 500) it is dropped and
- * the whole file sent, as HTTP allows (RFC 9110 §14.2).
+ * the whole file sent, as HTTP allows (RFC 9110 §14.2). So are the preconditions If-Match and
+ * If-Unmodified-Since, which Next's static files answer with a 500 where they fail (a 412 is
+ * meant): outside the route handlers they are ignored, as Next's pages already ignore them, and
+ * the whole file comes. Nothing outside /api/ changes with a request, so none needs them.
  *
  * @param {import("node:http").IncomingMessage} req
  */
-export function dropRangeOutsideApi(req) {
-  if (req.headers.range !== undefined && !routedPath(req).startsWith("/api/")) {
-    delete req.headers.range;
-    delete req.headers["if-range"];
-  }
+export function dropRangeAndPreconditionsOutsideApi(req) {
+  if (routedPath(req).startsWith("/api/")) return;
+  for (const name of ["range", "if-range", "if-match", "if-unmodified-since"]) delete req.headers[name];
 }
 
 const CALLBACK_COOKIE = /^(?:__Secure-)?authjs\.callback-url$/;

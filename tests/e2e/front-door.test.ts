@@ -421,6 +421,17 @@ describe("requests Next would fail on", () => {
       expect(res.status, range).toBe(200);
       expect(res.text.length).toBeGreaterThan(0);
     }
+    // Failed preconditions, which Next's static files answered with a 500: ignored, as its pages do.
+    for (const [name, value] of [
+      ["if-match", '"x"'],
+      ["if-unmodified-since", "Thu, 01 Jan 1970 00:00:00 GMT"],
+    ])
+      for (const path of [chunk, "/sw.js", "/icons/icon-192.png", "/about"]) {
+        const res = await raw("GET", path, { host: host(), [name]: value });
+        expect(res.status, `${name} ${path}`).toBe(200);
+      }
+    // Next's own error page, which it serves with its 500.
+    for (const method of ["GET", "POST"]) expect((await raw(method, "/_global-error", { host: host() })).status, method).toBe(404);
     for (const value of ["%zz", "x", "javascript%3Aalert(1)", "http%3A%2F%2Fevil.example%2F"]) {
       const res = await raw("GET", "/api/auth/session", { host: host(), cookie: `authjs.callback-url=${value}` });
       expect(res.status, value).toBe(200);

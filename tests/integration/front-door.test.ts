@@ -4,7 +4,7 @@ import {
   ACTION_BODY_LIMIT,
   CLIENT_HEADER,
   dropForeignCallbackCookie,
-  dropRangeOutsideApi,
+  dropRangeAndPreconditionsOutsideApi,
   refuseActionPost,
   refuseTarget,
   resolveClientAddress,
@@ -130,14 +130,25 @@ describe("what the front door keeps from Next", () => {
     expect(refuseTarget(request("GET", "/api/photos/0193a1b2-0000-7000-8000-000000000000"))).toBeNull();
   });
 
-  it("drops a Range header outside the route handlers (Next's static files), keeps it for them", () => {
-    const file = request("GET", "/_next/static/chunks/webpack.js", { range: "bytes=999999999-", "if-range": "x" });
-    dropRangeOutsideApi(file);
-    expect(file.headers.range).toBeUndefined();
-    expect(file.headers["if-range"]).toBeUndefined();
-    const basemap = request("GET", "/api/basemap", { range: "bytes=0-99" });
-    dropRangeOutsideApi(basemap);
-    expect(basemap.headers.range).toBe("bytes=0-99");
+  it("drops a Range header and the preconditions outside the route handlers (Next's static files), keeps them for the handlers", () => {
+    const conditions = { range: "bytes=999999999-", "if-range": "x", "if-match": '"x"', "if-unmodified-since": "Thu, 01 Jan 1970 00:00:00 GMT" };
+    for (const path of ["/_next/static/chunks/webpack.js", "/sw.js", "/api/../sw.js"]) {
+      const file = request("GET", path, { ...conditions, "if-none-match": '"y"', accept: "*/*" });
+      dropRangeAndPreconditionsOutsideApi(file);
+      expect(file.headers, path).toEqual({ "if-none-match": '"y"', accept: "*/*" });
+    }
+    const basemap = request("GET", "/api/basemap", { ...conditions });
+    dropRangeAndPreconditionsOutsideApi(basemap);
+    expect(basemap.headers).toEqual(conditions);
+  });
+
+  it("has no page at Next's own error page's address (served with its 500)", () => {
+    for (const path of ["/_global-error", "/_global-error/", "/_global-error?x=1", "/finds/../_global-error"]) {
+      const refusal = refuseTarget(request("GET", path));
+      expect(refusal?.status, path).toBe(404);
+      expect(refusal?.code, path).toBe("not_found:path");
+    }
+    expect(refuseTarget(request("GET", "/_global-errors"))).toBeNull();
   });
 
   it("drops an Auth.js callback cookie that is not an address on this site, and only that cookie", () => {
