@@ -2,16 +2,27 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { shownKey } from "@/lib/text/controls";
+import { shownKey, unknownFieldsText } from "@/lib/text/controls";
 import { AppError, type FieldErrors } from "./errors";
 import { logger } from "./log";
 
+/** How many of a body's problems an answer lists: enough to mend a form, never megabytes. */
+export const MAX_LISTED_PROBLEMS = 20;
+function issueMessage(issue: z.core.$ZodIssue): string {
+  // zod's own words list every unknown key, so a body of 60 000 of them came back whole.
+  if (issue.code === "unrecognized_keys" && issue.message.startsWith("Unrecognized key")) return `${unknownFieldsText(issue.keys)}.`;
+  return issue.message;
+}
+
 export function fieldErrorsOf(error: z.ZodError): FieldErrors {
   const fields: FieldErrors = {};
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join(".") || "_";
-    (fields[key] ??= []).push(issue.message);
+  const issues = error.issues.slice(0, MAX_LISTED_PROBLEMS);
+  for (const issue of issues) {
+    const key = issue.path.map((p) => shownKey(String(p))).join(".") || "_";
+    (fields[key] ??= []).push(issueMessage(issue));
   }
+  const more = error.issues.length - issues.length;
+  if (more > 0) (fields._ ??= []).push(`And ${more} more ${more === 1 ? "problem" : "problems"} like these.`);
   return fields;
 }
 
@@ -128,6 +139,17 @@ export function parseSearchParams<T extends z.ZodType>(req: Request, schema: T, 
 
 type Handler<C> = (req: Request, ctx: C) => Promise<Response> | Response;
 
+/**
+ * Whether the caller hung up part-way through sending its body: Node fails the read with
+ * "aborted" (ECONNRESET). Nothing went wrong on the server, and nobody is left to read an answer.
+ */
+export function callerHungUp(req: Request, error: unknown): boolean {
+  if (req.signal?.aborted) return true;
+  if (typeof error !== "object" || error === null) return false;
+  const { code, message } = error as { code?: unknown; message?: unknown };
+  return code === "ECONNRESET" && message === "aborted";
+}
+
 /** Every route handler goes through here: AppErrors become their status, anything else a logged 500. */
 export function route<C = unknown>(handler: Handler<C>): Handler<C> {
   return async (req, ctx) => {
@@ -141,6 +163,13 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
           status: error.status,
           headers: { "Cache-Control": "no-store", ...(retryAfter ? { "Retry-After": retryAfter } : {}) },
         });
+      }
+      if (callerHungUp(req, error)) {
+        logger.info({ method: req.method, path: new URL(req.url).pathname }, "caller hung up while sending");
+        return NextResponse.json(
+          { error: { code: "bad_request:incomplete", message: "The request ended before its body did; send it again." } },
+          { status: 400, headers: { "Cache-Control": "no-store" } },
+        );
       }
       // The id goes to the caller and to the log line, so an officer can find the failure a
       // member reports ("send to the club") without the answer carrying any of its detail.

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { shownKey } from "@/lib/text/controls";
+import { unknownFieldsText } from "@/lib/text/controls";
 import { GOLD_DENSITY } from "@/lib/estimate/alloy";
 import { MAX_READING_GRAMS, MAX_STEP_GRAMS } from "@/lib/estimate/defaults";
 
@@ -17,10 +17,7 @@ const pair = (min: number, max: number, unit: string) =>
 
 /** An object's own refusals: a field it does not know, named; anything but an object. */
 const objectError = (what: string) => (issue: { code: string; keys?: string[] }) => {
-  if (issue.code === "unrecognized_keys" && issue.keys) {
-    const names = issue.keys.slice(0, 5).map((k) => `"${shownKey(k)}"`);
-    return `${issue.keys.length > 1 ? "Fields" : "Field"} ${names.join(", ")}${issue.keys.length > 5 ? " and more" : ""} not known here: send ${what}'s own fields only.`;
-  }
+  if (issue.code === "unrecognized_keys" && issue.keys) return `${unknownFieldsText(issue.keys)}: send ${what}'s own fields only.`;
   if (issue.code === "invalid_type") return `Send ${what} as an object of named fields.`;
   return undefined;
 };

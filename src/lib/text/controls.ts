@@ -26,3 +26,10 @@ export function shownKey(key: string | number): string {
     .slice(0, 40)
     .join("");
 }
+
+/** Unknown fields a caller sent, as a message names them: the first five, shown as keys, and how many more. */
+export function unknownFieldsText(keys: readonly string[]): string {
+  const names = keys.slice(0, 5).map((k) => `"${shownKey(k)}"`);
+  const more = keys.length - names.length;
+  return `${keys.length > 1 ? "Fields" : "Field"} ${names.join(", ")}${more > 0 ? ` and ${more} more` : ""} not known here`;
+}
