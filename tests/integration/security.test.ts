@@ -259,6 +259,34 @@ describe("authorization matrix (RELIABILITY 23–25, 30)", () => {
   });
 });
 
+// Who is asking comes first: a stranger learns nothing of what a handler accepts (its limits,
+// its fields, its query) and costs it no reading of a body; a member learns nothing of an
+// officer's handler. Every handler whose answer depends on the session, asked with a body
+// that is not JSON, one over every limit and a query that is all wrong, answers as the matrix
+// says it answers that caller a good request.
+describe("the session is checked before the request is read (RELIABILITY 30)", () => {
+  const handlers = discoverHandlers();
+  const junkQuery = "?season=zz&page=-1&pageSize=zz&offset=-1&size=zz&scope=zz&protocolVersion=zz&clientId=zz&cursor=zz&limit=zz&from=zz&to=zz";
+  it.each(handlers.map((h) => [h.key, h] as const).filter(([key]) => [401, 403].includes(MATRIX[key].expect.anonymous as number)))("%s", async (key, h) => {
+    const handler = ((await import(/* @vite-ignore */ h.file)) as Record<string, Handler>)[h.method];
+    const method = key.split(" ")[0];
+    const path = key.split(" ")[1].replace("[id]", fixture.find);
+    const withBody = !["GET", "HEAD", "DELETE"].includes(method);
+    for (const role of ["anonymous", "member"] as const) {
+      const expected = MATRIX[key].expect[role];
+      if (expected !== 401 && expected !== 403) continue;
+      for (const body of withBody ? ["{", "x".repeat(9_000_000)] : [undefined]) {
+        const headers = new Headers({ "content-type": "application/json" });
+        if (cookies[role]) headers.set("cookie", cookies[role]);
+        const res = await handler(new Request(new URL(path + junkQuery, "http://localhost:3000"), { method, headers, body }), {
+          params: Promise.resolve({ id: fixture.find, nextauth: [] }),
+        });
+        expect(res.status, `${key} as ${role}${body ? ` with ${body.length} bytes` : ""}`).toBe(expected);
+      }
+    }
+  });
+});
+
 describe("hostile input (RELIABILITY 31)", () => {
   const jsonEndpoints: [string, string, string | undefined][] = [
     ["POST /api/estimate", "/api/estimate", undefined],

@@ -20,8 +20,8 @@ const chunkQuery = sizeQuery.extend({ offset: bytes("offset") });
 
 /** Where an officer's upload of an archive of ?size=N bytes stands (bytes the server holds), to go on after a cut. */
 export const GET = route(async (req) => {
-  const { size } = parseSearchParams(req, sizeQuery, "basemap");
   const actor = await requireActor(req, "manageClaims", "basemap");
+  const { size } = parseSearchParams(req, sizeQuery, "basemap");
   return json(await basemapUploadStatus(actor, size));
 });
 
@@ -31,10 +31,10 @@ export const GET = route(async (req) => {
  */
 export const PUT = route(async (req) => {
   requireSameOrigin(req);
+  const actor = await requireActor(req, "manageClaims", "basemap");
   const { offset, size } = parseSearchParams(req, chunkQuery, "basemap");
   if (!(req.headers.get("content-type") ?? "").startsWith("application/octet-stream"))
     throw new AppError("unsupported:chunk", "Send a chunk as application/octet-stream.", { contentType: ["not application/octet-stream"] });
-  const actor = await requireActor(req, "manageClaims", "basemap");
   await spend([["basemapChunkPerAccount", actor.id]]);
   const state = await receiveBasemapChunk(actor, offset, size, req);
   if (state.complete) audit(getDb(), { actorId: actor.id, action: "basemap.upload", entity: "basemap", entityId: null, after: state.basemap ?? null });

@@ -7,7 +7,7 @@ const querySchema = z.object({ claimId: z.uuid("Not a valid claim id."), season:
 
 /** A claim's barren-rock weigh-ins of a season and the host density they propose (accepted through the claim's profile). */
 export const GET = route(async (req) => {
-  const q = parseSearchParams(req, querySchema, "barren_rock");
   await requireActor(req, "manageClaims", "club");
+  const q = parseSearchParams(req, querySchema, "barren_rock");
   return json(claimBarrenRock(q.claimId, q.season));
 });

@@ -12,7 +12,7 @@ export const GET = route(async (req) => {
 
 export const POST = route(async (req) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   const actor = await requireActor(req, "manageClaims", "club");
+  const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   return json(saveClaim(actor, null, input), { status: 201 });
 });

@@ -11,7 +11,7 @@ export const GET = route(async (req) => {
 
 export const POST = route(async (req) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, invitationInputSchema, "invitation");
   const actor = await requireActor(req, "manageMembers", "club");
+  const input = await parseJsonBody(req, invitationInputSchema, "invitation");
   return json(await invite(actor, input), { status: 201 });
 });

@@ -5,7 +5,7 @@ import { json, parseSearchParams, route } from "@/server/http";
 
 /** The club ledger: one page of the filtered finds, with totals over all of them. */
 export const GET = route(async (req) => {
-  const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   await requireActor(req, "viewLedger", "club");
+  const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   return json(ledgerPage(query));
 });

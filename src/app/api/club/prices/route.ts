@@ -11,7 +11,7 @@ export const GET = route(async (req) => {
 
 export const POST = route(async (req) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, priceInputSchema, "price");
   const actor = await requireActor(req, "managePrices", "club");
+  const input = await parseJsonBody(req, priceInputSchema, "price");
   return json(recordPrice(actor, input), { status: 201 });
 });

@@ -9,8 +9,8 @@ const querySchema = z.object({ claimId: z.uuid("Not a valid claim id."), season:
 
 /** A claim's melts and assays of a season, estimate against recovered, and the fineness they propose. */
 export const GET = route(async (req) => {
-  const q = parseSearchParams(req, querySchema, "recoveries");
   await requireActor(req, "manageClaims", "club");
+  const q = parseSearchParams(req, querySchema, "recoveries");
   return json(claimRecoveries(q.claimId, q.season));
 });
 

@@ -18,9 +18,9 @@ async function photoId(ctx: Ctx): Promise<string> {
 /** Upload a photo's bytes (after its record synced). Idempotent. */
 export const PUT = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
+  const actor = await requireActor(req, "logFinds", "photo");
   const id = await photoId(ctx);
   if (!(req.headers.get("content-type") ?? "").startsWith("image/jpeg")) throw new AppError("unsupported:photo", "Send the photo as image/jpeg.");
-  const actor = await requireActor(req, "logFinds", "photo");
   await spend([["photoPerAccount", actor.id]]);
   const result = await receivePhoto(actor, id, req);
   return json(result, { status: result.stored ? 201 : 200 });
@@ -28,8 +28,8 @@ export const PUT = route<Ctx>(async (req, ctx) => {
 
 /** A photo for its owner or an officer: JPEG only, no EXIF, never sniffed as anything else. */
 export const GET = route<Ctx>(async (req, ctx) => {
-  const id = await photoId(ctx);
   const actor = await requireActor(req, undefined, "photo");
+  const id = await photoId(ctx);
   const bytes = await servePhoto(actor, id);
   return new Response(new Uint8Array(bytes), {
     headers: {

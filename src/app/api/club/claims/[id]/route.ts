@@ -9,8 +9,8 @@ type Ctx = { params: Promise<{ id: string }> };
 
 export const PUT = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   const actor = await requireActor(req, "manageClaims", "club");
+  const input = await parseJsonBody(req, claimInputSchema, "claim", MAX_CLAIM_BODY_BYTES);
   const id = await routeId(ctx, "claim", "No such claim.");
   return json(saveClaim(actor, id, input));
 });

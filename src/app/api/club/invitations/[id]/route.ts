@@ -11,8 +11,8 @@ const invitationId = (ctx: Ctx) => routeId(ctx, "invitation", "No open invitatio
 /** Resend: a fresh link, the old one stops working. */
 export const POST = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
-  await parseJsonBody(req, z.object({ action: z.literal("resend") }).strict(), "invitation");
   const actor = await requireActor(req, "manageMembers", "club");
+  await parseJsonBody(req, z.object({ action: z.literal("resend") }).strict(), "invitation");
   return json(await resendInvitation(actor, await invitationId(ctx)));
 });
 

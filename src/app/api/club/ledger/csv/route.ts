@@ -7,8 +7,8 @@ import { parseSearchParams, route } from "@/server/http";
 
 /** The filtered ledger as CSV, every row with where and how it was found; safe to open in a spreadsheet. */
 export const GET = route(async (req) => {
-  const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   await requireActor(req, "viewLedger", "club");
+  const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   const csv = toSafeCsv(
     LEDGER_CSV_COLUMNS,
     ledgerExportRows(query).map((r) => exportCells(r, LEDGER_CSV_COLUMNS)),

@@ -11,8 +11,8 @@ import { parseSearchParams, route } from "@/server/http";
  * (finds whose members share only the claim are left out). Longitude first, WGS 84.
  */
 export const GET = route(async (req) => {
-  const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   await requireActor(req, "viewLedger", "club");
+  const query = parseSearchParams(req, ledgerQuerySchema, "ledger");
   const claims = listClaims()
     .filter((c) => c.boundary)
     .map((c) => ({

@@ -9,8 +9,8 @@ type Ctx = { params: Promise<{ id: string }> };
 /** Change a member's role or deactivate them (records kept; sessions end at once). */
 export const PATCH = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
-  const change = await parseJsonBody(req, memberChangeSchema, "member");
   const actor = await requireActor(req, "manageMembers", "club");
+  const change = await parseJsonBody(req, memberChangeSchema, "member");
   const id = await routeId(ctx, "member", "No such member.");
   return json(changeMember(actor, id, change));
 });

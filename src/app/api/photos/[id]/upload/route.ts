@@ -17,19 +17,19 @@ const chunkQuery = z.object({
 
 /** Where a chunked upload stands, so a device resumes after a cut link: bytes held of the total. */
 export const GET = route<Ctx>(async (req, ctx) => {
-  const id = await routeId(ctx, "photo", "No such photo.");
   const actor = await requireActor(req, "logFinds", "photo");
+  const id = await routeId(ctx, "photo", "No such photo.");
   return json(await uploadStatus(actor, id));
 });
 
 /** One chunk of a photo's bytes at ?offset=N (application/octet-stream); the last one stores the photo. */
 export const PUT = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
+  const actor = await requireActor(req, "logFinds", "photo");
   const id = await routeId(ctx, "photo", "No such photo.");
   const { offset } = parseSearchParams(req, chunkQuery, "offset");
   if (!(req.headers.get("content-type") ?? "").startsWith("application/octet-stream"))
     throw new AppError("unsupported:chunk", "Send a chunk as application/octet-stream.", { contentType: ["not application/octet-stream"] });
-  const actor = await requireActor(req, "logFinds", "photo");
   await spend([["photoPerAccount", actor.id]]);
   const result = await receiveChunk(actor, id, offset, req);
   return json(result, { status: result.stored ? 201 : 200 });

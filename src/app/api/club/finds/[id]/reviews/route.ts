@@ -9,8 +9,8 @@ type Ctx = { params: Promise<{ id: string }> };
 /** Verify, query or annotate a find; the member's device gets it at the next sync. */
 export const POST = route<Ctx>(async (req, ctx) => {
   requireSameOrigin(req);
-  const input = await parseJsonBody(req, reviewInputSchema, "review");
   const actor = await requireActor(req, "reviewFinds", "club");
+  const input = await parseJsonBody(req, reviewInputSchema, "review");
   const id = await routeId(ctx, "find", "No such find.");
   return json(reviewFind(actor, id, input), { status: 201 });
 });
