@@ -187,6 +187,12 @@ describe("the club ledger", () => {
     const res = await getLedger(req("/api/club/ledger?season=abc&sort=colour", { cookie: officer }), none);
     expect(res.status).toBe(400);
     expect(Object.keys((await res.json()).error.fields)).toEqual(expect.arrayContaining(["season", "sort"]));
+    // Numbers JavaScript would read but nobody writes: a season in hexadecimal, a page in exponent form.
+    for (const query of ["season=0x7e9", "page=1e1", "pageSize=%2050", "season="]) {
+      const odd = await getLedger(req(`/api/club/ledger?${query}`, { cookie: officer }), none);
+      expect(odd.status, query).toBe(400);
+      expect((await odd.json()).error.message, query).toMatch(/whole number in decimal digits/);
+    }
   });
 
   it("exports CSV that parses back to the same rows", async () => {

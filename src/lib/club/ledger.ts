@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { wholeNumber } from "../web/whole-number";
 import { FIND_KINDS } from "../entities/find";
 import type { FineBasis } from "../figures/fine-basis";
 import { calendarDate } from "../time/calendar-date";
@@ -21,7 +22,7 @@ export const ledgerQuerySchema = z
   .object({
     claimId: optionalId,
     memberId: optionalId,
-    season: z.coerce.number().int().min(2000).max(2100).optional(),
+    season: wholeNumber("season", 2000, 2100).optional(),
     from: isoDate.optional(),
     to: isoDate.optional(),
     kind: z
@@ -34,8 +35,8 @@ export const ledgerQuerySchema = z
       .or(z.literal("").transform(() => undefined)),
     sort: z.enum(LEDGER_SORTS).default("foundAt"),
     dir: z.enum(["asc", "desc"]).default("desc"),
-    page: z.coerce.number().int().min(1).max(100_000).default(1),
-    pageSize: z.coerce.number().int().min(1).max(200).default(50),
+    page: wholeNumber("page", 1, 100_000).default(1),
+    pageSize: wholeNumber("pageSize", 1, 200).default(50),
     price: z.enum(["find-date", "today"]).default("find-date"),
   })
   .strict()

@@ -1,6 +1,6 @@
 import { z } from "zod";
+import { wholeNumber } from "../web/whole-number";
 import { MUTATION_NAMES } from "./mutations";
-
 import { DEFAULT_PULL_LIMIT, MAX_PUSH_MUTATIONS } from "./version";
 
 export { DEFAULT_PULL_LIMIT, MAX_PUSH_BYTES, MAX_PUSH_MUTATIONS, PROTOCOL_VERSION } from "./version";
@@ -34,10 +34,10 @@ export type PushResponse = { lastMutationId: number; results: MutationResult[] }
 
 export const pullQuerySchema = z
   .object({
-    protocolVersion: z.coerce.number().int(),
+    protocolVersion: wholeNumber("protocolVersion", 0, 1_000_000),
     clientId: z.uuid({ error: "The client id must be a UUID." }),
-    cursor: z.coerce.number().int().min(0).default(0),
-    limit: z.coerce.number().int().min(1).max(2000).default(DEFAULT_PULL_LIMIT),
+    cursor: wholeNumber("cursor", 0, Number.MAX_SAFE_INTEGER).default(0),
+    limit: wholeNumber("limit", 1, 2000).default(DEFAULT_PULL_LIMIT),
   })
   .strict();
 

@@ -1,5 +1,6 @@
 import "server-only";
 import { z } from "zod";
+import { wholeNumber } from "@/lib/web/whole-number";
 import { audit } from "@/server/audit";
 import { requireActor } from "@/server/auth/actor";
 import { basemapUploadStatus, receiveBasemapChunk } from "@/server/basemap/upload";
@@ -9,13 +10,13 @@ import { json, parseSearchParams, route } from "@/server/http";
 import { spend } from "@/server/limits";
 import { requireSameOrigin } from "@/server/origin";
 
-const bytes = (what: string) =>
-  z.coerce
-    .number({ error: `${what} must be a number of bytes` })
-    .int(`${what} must be a whole number of bytes`)
-    .min(0, `${what} cannot be negative`)
-    .max(Number.MAX_SAFE_INTEGER, `${what} is too large`);
-const sizeQuery = z.object({ size: bytes("size").min(127, "size must be at least the 127-byte header of a PMTiles archive") });
+const bytes = (what: string, min = 0, below = `${what} cannot be negative`) =>
+  wholeNumber(what, min, Number.MAX_SAFE_INTEGER, {
+    type: `${what} must be a whole number of bytes, in decimal digits`,
+    min: below,
+    max: `${what} is too large`,
+  });
+const sizeQuery = z.object({ size: bytes("size", 127, "size must be at least the 127-byte header of a PMTiles archive") });
 const chunkQuery = sizeQuery.extend({ offset: bytes("offset") });
 
 /** Where an officer's upload of an archive of ?size=N bytes stands (bytes the server holds), to go on after a cut. */

@@ -1,11 +1,12 @@
 import { z } from "zod";
+import { wholeNumber } from "@/lib/web/whole-number";
 import { recoveryInputSchema } from "@/lib/club/schemas";
 import { requireActor } from "@/server/auth/actor";
 import { claimRecoveries, recordRecovery } from "@/server/club/recoveries";
 import { json, parseJsonBody, parseSearchParams, route } from "@/server/http";
 import { requireSameOrigin } from "@/server/origin";
 
-const querySchema = z.object({ claimId: z.uuid("Not a valid claim id."), season: z.coerce.number().int().min(2000).max(2100) }).strict();
+const querySchema = z.object({ claimId: z.uuid("Not a valid claim id."), season: wholeNumber("season", 2000, 2100) }).strict();
 
 /** A claim's melts and assays of a season, estimate against recovered, and the fineness they propose. */
 export const GET = route(async (req) => {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { wholeNumber } from "@/lib/web/whole-number";
 import { requireActor } from "@/server/auth/actor";
 import { AppError } from "@/server/errors";
 import { json, parseSearchParams, route, routeId } from "@/server/http";
@@ -8,11 +9,11 @@ import { receiveChunk, uploadStatus } from "@/server/photo-uploads";
 
 type Ctx = { params: Promise<{ id: string }> };
 const chunkQuery = z.object({
-  offset: z.coerce
-    .number({ error: "offset must be a number of bytes" })
-    .int("offset must be a whole number of bytes")
-    .min(0, "offset cannot be negative")
-    .max(1e9),
+  offset: wholeNumber("offset", 0, 1e9, {
+    type: "offset must be a whole number of bytes, in decimal digits",
+    min: "offset cannot be negative",
+    max: "offset is past any photo's end",
+  }),
 });
 
 /** Where a chunked upload stands, so a device resumes after a cut link: bytes held of the total. */
