@@ -21,8 +21,10 @@ export const LIMITS = {
   photoPerAccount: { points: 120, duration: 60 },
   /** Basemap chunks (4 MB each) from one officer, a minute: 2 GB, far above any real upload. */
   basemapChunkPerAccount: { points: 500, duration: 60 },
-  /** Whole-basemap downloads (up to 300 MB each) by one member, an hour: a phone keeps one copy; this leaves room for retries. Ranges (tiles) are not counted. */
+  /** Whole-basemap answers (up to 300 MB each) to one member, an hour, however asked for: a phone keeps one copy; this leaves room for retries. */
   basemapWholePerAccount: { points: 10, duration: 3600 },
+  /** KiB of the basemap read by range (the map's tiles) by one member, an hour: 4 GiB, far above a day's map use; a script reading the archive piece by piece is held to it. */
+  basemapRangeKiBPerAccount: { points: 4 * 1024 * 1024, duration: 3600 },
 } as const;
 
 type LimitName = keyof typeof LIMITS;
@@ -37,11 +39,11 @@ function limiter(name: LimitName): RateLimiterMemory {
   return l;
 }
 
-/** Counts one attempt against each named limit; throws a 429 AppError carrying Retry-After. */
-export async function spend(checks: [LimitName, string][]): Promise<void> {
-  for (const [name, key] of checks) {
+/** Counts one attempt (or `points`) against each named limit; throws a 429 AppError carrying Retry-After. */
+export async function spend(checks: [name: LimitName, key: string, points?: number][]): Promise<void> {
+  for (const [name, key, points = 1] of checks) {
     try {
-      await limiter(name).consume(key);
+      await limiter(name).consume(key, points);
     } catch (error) {
       if (!(error instanceof RateLimiterRes)) throw error;
       const retryAfterS = Math.max(1, Math.ceil(error.msBeforeNext / 1000));

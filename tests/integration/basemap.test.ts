@@ -8,7 +8,7 @@ import { GET as INFO } from "@/app/api/basemap/info/route";
 import { GET as STATUS, PUT } from "@/app/api/basemap/upload/route";
 import { basemapPath } from "@/server/basemap/files";
 import type { Db } from "@/server/db";
-import { resetLimits } from "@/server/limits";
+import { LIMITS, resetLimits, spend } from "@/server/limits";
 import { testArchive } from "../support/basemap";
 import { MEMBER_EMAIL, memberByEmail, OFFICER_EMAIL, req, seededDatabase, sessionCookie } from "../support/test-db";
 
@@ -119,20 +119,46 @@ describe("the club's basemap on its server", () => {
     expect((await read(member, { range: "bytes=0-9", "if-range": stored.etag })).status).toBe(206);
   });
 
-  it("counts a member's whole downloads (ten an hour), never the ranges a map reads", async () => {
-    expect((await upload(testArchive().bytes)).body.complete).toBe(true);
+  it("counts a member's whole downloads (ten an hour), however asked for; the ranges a map reads go on", async () => {
+    const archive = testArchive().bytes;
+    expect((await upload(archive)).body.complete).toBe(true);
+    // Whole answers all: no range, a range it cannot read, another version's, one covering it all.
+    const ways: Record<string, string>[] = [
+      {},
+      { range: "bytes=abc" },
+      { range: "bytes=0-9", "if-range": '"another-version"' },
+      { range: "bytes=0-" },
+      { range: `bytes=0-${archive.length + 99}` },
+    ];
     for (let i = 0; i < 10; i++) {
-      const res = await read(member);
-      expect(res.status).toBe(200);
+      const res = await read(member, ways[i % ways.length]);
+      expect(res.status, JSON.stringify(ways[i % ways.length])).toBe(i % ways.length < 3 ? 200 : 206);
       await res.body?.cancel();
     }
-    const over = await read(member);
-    expect(over.status).toBe(429);
-    expect(over.headers.get("retry-after")).toMatch(/^\d+$/);
+    for (const way of ways) {
+      const over = await read(member, way);
+      expect(over.status, JSON.stringify(way)).toBe(429);
+      expect(over.headers.get("retry-after")).toMatch(/^\d+$/);
+    }
     const range = await read(member, { range: "bytes=0-126" });
     expect(range.status).toBe(206);
     await range.body?.cancel();
     expect((await read(officer)).status).toBe(200); // another account's count is its own
+  });
+
+  it("holds reading the archive piece by piece to a budget of bytes, far above a map's use", async () => {
+    const archive = testArchive().bytes;
+    expect((await upload(archive)).body.complete).toBe(true);
+    expect(archive.length).toBeGreaterThan(300);
+    // A map reads tiles of tens of kB: the hour's budget is 4 GiB. Spent but for 1 KiB here (the
+    // test archive is small), one more piece is read, and the next is refused.
+    await spend([["basemapRangeKiBPerAccount", memberByEmail(db, MEMBER_EMAIL).id, LIMITS.basemapRangeKiBPerAccount.points - 1]]);
+    const last = await read(member, { range: "bytes=0-255" });
+    expect(last.status).toBe(206);
+    await last.body?.cancel();
+    const more = await read(member, { range: "bytes=0-255" });
+    expect(more.status).toBe(429);
+    expect((await read(officer, { range: "bytes=0-255" })).status).toBe(206);
   });
 
   it("serves every tile to the pmtiles reader through range requests", async () => {

@@ -24,7 +24,6 @@ export const HEAD = route((req) => answer(req, false));
 
 async function answer(req: Request, withBody: boolean): Promise<Response> {
   const actor = await requireActor(req, undefined, "basemap");
-  if (withBody && !req.headers.get("range")) await spend([["basemapWholePerAccount", actor.id]]);
   const open = await openBasemap();
   if (open.kind === "none") throw new AppError("not_found:basemap", "The club has no basemap yet.");
   if (open.kind === "refused") {
@@ -57,6 +56,13 @@ async function answer(req: Request, withBody: boolean): Promise<Response> {
       });
     }
     const { start, end } = range ?? { start: 0, end: info.bytes - 1 };
+    // What is sent counts, however it was asked for: the whole archive (no range, a range that
+    // could not be read, another version's, or one covering it all) as a whole download; a
+    // piece by its size.
+    if (withBody) {
+      const whole = start === 0 && end === info.bytes - 1;
+      await spend([whole ? ["basemapWholePerAccount", actor.id] : ["basemapRangeKiBPerAccount", actor.id, Math.ceil((end - start + 1) / 1024)]]);
+    }
     const init = {
       status: range ? 206 : 200,
       headers: { ...headers, "Content-Length": String(end - start + 1), ...(range ? { "Content-Range": `bytes ${start}-${end}/${info.bytes}` } : {}) },
