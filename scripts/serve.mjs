@@ -11,6 +11,7 @@ import {
   answerBeforeReading,
   boundedLinger,
   dropForeignCallbackCookie,
+  explainRefusedMethod,
   dropRangeAndPreconditionsOutsideApi,
   MAX_DECLARED_BODY_BYTES,
   refuseActionPost,
@@ -50,6 +51,7 @@ const server = http.createServer((req, res) => {
   settleForwardingHeaders(req, trustedProxies);
   dropRangeAndPreconditionsOutsideApi(req);
   dropForeignCallbackCookie(req, process.env.LODEBOOK_ORIGIN);
+  explainRefusedMethod(req, res);
   const declared = Number(req.headers["content-length"] ?? 0);
   if (declared > MAX_DECLARED_BODY_BYTES) {
     answerBeforeReading(req, res, { status: 413, code: "too_large:request", message: `The body is over ${MAX_DECLARED_BODY_BYTES} bytes.` });

@@ -104,6 +104,52 @@ export function dropRangeAndPreconditionsOutsideApi(req) {
   for (const name of ["range", "if-range", "if-match", "if-unmodified-since"]) delete req.headers[name];
 }
 
+/**
+ * Next answers a method a route handler does not have with a bare 405: no body. The door gives
+ * it the API's JSON error, saying which method, as every other refusal under /api/ has.
+ *
+ * @param {import("node:http").IncomingMessage} req
+ * @param {import("node:http").ServerResponse} res
+ */
+export function explainRefusedMethod(req, res) {
+  if (!routedPath(req).startsWith("/api/")) return;
+  const body = JSON.stringify({ error: { code: "unsupported:method", message: `This address does not answer ${req.method}.` } });
+  let explain = false;
+  let written = false;
+  // Next sends a 405's head before its (empty) body: the JSON type is set as the head goes.
+  const beforeHead = () => {
+    if (res.statusCode === 405 && !res.headersSent && !res.hasHeader("content-type")) {
+      explain = true;
+      res.setHeader("content-type", "application/json");
+    }
+  };
+  /** @param {string} name */
+  const wrap = (name) => {
+    const original = /** @type {any} */ (res)[name];
+    /** @type {any} */ (res)[name] = function (/** @type {unknown[]} */ ...args) {
+      if (name === "writeHead" && args[0] === 405) res.statusCode = 405;
+      if (name === "writeHead" || name === "flushHeaders") beforeHead();
+      if (name === "write" || name === "end") {
+        beforeHead();
+        const chunk = args[0];
+        if (typeof chunk !== "function" && chunk != null && /** @type {{ length?: number }} */ ((chunk).length ?? 0) > 0) written = true;
+        if (name === "end" && explain && !written && req.method !== "HEAD") {
+          written = true;
+          original.call(
+            res,
+            body,
+            "utf8",
+            args.find((a) => typeof a === "function"),
+          );
+          return res;
+        }
+      }
+      return original.apply(res, args);
+    };
+  };
+  for (const name of ["writeHead", "flushHeaders", "write", "end"]) wrap(name);
+}
+
 const CALLBACK_COOKIE = /^(?:__Secure-)?authjs\.callback-url$/;
 
 /**

@@ -413,6 +413,27 @@ describe("requests Next would fail on", () => {
     expect(JSON.parse(dressed.text).error.message).toMatch(/plain slashes/);
   });
 
+  it("under /api/, a method an address does not answer and an address nothing answers get the API's JSON, naming the method", async () => {
+    for (const [method, path] of [
+      ["PATCH", "/api/me"],
+      ["DELETE", "/api/sync/push"],
+      ["GET", "/api/estimate"],
+      ["PUT", "/api/club/production"],
+    ]) {
+      const res = await raw(method, path, { host: host(), origin: baseUrl, "content-type": "application/json" }, method === "GET" ? "" : "{}");
+      expect(res.status, `${method} ${path}`).toBe(405);
+      expect(res.headers["content-type"], `${method} ${path}`).toMatch(/^application\/json/);
+      expect(JSON.parse(res.text).error, `${method} ${path}`).toEqual({ code: "unsupported:method", message: `This address does not answer ${method}.` });
+    }
+    for (const method of ["GET", "POST", "DELETE"]) {
+      const res = await raw(method, "/api/club/no/such/thing", { host: host(), origin: baseUrl });
+      expect(res.status, method).toBe(404);
+      expect(JSON.parse(res.text).error.code, method).toBe("not_found:address");
+    }
+    // The handlers' own answers are untouched.
+    expect((await raw("GET", "/api/me", { host: host() })).status).toBe(401);
+  });
+
   it("a static file asked for with a bad or unsatisfiable range comes whole; an odd callback cookie is set aside", async () => {
     const html = (await raw("GET", "/about", { host: host() })).text;
     const chunk = /\/_next\/static\/chunks\/[^"]+\.js/.exec(html)![0];

@@ -224,6 +224,13 @@ const MATRIX: Record<string, Row> = {
   "DELETE /api/club/invitations/[id]": { expect: OFFICER_ONLY(404), request: () => ({ id: uuidv7(), init: { method: "DELETE" } }) },
   "GET /api/club/production": { expect: OFFICER_ONLY(200), request: () => ({ url: "/api/club/production?season=2026" }) },
   "GET /api/club/backup": { expect: OFFICER_ONLY(200), request: () => ({}) },
+  // Any address no handler answers: a 404 in the API's JSON, whoever asks, however.
+  ...Object.fromEntries(
+    ["GET", "POST", "PUT", "PATCH", "DELETE"].map((m) => [
+      `${m} /api/[...unknown]`,
+      { expect: ALL(404), request: () => ({ url: "/api/club/nothing/here", init: { method: m, ...(m === "GET" || m === "DELETE" ? {} : { body: "{" }) } }) },
+    ]),
+  ),
 };
 
 describe("authorization matrix (RELIABILITY 23–25, 30)", () => {
