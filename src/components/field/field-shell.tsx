@@ -6,7 +6,8 @@ import { lazy, Suspense } from "react";
 import { SiteHeader } from "../site-header";
 import { TabBar } from "./tab-bar";
 
-// Asked once, on the home screen: loaded after it, so no screen's first load carries it.
+// Asked once, on the home screen: loaded once the screen has drawn its first words, so no
+// screen's first load carries it.
 const StoragePrompt = lazy(() => import("../storage-prompt").then((m) => ({ default: m.StoragePrompt })));
 
 // Shows only when a new version waits: loaded once the page has drawn its first words, never
@@ -22,7 +23,7 @@ function Body({ children }: { children: React.ReactNode }) {
       <SiteHeader actor={state.status === "ready" ? state.member : null} />
       {/* --tab-bar-room: what the phone's tab bar covers at the bottom, for what sticks there. */}
       <main className="mx-auto max-w-5xl px-3 pb-24 pt-4 [--tab-bar-room:3.5rem] md:pb-8 md:[--tab-bar-room:0px]">
-        {state.status === "ready" && path === "/" && (
+        {state.status === "ready" && path === "/" && painted && (
           <Suspense fallback={null}>
             <StoragePrompt />
           </Suspense>
