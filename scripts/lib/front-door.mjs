@@ -132,7 +132,7 @@ export function explainRefusedMethod(req, res) {
       if (name === "write" || name === "end") {
         beforeHead();
         const chunk = args[0];
-        if (typeof chunk !== "function" && chunk != null && /** @type {{ length?: number }} */ ((chunk).length ?? 0) > 0) written = true;
+        if ((typeof chunk === "string" || chunk instanceof Uint8Array) && chunk.length > 0) written = true;
         if (name === "end" && explain && !written && req.method !== "HEAD") {
           written = true;
           original.call(

@@ -74,6 +74,50 @@ describe("a call from script (Next-Action header)", () => {
   });
 });
 
+// The body as Next's action handler reads it, not as a browser's form reader would: where the
+// two differ, the check saw one set of arguments and React another.
+describe("read as Next reads it", () => {
+  const boundary = "lodebook";
+  const part = (headers: string, value: string | Buffer) =>
+    Buffer.concat([Buffer.from(`--${boundary}\r\n${headers}\r\n\r\n`), Buffer.from(value), Buffer.from("\r\n")]);
+  const multipart = (...parts: Buffer[]) => Buffer.concat([...parts, Buffer.from(`--${boundary}--\r\n`)]);
+  const type = `multipart/form-data; boundary=${boundary}`;
+  const bom = Buffer.from([0xef, 0xbb, 0xbf]);
+
+  it("a byte-order mark before the arguments stays (Next keeps it, and JSON.parse throws on it)", async () => {
+    expect(await refusal(scripted(Buffer.concat([bom, Buffer.from('[{},"$K1"]')]), "text/plain;charset=UTF-8"))).toMatch(/not JSON/);
+    const body = multipart(part('Content-Disposition: form-data; name="0"', Buffer.concat([bom, Buffer.from('[{},"$K1"]')])));
+    expect(await refusal(scripted(body, type))).toMatch(/field "0" \(the arguments\) could not be read/);
+  });
+
+  it("a part in its declared character set", async () => {
+    const body = multipart(part('Content-Disposition: form-data; name="0"\r\nContent-Type: text/plain; charset=utf-16le', '[{},"$K1"]'));
+    expect(await refusal(scripted(body, type))).toMatch(/could not be read/);
+    const latin = multipart(part('Content-Disposition: form-data; name="0"\r\nContent-Type: text/plain; charset=iso-8859-1', '[{},"$K1"]'));
+    expect(await refusal(scripted(latin, type))).toBeNull();
+  });
+
+  it("an upper-case multipart type is text to Next", async () => {
+    const body = multipart(part('Content-Disposition: form-data; name="0"', '[{},"$K1"]'));
+    expect(await refusal(scripted(body, `Multipart/form-data; boundary=${boundary}`))).toMatch(/arguments could not be read: it is not JSON/);
+  });
+
+  it("a part with no name Next's reader finds (named only by name*=) is refused", async () => {
+    const body = multipart(part("Content-Disposition: form-data; name*=utf-8''0", '["$Q1"]'), part('Content-Disposition: form-data; name="0"', '[{},"$K1"]'));
+    expect(await refusal(scripted(body, type))).toMatch(/needs its name/);
+  });
+
+  it("the first of a part's repeated headers and of a repeated field", async () => {
+    const twice = multipart(
+      part('Content-Disposition: form-data; name="0"\r\nContent-Disposition: form-data; name="x"', '["$Q1"]'),
+      part('Content-Disposition: form-data; name="0"', '[{},"$K1"]'),
+    );
+    expect(await refusal(scripted(twice, type))).toMatch(/plain values and the form only/);
+    const good = multipart(part('Content-Disposition: form-data; name="_1_email"', "x"), part('Content-Disposition: form-data; name="0"', '[{},"$K1"]'));
+    expect(await refusal(scripted(good, type))).toBeNull();
+  });
+});
+
 describe("a form posted without script", () => {
   const ref = (head: string, bound?: string | Blob) => ({
     $ACTION_REF_1: "",
@@ -89,8 +133,19 @@ describe("a form posted without script", () => {
     expect(await refusal(plainForm(form(ref(`{${id},"bound":null}`))))).toBeNull();
     expect(await refusal(plainForm(form({ $ACTION_ID_7f00: "", email: "x" })))).toBeNull();
     expect(await refusal(plainForm(form({ email: "x" })))).toBeNull();
-    // A reference Next cannot read it answers as an unknown action itself (a 400).
-    expect(await refusal(plainForm(form(ref("garbage"))))).toBeNull();
+  });
+
+  it("an action's reference React could not read is refused, under any name", async () => {
+    expect(await refusal(plainForm(form(ref("garbage"))))).toMatch(/"\$ACTION_1:0" \(the action's reference\) could not be read/);
+    expect(await refusal(plainForm(form(ref(`{${id},`))))).toMatch(/could not be read/);
+    expect(await refusal(plainForm(form(ref(`{${id}}x`))))).toMatch(/could not be read/);
+    expect(await refusal(plainForm(form(ref("[1]"))))).toMatch(/must be an object/);
+    expect(await refusal(plainForm(form({ $ACTION_REF_1: "", email: "x" })))).toMatch(/"\$ACTION_1:0" \(the action's reference\) is missing/);
+    // React takes any name after "$ACTION_REF_", an empty one too.
+    for (const name of ["x", "1234567", ""]) {
+      const fields = { [`$ACTION_REF_${name}`]: "", [`$ACTION_${name}:0`]: `{${id},"bound":"$@1"}`, [`$ACTION_${name}:1`]: "not json" };
+      expect(await refusal(plainForm(form(fields))), name).toMatch(new RegExp(`"\\$ACTION_${name}:1" could not be read`));
+    }
   });
 
   it("bound arguments React could not decode are refused, naming their field", async () => {
@@ -105,9 +160,9 @@ describe("a form posted without script", () => {
     expect(await refusal(plainForm(form({ ...ref(`{${id},"bound":"$@a"}`), "$ACTION_1:10": "garbage" })))).toMatch(/"\$ACTION_1:10"/);
   });
 
-  it("the same in a URL-encoded form", async () => {
+  it("a URL-encoded form is no action to Next without script (it decodes none): left alone", async () => {
     const body = new URLSearchParams({ $ACTION_REF_1: "", "$ACTION_1:0": `{${id},"bound":"$@1"}`, "$ACTION_1:1": "garbage" });
-    expect(await refusal(plainForm(body))).toMatch(/could not be read/);
+    expect(await refusal(plainForm(body))).toBeNull();
   });
 
   it("a post that is not a form is not an action to Next: left alone", async () => {

@@ -287,6 +287,9 @@ describe("server actions called by hand", () => {
         [{}, '["$h1"]'],
         [{}, '[{},"$B1"]'],
         [{}, '[{"message":"$@1"},"$K1"]'],
+        // Read as Next reads them: a byte-order mark kept, an upper-case type taken as text.
+        [{}, '\uFEFF[{},"$K1"]'],
+        [{ "content-type": `Multipart/form-data; boundary=${boundary}` }, multipart({ "0": '[{},"$K1"]' })],
         [asForm, multipart({ _1_email: "x" })],
         [asForm, multipart({ "0": "garbage" })],
         [asForm, multipart({ "0": '[{},"$Q1"]', "1": '[["a","b"]]' })],
