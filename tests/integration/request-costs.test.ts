@@ -68,7 +68,9 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
   it("covers every handler that takes a body", () => {
     expect(writers.map((h) => h.key).sort()).toMatchInlineSnapshot(`
       [
+        "PATCH /api/[...unknown]",
         "PATCH /api/club/members/[id]",
+        "POST /api/[...unknown]",
         "POST /api/auth/[...nextauth]",
         "POST /api/club/claims",
         "POST /api/club/claims/[id]/refigure",
@@ -80,6 +82,7 @@ describe("bodies are limited while they stream, on every handler (RELIABILITY 34
         "POST /api/club/recoveries",
         "POST /api/estimate",
         "POST /api/sync/push",
+        "PUT /api/[...unknown]",
         "PUT /api/basemap/upload",
         "PUT /api/club/claims/[id]",
         "PUT /api/club/claims/[id]/profile",
