@@ -14,11 +14,14 @@ describe("a whole number in a query string (wholeNumber)", () => {
   });
 
   // Each of these JavaScript's Number reads as a number (z.coerce did): none is how anyone writes a season.
-  it.each(["0x7d9", "2.026e3", " 2026", "2026 ", "+2026", "2026.0", "", "٢٠٢٦", "2026\n", "Infinity", "0b11111101010"])("refuses %j, saying how to write it", (input) => {
-    const r = season.safeParse(input);
-    expect(r.success).toBe(false);
-    expect(r.error!.issues[0].message).toBe("Give season as a whole number in decimal digits.");
-  });
+  it.each(["0x7d9", "2.026e3", " 2026", "2026 ", "+2026", "2026.0", "", "٢٠٢٦", "2026\n", "Infinity", "0b11111101010"])(
+    "refuses %j, saying how to write it",
+    (input) => {
+      const r = season.safeParse(input);
+      expect(r.success).toBe(false);
+      expect(r.error!.issues[0].message).toBe("Give season as a whole number in decimal digits.");
+    },
+  );
 
   it("says which end a number is past, in its own words where given", () => {
     expect(season.safeParse("1999").error!.issues[0].message).toBe("season must be at least 2000.");
