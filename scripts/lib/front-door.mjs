@@ -55,13 +55,20 @@ export function boundedLinger(req, res) {
 
 /** @typedef {{ status: number; code: string; message: string }} Refusal What the door answers in Next's place. */
 
+/** Each request's routed path, worked out once: several of the door's checks ask for it. */
+const routedPaths = new WeakMap();
+
 /**
  * A request's path as Next will route it: dot segments resolved ("/api/../sign-in" is the
  * sign-in page), the query left out.
  *
  * @param {import("node:http").IncomingMessage} req
  */
-const routedPath = (req) => new URL(req.url ?? "/", "http://front.door").pathname;
+const routedPath = (req) => {
+  let path = routedPaths.get(req);
+  if (path === undefined) routedPaths.set(req, (path = new URL(req.url ?? "/", "http://front.door").pathname));
+  return path;
+};
 
 /**
  * What the front door answers a request Next would answer with a 500, or null:

@@ -37,7 +37,7 @@ function parsed(text: string, part: string): unknown {
 }
 
 /** The arguments of a call made from script: a list of plain values and form references. */
-export function checkActionArguments(text: string, part = "arguments"): void {
+function checkActionArguments(text: string, part = "arguments"): void {
   const args = parsed(text, part);
   if (!Array.isArray(args)) throw new AppError("bad_request:action_body", `The action's ${part} must be a list.`);
   const fine = args.every((a) => (typeof a === "string" && FORM_REFERENCE.test(a)) || isPlain(a, 0));
@@ -65,12 +65,7 @@ function checkFormWithoutScript(form: FormData): void {
     const headKey = `${prefix}0`;
     const head = text(headKey);
     if (head === undefined) throw new AppError("bad_request:action_body", `The form's field "${shownKey(headKey)}" (the action's reference) is missing.`);
-    let meta: unknown;
-    try {
-      meta = JSON.parse(head);
-    } catch {
-      throw new AppError("bad_request:action_body", `The form's field "${shownKey(headKey)}" (the action's reference) could not be read: it is not JSON.`);
-    }
+    const meta = parsed(head, `field "${shownKey(headKey)}" (the action's reference)`);
     if (meta === null || typeof meta !== "object" || Array.isArray(meta))
       throw new AppError("bad_request:action_body", `The form's field "${shownKey(headKey)}" (the action's reference) must be an object.`);
     const { bound, ...rest } = meta as { bound?: unknown };
