@@ -1,4 +1,6 @@
 import fs from "node:fs";
+import http from "node:http";
+import type { AddressInfo } from "node:net";
 import { afterAll, describe, expect, inject, it } from "vitest";
 import { makeDemoBasemap } from "@/server/seed/demo-basemap";
 import { launchPersistent, LAPTOP, PHONE, shotPath } from "./support/browser";
@@ -99,6 +101,35 @@ describe("the club's basemap on the phone (issue 19)", () => {
     }
     await page.screenshot({ path: shotPath("basemap-map-offline-phone"), fullPage: true });
     await map.screenshot({ path: shotPath("basemap-map-offline-phone-map") });
+
+    // A tile address from Settings whose server takes the request and never answers (a weak
+    // link): its tiles hold back the map's "load" for as long as they wait, and the ground kept
+    // on the phone must not wait with them.
+    let asked = 0;
+    const hanging = http.createServer(() => asked++);
+    await new Promise<void>((resolve) => hanging.listen(0, "127.0.0.1", resolve));
+    try {
+      await context.setOffline(false);
+      await page.goto(`${baseUrl}/settings`);
+      const tileField = page.getByLabel("Map tiles address (optional)");
+      const tileUrl = `http://127.0.0.1:${(hanging.address() as AddressInfo).port}/{z}/{x}/{y}.png`;
+      await tileField.fill(tileUrl);
+      await tileField.blur();
+      await page.getByRole("status").filter({ hasText: "Saved on this device." }).waitFor();
+      // Kept: Settings opened again shows it.
+      await page.reload();
+      await expect.poll(() => page.getByLabel("Map tiles address (optional)").inputValue()).toBe(tileUrl);
+      await page.goto(`${baseUrl}/map`);
+      const waiting = page.locator('[data-testid=map][data-basemap="offline"]');
+      await waiting.waitFor({ timeout: 30_000 });
+      expect(Number(await waiting.getAttribute("data-basemap-tiles"))).toBeGreaterThan(0);
+      // The tile server was asked and is still silent: the map has not finished loading.
+      expect(asked).toBeGreaterThan(0);
+      expect(await waiting.getAttribute("data-map-ready")).toBeNull();
+    } finally {
+      hanging.closeAllConnections();
+      hanging.close();
+    }
     await context.close();
   });
 

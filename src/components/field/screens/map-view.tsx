@@ -236,8 +236,10 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
     let live = true;
     box.current.removeAttribute("data-basemap");
     box.current.removeAttribute("data-basemap-tiles");
-    const loaded = new Promise<void>((resolve) => (map.loaded() ? resolve() : map.once("load", () => resolve())));
-    void Promise.all([chooseBasemap(), loaded])
+    // The basemap joins once the style is in, not once every tile has ("load"): its tiles then
+    // come with the outlines' and the map draws them in the same few frames, not a second round.
+    const styled = new Promise<void>((resolve) => (map.getSource("me") ? resolve() : map.once("style.load", () => resolve())));
+    void Promise.all([chooseBasemap(), styled])
       .then(([basemap]) => {
         if (!live || !basemap) return;
         map.addSource("basemap", { type: "raster", url: basemap.url, tileSize: 256 });

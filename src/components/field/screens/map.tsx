@@ -3,7 +3,8 @@ import { useLiveQuery } from "@/client/live-query";
 import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
 import { useMemo } from "react";
-import { useClaims, useSettings } from "@/client/hooks";
+import { useClaims } from "@/client/hooks";
+import { readSettings } from "@/client/settings";
 import { useHashParams } from "@/client/hash-params";
 import { NO_POSITION, useDevicePosition } from "@/client/position";
 import { saveFind, stripLocal } from "@/client/logbook";
@@ -25,7 +26,8 @@ export function MapScreen() {
   const pickFor = useHashParams().get("pick");
   const claims = useClaims(db);
   const finds = useLiveQuery(() => db.finds.toArray(), [db]);
-  const settings = useSettings(db);
+  // Waited for, not taken as the defaults meanwhile: the map is built for one tile address.
+  const settings = useLiveQuery(() => readSettings(db), [db]);
   const { state: position, locate } = useDevicePosition(false);
   const me = position.kind === "found" ? position.position : null;
 
@@ -41,7 +43,7 @@ export function MapScreen() {
     return { byClaim, outside };
   }, [finds, claims]);
 
-  if (!claims || !finds) return <MapPlace />;
+  if (!claims || !finds || !settings) return <MapPlace />;
 
   const pick = async (lat: number, lon: number) => {
     if (!pickFor) return;
