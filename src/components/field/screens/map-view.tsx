@@ -236,8 +236,9 @@ export default function MapView({ claims, finds, me, tileUrl, labels, onPick, on
     let live = true;
     box.current.removeAttribute("data-basemap");
     box.current.removeAttribute("data-basemap-tiles");
-    // The basemap joins once the style is in, not once every tile has ("load"): its tiles then
-    // come with the outlines' and the map draws them in the same few frames, not a second round.
+    // The basemap joins once the style is in, not once every tile has ("load", which a tile
+    // server that never answers holds back for good): the ground kept on the phone shows
+    // whatever that server does, and its tiles are drawn in the outlines' frames, not after.
     const styled = new Promise<void>((resolve) => (map.getSource("me") ? resolve() : map.once("style.load", () => resolve())));
     void Promise.all([chooseBasemap(), styled])
       .then(([basemap]) => {
