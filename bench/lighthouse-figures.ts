@@ -22,7 +22,7 @@ const RUNS = 3;
  * tick a screen drew on moved its score by ten points or more. chrome-launcher's list of flags
  * for tools (docs/chrome-flags-for-tools.md, "Rendering & GPU") names this switch.
  */
-export const LIGHTHOUSE_CHROME_FLAGS = [
+const LIGHTHOUSE_CHROME_FLAGS = [
   "--headless=new",
   "--no-sandbox",
   "--disable-gpu",

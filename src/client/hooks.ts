@@ -21,8 +21,14 @@ export function useClaims(db: LodebookDb) {
   return useLiveQuery(() => readClaims(db), [db]);
 }
 
+/** The member's settings as stored on the device; undefined until the device has answered. */
+export function useStoredSettings(db: LodebookDb): MemberSettings | undefined {
+  return useLiveQuery(() => readSettings(db), [db]);
+}
+
+/** The member's settings, the defaults until the device has answered. */
 export function useSettings(db: LodebookDb): MemberSettings {
-  return useLiveQuery(() => readSettings(db), [db]) ?? DEFAULT_SETTINGS;
+  return useStoredSettings(db) ?? DEFAULT_SETTINGS;
 }
 
 export function useCurrentOuting(db: LodebookDb) {

@@ -3,8 +3,7 @@ import { useLiveQuery } from "@/client/live-query";
 import dynamic from "next/dynamic";
 import { useRouter } from "next/navigation";
 import { useMemo } from "react";
-import { useClaims } from "@/client/hooks";
-import { readSettings } from "@/client/settings";
+import { useClaims, useStoredSettings } from "@/client/hooks";
 import { useHashParams } from "@/client/hash-params";
 import { NO_POSITION, useDevicePosition } from "@/client/position";
 import { saveFind, stripLocal } from "@/client/logbook";
@@ -27,7 +26,7 @@ export function MapScreen() {
   const claims = useClaims(db);
   const finds = useLiveQuery(() => db.finds.toArray(), [db]);
   // Waited for, not taken as the defaults meanwhile: the map is built for one tile address.
-  const settings = useLiveQuery(() => readSettings(db), [db]);
+  const settings = useStoredSettings(db);
   const { state: position, locate } = useDevicePosition(false);
   const me = position.kind === "found" ? position.position : null;
 
