@@ -1,7 +1,7 @@
 import Database from "better-sqlite3";
 import { describe, expect, inject, it } from "vitest";
 import { LAPTOP, PHONE, shotPath, sharedBrowser } from "./support/browser";
-import { signInToField, waitForSyncDone } from "./support/field";
+import { axeViolations, signInToField, waitForSyncDone } from "./support/field";
 import { DEMO, SignInPage } from "./support/pages";
 
 const baseUrl = inject("baseUrl");
@@ -85,6 +85,31 @@ describe("the club console", () => {
     await phone.getByTestId("query-thread").getByText("Please weigh it again with the line tared under water.").waitFor();
     await phone.screenshot({ path: shotPath("member-sees-query-phone"), fullPage: true });
     await phone.context().close();
+  });
+
+  it("fails none of Lighthouse's accessibility rules on any console screen, the ledger's find panel open too (axe-core)", async () => {
+    const page = await (await browser().newContext(LAPTOP)).newPage();
+    const signIn = new SignInPage(page, baseUrl);
+    await signIn.open();
+    await signIn.signIn(DEMO.officer.email, DEMO.officer.password);
+    await page.getByRole("heading", { name: /Club console/ }).waitFor();
+    const found: Record<string, string[]> = {};
+    const check = async (name: string) => {
+      const v = await axeViolations(page);
+      if (v.length) found[name] = v;
+    };
+    for (const path of ["/club", "/club/ledger", "/club/claims", "/club/members", "/club/prices", "/club/report", "/club/mail"]) {
+      await page.goto(`${baseUrl}${path}`);
+      await page.locator("main h1").first().waitFor();
+      await page.waitForLoadState("networkidle");
+      await check(path);
+    }
+    await page.goto(`${baseUrl}/club/ledger`);
+    await page.getByTestId("ledger-table").locator("tbody tr").first().click();
+    await page.getByTestId("find-panel").getByText("Position").waitFor();
+    await check("/club/ledger, a find's panel open");
+    expect(found).toEqual({});
+    await page.context().close();
   });
 
   it("the ledger's first page, the monthly bars and the claims plan arrive with the page: there before any script runs", async () => {

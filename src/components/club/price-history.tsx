@@ -48,7 +48,9 @@ export function PriceHistory({ prices, currency }: { prices: PriceEntry[]; curre
             <th className="py-2 pr-3 text-right">Per troy ounce</th>
             <th className="py-2 pr-3">State</th>
             <th className="py-2 pr-3">Recorded</th>
-            <th className="py-2" />
+            <th className="py-2">
+              <span className="sr-only">Correct or withdraw</span>
+            </th>
           </tr>
         </thead>
         <tbody>

@@ -106,8 +106,15 @@ export function QuickFindScreen() {
         <FieldError messages={errors.weightGrams} />
       </div>
 
+      {/* The position's button shares the heading's line: below what it explains, it sat low enough on a
+          phone for the held Save to cover most of it. */}
       <section className="sheet flex flex-col gap-2" aria-label="Where">
-        <p className="field-label">Where</p>
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <p className="field-label mb-0">Where</p>
+          <button type="button" className="btn" onClick={locate}>
+            {here ? "Update my position" : "Try my position again"}
+          </button>
+        </div>
         {position.kind === "finding" && <p role="status">Finding your position…</p>}
         {position.kind === "failed" && (
           <p role="status" className="text-rust">
@@ -115,9 +122,6 @@ export function QuickFindScreen() {
           </p>
         )}
         {here && <LocationLine lat={here.lat} lon={here.lon} accuracyM={here.accuracyM} source="device" claims={claims} />}
-        <button type="button" className="btn self-start" onClick={locate}>
-          {here ? "Update my position" : "Try my position again"}
-        </button>
         <p className="text-sm text-ink-soft">You can also set the spot later, from a photo or on the map.</p>
       </section>
 

@@ -130,7 +130,10 @@ export function SettingsScreen() {
           <span>E-mail me when an officer queries one of my finds</span>
         </label>
       </section>
-      <section className="sheet flex flex-col gap-2" aria-label="Map">
+      <section className="sheet flex flex-col gap-2" aria-labelledby="map-title">
+        <h2 id="map-title" className="heading-bar self-start text-lg">
+          Map
+        </h2>
         <label className="flex flex-col">
           <span className="field-label">Map tiles address (optional)</span>
           <input
