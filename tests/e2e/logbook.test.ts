@@ -5,6 +5,7 @@ import { afterAll, describe, expect, inject, it } from "vitest";
 import { DEMO_CLAIMS } from "@/server/seed/people";
 import { makeJpeg } from "../support/jpeg";
 import { launchPersistent, PHONE, shotPath } from "./support/browser";
+import { memberRecords, memberScreens } from "./support/member-screens";
 import { axeViolations, deviceRecords, firstPage, screenDrawn, signInToField, tab, waitForSyncDone } from "./support/field";
 
 const baseUrl = inject("baseUrl");
@@ -150,32 +151,7 @@ describe("the field logbook with no signal", () => {
     const page = await firstPage(context);
     await signInToField(page, baseUrl);
     await waitForSyncDone(page);
-    const { findId, outingId } = await page.evaluate(async () => {
-      const db = await new Promise<IDBDatabase>((resolve) => {
-        const open = indexedDB.open(`lodebook-member-${JSON.parse(localStorage.getItem("lodebook-member")!).id}`);
-        open.onsuccess = () => resolve(open.result);
-      });
-      const first = (store: string) =>
-        new Promise<string>((resolve) => {
-          const req = db.transaction(store).objectStore(store).openCursor();
-          req.onsuccess = () => resolve((req.result?.value as { id: string }).id);
-        });
-      return { findId: await first("finds"), outingId: await first("outings") };
-    });
-    const screens = [
-      "/",
-      "/finds",
-      "/finds/new",
-      `/finds/view#id=${findId}`,
-      "/outings",
-      `/outings/view#id=${outingId}`,
-      "/map",
-      "/sync",
-      "/settings",
-      "/scales",
-      "/barren-rock",
-      "/weigh",
-    ];
+    const screens = memberScreens(memberRecords(inject("databaseUrl")));
     const found: Record<string, string[]> = {};
     // A target half under the held Save is a failure at one height and not at another: both sizes.
     const { width, height } = screenEmulationMetrics.mobile; // Lighthouse's mobile preset

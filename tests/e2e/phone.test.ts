@@ -1,60 +1,13 @@
-import Database from "better-sqlite3";
 import { describe, expect, inject, it } from "vitest";
 import { MORE_SCREENS } from "@/components/field/tab-bar";
 import { launchPersistent, PHONE, sharedBrowser, shotPath } from "./support/browser";
 import { firstPage, screenDrawn, signInToField, waitForSyncDone } from "./support/field";
 import { DEMO } from "./support/pages";
+import { memberRecords, memberScreens } from "./support/member-screens";
 import { WeighPage } from "./support/weigh-page";
 
 const baseUrl = inject("baseUrl");
 const browser = sharedBrowser();
-
-/** One of the member's own finds that has a weigh-in, one with an officer's review, and one of their outings. */
-function memberRecords() {
-  const db = new Database(inject("databaseUrl"), { readonly: true });
-  try {
-    const find = db
-      .prepare(
-        "select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from weigh_ins w where w.find_id = f.id) limit 1",
-      )
-      .get(DEMO.member.email) as { id: string };
-    const outing = db.prepare("select o.id from outings o join members m on m.id = o.member_id where m.email = ? limit 1").get(DEMO.member.email) as {
-      id: string;
-    };
-    // A find the officers have reviewed (the demo club queries and verifies some): its thread
-    // opens above the rest of the find.
-    const reviewed = db
-      .prepare(
-        "select f.id from finds f join members m on m.id = f.member_id where m.email = ? and f.deleted_at is null and exists (select 1 from reviews r where r.find_id = f.id) limit 1",
-      )
-      .get(DEMO.member.email) as { id: string };
-    return { find: find.id, outing: outing.id, reviewed: reviewed.id };
-  } finally {
-    db.close();
-  }
-}
-
-/**
- * Every member screen, records included. The reviewed find comes after another screen, so that
- * it opens in a page of its own rather than as a move within the first find's page.
- */
-function memberScreens({ find, outing, reviewed }: ReturnType<typeof memberRecords>) {
-  return [
-    "/",
-    "/finds",
-    "/finds/new",
-    `/finds/view#id=${find}`,
-    "/outings",
-    `/finds/view#id=${reviewed}`,
-    `/outings/view#id=${outing}`,
-    "/map",
-    "/sync",
-    "/settings",
-    "/scales",
-    "/barren-rock",
-    "/weigh",
-  ];
-}
 
 describe("the phone in the field (issue 19)", () => {
   it("a first visit loads Today once: the worker taking the page over does not reload it", async () => {
@@ -86,7 +39,7 @@ describe("the phone in the field (issue 19)", () => {
     await signInToField(page, baseUrl);
     await waitForSyncDone(page);
     const viewport = page.viewportSize()!;
-    for (const path of [`/finds/view#id=${memberRecords().find}`, "/weigh"]) {
+    for (const path of [`/finds/view#id=${memberRecords(inject("databaseUrl")).find}`, "/weigh"]) {
       await page.goto(`${baseUrl}${path}`);
       if (path !== "/weigh") await page.getByRole("button", { name: "Weigh this specimen" }).click();
       await page.locator("#air-0").fill("20.00");
@@ -141,7 +94,7 @@ describe("the phone in the field (issue 19)", () => {
       await page.goto(`${baseUrl}/`);
     }
 
-    const screens = [...memberScreens(memberRecords()), "/about"];
+    const screens = [...memberScreens(memberRecords(inject("databaseUrl"))), "/about"];
     const wide: string[] = [];
     for (const width of [320, 360, 390, 430]) {
       await page.setViewportSize({ width, height: 800 });
@@ -257,7 +210,7 @@ describe("the phone in the field (issue 19)", () => {
     });
     const page = await context.newPage();
     const shifts = () => page.evaluate(() => (window as unknown as { shifts: { value: number; moved: string[] }[] }).shifts);
-    const records = memberRecords();
+    const records = memberRecords(inject("databaseUrl"));
     const { reviewed } = records;
     const moved: string[] = [];
     for (const screen of memberScreens(records)) {
@@ -311,7 +264,7 @@ describe("the phone in the field (issue 19)", () => {
       }
     });
     const page = await context.newPage();
-    const records = memberRecords();
+    const records = memberRecords(inject("databaseUrl"));
     // Where each screen shows a date, and whether with its time (formatWhen) or without (formatDay).
     const screens: [string, string, "day" | "when"][] = [
       ["/", "main a[href^='/finds/view']", "day"],
