@@ -6,6 +6,7 @@ import { DEMO_CLAIMS } from "@/server/seed/people";
 import { makeJpeg } from "../support/jpeg";
 import { launchPersistent, PHONE, shotPath } from "./support/browser";
 import { memberRecords, memberScreens } from "./support/member-screens";
+import { WeighPage } from "./support/weigh-page";
 import { axeViolations, deviceRecords, firstPage, screenDrawn, signInToField, tab, waitForSyncDone } from "./support/field";
 
 const baseUrl = inject("baseUrl");
@@ -164,6 +165,24 @@ describe("the field logbook with no signal", () => {
         if (v.length) found[`${viewport.width}×${viewport.height} ${path}`] = v;
       }
     }
+    // The states a screen shows after typing: an estimate with its held bar, and a refused field.
+    const weigh = new WeighPage(page, baseUrl);
+    await weigh.open();
+    await screenDrawn(page);
+    await weigh.readings(["52.40", "52.38"], ["44.10", "44.12"]);
+    await page.getByTestId("estimate-bar").waitFor();
+    const withEstimate = await axeViolations(page);
+    if (withEstimate.length) found["/weigh with an estimate"] = withEstimate;
+    await page.goto(`${baseUrl}/finds/new`);
+    await screenDrawn(page);
+    await page.getByLabel(/^Weight/).fill("0");
+    await page.getByRole("button", { name: "Save the find" }).click();
+    await page
+      .getByText(/must be more than/)
+      .first()
+      .waitFor();
+    const refused = await axeViolations(page);
+    if (refused.length) found["/finds/new, a weight refused"] = refused;
     expect(found).toEqual({});
     await context.close();
   });

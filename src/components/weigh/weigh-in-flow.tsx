@@ -204,11 +204,13 @@ export function WeighInFlow({ initial, claim = null, scales = [], onSave, onCanc
           className="sheet held-at-bottom sticky bottom-[calc(var(--tab-bar-room,0px)_+_0.5rem)] z-10 flex items-center justify-between gap-2 shadow-lg lg:hidden"
           data-testid="estimate-bar"
         >
-          <a href="#estimate-title" className="figure flex flex-col font-bold no-underline" aria-label="Jump to the estimate">
+          {/* Named by its words (the figure a member reads, or says to voice control), with where it goes added for a screen reader. */}
+          <a href="#estimate-title" className="figure flex flex-col font-bold no-underline">
             <span>Fine gold ≈ {formatGrams(outcome.estimate.fineGoldGrams, resultUnit, outcome.estimate.standardUncertainty.fineGoldGrams)}</span>
             <span className="text-sm text-ink-soft" data-testid="estimate-bar-spread">
               {barSpread(outcome.estimate, resultUnit)}
             </span>
+            <span className="sr-only">: the whole estimate</span>
           </a>
           {onSave && (
             <button type="button" className="btn btn-primary shrink-0" disabled={saving} onClick={save}>
