@@ -47,10 +47,14 @@ async function lighthouseAxeRules(): Promise<string[]> {
   return (config.categories?.accessibility.auditRefs ?? []).map((ref) => ref.id);
 }
 
+// Read once per test file: a check runs on every screen at two sizes.
+let axeSetup: Promise<{ wanted: string[]; source: string }> | undefined;
+
 /** Runs axe-core in the page with Lighthouse's accessibility rules; returns every violation, as "rule: where". */
 export async function axeViolations(page: Page) {
-  const wanted = await lighthouseAxeRules();
-  await page.addScriptTag({ content: fs.readFileSync("node_modules/axe-core/axe.min.js", "utf8") });
+  axeSetup ??= lighthouseAxeRules().then((wanted) => ({ wanted, source: fs.readFileSync("node_modules/axe-core/axe.min.js", "utf8") }));
+  const { wanted, source } = await axeSetup;
+  await page.addScriptTag({ content: source });
   return page.evaluate(async (wanted) => {
     type Axe = {
       getRules: () => { ruleId: string }[];

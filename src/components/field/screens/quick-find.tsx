@@ -106,8 +106,7 @@ export function QuickFindScreen() {
         <FieldError messages={errors.weightGrams} />
       </div>
 
-      {/* The position's button shares the heading's line: below what it explains, it sat low enough on a
-          phone for the held Save to cover most of it. */}
+      {/* The position's button shares the heading's line, high in the section: lower down, the held Save covers it on a phone. */}
       <section className="sheet flex flex-col gap-2" aria-label="Where">
         <div className="flex flex-wrap items-center justify-between gap-2">
           <p className="field-label mb-0">Where</p>
