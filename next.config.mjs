@@ -1,6 +1,7 @@
 import withSerwistInit from "@serwist/next";
 import fs from "node:fs";
 import path from "node:path";
+import { CompileHintsPlugin } from "./scripts/lib/compile-hints.mjs";
 import { ACTION_BODY_LIMIT } from "./scripts/lib/front-door.mjs";
 
 // MapLibre runs its tile work in a Web Worker loaded by URL: serve the package's own worker
@@ -50,7 +51,7 @@ const nextConfig = {
   // streams and refuses it past this size, before any action runs.
   experimental: { serverActions: { bodySizeLimit: ACTION_BODY_LIMIT } },
   serverExternalPackages: ["better-sqlite3", "smtp-server", "mailparser", "pino"],
-  webpack(config, { isServer, dev }) {
+  webpack(config, { isServer, dev, webpack }) {
     // The member layout and each screen are separate entries that always load together. Small
     // modules both use (device database, logbook, sync start, roles) fell under Next's 20 kB
     // threshold for a shared chunk and were copied into both, so a screen loaded them twice.
@@ -78,6 +79,8 @@ const nextConfig = {
         test: /[\\/]src[\\/]components[\\/]intent-link\./,
         enforce: true,
       };
+      // Every file a page runs at start is compiled off the main thread as it streams in.
+      config.plugins.push(new CompileHintsPlugin(webpack));
     }
     // Dexie's package points bundlers at its ES5 build; its modern ES build is the same code,
     // 1.4 kB smaller gzipped, on every member screen. One alias, so one Dexie instance.
