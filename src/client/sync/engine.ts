@@ -176,7 +176,9 @@ async function uploadPhotos(db: LodebookDb, report: Report): Promise<Step<{ byte
       } else if (answer.kind !== "refused") stop ??= answer;
     }
   };
-  emit();
+  // No photo to send, no photos step to show: "Sending photos: 0 of 0" flashed on every sync,
+  // and the photo line it adds on the sync screen moved the sections below it twice.
+  if (ready.length > 0) emit();
   await Promise.all(Array.from({ length: PARALLEL_UPLOADS }, worker));
   if (stop) return { ok: false, status: failure(stop, await pending(db).count()) };
   return { ok: true, bytesDone, bytesTotal };

@@ -1,5 +1,6 @@
 "use client";
 import { useLiveQuery } from "@/client/live-query";
+import { useQueryOnceCopied } from "@/client/first-copy";
 import { IntentLink } from "@/components/intent-link";
 import { useRouter } from "next/navigation";
 import { lazy, Suspense, useEffect, useState } from "react";
@@ -48,14 +49,17 @@ export function FindDetailScreen() {
   // id it is for, so the previous find is never shown (or edited) under the next one's address.
   // Its officers' reviews and the member's answers come in the same read: a queried find opens
   // with its thread in place, above the rest, instead of pushing the rest down after.
-  const loaded = useLiveQuery(
+  // On a device that has never synced, it waits for camp sync's first copy before saying the
+  // find is not here (a link opened on a new phone).
+  const loaded = useQueryOnceCopied(
+    db,
     async () => ({
       id,
       find: (await db.finds.get(id)) ?? null,
       reviews: await db.reviews.where("findId").equals(id).toArray(),
       answers: await db.answers.where("findId").equals(id).toArray(),
     }),
-    [db, id],
+    [id],
   );
   const find = loaded?.id === id ? loaded.find : undefined;
   // Most finds have no thread: its code loads only for one that has. The screen waits for it

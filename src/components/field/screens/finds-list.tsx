@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "@/client/live-query";
+import { useQueryOnceCopied } from "@/client/first-copy";
 import { IntentLink } from "@/components/intent-link";
 import { lazy, Suspense, useMemo, useState, type ReactElement } from "react";
 import { useClaims, useSettings } from "@/client/hooks";
@@ -26,7 +26,7 @@ export function FindsListScreen() {
   const loaded = useClaims(db);
   const claims = useMemo(() => loaded ?? [], [loaded]);
   const settings = useSettings(db);
-  const all = useLiveQuery(() => db.finds.orderBy("foundAt").reverse().toArray(), [db]);
+  const all = useQueryOnceCopied(db, () => db.finds.orderBy("foundAt").reverse().toArray(), []);
   const queries = useQueryStates(db);
   const [text, setText] = useState("");
   const [kind, setKind] = useState("");

@@ -1,5 +1,6 @@
 "use client";
 import { useLiveQuery } from "@/client/live-query";
+import { useQueryOnceCopied } from "@/client/first-copy";
 import { IntentLink } from "@/components/intent-link";
 import { useRouter } from "next/navigation";
 import { lazy, Suspense } from "react";
@@ -21,7 +22,8 @@ export function OutingDetailScreen() {
   const router = useRouter();
   const claims = useClaims(db) ?? [];
   // The answer names its id: the previous outing is never shown under the next one's address.
-  const loaded = useLiveQuery(async () => ({ id, outing: (await db.outings.get(id)) ?? null }), [db, id]);
+  // A device that has never synced waits for camp sync's first copy before saying it is not here.
+  const loaded = useQueryOnceCopied(db, async () => ({ id, outing: (await db.outings.get(id)) ?? null }), [id]);
   const outing = loaded?.id === id ? loaded.outing : undefined;
   const finds = useLiveQuery(() => db.finds.where("outingId").equals(id).toArray(), [db, id]);
   if (outing === undefined) return <Skeleton />;

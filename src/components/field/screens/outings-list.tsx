@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "@/client/live-query";
+import { useQueryOnceCopied } from "@/client/first-copy";
 import { IntentLink } from "@/components/intent-link";
 import { useClaims } from "@/client/hooks";
 import { useMember } from "@/client/member";
@@ -12,14 +12,15 @@ export function OutingsScreen() {
   const claims = useClaims(db) ?? [];
   // The outings and their find counts in one read: drawn together, so no count line changes
   // under the member's eyes after the list is there.
-  const read = useLiveQuery(
+  const read = useQueryOnceCopied(
+    db,
     () =>
       db.transaction("r", [db.outings, db.finds], async () => {
         const counts = new Map<string, number>();
         await db.finds.each((f) => f.outingId && counts.set(f.outingId, (counts.get(f.outingId) ?? 0) + 1));
         return { outings: await db.outings.orderBy("startedAt").reverse().toArray(), counts };
       }),
-    [db],
+    [],
   );
   const outings = read?.outings;
   const counts = read?.counts;

@@ -1,5 +1,5 @@
 "use client";
-import { useLiveQuery } from "@/client/live-query";
+import { useQueryOnceCopied } from "@/client/first-copy";
 import { lazy, Suspense, useState } from "react";
 import { addSetupCheck, deleteScale, newId, saveScale } from "@/client/logbook";
 import type { LocalScale } from "@/client/device-db";
@@ -139,7 +139,7 @@ function AddScale() {
 /** The member's scale profiles: step, accuracy, and the history of their setup checks. */
 export function ScalesScreen() {
   const { db } = useMember();
-  const scales = useLiveQuery(() => db.scales.toArray().then((s) => s.sort((a, b) => compareNames(a.name, b.name))), [db]);
+  const scales = useQueryOnceCopied(db, () => db.scales.toArray().then((s) => s.sort((a, b) => compareNames(a.name, b.name))), []);
   return (
     <>
       {scales === undefined ? (

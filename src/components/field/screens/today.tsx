@@ -1,6 +1,6 @@
 "use client";
 import { lazy, Suspense } from "react";
-import { useLiveQuery } from "@/client/live-query";
+import { useQueryOnceCopied } from "@/client/first-copy";
 import { IntentLink } from "@/components/intent-link";
 import type { LodebookDb } from "@/client/device-db";
 import { readClaims, readCurrentOuting } from "@/client/hooks";
@@ -44,7 +44,7 @@ export function TodayScreen({ caution }: { caution: React.ReactNode }) {
   const { member, db } = useMember();
   // The member's own days, as their phone's clock shows them.
   const { season, start, end } = deviceSeasonBounds();
-  const today = useLiveQuery(() => readToday(db, start, end), [db, start, end]);
+  const today = useQueryOnceCopied(db, () => readToday(db, start, end), [start, end]);
   const settings = today?.settings ?? DEFAULT_SETTINGS;
   const outing = today?.outing;
   const claims = today?.claims;
@@ -73,7 +73,9 @@ export function TodayScreen({ caution }: { caution: React.ReactNode }) {
           Today&apos;s outing
         </h2>
         {outing === undefined ? (
-          <Skeleton lines={1} />
+          // Two rows, the height of the start form (two fields over a button) within a few
+          // pixels: one row grew by 65 px when the form came, moving every section below it.
+          <Skeleton lines={2} />
         ) : outing ? (
           <>
             <p>

@@ -1,0 +1,101 @@
+// @vitest-environment jsdom
+import "fake-indexeddb/auto";
+import { act, cleanup, render, screen } from "@testing-library/react";
+import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
+import type { LodebookDb } from "./device-db";
+import type { SyncStatus } from "./sync/status";
+
+// useQueryOnceCopied: a fresh device's screens wait (skeleton) for the first camp sync's copy of
+// the member's logbook, not say "none yet" and then push their forms down when it arrives.
+// The "gave up" latch lives for a page's life: each test loads the modules afresh.
+
+let db: LodebookDb;
+let counter = 0;
+let setStatus: (s: SyncStatus) => void;
+let Scales: () => React.ReactElement;
+let drawn: string[];
+
+beforeEach(async () => {
+  vi.resetModules();
+  const { memberDb } = await import("./device-db");
+  const { syncStatus } = await import("./sync/status");
+  const { useQueryOnceCopied } = await import("./first-copy");
+  db = memberDb(`first-copy-${counter++}`);
+  setStatus = (s) => act(() => syncStatus.set(s));
+  drawn = [];
+  Scales = function Scales() {
+    const scales = useQueryOnceCopied(db, () => db.scales.toArray(), []);
+    const text = scales === undefined ? "waiting" : scales.map((s) => s.name).join(",") || "none yet";
+    drawn.push(text);
+    return <p data-testid="scales">{text}</p>;
+  };
+});
+
+afterEach(async () => {
+  cleanup();
+  db.close();
+});
+
+const scale = (name: string) => ({ id: name, name, stepGrams: 0.01, accuracyGrams: null, checks: [], updatedAt: 1 });
+const shown = () => screen.getByTestId("scales").textContent;
+/** Lets the device's queries answer (live queries hand over at the next frame or task). */
+const settle = () => act(() => new Promise((r) => setTimeout(r, 50)));
+
+describe("a screen on a device that has never synced", () => {
+  it("waits while the first sync runs, then shows its records and the empty store never", async () => {
+    render(<Scales />);
+    await settle();
+    expect(shown()).toBe("waiting");
+    setStatus({ kind: "syncing", phase: "receiving", done: 0, total: 1, bytesDone: 0, bytesTotal: 0 });
+    await settle();
+    expect(shown()).toBe("waiting");
+    // A sync that ends well has stored its cursor with the records (one transaction).
+    await db.transaction("rw", [db.scales, db.meta], async () => {
+      await db.scales.bulkPut([scale("Pocket scale"), scale("Bench scale")]);
+      await db.meta.put({ key: "cursor", value: 25 });
+    });
+    setStatus({ kind: "done", at: Date.now(), sent: 0, received: 2, rejected: 0 });
+    await settle();
+    expect(shown()).toBe("Bench scale,Pocket scale");
+    expect(new Set(drawn)).toEqual(new Set(["waiting", "Bench scale,Pocket scale"]));
+  });
+
+  it("does not take a sync's 'done' for the copy: it waits for the cursor", async () => {
+    render(<Scales />);
+    setStatus({ kind: "done", at: Date.now(), sent: 0, received: 0, rejected: 0 });
+    await settle();
+    expect(shown()).toBe("waiting");
+    await act(() => db.meta.put({ key: "cursor", value: 0 }));
+    await settle();
+    expect(shown()).toBe("none yet");
+  });
+
+  it.each<SyncStatus>([
+    { kind: "offline", waiting: 0, rejected: 0, lastSyncedAt: null },
+    { kind: "error", message: "the club's server did not answer", retryAt: 0, waiting: 0 },
+    { kind: "needs-sign-in", waiting: 0, reason: "expired" },
+    { kind: "outdated", waiting: 0 },
+  ])("shows what the device holds once the first sync has ended without a copy ($kind)", async (ended) => {
+    await db.scales.put(scale("Typed before signal"));
+    render(<Scales />);
+    await settle();
+    expect(shown()).toBe("waiting");
+    setStatus(ended);
+    await settle();
+    expect(shown()).toBe("Typed before signal");
+    // A retry later does not put the screen back to waiting.
+    setStatus({ kind: "syncing", phase: "sending", done: 0, total: 1, bytesDone: 0, bytesTotal: 0 });
+    await settle();
+    expect(shown()).toBe("Typed before signal");
+  });
+});
+
+describe("a screen on a device that holds its copy", () => {
+  it("shows its records at once, before any sync of this visit", async () => {
+    await db.meta.put({ key: "cursor", value: 40 });
+    await db.scales.put(scale("Pocket scale"));
+    render(<Scales />);
+    await settle();
+    expect(shown()).toBe("Pocket scale");
+  });
+});
