@@ -1,6 +1,6 @@
 // @vitest-environment jsdom
 import "fake-indexeddb/auto";
-import { act, cleanup, render, screen } from "@testing-library/react";
+import { act, cleanup, render, screen, waitFor } from "@testing-library/react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import type { LodebookDb } from "./device-db";
 import type { SyncStatus } from "./sync/status";
@@ -12,8 +12,10 @@ import type { SyncStatus } from "./sync/status";
 let db: LodebookDb;
 let counter = 0;
 let setStatus: (s: SyncStatus) => void;
-let Scales: () => React.ReactElement;
+let Scales: (props: { testId?: string }) => React.ReactElement;
+let Find: (props: { id: string }) => React.ReactElement;
 let drawn: string[];
+let reads: number;
 
 beforeEach(async () => {
   vi.resetModules();
@@ -23,11 +25,24 @@ beforeEach(async () => {
   db = memberDb(`first-copy-${counter++}`);
   setStatus = (s) => act(() => syncStatus.set(s));
   drawn = [];
-  Scales = function Scales() {
-    const scales = useQueryOnceCopied(db, () => db.scales.toArray(), []);
+  reads = 0;
+  Scales = function Scales({ testId = "scales" }) {
+    const scales = useQueryOnceCopied(db, () => {
+      reads++;
+      return db.scales.toArray();
+    }, []);
     const text = scales === undefined ? "waiting" : scales.map((s) => s.name).join(",") || "none yet";
     drawn.push(text);
-    return <p data-testid="scales">{text}</p>;
+    return <p data-testid={testId}>{text}</p>;
+  };
+  Find = function Find({ id }) {
+    const read = useQueryOnceCopied(
+      db,
+      async () => ({ find: (await db.finds.get(id)) ?? null }),
+      [id],
+      (r) => r.find !== null,
+    );
+    return <p data-testid="find">{read === undefined ? "waiting" : read.find ? `find ${read.find.id}` : "not on this device"}</p>;
   };
 });
 
@@ -55,8 +70,7 @@ describe("a screen on a device that has never synced", () => {
       await db.meta.put({ key: "cursor", value: 25 });
     });
     setStatus({ kind: "done", at: Date.now(), sent: 0, received: 2, rejected: 0 });
-    await settle();
-    expect(shown()).toBe("Bench scale,Pocket scale");
+    await waitFor(() => expect(shown()).toBe("Bench scale,Pocket scale"));
     expect(new Set(drawn)).toEqual(new Set(["waiting", "Bench scale,Pocket scale"]));
   });
 
@@ -66,8 +80,7 @@ describe("a screen on a device that has never synced", () => {
     await settle();
     expect(shown()).toBe("waiting");
     await act(() => db.meta.put({ key: "cursor", value: 0 }));
-    await settle();
-    expect(shown()).toBe("none yet");
+    await waitFor(() => expect(shown()).toBe("none yet"));
   });
 
   it.each<SyncStatus>([
@@ -78,11 +91,11 @@ describe("a screen on a device that has never synced", () => {
   ])("shows what the device holds once the first sync has ended without a copy ($kind)", async (ended) => {
     await db.scales.put(scale("Typed before signal"));
     render(<Scales />);
+    await waitFor(() => expect(reads).toBeGreaterThan(0));
     await settle();
     expect(shown()).toBe("waiting");
     setStatus(ended);
-    await settle();
-    expect(shown()).toBe("Typed before signal");
+    await waitFor(() => expect(shown()).toBe("Typed before signal"));
     // A retry later does not put the screen back to waiting.
     setStatus({ kind: "syncing", phase: "sending", done: 0, total: 1, bytesDone: 0, bytesTotal: 0 });
     await settle();
@@ -95,7 +108,56 @@ describe("a screen on a device that holds its copy", () => {
     await db.meta.put({ key: "cursor", value: 40 });
     await db.scales.put(scale("Pocket scale"));
     render(<Scales />);
+    await waitFor(() => expect(shown()).toBe("Pocket scale"));
+  });
+
+  it("reads the cursor until it has seen it, not after: a sync that writes only the cursor does not run the screen's read again", async () => {
+    await db.meta.put({ key: "cursor", value: 40 });
+    render(<Scales />);
+    await waitFor(() => expect(shown()).toBe("none yet"));
+    // The first answer that saw the cursor still watches it: one more read, then none.
+    await act(() => db.meta.put({ key: "cursor", value: 41 }));
     await settle();
-    expect(shown()).toBe("Pocket scale");
+    const before = reads;
+    await act(() => db.meta.put({ key: "cursor", value: 42 }));
+    await settle();
+    expect(reads).toBe(before);
+    await act(() => db.scales.put(scale("Pocket scale")));
+    await waitFor(() => expect(shown()).toBe("Pocket scale"));
+  });
+});
+
+describe("the first sync's end, wherever the member is", () => {
+  it("counts a sync that ended without a copy while no screen that waits was open", async () => {
+    setStatus({ kind: "offline", waiting: 0, rejected: 0, lastSyncedAt: null });
+    render(<Scales />);
+    await waitFor(() => expect(shown()).toBe("none yet"));
+  });
+
+  it("tells every screen open then, not the first alone", async () => {
+    render(
+      <>
+        <Scales />
+        <Scales testId="scales-2" />
+      </>,
+    );
+    await settle();
+    setStatus({ kind: "error", message: "the club's server did not answer", retryAt: 0, waiting: 0 });
+    await waitFor(() => expect(shown()).toBe("none yet"));
+    await waitFor(() => expect(screen.getByTestId("scales-2").textContent).toBe("none yet"));
+  });
+});
+
+describe("a record's page on a device that has never synced", () => {
+  it("shows a record already on the device at once, and waits before saying one is not here", async () => {
+    await db.finds.put({ id: "saved-here" } as never);
+    const { unmount } = render(<Find id="saved-here" />);
+    await waitFor(() => expect(screen.getByTestId("find").textContent).toBe("find saved-here"));
+    unmount();
+    render(<Find id="from-the-club" />);
+    await settle();
+    expect(screen.getByTestId("find").textContent).toBe("waiting");
+    await act(() => db.meta.put({ key: "cursor", value: 3 }));
+    await waitFor(() => expect(screen.getByTestId("find").textContent).toBe("not on this device"));
   });
 });

@@ -49,8 +49,8 @@ export function FindDetailScreen() {
   // id it is for, so the previous find is never shown (or edited) under the next one's address.
   // Its officers' reviews and the member's answers come in the same read: a queried find opens
   // with its thread in place, above the rest, instead of pushing the rest down after.
-  // On a device that has never synced, it waits for camp sync's first copy before saying the
-  // find is not here (a link opened on a new phone).
+  // On a device that has never synced, a find not on it waits for camp sync's first copy before
+  // the screen says it is not here (a link opened on a new phone).
   const loaded = useQueryOnceCopied(
     db,
     async () => ({
@@ -60,6 +60,7 @@ export function FindDetailScreen() {
       answers: await db.answers.where("findId").equals(id).toArray(),
     }),
     [id],
+    (r) => r.find !== null,
   );
   const find = loaded?.id === id ? loaded.find : undefined;
   // Most finds have no thread: its code loads only for one that has. The screen waits for it

@@ -22,8 +22,14 @@ export function OutingDetailScreen() {
   const router = useRouter();
   const claims = useClaims(db) ?? [];
   // The answer names its id: the previous outing is never shown under the next one's address.
-  // A device that has never synced waits for camp sync's first copy before saying it is not here.
-  const loaded = useQueryOnceCopied(db, async () => ({ id, outing: (await db.outings.get(id)) ?? null }), [id]);
+  // On a device that has never synced, an outing not on it waits for camp sync's first copy
+  // before the screen says it is not here.
+  const loaded = useQueryOnceCopied(
+    db,
+    async () => ({ id, outing: (await db.outings.get(id)) ?? null }),
+    [id],
+    (r) => r.outing !== null,
+  );
   const outing = loaded?.id === id ? loaded.outing : undefined;
   const finds = useLiveQuery(() => db.finds.where("outingId").equals(id).toArray(), [db, id]);
   if (outing === undefined) return <Skeleton />;
