@@ -3,7 +3,7 @@ import { describe, expect, inject, it } from "vitest";
 import { MORE_SCREENS } from "@/components/field/tab-bar";
 import { COMPILE_HINT } from "../../scripts/lib/compile-hints.mjs";
 import { launchPersistent, PHONE, sharedBrowser, shotPath } from "./support/browser";
-import { firstPage, screenDrawn, signInToField, waitForSyncDone } from "./support/field";
+import { addScale, firstPage, screenDrawn, signInToField, waitForSyncDone } from "./support/field";
 import { DEMO } from "./support/pages";
 import { memberRecords, memberScreens } from "./support/member-screens";
 import { WeighPage } from "./support/weigh-page";
@@ -272,12 +272,7 @@ describe("the phone in the field (issue 19)", () => {
     await signInToField(first, baseUrl);
     await waitForSyncDone(first);
     // A scale of the member's at the club, so that Scales has a list above its form to pull.
-    await first.goto(`${baseUrl}/scales`);
-    const add = first.getByRole("form", { name: "Add a scale" });
-    await add.getByLabel("Name").fill("Camp bench scale");
-    await add.getByLabel("Step (g)").fill("0.1");
-    await add.getByRole("button", { name: "Add the scale" }).click();
-    await first.getByRole("listitem", { name: "Camp bench scale" }).waitFor();
+    await addScale(first, baseUrl, "Camp bench scale", "0.1");
     await first.goto(`${baseUrl}/sync`);
     await first.getByText("Nothing waiting.").waitFor({ timeout: 30_000 });
     const session = await signedIn.storageState();

@@ -3,7 +3,7 @@ import { describe, expect, inject, it } from "vitest";
 import { judgeSetupCheck } from "@/lib/estimate/setup-check";
 import { REFERENCE_OBJECTS } from "@/lib/estimate/reference-objects";
 import { launchPersistent, PHONE, shotPath } from "./support/browser";
-import { firstPage, signInToField, waitForSyncDone } from "./support/field";
+import { addScale, firstPage, signInToField, waitForSyncDone } from "./support/field";
 import { DEMO } from "./support/pages";
 
 const baseUrl = inject("baseUrl");
@@ -30,12 +30,7 @@ describe("the setup check on a member's phone (issue 16)", () => {
     await signInToField(page, baseUrl);
     await waitForSyncDone(page);
 
-    await page.goto(`${baseUrl}/scales`);
-    const add = page.getByRole("form", { name: "Add a scale" });
-    await add.getByLabel("Name").fill("Pocket scale");
-    await add.getByLabel("Step (g)").fill("0.01");
-    await add.getByRole("button", { name: "Add the scale" }).click();
-    const card = page.getByRole("listitem", { name: "Pocket scale" });
+    const card = await addScale(page, baseUrl, "Pocket scale", "0.01");
     await card.getByText(/Never checked/).waitFor();
 
     async function runCheck(readings: { air: string; water: string }) {

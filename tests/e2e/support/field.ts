@@ -22,6 +22,18 @@ export async function waitForSyncDone(page: Page) {
   await page.locator('[data-testid="sync-status"][data-kind="done"]').first().waitFor({ timeout: 30_000 });
 }
 
+/** Adds a scale on the Scales screen, as a member types it; answers its card once drawn. */
+export async function addScale(page: Page, baseUrl: string, name: string, step: string) {
+  await page.goto(`${baseUrl}/scales`);
+  const add = page.getByRole("form", { name: "Add a scale" });
+  await add.getByLabel("Name").fill(name);
+  await add.getByLabel("Step (g)").fill(step);
+  await add.getByRole("button", { name: "Add the scale" }).click();
+  const card = page.getByRole("listitem", { name });
+  await card.waitFor();
+  return card;
+}
+
 /** Goes to a member screen through the tab bar (a client-side move, as a member's thumb would). */
 export async function tab(page: Page, name: "Today" | "Finds" | "Outings" | "Map" | "Sync") {
   await page.getByRole("navigation", { name: "Field" }).getByRole("link", { name, exact: true }).click();
