@@ -55,6 +55,11 @@ export type LocalPrice = { id: string; effectiveOn: string; pricePerTroyOunce: n
 
 export type Setting = { key: string; value: unknown };
 export type Meta = { key: string; value: unknown };
+/**
+ * Meta key, set while a device's first copy of the logbook is part-way through its pull pages
+ * (applyPullPage): screens that wait for the copy keep waiting until the last page.
+ */
+export const FIRST_COPY_UNFINISHED = "firstCopyUnfinished";
 
 export class LodebookDb extends Dexie {
   outings!: EntityTable<LocalOuting, "id">;

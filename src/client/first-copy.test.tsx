@@ -103,6 +103,36 @@ describe("a screen on a device that has never synced", () => {
   });
 });
 
+describe("a screen on a device whose first copy takes several pull pages", () => {
+  const scaleChange = (name: string, seq: number) => ({ seq, entity: "scale" as const, op: "put" as const, value: scale(name) });
+
+  it("waits through every page, and shows the whole copy at once after the last", async () => {
+    const { applyPullPage } = await import("./sync/apply-pull");
+    render(<Scales />);
+    setStatus({ kind: "syncing", phase: "receiving", done: 0, total: 1, bytesDone: 0, bytesTotal: 0 });
+    await act(() => applyPullPage(db, [scaleChange("Pocket scale", 1)], 500, 0, true));
+    await settle();
+    expect(shown()).toBe("waiting");
+    await act(() => applyPullPage(db, [scaleChange("Bench scale", 501)], 1000, 0, true));
+    await settle();
+    expect(shown()).toBe("waiting");
+    await act(() => applyPullPage(db, [scaleChange("Spring scale", 1001)], 1200, 0, false));
+    await waitFor(() => expect(shown()).toBe("Bench scale,Pocket scale,Spring scale"));
+    // Never a part of the copy on the way.
+    expect(new Set(drawn)).toEqual(new Set(["waiting", "Bench scale,Pocket scale,Spring scale"]));
+  });
+
+  it("shows what came if the sync ends part-way (the signal lost between pages)", async () => {
+    const { applyPullPage } = await import("./sync/apply-pull");
+    render(<Scales />);
+    await act(() => applyPullPage(db, [scaleChange("Pocket scale", 1)], 500, 0, true));
+    await settle();
+    expect(shown()).toBe("waiting");
+    setStatus({ kind: "offline", waiting: 0, rejected: 0, lastSyncedAt: null });
+    await waitFor(() => expect(shown()).toBe("Pocket scale"));
+  });
+});
+
 describe("a screen on a device that holds its copy", () => {
   it("shows its records at once, before any sync of this visit", async () => {
     await db.meta.put({ key: "cursor", value: 40 });

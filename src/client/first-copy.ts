@@ -1,6 +1,6 @@
 "use client";
 import { useSyncExternalStore } from "react";
-import type { LodebookDb } from "./device-db";
+import { FIRST_COPY_UNFINISHED, type LodebookDb } from "./device-db";
 import { useLiveQuery } from "./live-query";
 import { syncStatus, type SyncStatus } from "./sync/status";
 
@@ -29,14 +29,16 @@ const subscribe = (onChange: () => void) => {
 const hasGivenUp = () => gaveUp;
 const notOnServer = () => false;
 
-// The devices seen holding their copy. The cursor is never deleted (a resync sets it to 0), so
-// once seen it need not be read again: a live query that kept reading it would run the screen's
-// whole read again after every sync, whose pull writes the cursor even when nothing changed.
+// The devices seen holding their copy. The cursor is never deleted (a resync sets it to 0), and
+// a copy once whole is never marked unfinished again, so once seen it need not be read again: a
+// live query that kept reading them would run the screen's whole read again after every sync,
+// whose pull writes the cursor even when nothing changed.
 const copied = new WeakSet<LodebookDb>();
 
 async function holdsCopy(db: LodebookDb): Promise<boolean> {
   if (copied.has(db)) return true;
-  if ((await db.meta.get("cursor")) === undefined) return false;
+  const [cursor, unfinished] = await db.meta.bulkGet(["cursor", FIRST_COPY_UNFINISHED]);
+  if (cursor === undefined || unfinished !== undefined) return false;
   copied.add(db);
   return true;
 }
@@ -48,8 +50,9 @@ async function holdsCopy(db: LodebookDb): Promise<boolean> {
  * records arrived a moment later above the screen's form, pushing it down the screen under the
  * member's thumb. The copy is there once a pull has stored its cursor (stored with the pulled
  * records in one transaction, and read here before the screen's own read, so a cursor seen
- * means those records are seen too), or a sync has ended without one (no signal, an error):
- * then the screen says what the device has, which may be nothing yet.
+ * means those records are seen too) and its last page (a first copy of several pages is marked
+ * unfinished until then), or a sync has ended without it (no signal, an error): then the
+ * screen says what the device has, which may be nothing yet.
  *
  * `enough` (optional) says an answer may show before the copy: a record page whose record is
  * already on the device (saved on it while the first pull ran) shows it; only "not on this

@@ -1,7 +1,8 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { DB_VERSION, LodebookDb, whenNewerSchema } from "@/client/device-db";
+import { DB_VERSION, FIRST_COPY_UNFINISHED, LodebookDb, whenNewerSchema } from "@/client/device-db";
 import { deleteFind, newId, saveFind } from "@/client/logbook";
 import { syncOnce } from "@/client/sync/engine";
+import { DEFAULT_PULL_LIMIT } from "@/lib/sync/version";
 import type { Db } from "@/server/db";
 import { purgeTombstones } from "@/server/sync/tombstones";
 import { fetchToSyncHandlers, newFind } from "../support/sync-client";
@@ -101,6 +102,27 @@ describe("a device away longer than deletions are kept (RELIABILITY 12)", () => 
     expect(calls.filter((c) => c.includes("cursor=0&"))).toHaveLength(0);
     expect(await phone.finds.count()).toBe(before);
   });
+});
+
+describe("a new device's first copy over several pull pages", () => {
+  it("is marked unfinished after its first page and whole after its last, which the screens wait for", async () => {
+    const phone = device("phone");
+    for (let i = 0; i <= DEFAULT_PULL_LIMIT; i++) await saveFind(phone, newFind());
+    await sync(phone);
+    // A new phone: each page's end is seen through the meta table's writes.
+    const tablet = device("tablet");
+    const marks: string[] = [];
+    tablet.meta.hook("creating", (key) => void marks.push(`set ${String(key)}`));
+    tablet.meta.hook("deleting", (key) => void marks.push(`cleared ${String(key)}`));
+    await sync(tablet);
+    expect(marks.filter((m) => m.endsWith(FIRST_COPY_UNFINISHED))).toEqual([`set ${FIRST_COPY_UNFINISHED}`, `cleared ${FIRST_COPY_UNFINISHED}`]);
+    expect(await tablet.meta.get(FIRST_COPY_UNFINISHED)).toBeUndefined();
+    expect(await deviceFindIds(tablet)).toEqual(serverFindIds());
+    // Its next sync (one page) marks nothing.
+    marks.length = 0;
+    await sync(tablet);
+    expect(marks.filter((m) => m.endsWith(FIRST_COPY_UNFINISHED))).toEqual([]);
+  }, 60_000);
 });
 
 /** The next app version as it will look: one more schema version with an upgrade step. */

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from "vitest";
-import { LodebookDb } from "../device-db";
+import { FIRST_COPY_UNFINISHED, LodebookDb } from "../device-db";
 import { newId } from "../logbook";
 import { applyPullPage } from "./apply-pull";
 import type { PullChange } from "@/lib/sync/protocol";
@@ -82,5 +82,38 @@ describe("a pull page", () => {
     expect(local?.uploaded).toBe(0);
     await applyPullPage(db, [put("photo", { ...photo, stored: true })], 2, 0);
     expect((await db.photos.get(id))?.uploaded).toBe(1);
+  });
+});
+
+describe("a device's first copy over several pages", () => {
+  const unfinished = async (db: LodebookDb) => (await db.meta.get(FIRST_COPY_UNFINISHED)) !== undefined;
+
+  it("is marked unfinished from its first page to its last, in the pages' own transactions", async () => {
+    const db = device();
+    await applyPullPage(db, [put("find", find(newId(), "page one"))], 500, 0, true);
+    expect(await unfinished(db)).toBe(true);
+    await applyPullPage(db, [put("find", find(newId(), "page two"))], 1000, 0, true);
+    expect(await unfinished(db)).toBe(true);
+    await applyPullPage(db, [put("find", find(newId(), "last page"))], 1200, 0, false);
+    expect(await unfinished(db)).toBe(false);
+    expect(await db.finds.count()).toBe(3);
+    expect((await db.meta.get("cursor"))?.value).toBe(1200);
+  });
+
+  it("is never marked on a device that already holds a cursor: a device in the field, a resync from 0", async () => {
+    const fielded = device();
+    await fielded.meta.put({ key: "cursor", value: 40 });
+    await applyPullPage(fielded, [put("find", find(newId(), "many new"))], 540, 0, true);
+    expect(await unfinished(fielded)).toBe(false);
+    const resyncing = device();
+    await resyncing.meta.put({ key: "cursor", value: 0 });
+    await applyPullPage(resyncing, [put("find", find(newId(), "again"))], 500, 0, true);
+    expect(await unfinished(resyncing)).toBe(false);
+  });
+
+  it("a one-page first copy is never marked", async () => {
+    const db = device();
+    await applyPullPage(db, [put("find", find(newId(), "all of it"))], 12, 0, false);
+    expect(await unfinished(db)).toBe(false);
   });
 });

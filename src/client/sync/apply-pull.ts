@@ -1,6 +1,6 @@
 import { CLAIM_KEYS, pickRecord } from "@/lib/entities/keys";
 import type { PullChange } from "@/lib/sync/protocol";
-import type { LocalPhoto, LodebookDb, ServerFigure } from "../device-db";
+import { FIRST_COPY_UNFINISHED, type LocalPhoto, type LodebookDb, type ServerFigure } from "../device-db";
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- claims arrive as JSON; the keys are CLAIM_KEYS, held equal to the schema
 const pick = (value: Record<string, unknown>, keys: readonly string[]): any => Object.fromEntries(keys.map((k) => [k, value[k] ?? null]));
@@ -54,12 +54,19 @@ function rowFor(entity: Exclude<PullChange["entity"], "settings">, id: string, v
 /**
  * Applies one pull page and stores its cursor in the same transaction. A record with a change
  * still waiting on this device is left as the device has it: that change goes up next.
+ *
+ * `more` says the server has further pages. A device's first copy that takes several pages is
+ * marked unfinished (FIRST_COPY_UNFINISHED) from its first page to its last, in the same
+ * transactions, so screens waiting for the copy (useQueryOnceCopied) do not draw the first
+ * page's records and then move as the later pages arrive. A device that already held a cursor
+ * (every device in the field, a resync) is never marked.
  */
-export async function applyPullPage(db: LodebookDb, changes: PullChange[], cursor: number, lastMutationId: number): Promise<void> {
+export async function applyPullPage(db: LodebookDb, changes: PullChange[], cursor: number, lastMutationId: number, more = false): Promise<void> {
   await db.transaction(
     "rw",
     [db.outings, db.finds, db.photos, db.weighIns, db.scales, db.barrenRocks, db.claims, db.reviews, db.answers, db.prices, db.outbox, db.meta],
     async () => {
+      const [held, unfinished] = await db.meta.bulkGet(["cursor", FIRST_COPY_UNFINISHED]);
       const pendingIds = new Set((await db.outbox.where("state").equals("pending").toArray()).map((e) => e.entityId));
       // Each table's changes, last one wins per id (as applying them in order would), written
       // with one bulk call per table: a put per record held the main thread for a first pull.
@@ -110,6 +117,8 @@ export async function applyPullPage(db: LodebookDb, changes: PullChange[], curso
         await db.outbox.filter((e) => e.state === "pending" && e.mutationId !== undefined && e.mutationId <= lastMutationId).delete();
       }
       await db.meta.put({ key: "cursor", value: cursor });
+      if (more && held === undefined) await db.meta.put({ key: FIRST_COPY_UNFINISHED, value: true });
+      else if (!more && unfinished) await db.meta.delete(FIRST_COPY_UNFINISHED);
     },
   );
 }

@@ -207,7 +207,7 @@ async function pullChanges(db: LodebookDb, report: Report, bytesDone: number, by
       await beginResync(db);
       continue;
     }
-    await applyPullPage(db, answer.body.changes, answer.body.cursor, answer.body.lastMutationId);
+    await applyPullPage(db, answer.body.changes, answer.body.cursor, answer.body.lastMutationId, answer.body.more);
     received += answer.body.changes.length;
     if (!answer.body.more) break;
   }
