@@ -162,6 +162,23 @@ describe("two tabs of one member (RELIABILITY 9)", () => {
     const db = server();
     expect(db.prepare("select count(*) n from finds where id in (?, ?)").get(a, b)).toEqual({ n: 2 });
     db.close();
+
+    // The tab that does not lead shows the leader's sync and how it ended (its own status
+    // would stay as it was). The first tab's pull is held back, so it keeps the lock.
+    await waitForSyncDone(second);
+    let release = () => {};
+    const holding = new Promise<void>((r) => (release = r));
+    await first.route("**/api/sync/pull*", async (route) => {
+      await holding;
+      await route.continue();
+    });
+    await first.getByRole("button", { name: "Sync now" }).click();
+    const status = (page: Page, kind: string) => page.locator(`[data-testid="sync-status"][data-kind="${kind}"]`).first();
+    await status(first, "syncing").waitFor();
+    await status(second, "syncing").waitFor({ timeout: 10_000 });
+    release();
+    await status(first, "done").waitFor({ timeout: 30_000 });
+    await status(second, "done").waitFor({ timeout: 10_000 });
     await context.close();
   });
 });

@@ -40,6 +40,9 @@ export function afterOutcome(
 // a chunk the service worker precaches, so it is there offline too.
 const loadEngine = () => import("./engine");
 
+/** The leading tab's statuses another tab shows as its own. */
+const FOLLOWED = new Set<SyncStatus["kind"] | undefined>(["idle", "offline", "syncing", "done", "needs-sign-in", "error"]);
+
 type Running = { stop: () => void; request: (options?: SyncOptions) => void };
 /** What the engine's sync takes (kept as a type here, so the engine stays out of the first load). */
 type SyncOptions = { photosNow?: boolean };
@@ -59,6 +62,37 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   let running = false;
   // "Send photos now" holds for the next sync to start (this one, or the one after a running one).
   let photosNow = false;
+  // Only one tab leads a sync. The others show what it is doing and how it ended: their own
+  // status would stay "idle", and a screen waiting for the first copy (first-copy.ts) would
+  // wait on after the leader's first sync ended with no signal. "outdated" is the leader's own
+  // code's, not this tab's, so it stays there.
+  const lockName = `lodebook-sync-${memberId}`;
+  const channel = typeof BroadcastChannel === "undefined" ? null : new BroadcastChannel(lockName);
+  const report = (status: SyncStatus) => {
+    syncStatus.set(status);
+    channel?.postMessage(status);
+  };
+  // A leader closed mid-sync sends no end: once its lock is free, a tab still showing its
+  // "syncing" a moment later (the end message had time to come) syncs itself.
+  let awaitingLeader = false;
+  const outlastLeader = () => {
+    if (awaitingLeader || typeof navigator === "undefined" || !navigator.locks) return;
+    awaitingLeader = true;
+    void navigator.locks
+      .request(lockName, async () => {})
+      .then(() => new Promise((r) => setTimeout(r, 250)))
+      .then(() => {
+        awaitingLeader = false;
+        if (syncStatus.get().kind === "syncing" && !running && !stopped) void run();
+      })
+      .catch(() => (awaitingLeader = false));
+  };
+  if (channel)
+    channel.onmessage = (e: MessageEvent<SyncStatus>) => {
+      if (running || stopped || !FOLLOWED.has(e.data?.kind)) return;
+      syncStatus.set(e.data);
+      if (e.data.kind === "syncing") outlastLeader();
+    };
 
   const run = async () => {
     if (stopped) return;
@@ -72,21 +106,21 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     try {
       const work = async () => {
         const { syncOnce } = await loadEngine();
-        const outcome = await syncOnce(db, memberId, (s) => syncStatus.set(s), options);
+        const outcome = await syncOnce(db, memberId, report, options);
         const next = afterOutcome(outcome, attempt, Date.now(), Math.random, navigator.onLine);
-        syncStatus.set(next.status);
+        report(next.status);
         attempt = next.attempt;
         clearTimeout(retryTimer);
         if (next.waitMs !== null) retryTimer = setTimeout(run, next.waitMs);
       };
       if (typeof navigator !== "undefined" && navigator.locks) {
-        await navigator.locks.request(`lodebook-sync-${memberId}`, { ifAvailable: true }, async (lock) => {
+        await navigator.locks.request(lockName, { ifAvailable: true }, async (lock) => {
           if (lock) await work(); // another tab holds it: that tab is syncing for everyone
         });
       } else await work();
     } catch (error) {
       const next = afterOutcome({ kind: "error", message: error instanceof Error ? error.message : String(error), retryAt: 0, waiting: 0 }, attempt);
-      syncStatus.set(next.status);
+      report(next.status);
       attempt = next.attempt;
       clearTimeout(retryTimer); // one retry waiting, never two chains of them
       retryTimer = setTimeout(run, next.waitMs!);
@@ -125,6 +159,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       window.removeEventListener("online", run);
       document.removeEventListener("visibilitychange", onVisible);
       navigator.serviceWorker?.removeEventListener("message", onMessage);
+      channel?.close();
     },
   };
   return current;
