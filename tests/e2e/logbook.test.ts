@@ -92,7 +92,17 @@ describe("the field logbook with no signal", () => {
     expect(Number(await page.getByTestId("outside-count").textContent())).toBeGreaterThanOrEqual(1);
     await page.screenshot({ path: shotPath("logbook-map-offline-phone"), fullPage: true });
 
-    // Reload: all still there.
+    // Reload: all still there. Every change of the number of rows in the list is recorded from
+    // the page's start: once drawn, the rows never all go (the virtualiser takes over from the
+    // plain first rows with rows of its own, not an empty list until it has measured its box).
+    await page.addInitScript(() => {
+      const counts: number[] = [];
+      Object.assign(window, { __findRows: counts });
+      new MutationObserver(() => {
+        const n = document.querySelectorAll('[data-testid="finds-list"] li a[href^="/finds/view#id="]').length;
+        if (counts[counts.length - 1] !== n) counts.push(n);
+      }).observe(document, { subtree: true, childList: true });
+    });
     await page.goto(`${baseUrl}/finds`);
     const countText = () => page.getByTestId("finds-count").textContent();
     await page.getByTestId("finds-count").waitFor();
@@ -103,6 +113,9 @@ describe("the field logbook with no signal", () => {
     const drawn = await rows.count();
     expect(drawn).toBeGreaterThanOrEqual(Math.min(Number(total), 5));
     expect(drawn).toBeLessThanOrEqual(Number(total));
+    await page.waitForTimeout(500); // the virtualiser's chunk, loaded just after the screen
+    const counts = await page.evaluate(() => (window as unknown as { __findRows: number[] }).__findRows);
+    expect(counts.slice(counts.findIndex((n) => n > 0)), `rows in the list, change by change: ${counts.join(", ")}`).not.toContain(0);
     await page.screenshot({ path: shotPath("logbook-finds-list-phone"), fullPage: true });
     await page.getByRole("searchbox").fill("flakes");
     await page

@@ -17,7 +17,7 @@ const ROW_HEIGHT = 76;
 const FIRST_SCREEN = 12;
 
 // The virtualiser loads just after the screen; the first rows show at once without it.
-type VirtualRowsProps = { data: LocalFind[]; itemSize: number; children: (f: LocalFind) => ReactElement };
+type VirtualRowsProps = { data: LocalFind[]; itemSize: number; firstCount: number; children: (f: LocalFind) => ReactElement };
 const VirtualRows = lazy(() => import("../virtual-rows").then((m) => ({ default: m.VirtualRows as (p: VirtualRowsProps) => ReactElement })));
 
 /** The member's own finds: search, filter, and a list that stays quick with thousands. */
@@ -101,7 +101,7 @@ export function FindsListScreen() {
                 </ul>
               }
             >
-              <VirtualRows data={shown} itemSize={ROW_HEIGHT}>
+              <VirtualRows data={shown} itemSize={ROW_HEIGHT} firstCount={FIRST_SCREEN}>
                 {row}
               </VirtualRows>
             </Suspense>
