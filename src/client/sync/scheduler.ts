@@ -40,8 +40,10 @@ export function afterOutcome(
 // a chunk the service worker precaches, so it is there offline too.
 const loadEngine = () => import("./engine");
 
-/** The leading tab's statuses another tab shows as its own. */
-const FOLLOWED = new Set<SyncStatus["kind"] | undefined>(["idle", "offline", "syncing", "done", "needs-sign-in", "error"]);
+/** The statuses a tab takes from the leading tab's messages (anything else is ignored). */
+const KINDS = new Set<unknown>(["idle", "offline", "syncing", "done", "needs-sign-in", "outdated", "error"]);
+/** How often a tab that does not lead looks whether the leader still holds the sync's lock. */
+export const LEADER_WATCH_MS = 1000;
 
 type Running = { stop: () => void; request: (options?: SyncOptions) => void };
 /** What the engine's sync takes (kept as a type here, so the engine stays out of the first load). */
@@ -62,36 +64,49 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   let running = false;
   // "Send photos now" holds for the next sync to start (this one, or the one after a running one).
   let photosNow = false;
-  // Only one tab leads a sync. The others show what it is doing and how it ended: their own
-  // status would stay "idle", and a screen waiting for the first copy (first-copy.ts) would
-  // wait on after the leader's first sync ended with no signal. "outdated" is the leader's own
-  // code's, not this tab's, so it stays there.
+  // Only one tab leads a sync (the lock). The others show what it is doing and how it ended:
+  // their own status would stay as it was, and a screen waiting for the first copy
+  // (first-copy.ts) would wait on after the leader's first sync ended with no signal.
   const lockName = `lodebook-sync-${memberId}`;
-  const channel = typeof BroadcastChannel === "undefined" ? null : new BroadcastChannel(lockName);
+  let channel = typeof BroadcastChannel === "undefined" ? null : new BroadcastChannel(lockName);
   const report = (status: SyncStatus) => {
     syncStatus.set(status);
-    channel?.postMessage(status);
+    if (!stopped) channel?.postMessage(status);
   };
-  // A leader closed mid-sync sends no end: once its lock is free, a tab still showing its
-  // "syncing" a moment later (the end message had time to come) syncs itself.
-  let awaitingLeader = false;
-  const outlastLeader = () => {
-    if (awaitingLeader || typeof navigator === "undefined" || !navigator.locks) return;
-    awaitingLeader = true;
-    void navigator.locks
-      .request(lockName, async () => {})
-      .then(() => new Promise((r) => setTimeout(r, 250)))
-      .then(() => {
-        awaitingLeader = false;
-        if (syncStatus.get().kind === "syncing" && !running && !stopped) void run();
-      })
-      .catch(() => (awaitingLeader = false));
+  // A sync asked for (after a save, "sync now"), not one of the timer's or the page's own.
+  let asked = false;
+  // While the leader syncs with no end heard yet, or a sync asked for here found the lock taken,
+  // this tab looks whether the lock is still held (asking, never queueing for it: a queued
+  // request would take the lock between the leader's syncs and make its next one give up).
+  // Once it is free: a leader that let go with no end (its tab closed mid-sync), or a sync this
+  // tab wanted, runs here.
+  let leaderSyncing = false;
+  let wanted = false;
+  let watch: ReturnType<typeof setInterval> | undefined;
+  const endWatch = () => {
+    clearInterval(watch);
+    watch = undefined;
+  };
+  const watchLeader = () => {
+    if (watch || typeof navigator === "undefined" || !navigator.locks?.query) return;
+    watch = setInterval(async () => {
+      const held = await navigator.locks.query().then(
+        (q) => (q.held ?? []).some((l) => l.name === lockName),
+        () => true,
+      );
+      if (stopped || !(leaderSyncing || wanted)) return endWatch();
+      if (held) return;
+      endWatch();
+      leaderSyncing = wanted = false;
+      void run();
+    }, LEADER_WATCH_MS);
   };
   if (channel)
     channel.onmessage = (e: MessageEvent<SyncStatus>) => {
-      if (running || stopped || !FOLLOWED.has(e.data?.kind)) return;
+      if (running || stopped || !KINDS.has(e.data?.kind)) return;
       syncStatus.set(e.data);
-      if (e.data.kind === "syncing") outlastLeader();
+      leaderSyncing = e.data.kind === "syncing";
+      if (leaderSyncing) watchLeader();
     };
 
   const run = async () => {
@@ -102,7 +117,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     }
     running = true;
     const options: SyncOptions = { photosNow };
-    photosNow = false;
+    const wish = asked;
+    photosNow = asked = false;
     try {
       const work = async () => {
         const { syncOnce } = await loadEngine();
@@ -115,7 +131,13 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       };
       if (typeof navigator !== "undefined" && navigator.locks) {
         await navigator.locks.request(lockName, { ifAvailable: true }, async (lock) => {
-          if (lock) await work(); // another tab holds it: that tab is syncing for everyone
+          if (lock) await work();
+          else if (wish) {
+            // Another tab holds it and syncs for everyone; a sync asked for here (a change saved
+            // in this tab may have missed that one) runs once the lock is free.
+            wanted = true;
+            watchLeader();
+          }
         });
       } else await work();
     } catch (error) {
@@ -148,6 +170,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   current = {
     request: (options) => {
       if (options?.photosNow) photosNow = true;
+      asked = true;
       void run();
     },
     stop: () => {
@@ -159,7 +182,9 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       window.removeEventListener("online", run);
       document.removeEventListener("visibilitychange", onVisible);
       navigator.serviceWorker?.removeEventListener("message", onMessage);
+      endWatch();
       channel?.close();
+      channel = null;
     },
   };
   return current;

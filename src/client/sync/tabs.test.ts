@@ -5,26 +5,32 @@ import type { SyncStatus } from "./status";
 
 // Two tabs of one member: one leads the sync (Web Locks), and the other shows what it does and
 // how it ended. Each tab is its own copy of the scheduler and status modules, as in two pages;
-// the engine is stood in for, so each test says what the leader's sync does.
+// the engine is stood in for, so each test says what a sync does.
 
 vi.mock("../first-paint", () => ({ afterFirstPaint: () => () => {} }));
-const engine = vi.hoisted(() => ({ syncOnce: (() => Promise.reject(new Error("set by the test"))) as (...args: unknown[]) => Promise<SyncStatus> }));
-vi.mock("./engine", () => ({ syncOnce: (...args: unknown[]) => engine.syncOnce(...args) }));
+type Report = (s: SyncStatus) => void;
+const engine = vi.hoisted(() => ({
+  syncOnce: (() => Promise.reject(new Error("set by the test"))) as (db: unknown, member: unknown, report: Report) => Promise<SyncStatus>,
+}));
+vi.mock("./engine", () => ({ syncOnce: (db: unknown, member: unknown, report: Report) => engine.syncOnce(db, member, report) }));
 
 type Tab = { status: () => SyncStatus; request: () => void; stop: () => void };
 let held = false;
 let waiters: (() => void)[] = [];
+let watchMs = 0;
 const tabs: Tab[] = [];
 /** Lets the lock go as a closed tab does: no end to its work, the next in line gets it. */
 const dropLock = () => {
   held = false;
   waiters.shift()?.();
 };
+const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function openTab(): Promise<Tab> {
   vi.resetModules();
-  const { startSync } = await import("./scheduler");
+  const { startSync, LEADER_WATCH_MS } = await import("./scheduler");
   const { syncStatus } = await import("./status");
+  watchMs = LEADER_WATCH_MS;
   const running = startSync({} as LodebookDb, "member-1");
   const tab = { status: syncStatus.get, request: () => running.request(), stop: running.stop };
   tabs.push(tab);
@@ -39,7 +45,7 @@ beforeEach(() => {
   Object.defineProperty(navigator, "locks", {
     configurable: true,
     value: {
-      request: async (_name: string, ...rest: unknown[]) => {
+      request: async (name: string, ...rest: unknown[]) => {
         const [options, work] = (rest.length === 1 ? [{}, rest[0]] : rest) as [{ ifAvailable?: boolean }, (lock: object | null) => Promise<void>];
         if (held) {
           if (options.ifAvailable) return work(null);
@@ -47,11 +53,12 @@ beforeEach(() => {
         }
         held = true;
         try {
-          return await work({});
+          return await work({ name });
         } finally {
           dropLock();
         }
       },
+      query: async () => ({ held: held ? [{ name: "lodebook-sync-member-1", mode: "exclusive" }] : [], pending: [] }),
     },
   });
 });
@@ -61,84 +68,124 @@ afterEach(() => {
 });
 
 const receiving: SyncStatus = { kind: "syncing", phase: "receiving", done: 0, total: 1, bytesDone: 0, bytesTotal: 0 };
+const done = (at: number): SyncStatus => ({ kind: "done", at, sent: 0, received: 0, rejected: 0 });
+
+/** A sync that reports "receiving" and then waits for the test to end it with `outcome`. */
+function heldSync(outcome: SyncStatus) {
+  const ends: (() => void)[] = [];
+  let calls = 0;
+  engine.syncOnce = async (_db, _member, report) => {
+    calls++;
+    report(receiving);
+    await new Promise<void>((r) => ends.push(r));
+    return outcome;
+  };
+  return { end: () => ends.shift()?.(), calls: () => calls };
+}
 
 describe("a tab that does not lead the sync", () => {
   it("shows the leader's progress and how its sync ended: no signal", async () => {
-    let end!: () => void;
-    engine.syncOnce = async (_db, _member, report) => {
-      (report as (s: SyncStatus) => void)(receiving);
-      await new Promise<void>((r) => (end = r));
-      return { kind: "offline", waiting: 2, rejected: 0, lastSyncedAt: null };
-    };
+    const offline: SyncStatus = { kind: "offline", waiting: 2, rejected: 0, lastSyncedAt: null };
+    const sync = heldSync(offline);
     const leader = await openTab();
     const follower = await openTab();
     leader.request();
-    await vi.waitFor(() => expect(leader.status().kind).toBe("syncing"));
-    follower.request(); // the lock is taken: this tab does not sync itself
     await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
-    end();
-    await vi.waitFor(() => expect(leader.status().kind).toBe("offline"));
-    await vi.waitFor(() => expect(follower.status()).toEqual({ kind: "offline", waiting: 2, rejected: 0, lastSyncedAt: null }));
+    follower.request(); // the lock is taken: this tab does not sync at the same time
+    await pause(watchMs / 2);
+    expect(sync.calls()).toBe(1);
+    sync.end();
+    await vi.waitFor(() => expect(leader.status()).toEqual(offline));
+    await vi.waitFor(() => expect(follower.status()).toEqual(offline));
   });
 
-  it("keeps its own word when the leader's code is out of date", async () => {
-    engine.syncOnce = async () => ({ kind: "outdated", waiting: 0 });
+  it("shows an 'outdated' end too, and neither tab starts another sync", async () => {
+    const sync = heldSync({ kind: "outdated", waiting: 0 });
     const leader = await openTab();
     const follower = await openTab();
     leader.request();
-    await vi.waitFor(() => expect(leader.status().kind).toBe("outdated"));
-    // Give the message time to arrive, had it been sent on.
-    await new Promise((r) => setTimeout(r, 50));
-    expect(follower.status().kind).toBe("idle");
+    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    sync.end();
+    await vi.waitFor(() => expect(follower.status().kind).toBe("outdated"));
+    await pause(watchMs * 2.5);
+    expect(sync.calls()).toBe(1);
+    expect(leader.status().kind).toBe("outdated");
+  });
+
+  it("does not sync again after a leader that ended well", async () => {
+    const sync = heldSync(done(3));
+    const leader = await openTab();
+    const follower = await openTab();
+    leader.request();
+    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    sync.end();
+    await vi.waitFor(() => expect(follower.status()).toEqual(done(3)));
+    await pause(watchMs * 2.5);
+    expect(sync.calls()).toBe(1);
+  });
+
+  it("syncs itself when the leader is closed mid-sync: no end came, and the lock is free", async () => {
+    const sync = heldSync(done(2));
+    const leader = await openTab();
+    const follower = await openTab();
+    leader.request();
+    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    leader.stop();
+    dropLock(); // the leader's tab is gone: its sync never ends
+    await vi.waitFor(() => expect(sync.calls()).toBe(2), { timeout: watchMs * 3 });
+    sync.end(); // the closed leader's
+    sync.end(); // the follower's own
+    await vi.waitFor(() => expect(follower.status()).toEqual(done(2)));
+  });
+
+  it("a sync asked for here while the leader syncs runs once the leader is done", async () => {
+    const sync = heldSync(done(4));
+    const leader = await openTab();
+    const follower = await openTab();
+    leader.request();
+    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    follower.request(); // a find saved in this tab, say
+    sync.end();
+    await vi.waitFor(() => expect(sync.calls()).toBe(2), { timeout: watchMs * 3 });
+    sync.end();
+    await vi.waitFor(() => expect(follower.status()).toEqual(done(4)));
   });
 
   it("stops hearing the leader once stopped (signed out)", async () => {
-    engine.syncOnce = async () => ({ kind: "done", at: 1, sent: 0, received: 3, rejected: 0 });
+    engine.syncOnce = async () => done(1);
     const leader = await openTab();
     const follower = await openTab();
     follower.stop();
     leader.request();
     await vi.waitFor(() => expect(leader.status().kind).toBe("done"));
-    await new Promise((r) => setTimeout(r, 50));
+    await pause(50);
     expect(follower.status().kind).toBe("idle");
   });
+});
 
-  it("syncs itself when the leader is closed mid-sync: no end came, and the lock is free", async () => {
-    let calls = 0;
-    engine.syncOnce = async (_db, _member, report) => {
-      if (++calls === 1) {
-        (report as (s: SyncStatus) => void)(receiving);
-        return new Promise<SyncStatus>(() => {}); // the leader's tab closes before its end
-      }
-      return { kind: "done", at: 2, sent: 0, received: 1, rejected: 0 };
-    };
+describe("the leading tab", () => {
+  it("runs the sync asked for during its own, though another tab is watching the lock", async () => {
+    const sync = heldSync(done(5));
     const leader = await openTab();
-    const follower = await openTab();
+    await openTab(); // watches while the leader syncs
     leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
-    expect(calls).toBe(1);
-    leader.stop();
-    dropLock();
-    await vi.waitFor(() => expect(follower.status()).toEqual({ kind: "done", at: 2, sent: 0, received: 1, rejected: 0 }));
-    expect(calls).toBe(2);
+    await vi.waitFor(() => expect(sync.calls()).toBe(1));
+    leader.request(); // asked again mid-sync: it runs after this one
+    sync.end();
+    await vi.waitFor(() => expect(sync.calls()).toBe(2));
+    sync.end();
+    await vi.waitFor(() => expect(leader.status()).toEqual(done(5)));
   });
 
-  it("does not sync again after a leader that ended well", async () => {
-    let calls = 0;
-    let end!: () => void;
-    engine.syncOnce = async (_db, _member, report) => {
-      calls++;
-      (report as (s: SyncStatus) => void)(receiving);
-      await new Promise<void>((r) => (end = r));
-      return { kind: "done", at: 3, sent: 0, received: 0, rejected: 0 };
-    };
+  it("stopped mid-sync (signed out), its sync goes on reporting without throwing", async () => {
+    const sync = heldSync(done(6));
     const leader = await openTab();
     const follower = await openTab();
     leader.request();
     await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
-    end();
-    await vi.waitFor(() => expect(follower.status().kind).toBe("done"));
-    await new Promise((r) => setTimeout(r, 400));
-    expect(calls).toBe(1);
+    leader.stop();
+    sync.end();
+    await vi.waitFor(() => expect(leader.status()).toEqual(done(6)));
+    expect(follower.status()).toEqual(receiving);
   });
 });
