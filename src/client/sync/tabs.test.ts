@@ -83,14 +83,20 @@ function heldSync(outcome: SyncStatus) {
   return { end: () => ends.shift()?.(), calls: () => calls };
 }
 
+/** Two tabs, the first leading a held sync that ends with `outcome`, the second showing it. */
+async function leaderSyncing(outcome: SyncStatus) {
+  const sync = heldSync(outcome);
+  const leader = await openTab();
+  const follower = await openTab();
+  leader.request();
+  await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+  return { sync, leader, follower };
+}
+
 describe("a tab that does not lead the sync", () => {
   it("shows the leader's progress and how its sync ended: no signal", async () => {
     const offline: SyncStatus = { kind: "offline", waiting: 2, rejected: 0, lastSyncedAt: null };
-    const sync = heldSync(offline);
-    const leader = await openTab();
-    const follower = await openTab();
-    leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    const { sync, leader, follower } = await leaderSyncing(offline);
     follower.request(); // the lock is taken: this tab does not sync at the same time
     await pause(watchMs / 2);
     expect(sync.calls()).toBe(1);
@@ -100,11 +106,7 @@ describe("a tab that does not lead the sync", () => {
   });
 
   it("shows an 'outdated' end too, and neither tab starts another sync", async () => {
-    const sync = heldSync({ kind: "outdated", waiting: 0 });
-    const leader = await openTab();
-    const follower = await openTab();
-    leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    const { sync, leader, follower } = await leaderSyncing({ kind: "outdated", waiting: 0 });
     sync.end();
     await vi.waitFor(() => expect(follower.status().kind).toBe("outdated"));
     await pause(watchMs * 2.5);
@@ -113,11 +115,7 @@ describe("a tab that does not lead the sync", () => {
   });
 
   it("does not sync again after a leader that ended well", async () => {
-    const sync = heldSync(done(3));
-    const leader = await openTab();
-    const follower = await openTab();
-    leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    const { sync, follower } = await leaderSyncing(done(3));
     sync.end();
     await vi.waitFor(() => expect(follower.status()).toEqual(done(3)));
     await pause(watchMs * 2.5);
@@ -125,11 +123,7 @@ describe("a tab that does not lead the sync", () => {
   });
 
   it("syncs itself when the leader is closed mid-sync: no end came, and the lock is free", async () => {
-    const sync = heldSync(done(2));
-    const leader = await openTab();
-    const follower = await openTab();
-    leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    const { sync, leader, follower } = await leaderSyncing(done(2));
     leader.stop();
     dropLock(); // the leader's tab is gone: its sync never ends
     await vi.waitFor(() => expect(sync.calls()).toBe(2), { timeout: watchMs * 3 });
@@ -139,11 +133,7 @@ describe("a tab that does not lead the sync", () => {
   });
 
   it("a sync asked for here while the leader syncs runs once the leader is done", async () => {
-    const sync = heldSync(done(4));
-    const leader = await openTab();
-    const follower = await openTab();
-    leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    const { sync, follower } = await leaderSyncing(done(4));
     follower.request(); // a find saved in this tab, say
     sync.end();
     await vi.waitFor(() => expect(sync.calls()).toBe(2), { timeout: watchMs * 3 });
@@ -178,11 +168,7 @@ describe("the leading tab", () => {
   });
 
   it("stopped mid-sync (signed out), its sync goes on reporting without throwing", async () => {
-    const sync = heldSync(done(6));
-    const leader = await openTab();
-    const follower = await openTab();
-    leader.request();
-    await vi.waitFor(() => expect(follower.status()).toEqual(receiving));
+    const { sync, leader, follower } = await leaderSyncing(done(6));
     leader.stop();
     sync.end();
     await vi.waitFor(() => expect(leader.status()).toEqual(done(6)));
