@@ -134,8 +134,10 @@ export function startSync(db: LodebookDb, memberId: string): Running {
           if (lock) await work();
           else if (wish) {
             // Another tab holds it and syncs for everyone; a sync asked for here (a change saved
-            // in this tab may have missed that one) runs once the lock is free.
+            // in this tab may have missed that one) runs once the lock is free, "send photos
+            // now" kept for it.
             wanted = true;
+            if (options.photosNow) photosNow = true;
             watchLeader();
           }
         });

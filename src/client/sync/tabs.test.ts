@@ -9,12 +9,15 @@ import type { SyncStatus } from "./status";
 
 vi.mock("../first-paint", () => ({ afterFirstPaint: () => () => {} }));
 type Report = (s: SyncStatus) => void;
+type Options = { photosNow?: boolean };
 const engine = vi.hoisted(() => ({
-  syncOnce: (() => Promise.reject(new Error("set by the test"))) as (db: unknown, member: unknown, report: Report) => Promise<SyncStatus>,
+  syncOnce: (() => Promise.reject(new Error("set by the test"))) as (db: unknown, member: unknown, report: Report, options: Options) => Promise<SyncStatus>,
 }));
-vi.mock("./engine", () => ({ syncOnce: (db: unknown, member: unknown, report: Report) => engine.syncOnce(db, member, report) }));
+vi.mock("./engine", () => ({
+  syncOnce: (db: unknown, member: unknown, report: Report, options: Options) => engine.syncOnce(db, member, report, options),
+}));
 
-type Tab = { status: () => SyncStatus; request: () => void; stop: () => void };
+type Tab = { status: () => SyncStatus; request: (options?: { photosNow?: boolean }) => void; stop: () => void };
 let held = false;
 let waiters: (() => void)[] = [];
 let watchMs = 0;
@@ -32,7 +35,7 @@ async function openTab(): Promise<Tab> {
   const { syncStatus } = await import("./status");
   watchMs = LEADER_WATCH_MS;
   const running = startSync({} as LodebookDb, "member-1");
-  const tab = { status: syncStatus.get, request: () => running.request(), stop: running.stop };
+  const tab = { status: syncStatus.get, request: running.request, stop: running.stop };
   tabs.push(tab);
   return tab;
 }
@@ -73,14 +76,16 @@ const done = (at: number): SyncStatus => ({ kind: "done", at, sent: 0, received:
 /** A sync that reports "receiving" and then waits for the test to end it with `outcome`. */
 function heldSync(outcome: SyncStatus) {
   const ends: (() => void)[] = [];
+  const asked: Options[] = [];
   let calls = 0;
-  engine.syncOnce = async (_db, _member, report) => {
+  engine.syncOnce = async (_db, _member, report, options) => {
     calls++;
+    asked.push(options);
     report(receiving);
     await new Promise<void>((r) => ends.push(r));
     return outcome;
   };
-  return { end: () => ends.shift()?.(), calls: () => calls };
+  return { end: () => ends.shift()?.(), calls: () => calls, options: () => asked };
 }
 
 /** Two tabs, the first leading a held sync that ends with `outcome`, the second showing it. */
@@ -132,11 +137,12 @@ describe("a tab that does not lead the sync", () => {
     await vi.waitFor(() => expect(follower.status()).toEqual(done(2)));
   });
 
-  it("a sync asked for here while the leader syncs runs once the leader is done", async () => {
+  it("a sync asked for here while the leader syncs runs once the leader is done, its 'send photos now' kept", async () => {
     const { sync, follower } = await leaderSyncing(done(4));
-    follower.request(); // a find saved in this tab, say
+    follower.request({ photosNow: true }); // "send photos now" pressed in this tab
     sync.end();
     await vi.waitFor(() => expect(sync.calls()).toBe(2), { timeout: watchMs * 3 });
+    expect(sync.options()[1]).toEqual({ photosNow: true });
     sync.end();
     await vi.waitFor(() => expect(follower.status()).toEqual(done(4)));
   });
