@@ -113,7 +113,8 @@ describe("the field logbook with no signal", () => {
     const drawn = await rows.count();
     expect(drawn).toBeGreaterThanOrEqual(Math.min(Number(total), 5));
     expect(drawn).toBeLessThanOrEqual(Number(total));
-    await page.waitForTimeout(500); // the virtualiser's chunk, loaded just after the screen
+    // The virtualiser's own rows (placed by it, once it has measured its box), loaded just after the screen.
+    await page.locator('[data-testid="finds-list"] li[style*="position: absolute"]').first().waitFor();
     const counts = await page.evaluate(() => (window as unknown as { __findRows: number[] }).__findRows);
     expect(counts.slice(counts.findIndex((n) => n > 0)), `rows in the list, change by change: ${counts.join(", ")}`).not.toContain(0);
     await page.screenshot({ path: shotPath("logbook-finds-list-phone"), fullPage: true });

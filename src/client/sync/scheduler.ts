@@ -40,8 +40,10 @@ export function afterOutcome(
 // a chunk the service worker precaches, so it is there offline too.
 const loadEngine = () => import("./engine");
 
-/** The statuses a tab takes from the leading tab's messages (anything else is ignored). */
-const KINDS = new Set<unknown>(["idle", "offline", "syncing", "done", "needs-sign-in", "outdated", "error"]);
+/** The statuses a tab takes from the leading tab's messages (anything else is ignored): every kind, the compiler holds it so. */
+const KINDS: Record<SyncStatus["kind"], true> = { idle: true, offline: true, syncing: true, done: true, "needs-sign-in": true, outdated: true, error: true };
+const isStatus = (data: unknown): data is SyncStatus =>
+  typeof data === "object" && data !== null && Object.hasOwn(KINDS, (data as { kind?: unknown }).kind as PropertyKey);
 /** How often a tab that does not lead looks whether the leader still holds the sync's lock. */
 export const LEADER_WATCH_MS = 1000;
 
@@ -68,7 +70,7 @@ export function startSync(db: LodebookDb, memberId: string): Running {
   // their own status would stay as it was, and a screen waiting for the first copy
   // (first-copy.ts) would wait on after the leader's first sync ended with no signal.
   const lockName = `lodebook-sync-${memberId}`;
-  let channel = typeof BroadcastChannel === "undefined" ? null : new BroadcastChannel(lockName);
+  const channel = typeof BroadcastChannel === "undefined" ? null : new BroadcastChannel(lockName);
   const report = (status: SyncStatus) => {
     syncStatus.set(status);
     if (!stopped) channel?.postMessage(status);
@@ -102,8 +104,8 @@ export function startSync(db: LodebookDb, memberId: string): Running {
     }, LEADER_WATCH_MS);
   };
   if (channel)
-    channel.onmessage = (e: MessageEvent<SyncStatus>) => {
-      if (running || stopped || !KINDS.has(e.data?.kind)) return;
+    channel.onmessage = (e: MessageEvent<unknown>) => {
+      if (running || stopped || !isStatus(e.data)) return;
       syncStatus.set(e.data);
       leaderSyncing = e.data.kind === "syncing";
       if (leaderSyncing) watchLeader();
@@ -186,7 +188,6 @@ export function startSync(db: LodebookDb, memberId: string): Running {
       navigator.serviceWorker?.removeEventListener("message", onMessage);
       endWatch();
       channel?.close();
-      channel = null;
     },
   };
   return current;
